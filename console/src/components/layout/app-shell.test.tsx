@@ -1,0 +1,65 @@
+import { screen, within } from '@testing-library/react';
+import { beforeEach, describe, expect, it, vi } from 'vitest';
+import { primaryNav } from '@/config/paths';
+import { jsonResponse, renderApp } from '@/test/render';
+
+beforeEach(() => {
+  vi.stubGlobal(
+    'fetch',
+    vi.fn(async () => jsonResponse({ status: 'ok', info: { database: { status: 'up' } } })),
+  );
+});
+
+describe('app shell', () => {
+  it('renders every section of the primary navigation as a link with its path', async () => {
+    renderApp('/');
+    const nav = screen.getByRole('navigation', { name: 'Primary' });
+    const links = within(nav).getAllByRole('link');
+    expect(links.map((link) => [link.textContent, link.getAttribute('href')])).toEqual([
+      ['Overview', '/'],
+      ['Keys', '/keys'],
+      ['Usage', '/usage'],
+      ['Playground', '/playground'],
+      ['Setups', '/setups'],
+      ['Gear', '/gear'],
+      ['Team', '/team'],
+      ['Billing', '/billing'],
+    ]);
+    expect(await screen.findByRole('heading', { level: 1, name: 'Overview' })).toBeTruthy();
+  });
+
+  it.each(primaryNav.map((entry) => [entry.to, entry.label] as const))(
+    '%s shows one h1 and marks its nav link as the current page',
+    async (path, label) => {
+      renderApp(path);
+      const heading = await screen.findByRole('heading', { level: 1 });
+      expect(heading.textContent).toBe(label);
+      expect(screen.getAllByRole('heading', { level: 1 })).toHaveLength(1);
+      const nav = screen.getByRole('navigation', { name: 'Primary' });
+      const current = within(nav).getByRole('link', { current: 'page' });
+      expect(current.textContent).toBe(label);
+    },
+  );
+
+  it('shows a 404 page with a heading for unknown addresses, inside the shell', async () => {
+    renderApp('/no-such-place');
+    expect(await screen.findByRole('heading', { level: 1, name: 'Page not found' })).toBeTruthy();
+    expect(screen.getByRole('navigation', { name: 'Primary' })).toBeTruthy();
+  });
+
+  it.each([
+    ['/sign-in', 'Sign in'],
+    ['/sign-up', 'Create a studio account'],
+  ])('%s has its own heading and no app navigation', async (path, title) => {
+    renderApp(path);
+    expect(await screen.findByRole('heading', { level: 1, name: title })).toBeTruthy();
+    expect(screen.queryByRole('navigation', { name: 'Primary' })).toBeNull();
+  });
+
+  it('offers a skip link to the main content', () => {
+    renderApp('/');
+    const skip = screen.getByRole('link', { name: 'Skip to content' });
+    expect(skip.getAttribute('href')).toBe('#main');
+    expect(document.getElementById('main')?.tagName).toBe('MAIN');
+  });
+});

@@ -1,0 +1,57 @@
+import { Suspense, useId, useState } from 'react';
+import { Outlet } from 'react-router-dom';
+import { PageLoading } from '@/components/ui/page-loading';
+import { Brand } from './brand';
+import { PrimaryNav } from './primary-nav';
+import { ThemeToggle } from './theme-toggle';
+
+interface AppShellProps {
+  /** The API status badge, passed in by the app so layout stays free of features. */
+  status?: React.ReactNode;
+}
+
+export function AppShell({ status }: AppShellProps) {
+  const [menuOpen, setMenuOpen] = useState(false);
+  const navId = useId();
+
+  return (
+    <div className="min-h-dvh md:grid md:grid-cols-[var(--spacing-rail)_1fr]">
+      <a
+        href="#main"
+        className="sr-only focus:not-sr-only focus:fixed focus:top-2 focus:left-2 focus:z-50 focus:rounded-control focus:bg-panel focus:px-3 focus:py-2"
+      >
+        Skip to content
+      </a>
+      <aside className="border-edge bg-panel md:sticky md:top-0 md:flex md:h-dvh md:flex-col md:border-r">
+        <div className="flex items-center justify-between gap-3 border-b border-edge px-4 py-3 md:border-b-0 md:py-5">
+          <Brand />
+          <button
+            type="button"
+            className="rounded-control border border-edge-strong px-3 py-1.5 text-small font-medium text-ink md:hidden"
+            aria-expanded={menuOpen}
+            aria-controls={navId}
+            onClick={() => setMenuOpen((open) => !open)}
+          >
+            {menuOpen ? 'Close menu' : 'Menu'}
+          </button>
+        </div>
+        <PrimaryNav
+          id={navId}
+          onNavigate={() => setMenuOpen(false)}
+          className={`${menuOpen ? 'block' : 'hidden'} border-b border-edge px-3 pb-3 md:block md:flex-1 md:border-b-0 md:overflow-y-auto`}
+        />
+        <div
+          className={`${menuOpen ? 'flex' : 'hidden'} flex-col gap-3 border-b border-edge px-4 py-3 md:flex md:border-t md:border-b-0`}
+        >
+          {status}
+          <ThemeToggle />
+        </div>
+      </aside>
+      <main id="main" tabIndex={-1} className="min-w-0 px-4 py-6 outline-none md:px-8 md:py-8">
+        <Suspense fallback={<PageLoading />}>
+          <Outlet />
+        </Suspense>
+      </main>
+    </div>
+  );
+}

@@ -1,0 +1,140 @@
+// Builds the configured application without listening: used by main.ts, the tests and the bins.
+import { randomUUID } from 'node:crypto';
+import fs from 'node:fs';
+import path from 'node:path';
+import { NestFactory } from '@nestjs/core';
+import { FastifyAdapter, NestFastifyApplication } from '@nestjs/platform-fastify';
+import { SwaggerModule } from '@nestjs/swagger';
+import fastifyCors from '@fastify/cors';
+import fastifyHelmet from '@fastify/helmet';
+import fastifyStatic from '@fastify/static';
+import type { FastifyReply, FastifyRequest } from 'fastify';
+import { Logger } from 'nestjs-pino';
+import { AppModule } from './app.module.js';
+import { toProblem } from './common/filters/problem.filter.js';
+import { AppConfig } from './config/config.js';
+import { buildOpenApiDocument } from './openapi.js';
+
+const REQUEST_ID = /^[A-Za-z0-9._:-]{1,128}$/;
+
+export interface CreateAppOptions {
+  /** Build without connecting to the database or opening a port (the spec writer). */
+  preview?: boolean;
+  /** Buffer Nest's own logs until pino is ready (the server); tests pass false. */
+  bufferLogs?: boolean;
+}
+
+export async function createApp(
+  config: AppConfig,
+  opts: CreateAppOptions = {},
+): Promise<NestFastifyApplication> {
+  const adapter = new FastifyAdapter({
+    bodyLimit: config.bodyLimitBytes,
+    requestIdHeader: false,
+    genReqId: (req: { headers: Record<string, string | string[] | undefined> }) => {
+      const given = req.headers['x-request-id'];
+      return typeof given === 'string' && REQUEST_ID.test(given) ? given : randomUUID();
+    },
+    trustProxy: false,
+    allowErrorHandlerOverride: true,
+    routerOptions: { ignoreTrailingSlash: true },
+  });
+  const app = await NestFactory.create<NestFastifyApplication>(AppModule.forRoot(config), adapter, {
+    preview: opts.preview ?? false,
+    logger: opts.preview || config.nodeEnv === 'test' ? false : undefined,
+    bufferLogs: opts.bufferLogs ?? false,
+    abortOnError: false,
+  });
+  if (!opts.preview) app.useLogger(app.get(Logger));
+  app.setGlobalPrefix('v1');
+  app.enableShutdownHooks();
+
+  const fastify = app.getHttpAdapter().getInstance();
+  fastify.addHook('onRequest', async (req, reply) => {
+    void reply.header('X-Request-Id', req.id);
+  });
+  // Errors raised by Fastify itself (body limits, bad JSON) never reach Nest's filters.
+  fastify.setErrorHandler((err, req, reply) => {
+    const { problem, headers } = toProblem(err);
+    problem.instance = req.url.split('?')[0];
+    problem.requestId = String(req.id);
+    if (problem.status >= 500) req.log.error({ err }, 'unhandled error');
+    void reply.headers(headers).status(problem.status).type('application/problem+json').send(problem);
+  });
+
+  const https = config.publicUrl.startsWith('https://');
+  await app.register(fastifyHelmet, {
+    // HSTS and upgrade-insecure-requests only make sense when served over HTTPS.
+    hsts: https ? { maxAge: 31536000, includeSubDomains: true } : false,
+    contentSecurityPolicy: {
+      directives: {
+        upgradeInsecureRequests: https ? [] : null,
+        defaultSrc: ["'self'"],
+        // Swagger UI at /docs runs an inline initialiser.
+        scriptSrc: ["'self'", "'unsafe-inline'"],
+        styleSrc: ["'self'", "'unsafe-inline'"],
+        imgSrc: ["'self'", 'data:', 'blob:'],
+        connectSrc: ["'self'"],
+        fontSrc: ["'self'", 'data:'],
+        objectSrc: ["'none'"],
+        frameAncestors: ["'none'"],
+      },
+    },
+    crossOriginEmbedderPolicy: false,
+  });
+  await app.register(fastifyCors, {
+    origin: config.corsOrigins.length ? config.corsOrigins : false,
+    credentials: false,
+    methods: ['GET', 'POST', 'PUT', 'PATCH', 'DELETE'],
+    allowedHeaders: ['Authorization', 'Content-Type', 'X-Request-Id', 'Idempotency-Key'],
+    exposedHeaders: ['X-Request-Id', 'RateLimit', 'RateLimit-Policy', 'Retry-After'],
+    maxAge: 600,
+  });
+
+  const document = buildOpenApiDocument(app);
+  SwaggerModule.setup('docs', app, document, {
+    useGlobalPrefix: false,
+    jsonDocumentUrl: 'openapi.json',
+    yamlDocumentUrl: 'openapi.yaml',
+    customSiteTitle: 'Lumenwright API',
+  });
+
+  await registerConsole(app, config);
+  return app;
+}
+
+/** Serves the built console at `/`, falling back to index.html for client-side routes. */
+async function registerConsole(app: NestFastifyApplication, config: AppConfig) {
+  const dist = config.consoleDist ? path.resolve(config.consoleDist) : null;
+  const index = dist ? path.join(dist, 'index.html') : null;
+  const fastify = app.getHttpAdapter().getInstance();
+  if (dist && index && fs.existsSync(index)) {
+    await app.register(fastifyStatic, {
+      root: dist,
+      prefix: '/',
+      wildcard: false,
+      index: false,
+      maxAge: '1h',
+      setHeaders: (res, filePath) => {
+        if (filePath.includes(`${path.sep}assets${path.sep}`)) {
+          void res.header('Cache-Control', 'public, max-age=31536000, immutable');
+        }
+      },
+    });
+  }
+  const html = index && fs.existsSync(index) ? fs.readFileSync(index, 'utf8') : null;
+  fastify.get('/*', async (req: FastifyRequest, reply: FastifyReply) => {
+    const p = req.url.split('?')[0] ?? '/';
+    if (p.startsWith('/v1/') || p === '/v1' || p.startsWith('/docs') || !html) {
+      const { problem } = toProblem({ statusCode: 404, message: `No route for GET ${p}` });
+      problem.instance = p;
+      problem.requestId = String(req.id);
+      return reply.status(404).type('application/problem+json').send(problem);
+    }
+    return reply.header('Cache-Control', 'no-cache').type('text/html; charset=utf-8').send(html);
+  });
+  fastify.get('/', async (_req: FastifyRequest, reply: FastifyReply) => {
+    if (!html) return reply.type('text/plain').send('Lumenwright API — see /docs');
+    return reply.header('Cache-Control', 'no-cache').type('text/html; charset=utf-8').send(html);
+  });
+}

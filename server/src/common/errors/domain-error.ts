@@ -1,0 +1,44 @@
+// Domain errors carry a stable code; the problem filter maps each code to an HTTP status.
+export type DomainErrorCode =
+  | 'invalid_input'
+  | 'unauthenticated'
+  | 'forbidden'
+  | 'not_found'
+  | 'conflict'
+  | 'rate_limited'
+  | 'quota_exceeded'
+  | 'payload_too_large'
+  | 'unsupported_media_type'
+  | 'unprocessable'
+  | 'unavailable';
+
+export const STATUS_BY_CODE: Record<DomainErrorCode, number> = {
+  invalid_input: 422,
+  unauthenticated: 401,
+  forbidden: 403,
+  not_found: 404,
+  conflict: 409,
+  rate_limited: 429,
+  quota_exceeded: 429,
+  payload_too_large: 413,
+  unsupported_media_type: 415,
+  unprocessable: 422,
+  unavailable: 503,
+};
+
+export interface FieldProblem {
+  field: string;
+  reason: string;
+}
+
+export class DomainError extends Error {
+  constructor(
+    readonly code: DomainErrorCode,
+    message: string,
+    readonly errors: FieldProblem[] = [],
+    readonly headers: Record<string, string> = {},
+    readonly extra: Record<string, unknown> = {},
+  ) {
+    super(message);
+  }
+}

@@ -1,0 +1,146 @@
+// One filter renders every error as RFC 9457 problem+json, with the request id for support.
+import {
+  ArgumentsHost,
+  Catch,
+  ExceptionFilter,
+  HttpException,
+  HttpStatus,
+  Logger,
+} from '@nestjs/common';
+import type { FastifyReply, FastifyRequest } from 'fastify';
+import { DomainError, FieldProblem, STATUS_BY_CODE } from '../errors/domain-error.js';
+
+export const PROBLEM_BASE = 'https://lumenwright.test/problems/';
+
+export interface Problem {
+  type: string;
+  title: string;
+  status: number;
+  detail?: string;
+  instance?: string;
+  requestId?: string;
+  errors?: FieldProblem[];
+  [k: string]: unknown;
+}
+
+const TITLES: Record<number, string> = {
+  400: 'Bad request',
+  401: 'Authentication required',
+  403: 'Forbidden',
+  404: 'Not found',
+  405: 'Method not allowed',
+  409: 'Conflict',
+  413: 'Payload too large',
+  415: 'Unsupported media type',
+  422: 'Invalid input',
+  429: 'Too many requests',
+  500: 'Internal server error',
+  503: 'Service unavailable',
+};
+
+const SLUG: Record<number, string> = {
+  400: 'bad-request',
+  401: 'unauthenticated',
+  403: 'forbidden',
+  404: 'not-found',
+  405: 'method-not-allowed',
+  409: 'conflict',
+  413: 'payload-too-large',
+  415: 'unsupported-media-type',
+  422: 'invalid-input',
+  429: 'rate-limited',
+  500: 'internal',
+  503: 'unavailable',
+};
+
+/** Turns anything thrown into a Problem (pure; exported for unit tests). */
+export function toProblem(err: unknown): { problem: Problem; headers: Record<string, string> } {
+  if (err instanceof DomainError) {
+    const status = STATUS_BY_CODE[err.code];
+    return {
+      problem: {
+        type: PROBLEM_BASE + err.code.replace(/_/g, '-'),
+        title: TITLES[status] ?? 'Error',
+        status,
+        detail: err.message,
+        ...(err.errors.length ? { errors: err.errors } : {}),
+        ...err.extra,
+      },
+      headers: err.headers,
+    };
+  }
+  if (err instanceof HttpException) {
+    const status = err.getStatus();
+    const body = err.getResponse();
+    const detail =
+      typeof body === 'string'
+        ? body
+        : typeof (body as { message?: unknown }).message === 'string'
+          ? (body as { message: string }).message
+          : err.message;
+    const errors = (body as { errors?: FieldProblem[] }).errors;
+    return {
+      problem: {
+        type: PROBLEM_BASE + (SLUG[status] ?? 'error'),
+        title: TITLES[status] ?? 'Error',
+        status,
+        detail,
+        ...(errors ? { errors } : {}),
+      },
+      headers: {},
+    };
+  }
+  // Fastify's own errors (body too large, bad JSON, bad content type) carry statusCode.
+  const e = err as { statusCode?: number; code?: string; message?: string };
+  if (typeof e?.statusCode === 'number' && e.statusCode >= 400 && e.statusCode < 500) {
+    const status = e.statusCode;
+    const detail =
+      e.code === 'FST_ERR_CTP_BODY_TOO_LARGE'
+        ? 'The request body is larger than the limit.'
+        : e.code === 'FST_ERR_CTP_INVALID_MEDIA_TYPE'
+          ? 'Send the request body as application/json.'
+          : e.code === 'FST_ERR_CTP_EMPTY_JSON_BODY'
+            ? 'The request body is empty; send a JSON object.'
+            : status === 400 && /JSON/i.test(e.message ?? '')
+              ? 'The request body is not valid JSON.'
+              : (e.message ?? 'Bad request');
+    return {
+      problem: {
+        type: PROBLEM_BASE + (SLUG[status] ?? 'bad-request'),
+        title: TITLES[status] ?? 'Bad request',
+        status,
+        detail,
+        ...(status === 400 || status === 415 ? { errors: [{ field: 'body', reason: detail }] } : {}),
+      },
+      headers: {},
+    };
+  }
+  return {
+    problem: {
+      type: PROBLEM_BASE + 'internal',
+      title: TITLES[500]!,
+      status: HttpStatus.INTERNAL_SERVER_ERROR,
+      detail: 'Something went wrong on our side. Quote the request id if you contact support.',
+    },
+    headers: {},
+  };
+}
+
+@Catch()
+export class ProblemFilter implements ExceptionFilter {
+  private readonly logger = new Logger('ProblemFilter');
+
+  catch(err: unknown, host: ArgumentsHost): void {
+    const ctx = host.switchToHttp();
+    const req = ctx.getRequest<FastifyRequest>();
+    const reply = ctx.getResponse<FastifyReply>();
+    const { problem, headers } = toProblem(err);
+    problem.instance = req.url?.split('?')[0];
+    problem.requestId = String(req.id);
+    if (problem.status >= 500) {
+      this.logger.error({ err, requestId: req.id }, 'unhandled error');
+    }
+    for (const [k, v] of Object.entries(headers)) void reply.header(k, v);
+    void reply.status(problem.status).type('application/problem+json').send(problem);
+  }
+}

@@ -1,0 +1,2 @@
+// Every TypeORM entity, listed once. Add new entities here.
+export const ENTITIES: Function[] = [];

@@ -1,0 +1,64 @@
+// The OpenAPI document: deterministic (sorted keys, operationId = handler name).
+import type { INestApplication } from '@nestjs/common';
+import { DocumentBuilder, OpenAPIObject, SwaggerModule } from '@nestjs/swagger';
+
+const PROBLEM_SCHEMA = {
+  type: 'object',
+  description: 'An RFC 9457 problem detail.',
+  required: ['type', 'title', 'status'],
+  properties: {
+    type: { type: 'string', format: 'uri', example: 'https://lumenwright.test/problems/invalid-input' },
+    title: { type: 'string', example: 'Invalid input' },
+    status: { type: 'integer', example: 422 },
+    detail: { type: 'string' },
+    instance: { type: 'string' },
+    requestId: { type: 'string' },
+    errors: {
+      type: 'array',
+      description: 'One entry per offending field.',
+      items: {
+        type: 'object',
+        required: ['field', 'reason'],
+        properties: {
+          field: { type: 'string', example: 'latitude' },
+          reason: { type: 'string', example: 'must be between -90 and 90' },
+        },
+      },
+    },
+  },
+};
+
+function sortDeep(value: unknown, key = ''): unknown {
+  if (Array.isArray(value)) return value.map((v) => sortDeep(v));
+  if (value && typeof value === 'object') {
+    // Keep property order inside schemas' "properties" sorted too; arrays keep their order.
+    const entries = Object.entries(value as Record<string, unknown>).sort(([a], [b]) =>
+      a < b ? -1 : a > b ? 1 : 0,
+    );
+    return Object.fromEntries(entries.map(([k, v]) => [k, sortDeep(v, k)]));
+  }
+  void key;
+  return value;
+}
+
+export function buildOpenApiDocument(app: INestApplication): OpenAPIObject {
+  const config = new DocumentBuilder()
+    .setOpenAPIVersion('3.1.0')
+    .setTitle('Lumenwright API')
+    .setDescription(
+      'Lighting math for flash portraits at dusk: twilight and ambient light, background exposure, ' +
+        'flash power and falloff, gel and white-balance balancing, the whole dusk setup. ' +
+        'Errors are RFC 9457 problem+json.',
+    )
+    .setVersion('1')
+    .addServer('http://127.0.0.1:3000', 'Local')
+    .addBearerAuth({ type: 'http', scheme: 'bearer', description: 'An API key: lw_live_… or lw_test_…' }, 'apiKey')
+    .addCookieAuth('lw_session', { type: 'apiKey', in: 'cookie', name: 'lw_session' }, 'session')
+    .build();
+  const doc = SwaggerModule.createDocument(app, config, {
+    operationIdFactory: (_controllerKey: string, methodKey: string) => methodKey,
+  });
+  doc.components = doc.components ?? {};
+  doc.components.schemas = { ...(doc.components.schemas ?? {}), Problem: PROBLEM_SCHEMA };
+  return sortDeep(doc) as OpenAPIObject;
+}

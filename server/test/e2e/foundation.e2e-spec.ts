@@ -1,0 +1,57 @@
+import request from 'supertest';
+import { bootApp, TestApp } from '../setup/app.js';
+
+describe('foundation', () => {
+  let t: TestApp;
+  beforeAll(async () => {
+    t = await bootApp();
+  });
+  afterAll(async () => {
+    await t.close();
+  });
+
+  it('reports the database up at /v1/health', async () => {
+    const res = await request(t.url).get('/v1/health').expect(200);
+    expect(res.body.status).toBe('ok');
+    expect(res.body.info.database.status).toBe('up');
+  });
+
+  it('echoes a well-formed X-Request-Id and replaces a malformed one', async () => {
+    const ok = await request(t.url).get('/v1/health').set('X-Request-Id', 'abc-123');
+    expect(ok.headers['x-request-id']).toBe('abc-123');
+    const bad = await request(t.url).get('/v1/health').set('X-Request-Id', 'no spaces <>');
+    expect(bad.headers['x-request-id']).toMatch(/^[0-9a-f-]{36}$/);
+  });
+
+  it('answers unknown API routes with a problem+json 404 carrying the request id', async () => {
+    const res = await request(t.url).get('/v1/does-not-exist').expect(404);
+    expect(res.headers['content-type']).toMatch(/^application\/problem\+json/);
+    expect(res.body).toMatchObject({ status: 404, title: 'Not found', instance: '/v1/does-not-exist' });
+    expect(res.body.requestId).toBe(res.headers['x-request-id']);
+  });
+
+  it('refuses bodies over the 100 kB limit with a 413 problem', async () => {
+    const big = JSON.stringify({ pad: 'x'.repeat(101 * 1024) });
+    const res = await request(t.url)
+      .post('/v1/health')
+      .set('Content-Type', 'application/json')
+      .send(big);
+    expect(res.status).toBe(413);
+    expect(res.headers['content-type']).toMatch(/problem\+json/);
+  });
+
+  it('serves the OpenAPI document and the interactive docs', async () => {
+    const spec = await request(t.url).get('/openapi.json').expect(200);
+    expect(spec.body.openapi).toBe('3.1.0');
+    expect(spec.body.paths['/v1/health'].get.operationId).toBe('getHealth');
+    const docs = await request(t.url).get('/docs').expect(200);
+    expect(docs.text).toContain('swagger');
+  });
+
+  it('sends security headers and no CORS grant to a foreign origin by default', async () => {
+    const res = await request(t.url).get('/v1/health').set('Origin', 'https://elsewhere.test');
+    expect(res.headers['x-content-type-options']).toBe('nosniff');
+    expect(res.headers['content-security-policy']).toContain("frame-ancestors 'none'");
+    expect(res.headers['access-control-allow-origin']).toBeUndefined();
+  });
+});
