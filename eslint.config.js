@@ -28,7 +28,10 @@ export default tseslint.config(
     },
     rules: {
       '@typescript-eslint/no-floating-promises': 'error',
-      '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
+      '@typescript-eslint/no-unused-vars': [
+        'error',
+        { argsIgnorePattern: '^_', varsIgnorePattern: '^_' },
+      ],
       '@typescript-eslint/consistent-type-imports': 'off',
     },
   },
@@ -52,8 +55,14 @@ export default tseslint.config(
       'no-restricted-globals': ['error', 'fetch', 'process'],
       'no-restricted-syntax': [
         'error',
-        { selector: "CallExpression[callee.object.name='Date'][callee.property.name='now']", message: 'shared/ takes time as an argument' },
-        { selector: "NewExpression[callee.name='Date'][arguments.length=0]", message: 'shared/ takes time as an argument' },
+        {
+          selector: "CallExpression[callee.object.name='Date'][callee.property.name='now']",
+          message: 'shared/ takes time as an argument',
+        },
+        {
+          selector: "NewExpression[callee.name='Date'][arguments.length=0]",
+          message: 'shared/ takes time as an argument',
+        },
       ],
     },
   },

@@ -36,7 +36,8 @@ export function findPgBin() {
       .readdirSync(base)
       .filter((v) => /^\d+$/.test(v))
       .sort((a, b) => Number(b) - Number(a));
-    for (const v of versions) if (hasBin(path.join(base, v, 'bin'))) return path.join(base, v, 'bin');
+    for (const v of versions)
+      if (hasBin(path.join(base, v, 'bin'))) return path.join(base, v, 'bin');
   }
   return null;
 }
@@ -46,7 +47,9 @@ export function ensurePgBin(log = console.log) {
   let bin = findPgBin();
   if (bin) return bin;
   if (isRoot && which('apt-get')) {
-    log('PostgreSQL server binaries not found; installing Debian package "postgresql" with apt-get…');
+    log(
+      'PostgreSQL server binaries not found; installing Debian package "postgresql" with apt-get…',
+    );
     execFileSync('apt-get', ['update'], { stdio: 'inherit' });
     execFileSync('apt-get', ['install', '-y', 'postgresql'], {
       stdio: 'inherit',
@@ -66,7 +69,13 @@ function ensureOsUser() {
   if (!isRoot) return null;
   const r = spawnSync('id', ['-u', PG_OS_USER]);
   if (r.status !== 0) {
-    execFileSync('useradd', ['--system', '--no-create-home', '--shell', '/usr/sbin/nologin', PG_OS_USER]);
+    execFileSync('useradd', [
+      '--system',
+      '--no-create-home',
+      '--shell',
+      '/usr/sbin/nologin',
+      PG_OS_USER,
+    ]);
   }
   return PG_OS_USER;
 }
@@ -108,8 +117,16 @@ export function cluster({ dir, port, fast = false, log = console.log }) {
     if (osUser) execFileSync('chown', [`${osUser}:${osUser}`, pwFile]);
     fs.chmodSync(dataDir, 0o700);
     const r = asPgUser(osUser, path.join(bin, 'initdb'), [
-      '-D', dataDir, '-U', 'postgres', '--auth-local=trust', '--auth-host=scram-sha-256',
-      `--pwfile=${pwFile}`, '-E', 'UTF8', '--locale=C.UTF-8',
+      '-D',
+      dataDir,
+      '-U',
+      'postgres',
+      '--auth-local=trust',
+      '--auth-host=scram-sha-256',
+      `--pwfile=${pwFile}`,
+      '-E',
+      'UTF8',
+      '--locale=C.UTF-8',
     ]);
     if (r.status !== 0) throw new Error(`initdb failed:\n${r.stdout}\n${r.stderr}`);
     return true;
@@ -137,7 +154,16 @@ export function cluster({ dir, port, fast = false, log = console.log }) {
       ];
       if (fast) opts.push('-c fsync=off', '-c synchronous_commit=off', '-c full_page_writes=off');
       const r = asPgUser(osUser, path.join(bin, 'pg_ctl'), [
-        '-D', dataDir, '-l', path.join(logDir, 'postgres.log'), '-w', '-t', '60', '-o', opts.join(' '), 'start',
+        '-D',
+        dataDir,
+        '-l',
+        path.join(logDir, 'postgres.log'),
+        '-w',
+        '-t',
+        '60',
+        '-o',
+        opts.join(' '),
+        'start',
       ]);
       if (r.status !== 0) {
         const tail = safeRead(path.join(logDir, 'postgres.log')).split('\n').slice(-20).join('\n');
@@ -150,7 +176,19 @@ export function cluster({ dir, port, fast = false, log = console.log }) {
 
   function psql(sql, db = 'postgres') {
     const r = asPgUser(osUser, path.join(bin, 'psql'), [
-      '-h', sockDir, '-p', String(port), '-U', 'postgres', '-d', db, '-v', 'ON_ERROR_STOP=1', '-qAt', '-c', sql,
+      '-h',
+      sockDir,
+      '-p',
+      String(port),
+      '-U',
+      'postgres',
+      '-d',
+      db,
+      '-v',
+      'ON_ERROR_STOP=1',
+      '-qAt',
+      '-c',
+      sql,
     ]);
     if (r.status !== 0) throw new Error(`psql failed: ${r.stderr}`);
     return r.stdout.trim();
@@ -187,9 +225,14 @@ export function cluster({ dir, port, fast = false, log = console.log }) {
   function stop() {
     if (!fs.existsSync(path.join(dataDir, 'PG_VERSION'))) return;
     if (!isRunning()) return;
-    asPgUser(osUser, path.join(bin, 'pg_ctl'), ['-D', dataDir, '-m', 'fast', '-w', '-t', '30', 'stop'], {
-      stdio: 'ignore',
-    });
+    asPgUser(
+      osUser,
+      path.join(bin, 'pg_ctl'),
+      ['-D', dataDir, '-m', 'fast', '-w', '-t', '30', 'stop'],
+      {
+        stdio: 'ignore',
+      },
+    );
   }
 
   function pid() {

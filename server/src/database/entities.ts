@@ -1,2 +1,2 @@
 // Every TypeORM entity, listed once. Add new entities here.
-export const ENTITIES: Function[] = [];
+export const ENTITIES: (new (...args: never[]) => unknown)[] = [];

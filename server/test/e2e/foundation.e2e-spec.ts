@@ -26,7 +26,11 @@ describe('foundation', () => {
   it('answers unknown API routes with a problem+json 404 carrying the request id', async () => {
     const res = await request(t.url).get('/v1/does-not-exist').expect(404);
     expect(res.headers['content-type']).toMatch(/^application\/problem\+json/);
-    expect(res.body).toMatchObject({ status: 404, title: 'Not found', instance: '/v1/does-not-exist' });
+    expect(res.body).toMatchObject({
+      status: 404,
+      title: 'Not found',
+      instance: '/v1/does-not-exist',
+    });
     expect(res.body.requestId).toBe(res.headers['x-request-id']);
   });
 

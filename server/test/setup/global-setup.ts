@@ -5,7 +5,9 @@ import path from 'node:path';
 export default async function globalSetup() {
   const root = path.resolve(__dirname, '../../..');
   // eslint-disable-next-line @typescript-eslint/no-require-imports
-  const pg = require(path.join(root, 'scripts/lib/pg.mjs')) as typeof import('../../../scripts/lib/pg.mjs');
+  const pg = require(
+    path.join(root, 'scripts/lib/pg.mjs'),
+  ) as typeof import('../../../scripts/lib/pg.mjs');
   let url = process.env.TEST_DATABASE_URL;
   if (!url) {
     const c = pg.cluster({

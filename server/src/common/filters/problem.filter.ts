@@ -110,7 +110,9 @@ export function toProblem(err: unknown): { problem: Problem; headers: Record<str
         title: TITLES[status] ?? 'Bad request',
         status,
         detail,
-        ...(status === 400 || status === 415 ? { errors: [{ field: 'body', reason: detail }] } : {}),
+        ...(status === 400 || status === 415
+          ? { errors: [{ field: 'body', reason: detail }] }
+          : {}),
       },
       headers: {},
     };

@@ -40,13 +40,18 @@ export class AccessGuard implements CanActivate {
     if (rule.kind === 'public') return true;
     const req = ctx.switchToHttp().getRequest<RequestWithPrincipal>();
     const hasBearer = /^Bearer\s/i.test(req.headers.authorization ?? '');
-    let principal: Principal | null = null;
+    let principal: Principal | null;
     if (rule.kind === 'api-key-or-session' && hasBearer) {
       principal = (await this.auth?.fromApiKey(req)) ?? null;
       if (!principal) {
-        throw new DomainError('unauthenticated', 'The API key is missing, unknown or revoked.', [], {
-          'WWW-Authenticate': 'Bearer realm="lumenwright", error="invalid_token"',
-        });
+        throw new DomainError(
+          'unauthenticated',
+          'The API key is missing, unknown or revoked.',
+          [],
+          {
+            'WWW-Authenticate': 'Bearer realm="lumenwright", error="invalid_token"',
+          },
+        );
       }
       req.principal = principal;
       return true;
@@ -54,7 +59,9 @@ export class AccessGuard implements CanActivate {
     principal = (await this.auth?.fromSession(req)) ?? null;
     if (!principal) {
       const headers: Record<string, string> =
-        rule.kind === 'api-key-or-session' ? { 'WWW-Authenticate': 'Bearer realm="lumenwright"' } : {};
+        rule.kind === 'api-key-or-session'
+          ? { 'WWW-Authenticate': 'Bearer realm="lumenwright"' }
+          : {};
       throw new DomainError('unauthenticated', 'Sign in or send an API key.', [], headers);
     }
     if (!principal.role || !rule.roles.includes(principal.role)) {

@@ -1,0 +1,30 @@
+// Local stand-ins for hosted services, each on loopback: started by `npm start` and the tests.
+// A fake is a module under scripts/lib exporting start({dir, log}) → {env, urls, stop}.
+import fs from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+
+const here = path.dirname(fileURLToPath(import.meta.url));
+const FAKES = ['maildev.mjs', 'payments-fake.mjs', 's3-fake.mjs'];
+
+export async function startFakes({ root, dataDir, log = console.log }) {
+  const started = [];
+  const env = {};
+  const urls = [];
+  for (const file of FAKES) {
+    const p = path.join(here, file);
+    if (!fs.existsSync(p)) continue;
+    const mod = await import(p);
+    const f = await mod.start({ root, dir: path.join(dataDir, file.replace(/\.mjs$/, '')), log });
+    started.push(f);
+    Object.assign(env, f.env ?? {});
+    urls.push(...(f.urls ?? []));
+  }
+  return {
+    env,
+    urls,
+    stop: async () => {
+      for (const f of started.reverse()) await f.stop();
+    },
+  };
+}
