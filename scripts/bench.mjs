@@ -1,0 +1,169 @@
+#!/usr/bin/env node
+// `npm run bench`: POST /v1/balance on a production server (authentication, limits and metering on)
+// against a bare node:http baseline doing the same computation, measured with autocannon on
+// loopback. Last line: `bench: <r> req/s, p99 <ms> ms, <ratio> of bare node, <n> usage events lost`.
+import { fork } from 'node:child_process';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { cluster, freePort } from './lib/pg.mjs';
+import { buildAll } from './lib/build.mjs';
+import { ensureInstalled, must, service, stopAll, waitForHttp } from './lib/proc.mjs';
+
+const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+const CONNECTIONS = Number(process.env.BENCH_CONNECTIONS ?? 50);
+const DURATION = Number(process.env.BENCH_SECONDS ?? 15);
+const KEYS = Number(process.env.BENCH_KEYS_COUNT ?? 4);
+const BODY = JSON.stringify({ cameraKelvin: 3200, flashKelvin: 5500, maxGels: 3 });
+
+const cleanups = [];
+async function cleanup() {
+  await stopAll();
+  for (const c of cleanups.reverse()) await c();
+}
+
+async function api(base, method, p, body, headers = {}) {
+  const res = await fetch(base + p, {
+    method,
+    headers: { 'content-type': 'application/json', origin: base, ...headers },
+    body: body ? JSON.stringify(body) : undefined,
+  });
+  const text = await res.text();
+  if (!res.ok) throw new Error(`${method} ${p} → ${res.status} ${text}`);
+  return { res, json: text ? JSON.parse(text) : null };
+}
+
+async function cannon(url, keys) {
+  const { default: autocannon } = await import('autocannon');
+  let i = 0;
+  return new Promise((resolve, reject) => {
+    const inst = autocannon(
+      {
+        url,
+        connections: CONNECTIONS,
+        duration: DURATION,
+        requests: [
+          {
+            method: 'POST',
+            path: '/v1/balance',
+            setupRequest: (req) => ({
+              ...req,
+              headers: {
+                'content-type': 'application/json',
+                authorization: `Bearer ${keys[i++ % keys.length]}`,
+              },
+              body: BODY,
+            }),
+          },
+        ],
+      },
+      (err, result) => (err ? reject(err) : resolve(result)),
+    );
+    void inst;
+  });
+}
+
+function summary(name, r) {
+  const ok = r['2xx'];
+  const line = `${name.padEnd(22)} ${r.requests.average.toFixed(0).padStart(7)} req/s  p50 ${String(r.latency.p50).padStart(4)} ms  p99 ${String(r.latency.p99).padStart(4)} ms  2xx ${ok}  non-2xx ${r.non2xx}  errors ${r.errors}`;
+  console.log(line);
+  return { rps: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, ok, non2xx: r.non2xx };
+}
+
+async function main() {
+  await ensureInstalled(root);
+  await buildAll(root);
+  const pgDir = fs.mkdtempSync(path.join(os.tmpdir(), 'lumenwright-bench-pg-'));
+  const pg = cluster({ dir: pgDir, port: await freePort(), log: () => undefined });
+  cleanups.push(() => fs.rmSync(pgDir, { recursive: true, force: true }));
+  cleanups.push(() => pg.stop());
+  pg.start();
+  const port = await freePort();
+  const base = `http://127.0.0.1:${port}`;
+  const env = {
+    ...process.env,
+    NODE_ENV: 'production',
+    DATABASE_URL: pg.url(),
+    PORT: String(port),
+    HOST: '127.0.0.1',
+    PUBLIC_URL: base,
+    SESSION_SECRET: 'bench-session-secret-'.padEnd(48, 'x'),
+    LOG_LEVEL: process.env.LOG_LEVEL ?? 'info',
+  };
+  await must('node', ['server/dist/bin/migrate.js'], { cwd: root, env });
+  service('server', 'node', ['server/dist/main.js'], {
+    cwd: root,
+    env,
+    stdio: ['ignore', 'ignore', 'inherit'],
+  });
+  await waitForHttp(`${base}/v1/health`);
+
+  // A studio on the top plan with a few live keys (the plan's per-key rate is above what we send).
+  const email = `bench-${Date.now()}@bench.test`;
+  const signUp = await api(base, 'POST', '/v1/auth/sign-up', {
+    email,
+    password: 'bench-password-long-enough-1',
+    name: 'Bench Runner',
+    organizationName: 'Bench Studio',
+  });
+  const cookie = (signUp.res.headers.getSetCookie?.() ?? []).map((c) => c.split(';')[0]).join('; ');
+  const orgId = signUp.json.organization?.id;
+  pg.psql(`UPDATE organizations SET plan_code = 'platform' WHERE id = '${orgId}'`, 'lumenwright');
+  const keys = [];
+  for (let k = 0; k < KEYS; k++) {
+    const { json } = await api(
+      base,
+      'POST',
+      '/v1/keys',
+      { name: `bench ${k}`, environment: 'live' },
+      { cookie },
+    );
+    keys.push(json.secret);
+  }
+
+  const barePort = await freePort();
+  const bare = fork(path.join(root, 'server/bench/bare.mjs'), [String(barePort)], {
+    env: { ...process.env, BENCH_KEYS: keys.join(',') },
+    stdio: 'ignore',
+  });
+  cleanups.push(
+    () =>
+      new Promise((r) =>
+        bare.exitCode !== null ? r() : (bare.once('exit', r), bare.kill('SIGTERM')),
+      ),
+  );
+  await new Promise((r) => bare.once('message', r));
+
+  console.log(
+    `\n${os.cpus().length} cores (${os.cpus()[0]?.model ?? 'unknown'}), Node ${process.version}, ${CONNECTIONS} connections, ${DURATION} s each\n`,
+  );
+  const warm = await cannon(base, keys); // warm-up: not in the figures, but its usage rows count
+  const lw = summary('Lumenwright /v1/balance', await cannon(base, keys));
+  const bareR = summary('bare node:http', await cannon(`http://127.0.0.1:${barePort}`, keys));
+
+  // Metering is batched: give the writer time to flush, then compare rows with 2xx answers.
+  await new Promise((r) => setTimeout(r, 2000));
+  const rows = Number(
+    pg.psql(
+      `SELECT count(*) FROM usage_events WHERE endpoint = 'balance' AND status BETWEEN 200 AND 299`,
+      'lumenwright',
+    ),
+  );
+  const answered = warm['2xx'] + lw.ok;
+  const lost = Math.max(0, answered - rows);
+  const ratio = lw.rps / bareR.rps;
+  console.log(
+    `\nusage rows with a 2xx status: ${rows}; 2xx answered (warm-up + measured): ${answered}`,
+  );
+  console.log(
+    `bench: ${lw.rps.toFixed(0)} req/s, p99 ${lw.p99} ms, ${ratio.toFixed(2)} of bare node, ${lost} usage events lost`,
+  );
+}
+
+main()
+  .catch((e) => {
+    console.error(e.stack ?? e.message);
+    process.exitCode = 1;
+  })
+  .finally(() => cleanup());
