@@ -22,7 +22,7 @@ export function geometricAltitudeDeg(epochMs: number, latitude: number, longitud
   if (apparent < REFRACTION_AT_HORIZON) return (apparent - REFRACTION_AT_HORIZON) / DEG;
   // h + R(h) is increasing with slope >= 0.7, so the fixed-point iteration converges fast.
   let h = apparent - REFRACTION_AT_HORIZON;
-  for (let i = 0; i < 12; i++) h = apparent - suncalcRefraction(h);
+  for (let i = 0; i < 8; i++) h = apparent - suncalcRefraction(h);
   return h / DEG;
 }
 
@@ -34,7 +34,8 @@ export function sunAzimuthDeg(epochMs: number, latitude: number, longitude: numb
 /**
  * Time (epoch ms) the sun's geometric altitude crosses `thresholdDeg` between `fromMs` and
  * `toMs`, assuming altitude is monotonic on that span (noon to midnight or midnight to noon).
- * Returns null when both ends lie on the same side. Bisection to under 0.1 s.
+ * Returns null when both ends lie on the same side. Illinois false position, stopping within
+ * 1e-5° (well under 0.1 s of sun motion) or a 100 ms bracket.
  */
 export function findCrossing(
   thresholdDeg: number,
@@ -44,21 +45,28 @@ export function findCrossing(
   longitude: number,
 ): number | null {
   const f = (t: number): number => geometricAltitudeDeg(t, latitude, longitude) - thresholdDeg;
-  let lo = fromMs;
-  let hi = toMs;
-  let flo = f(lo);
-  const fhi = f(hi);
-  if (flo === 0) return lo;
-  if (Math.sign(flo) === Math.sign(fhi)) return null;
-  while (hi - lo > 100) {
-    const mid = (lo + hi) / 2;
-    const fm = f(mid);
-    if (Math.sign(fm) === Math.sign(flo)) {
-      lo = mid;
-      flo = fm;
+  let a = fromMs;
+  let b = toMs;
+  let fa = f(a);
+  let fb = f(b);
+  if (fa === 0) return a;
+  if (Math.sign(fa) === Math.sign(fb)) return null;
+  let side = 0;
+  for (let i = 0; i < 60 && b - a > 100; i++) {
+    const c = (a * fb - b * fa) / (fb - fa);
+    const fc = f(c);
+    if (Math.abs(fc) < 1e-5) return c;
+    if (Math.sign(fc) === Math.sign(fb)) {
+      b = c;
+      fb = fc;
+      if (side === -1) fa /= 2;
+      side = -1;
     } else {
-      hi = mid;
+      a = c;
+      fa = fc;
+      if (side === 1) fb /= 2;
+      side = 1;
     }
   }
-  return (lo + hi) / 2;
+  return (a + b) / 2;
 }

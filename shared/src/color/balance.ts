@@ -1,0 +1,130 @@
+import { GEL_CATALOGUE, type Gel } from './gels.js';
+import { bestStack, type SearchGel } from './gel-search.js';
+import { applyMiredShift, kelvinFromMired, mired } from './mired.js';
+import { duskScene, type SceneSwatch } from './scene.js';
+import { round } from '../units/math.js';
+import {
+  optionalNumber,
+  requireArray,
+  requireNumber,
+  requireObject,
+  requireString,
+} from '../units/validate.js';
+
+/** Camera fine-tune step on the amber-blue axis, mireds. Common practice, from memory (~5). */
+export const WB_FINE_TUNE_STEP_MIRED = 5;
+
+export interface BalanceInput {
+  /** Camera white balance, kelvin, 1500..20000. */
+  cameraKelvin: number;
+  /**
+   * Camera tint in CC units, -60..60: + means the camera corrects toward magenta for greenish
+   * ambient light, so the flash needs plus-green to match. Default 0.
+   */
+  cameraTint?: number;
+  /** Bare flash colour temperature, kelvin, 2500..10000; default 5500 (common practice). */
+  flashKelvin?: number;
+  /** Extra warmth wanted on the subject, mireds, -200..200 (+ = warmer skin); default 0. */
+  targetMiredOffset?: number;
+  /** The kit; default {@link GEL_CATALOGUE}. Each piece usable once per stack. 1..30 pieces. */
+  gels?: Array<{ name: string; miredShift: number; greenShift?: number; lossStops: number }>;
+  /** Most gels in one stack, 0..4; default 3. */
+  maxGels?: number;
+}
+
+export interface BalanceResult {
+  requiredMiredShift: number;
+  achievedMiredShift: number;
+  /** achieved - required, mireds (+ = flash warmer than intended). */
+  residualMired: number;
+  requiredGreenShift: number;
+  achievedGreenShift: number;
+  residualGreen: number;
+  gels: Array<{ name: string; miredShift: number; greenShift: number; lossStops: number }>;
+  gelLossStops: number;
+  /** Raise flash power by this much to make up for the gels. */
+  powerCompensationStops: number;
+  /** Camera WB change that cancels the residual on the subject (it also shifts the scene). */
+  whiteBalanceFineTune: {
+    miredShift: number;
+    cameraKelvin: number;
+    /**
+     * Steps on a camera fine-tune axis where + renders warmer (amber) and - cooler (blue), about
+     * 5 mired per step: a too-warm flash (residual > 0) is cancelled by negative (blue) steps.
+     */
+    amberBlueSteps: number;
+    /** Camera tint change (cameraTint convention) that cancels the green residual. */
+    tintCC: number;
+  };
+  flashKelvin: number;
+  resultingFlashKelvin: number;
+  scene: SceneSwatch[];
+}
+
+function readKit(value: unknown): Gel[] {
+  if (value === undefined || value === null) return [...GEL_CATALOGUE];
+  const arr = requireArray('gels', value, 30);
+  return arr.map((raw, i) => {
+    const f = `gels[${i}]`;
+    const o = requireObject(f, raw);
+    return {
+      name: requireString(`${f}.name`, o.name, 60),
+      miredShift: requireNumber(`${f}.miredShift`, o.miredShift, { min: -400, max: 400 }),
+      greenShift: optionalNumber(`${f}.greenShift`, o.greenShift, 0, { min: -60, max: 60 }),
+      lossStops: requireNumber(`${f}.lossStops`, o.lossStops, { min: 0, max: 6 }),
+      source: 'caller',
+    };
+  });
+}
+
+/**
+ * Gel the flash so the subject renders as intended under the camera's white balance.
+ * Required shift = mired(camera) - mired(flash) + targetMiredOffset. Best stack of at most
+ * `maxGels` pieces by residual mired error, then green residual, then fewer gels, then less loss.
+ */
+export function solveBalance(input: BalanceInput): BalanceResult {
+  const o = requireObject('input', input);
+  const camera = requireNumber('cameraKelvin', o.cameraKelvin, { min: 1500, max: 20000 });
+  const tint = optionalNumber('cameraTint', o.cameraTint, 0, { min: -60, max: 60 });
+  const flash = optionalNumber('flashKelvin', o.flashKelvin, 5500, { min: 2500, max: 10000 });
+  const offset = optionalNumber('targetMiredOffset', o.targetMiredOffset, 0, {
+    min: -200,
+    max: 200,
+  });
+  const kit = readKit(o.gels);
+  const maxGels = optionalNumber('maxGels', o.maxGels, 3, { min: 0, max: 4, integer: true });
+  const required = mired(camera) - mired(flash) + offset;
+  const search: SearchGel[] = kit.map((gel, index) => ({ index, ...gel }));
+  const best = bestStack(search, maxGels, required, tint);
+  const chosen = best.indices.map((i) => kit[i] as Gel);
+  const achieved = chosen.reduce((s, gel) => s + gel.miredShift, 0);
+  const green = chosen.reduce((s, gel) => s + gel.greenShift, 0);
+  const residual = achieved - required;
+  const fineTuneKelvin = kelvinFromMired(mired(camera) + residual);
+  const resultingKelvin = applyMiredShift(flash, achieved);
+  return {
+    requiredMiredShift: round(required, 2),
+    achievedMiredShift: round(achieved, 2),
+    residualMired: round(residual, 2),
+    requiredGreenShift: tint,
+    achievedGreenShift: round(green, 2),
+    residualGreen: round(green - tint, 2),
+    gels: chosen.map(({ name, miredShift, greenShift, lossStops }) => ({
+      name,
+      miredShift,
+      greenShift,
+      lossStops,
+    })),
+    gelLossStops: round(best.loss, 2),
+    powerCompensationStops: round(best.loss, 2),
+    whiteBalanceFineTune: {
+      miredShift: round(residual, 2),
+      cameraKelvin: Math.round(fineTuneKelvin),
+      amberBlueSteps: -Math.round(residual / WB_FINE_TUNE_STEP_MIRED) || 0,
+      tintCC: round(green - tint, 2),
+    },
+    flashKelvin: flash,
+    resultingFlashKelvin: Math.round(resultingKelvin),
+    scene: duskScene(camera, resultingKelvin, resultingKelvin, flash),
+  };
+}

@@ -1,0 +1,226 @@
+import { cautionsFor, type Caution } from './cautions.js';
+import { prefixed, readSetup, type DuskSetupInput } from './setup-input.js';
+import { solveBalance, type BalanceResult } from '../color/balance.js';
+import { duskScene, type SceneSwatch } from '../color/scene.js';
+import { solveBackgroundExposure, type BackgroundExposureResult } from '../exposure/background.js';
+import { computeBacklight, type BacklightResult } from '../flash/backlight.js';
+import { computeFalloff } from '../flash/falloff.js';
+import { computeFlash, type FlashResult } from '../flash/guide-number.js';
+import { computeKeyLight, type KeyLightResult } from '../flash/key-light.js';
+import { computeTwilight, type TwilightResult } from '../twilight/compute-twilight.js';
+import type { AmbientPoint } from '../twilight/timeline.js';
+import { round } from '../units/math.js';
+
+export type { DuskSetupInput } from './setup-input.js';
+
+export interface SuggestedMinute {
+  time: string;
+  sunAltitudeDeg: number;
+  ambientEv100: number;
+  background: BackgroundExposureResult;
+  keyFlash: FlashResult;
+  rimFlash: FlashResult | null;
+  /** True when settings stay inside every limit and the flashes are feasible. */
+  usable: boolean;
+}
+
+export interface DuskSetupPlan {
+  twilight: Omit<TwilightResult, 'ambient'> & { ambientUncertaintyStops: number };
+  /** The shooting window (blue hour, else sunset to civil dusk) and its usable part. */
+  window: {
+    start: string | null;
+    end: string | null;
+    usableStart: string | null;
+    usableEnd: string | null;
+  };
+  suggestedMinutes: SuggestedMinute[];
+  whiteBalance: { cameraKelvin: number; fineTune: BalanceResult['whiteBalanceFineTune'] };
+  gels: Pick<
+    BalanceResult,
+    'gels' | 'gelLossStops' | 'powerCompensationStops' | 'residualMired' | 'resultingFlashKelvin'
+  >;
+  key: KeyLightResult & { modifier: string; modifierLossStops: number };
+  backlight: BacklightResult | null;
+  backgroundFalloffStops: number | null;
+  look: SceneSwatch[];
+  cautions: Caution[];
+  warnings: Array<{ code: string; message: string }>;
+}
+
+type Setup = ReturnType<typeof readSetup>;
+
+function windowPoints(tw: TwilightResult): {
+  start: string | null;
+  end: string | null;
+  points: AmbientPoint[];
+} {
+  const start = tw.blueHour.start ?? tw.sunset;
+  const end = tw.blueHour.end ?? tw.civilDusk;
+  const lo = start ? Date.parse(start) : -Infinity;
+  const hi = end ? Date.parse(end) : Infinity;
+  const points = tw.ambient.points.filter((p) => {
+    const t = Date.parse(p.time);
+    return t >= lo && t <= hi;
+  });
+  return { start, end, points };
+}
+
+function minuteAt(s: Setup, p: AmbientPoint, gelLoss: number): SuggestedMinute {
+  const background = prefixed('camera', () =>
+    solveBackgroundExposure({
+      ...s.cam,
+      ev100: p.ev100,
+      aperture: s.aperture,
+      biasStops: s.bias,
+      flashSyncSeconds: s.sync,
+    }),
+  );
+  const flashArgs = { aperture: background.aperture, iso: background.iso, gelLossStops: gelLoss };
+  const keyFlash = prefixed('key', () =>
+    computeFlash({ ...s.key, ...flashArgs, modifierLossStops: s.modifierLoss } as never),
+  );
+  const rimFlash = s.rim ? rimPower(s, background, gelLoss) : null;
+  const usable =
+    background.warnings.every((w) => w.code === 'subject-motion') &&
+    keyFlash.feasible &&
+    (rimFlash === null || rimFlash.feasible);
+  return {
+    time: p.time,
+    sunAltitudeDeg: p.sunAltitudeDeg,
+    ambientEv100: p.ev100,
+    background,
+    keyFlash,
+    rimFlash,
+    usable,
+  };
+}
+
+function rimPower(s: Setup, bg: BackgroundExposureResult, gelLoss: number): FlashResult {
+  const r = s.rim as Record<string, unknown>;
+  const over = typeof r.rimOverKeyStops === 'number' ? r.rimOverKeyStops : 1;
+  const geometry = prefixed('rim', () => computeBacklight(r as never));
+  return prefixed('rim', () =>
+    computeFlash({
+      guideNumber: r.guideNumber as number,
+      guideNumberUnit: r.guideNumberUnit as 'm' | 'ft' | undefined,
+      distance: geometry.distanceToHead,
+      distanceUnit: geometry.distanceUnit,
+      aperture: bg.aperture * 2 ** (over / 2), // brighter rim = the power an aperture `over` stops smaller needs
+      iso: bg.iso,
+      modifierLossStops: (r.modifierLossStops as number | undefined) ?? 0,
+      gelLossStops: r.gelled === false ? 0 : gelLoss,
+    }),
+  );
+}
+
+function pickSuggestions(all: SuggestedMinute[], n: number): SuggestedMinute[] {
+  const usable = all.filter((m) => m.usable);
+  const pool = usable.length > 0 ? usable : all;
+  if (pool.length <= n) return pool;
+  return Array.from(
+    { length: n },
+    (_, i) => pool[Math.round((i * (pool.length - 1)) / Math.max(1, n - 1))] as SuggestedMinute,
+  );
+}
+
+/**
+ * The whole dusk shot plan: window and best minutes, background exposure at each, white
+ * balance and gels, key and rim power and placement, the expected look and the cautions.
+ */
+export function planDuskSetup(input: DuskSetupInput): DuskSetupPlan {
+  const s = readSetup(input);
+  const o = s.o;
+  const tw = computeTwilight({
+    latitude: o.latitude,
+    longitude: o.longitude,
+    date: o.date,
+    timeZone: o.timeZone,
+    elevation: o.elevation,
+    sky: o.sky,
+    stepMinutes: o.stepMinutes,
+  } as never);
+  const balance = solveBalance({
+    cameraKelvin: s.kelvin,
+    cameraTint: s.cam.tint,
+    flashKelvin: o.flashKelvin,
+    targetMiredOffset: o.targetMiredOffset,
+    gels: o.gels,
+    maxGels: o.maxGels,
+  } as never);
+  const win = windowPoints(tw);
+  const minutes = win.points.map((p) => minuteAt(s, p, balance.gelLossStops));
+  const usable = minutes.filter((m) => m.usable);
+  const suggested = pickSuggestions(minutes, s.suggestions);
+  const first = suggested[0];
+  const keyOverAmbient = first ? -s.bias + first.background.shortfallStops : -s.bias;
+  const key = prefixed('key', () =>
+    computeKeyLight({
+      angleFromCameraDeg: (s.key.angleFromCameraDeg as number | undefined) ?? 60,
+      distance: s.key.distance as number,
+      distanceUnit: s.key.distanceUnit as never,
+      modifierSize:
+        (s.key.modifierSize as number | undefined) ??
+        s.modifierSizeM / (s.key.distanceUnit === 'ft' ? 0.3048 : 1),
+      keyOverAmbientStops: Math.min(10, Math.max(-6, keyOverAmbient)),
+    }),
+  );
+  const backlight = s.rim ? prefixed('rim', () => computeBacklight(s.rim as never)) : null;
+  const bgFalloff =
+    o.backgroundDistance === undefined
+      ? null
+      : computeFalloff({
+          subjectDistance: s.key.distance as number,
+          backgroundDistance: o.backgroundDistance as number,
+        }).subjectToBackgroundStops;
+  const rimKelvin =
+    s.rim && s.rim.gelled === false ? balance.flashKelvin : balance.resultingFlashKelvin;
+  return {
+    twilight: { ...withoutAmbient(tw), ambientUncertaintyStops: tw.ambient.uncertaintyStops },
+    window: {
+      start: win.start,
+      end: win.end,
+      usableStart: usable[0]?.time ?? null,
+      usableEnd: usable[usable.length - 1]?.time ?? null,
+    },
+    suggestedMinutes: suggested,
+    whiteBalance: { cameraKelvin: s.kelvin, fineTune: balance.whiteBalanceFineTune },
+    gels: {
+      gels: balance.gels,
+      gelLossStops: balance.gelLossStops,
+      powerCompensationStops: balance.powerCompensationStops,
+      residualMired: balance.residualMired,
+      resultingFlashKelvin: balance.resultingFlashKelvin,
+    },
+    key: { ...key, modifier: s.modifier, modifierLossStops: s.modifierLoss },
+    backlight,
+    backgroundFalloffStops: bgFalloff === null ? null : round(bgFalloff, 2),
+    look: duskScene(s.kelvin, balance.resultingFlashKelvin, rimKelvin, balance.flashKelvin),
+    cautions: cautionsFor({ ...s.conditions, standsCount: 1 + (s.rim ? 1 : 0) }),
+    warnings: planWarnings(tw, usable.length, backlight),
+  };
+}
+
+function withoutAmbient(tw: TwilightResult): Omit<TwilightResult, 'ambient'> {
+  const { ambient: _ambient, ...rest } = tw;
+  return rest;
+}
+
+function planWarnings(tw: TwilightResult, usableCount: number, backlight: BacklightResult | null) {
+  const out: Array<{ code: string; message: string }> = [];
+  if (!tw.sunset)
+    out.push({ code: 'no-sunset', message: `No sunset on this date (${tw.reasons.sunset}).` });
+  if (usableCount === 0) {
+    out.push({
+      code: 'no-usable-minute',
+      message:
+        'No minute in the window fits every limit: see each minute\u2019s warnings (ISO ceiling, tripod, sync, flash power).',
+    });
+  }
+  for (const w of backlight?.warnings ?? [])
+    out.push({ code: `rim-${w.code}`, message: w.message });
+  out.push({
+    code: 'ambient-model',
+    message: `Ambient light is modelled (USNO Circular 171), \u00b1${tw.ambient.uncertaintyStops} stops or more: meter on the night.`,
+  });
+  return out;
+}

@@ -1,0 +1,135 @@
+import { LightingInputError } from '../errors.js';
+import { MODIFIERS, MODIFIER_NAMES, type ModifierName } from '../flash/modifiers.js';
+import type { BalanceInput } from '../color/balance.js';
+import type { SkyCondition } from '../twilight/ambient-model.js';
+import type { LengthUnit } from '../units/length.js';
+import {
+  maybeNumber,
+  optionalBoolean,
+  optionalNumber,
+  requireObject,
+  requireOneOf,
+} from '../units/validate.js';
+
+export interface DuskSetupInput {
+  latitude: number;
+  longitude: number;
+  /** Local date YYYY-MM-DD. */
+  date: string;
+  /** IANA time zone. */
+  timeZone: string;
+  elevation?: number;
+  sky?: SkyCondition;
+  /** Timeline step, minutes; default 2. */
+  stepMinutes?: number;
+  camera?: {
+    /** Working aperture; default f/5.6. */
+    aperture?: number;
+    isoMin?: number;
+    /** ISO ceiling; default 6400. */
+    isoMax?: number;
+    support?: 'handheld' | 'tripod';
+    slowestHandheldSeconds?: number;
+    /** Flash sync speed, s; default 1/200. */
+    flashSyncSeconds?: number;
+    /** Background bias in stops (taste); default -1 (ambient one stop under, key one over). */
+    biasStops?: number;
+    /** Camera white balance, K; default 3800 (a cooled dusk look; taste, not a rule). */
+    kelvin?: number;
+    tint?: number;
+  };
+  key: {
+    guideNumber: number;
+    guideNumberUnit?: LengthUnit;
+    distance: number;
+    distanceUnit?: LengthUnit;
+    /** Default 60° (inside the 45-90° dramatic band). */
+    angleFromCameraDeg?: number;
+    modifier?: ModifierName;
+    /** Modifier size in distanceUnit; default from the modifier. */
+    modifierSize?: number;
+    modifierLossStops?: number;
+  };
+  rim?: {
+    guideNumber: number;
+    guideNumberUnit?: LengthUnit;
+    distanceBehind: number;
+    lightHeight: number;
+    distanceUnit?: LengthUnit;
+    beamAngleDeg?: number;
+    /** Rim brighter than the key by, stops; default 1 (common practice, no source). */
+    rimOverKeyStops?: number;
+    /** Gel the rim like the key (default) or leave it bare (renders cooler). */
+    gelled?: boolean;
+    modifierLossStops?: number;
+  };
+  flashKelvin?: number;
+  targetMiredOffset?: number;
+  gels?: BalanceInput['gels'];
+  maxGels?: number;
+  /** Key-light-to-background distance, in key.distanceUnit. */
+  backgroundDistance?: number;
+  conditions?: {
+    windKmh?: number;
+    nearRoad?: boolean;
+    nearWater?: boolean;
+    coldFogOrHaze?: boolean;
+    modellingLamps?: boolean;
+  };
+  /** How many suggested minutes, 1..10; default 3. */
+  suggestions?: number;
+}
+
+/** Validate and default the parts the plan itself reads (others are validated downstream). */
+export function readSetup(input: DuskSetupInput) {
+  const o = requireObject('input', input);
+  const cam = o.camera === undefined ? {} : requireObject('camera', o.camera);
+  const key = requireObject('key', o.key);
+  const cond = o.conditions === undefined ? {} : requireObject('conditions', o.conditions);
+  const modifier = requireOneOf('key.modifier', key.modifier, MODIFIER_NAMES, 'softbox');
+  const preset = MODIFIERS[modifier];
+  return {
+    o,
+    cam,
+    key,
+    rim: o.rim === undefined ? undefined : requireObject('rim', o.rim),
+    modifier,
+    modifierLoss: optionalNumber('key.modifierLossStops', key.modifierLossStops, preset.lossStops, {
+      min: 0,
+      max: 8,
+    }),
+    modifierSizeM: preset.sizeM,
+    kelvin: optionalNumber('camera.kelvin', cam.kelvin, 3800, { min: 1500, max: 20000 }),
+    aperture: optionalNumber('camera.aperture', cam.aperture, 5.6, { min: 0.7, max: 128 }),
+    sync: optionalNumber('camera.flashSyncSeconds', cam.flashSyncSeconds, 1 / 200, {
+      min: 1 / 16000,
+      max: 1,
+    }),
+    bias: optionalNumber('camera.biasStops', cam.biasStops, -1, { min: -6, max: 6 }),
+    suggestions: optionalNumber('suggestions', o.suggestions, 3, {
+      min: 1,
+      max: 10,
+      integer: true,
+    }),
+    conditions: {
+      windKmh: maybeNumber('conditions.windKmh', cond.windKmh, { min: 0, max: 400 }),
+      nearRoad: optionalBoolean('conditions.nearRoad', cond.nearRoad, false),
+      nearWater: optionalBoolean('conditions.nearWater', cond.nearWater, false),
+      coldFogOrHaze: optionalBoolean('conditions.coldFogOrHaze', cond.coldFogOrHaze, false),
+      modellingLamps: optionalBoolean('conditions.modellingLamps', cond.modellingLamps, false),
+    },
+  };
+}
+
+/** Run `fn`, re-throwing a LightingInputError with its field placed under `prefix`. */
+export function prefixed<T>(prefix: string, fn: () => T): T {
+  try {
+    return fn();
+  } catch (e) {
+    if (e instanceof LightingInputError && !e.field.startsWith(`${prefix}.`)) {
+      const field = e.field === 'input' ? prefix : `${prefix}.${e.field}`;
+      throw new LightingInputError(field, e.reason);
+    }
+    throw e;
+  }
+}

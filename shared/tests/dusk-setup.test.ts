@@ -1,0 +1,85 @@
+import { describe, expect, it } from 'vitest';
+import { computeFlash, planDuskSetup } from '../src/index.js';
+
+const input = {
+  latitude: 40.7128,
+  longitude: -74.006,
+  date: '2026-09-20',
+  timeZone: 'America/New_York',
+  camera: { aperture: 4, isoMax: 6400, flashSyncSeconds: 1 / 200 },
+  key: { guideNumber: 40, distance: 2, modifier: 'softbox' as const },
+  rim: { guideNumber: 30, distanceBehind: 1.8, lightHeight: 1.0, beamAngleDeg: 20 },
+  backgroundDistance: 30,
+  conditions: { windKmh: 35, nearRoad: true, coldFogOrHaze: true },
+};
+
+describe('planDuskSetup', () => {
+  const plan = planDuskSetup(input);
+  it('is plain JSON (survives a round trip unchanged)', () => {
+    expect(JSON.parse(JSON.stringify(plan))).toEqual(plan);
+  });
+  it('suggests minutes inside the window, in time order', () => {
+    expect(plan.suggestedMinutes.length).toBeGreaterThan(0);
+    const lo = Date.parse(plan.window.start ?? '');
+    const hi = Date.parse(plan.window.end ?? '');
+    let prev = -Infinity;
+    for (const m of plan.suggestedMinutes) {
+      const t = Date.parse(m.time);
+      expect(t).toBeGreaterThanOrEqual(lo);
+      expect(t).toBeLessThanOrEqual(hi);
+      expect(t).toBeGreaterThan(prev);
+      prev = t;
+    }
+  });
+  it('key power at a suggested minute equals computeFlash with the same settings', () => {
+    const m = plan.suggestedMinutes[0];
+    const direct = computeFlash({
+      guideNumber: 40,
+      distance: 2,
+      aperture: m?.background.aperture ?? 0,
+      iso: m?.background.iso,
+      modifierLossStops: 1.25,
+      gelLossStops: plan.gels.gelLossStops,
+    });
+    expect(m?.keyFlash.powerFraction).toBeCloseTo(direct.powerFraction, 9);
+  });
+  it('gels the flash for the cooled white balance and compensates power', () => {
+    expect(plan.whiteBalance.cameraKelvin).toBe(3800);
+    expect(plan.gels.gels.length).toBeGreaterThan(0);
+    expect(plan.gels.powerCompensationStops).toBeGreaterThan(0);
+  });
+  it('default key at 60° gives a dramatic shadow side; ambient one stop under -> 3:1', () => {
+    expect(plan.key.shadowSide).toBe('dramatic');
+    expect(plan.key.lightingRatio).toBeGreaterThanOrEqual(3);
+  });
+  it('background 30 m away from a key at 2 m falls off 2 log2(15) stops', () => {
+    expect(plan.backgroundFalloffStops).toBeCloseTo(2 * Math.log2(15), 2);
+  });
+  it('carries the cautions that apply, each deferring to local codes and venue rules', () => {
+    const ids = plan.cautions.map((c) => c.id);
+    for (const id of ['stands-wind', 'roads-at-night', 'cold-fog-haze', 'batteries'])
+      expect(ids).toContain(id);
+    expect(ids).not.toContain('water-at-night');
+    for (const c of plan.cautions) expect(c.text).toMatch(/local codes, venue rules/);
+    expect(plan.cautions.find((c) => c.id === 'stands-wind')?.text).toMatch(/strike/);
+    expect(plan.cautions.find((c) => c.id === 'cold-fog-haze')?.text).toMatch(/frostbite/);
+  });
+  it('shows the look as swatches, including the rim bare and gelled', () => {
+    const ids = plan.look.map((s) => s.id);
+    expect(ids).toEqual(
+      expect.arrayContaining(['sky-blue-hour', 'tungsten-window', 'rim-light', 'rim-light-bare']),
+    );
+    for (const s of plan.look) expect(s.hex).toMatch(/^#[0-9a-f]{6}$/);
+  });
+  it('polar day: no sunset, says so instead of inventing a window', () => {
+    const p = planDuskSetup({
+      ...input,
+      latitude: 78.22,
+      longitude: 15.63,
+      date: '2026-06-21',
+      timeZone: 'Arctic/Longyearbyen',
+    });
+    expect(p.twilight.sunset).toBeNull();
+    expect(p.warnings.map((w) => w.code)).toContain('no-sunset');
+  });
+});

@@ -1,0 +1,124 @@
+import { describe, expect, it } from 'vitest';
+import {
+  APERTURE_SCALE,
+  ISO_SCALE,
+  SHUTTER_SCALE,
+  apertureValue,
+  ev100FromSettings,
+  evFromSettings,
+  nearestStop,
+  solveBackgroundExposure,
+  solveExposure,
+  speedValue,
+  timeValue,
+} from '../src/index.js';
+
+describe('APEX constants (ASA PH2.5-1960; Kerr 2007)', () => {
+  it('Sv(ISO 100) = 5, Av(f/1.4) ~ 1, Tv(1/128 s) = 7', () => {
+    expect(speedValue(100)).toBeCloseTo(5, 12);
+    expect(apertureValue(Math.SQRT2)).toBeCloseTo(1, 12);
+    expect(timeValue(1 / 128)).toBeCloseTo(7, 12);
+  });
+  it('EV = log2(N^2/t): f/8 at 1/128 s is EV 13', () => {
+    expect(evFromSettings(8, 1 / 128)).toBeCloseTo(13, 12);
+  });
+  it('Sunny 16 (common practice, no source): f/16 at 1/100 s ISO 100 is EV100 14.64', () => {
+    expect(ev100FromSettings(16, 1 / 100, 100)).toBeCloseTo(14.64, 2);
+  });
+  it('EV at ISO S = EV100 + log2(S/100)', () => {
+    expect(ev100FromSettings(8, 1 / 128, 400)).toBeCloseTo(11, 12);
+  });
+});
+
+describe('third-stop scales', () => {
+  it('f/5.6 is 2^2.5 = 5.657 within 0.05 EV (REFERENCES)', () => {
+    const s = APERTURE_SCALE.find((x) => x.label === 'f/5.6');
+    expect(s?.value).toBeCloseTo(5.657, 3);
+    expect(Math.abs(2 * Math.log2((s?.value ?? 0) / 5.6))).toBeLessThan(0.05);
+  });
+  it('"1/60" stands for 2^-6 s (REFERENCES)', () => {
+    expect(SHUTTER_SCALE.find((x) => x.label === '1/60')?.value).toBeCloseTo(1 / 64, 12);
+  });
+  it('every nominal marking rounds back to its own exact third-stop value (nominal rounding stays within half a step)', () => {
+    for (const scale of [APERTURE_SCALE, SHUTTER_SCALE, ISO_SCALE]) {
+      for (const s of scale) expect(nearestStop(scale, s.nominal).label).toBe(s.label);
+    }
+  });
+  it('steps are exactly one third of a stop', () => {
+    for (const scale of [SHUTTER_SCALE, ISO_SCALE]) {
+      for (let i = 1; i < scale.length; i++) {
+        const step = Math.abs(Math.log2((scale[i]?.value ?? 0) / (scale[i - 1]?.value ?? 1)));
+        expect(step).toBeCloseTo(1 / 3, 9);
+      }
+    }
+    expect(nearestStop(ISO_SCALE, 3000).label).toBe('ISO 3200');
+  });
+});
+
+describe('solveExposure', () => {
+  it('simple case {ev100, aperture, iso} solves the shutter: EV100 15, f/16, ISO 100 -> 1/128 s, "1/125"', () => {
+    const r = solveExposure({ ev100: 15, aperture: 16, iso: 100 });
+    expect(r.shutterSeconds).toBeCloseTo(256 / 2 ** 15, 9); // t = N^2 / 2^EV [STD APEX]
+    expect(r.shutterLabel).toBe('1/125');
+    expect(r.solvedFor).toBe('shutterSeconds');
+  });
+  it('solves aperture and ISO too', () => {
+    expect(solveExposure({ ev100: 12, shutterSeconds: 1 / 256, iso: 400 }).apertureLabel).toBe(
+      'f/8',
+    );
+    expect(solveExposure({ ev100: 10, aperture: 8, shutterSeconds: 1 / 16 }).iso).toBeCloseTo(
+      100 * 2 ** (10 - 10),
+      6,
+    );
+  });
+  it('all three given: reports how far off the metered exposure they are', () => {
+    const r = solveExposure({ ev100: 13, aperture: 8, shutterSeconds: 1 / 64, iso: 100 });
+    expect(r.warnings.map((w) => w.code)).toContain('overexposed');
+  });
+});
+
+describe('solveBackgroundExposure', () => {
+  // Expected values from the APEX relation N^2/t = 2^(EV100 + log2(S/100)) [STD], written out.
+  const shutter = (ev100: number, n: number, iso: number) =>
+    (n * n) / 2 ** (ev100 + Math.log2(iso / 100));
+  it('raises ISO only as far as the hand-held limit needs', () => {
+    const r = solveBackgroundExposure({ ev100: 6, aperture: 5.6, slowestHandheldSeconds: 1 / 60 });
+    expect(r.shutterSeconds).toBeCloseTo(1 / 60, 6);
+    expect(r.iso).toBeCloseTo(100 * 2 ** (Math.log2((5.6 * 5.6) / (1 / 60)) - 6), 0);
+    expect(r.needsTripod).toBe(false);
+  });
+  it('past the ISO ceiling the shutter lengthens and a tripod is flagged', () => {
+    const r = solveBackgroundExposure({ ev100: 2, aperture: 5.6, isoMax: 6400 });
+    expect(r.iso).toBe(6400);
+    expect(r.shutterSeconds).toBeCloseTo(shutter(2, 5.6, 6400), 6);
+    expect(r.needsTripod).toBe(true);
+    expect(r.warnings.map((w) => w.code)).toContain('needs-tripod');
+  });
+  it('bright ambient exceeds sync: warns, with the HSS loss and ND strength', () => {
+    const r = solveBackgroundExposure({ ev100: 14, aperture: 5.6, flashSyncSeconds: 1 / 200 });
+    const t = shutter(14, 5.6, 100);
+    expect(r.exceedsSync).toBe(true);
+    expect(r.ndStopsForSync).toBeCloseTo(Math.log2(1 / 200 / t), 2);
+    // HSS: about 1 stop entry loss plus one stop per stop of shutter past sync (common practice, no source)
+    expect(r.hssLossStops).toBeCloseTo(1 + Math.log2(1 / 200 / t), 2);
+    expect(r.warnings.map((w) => w.code)).toContain('exceeds-sync');
+  });
+  it('biasStops darkens or brightens the background by that many stops', () => {
+    const a = solveBackgroundExposure({ ev100: 8, aperture: 4, iso: 400 });
+    const b = solveBackgroundExposure({ ev100: 8, aperture: 4, iso: 400, biasStops: -1 });
+    expect(Math.log2(a.shutterSeconds / b.shutterSeconds)).toBeCloseTo(1, 3);
+  });
+  it('ISO fixed: starts at sync and solves aperture', () => {
+    const r = solveBackgroundExposure({ ev100: 10, iso: 100, flashSyncSeconds: 1 / 250 });
+    expect(r.shutterSeconds).toBeCloseTo(1 / 250, 6);
+    expect(r.aperture).toBeCloseTo(Math.sqrt((1 / 250) * 2 ** 10), 2);
+  });
+  it('can take place + time instead of ev100', () => {
+    const r = solveBackgroundExposure({
+      place: { latitude: 40.7, longitude: -74, time: '2026-06-21T20:50:00-04:00' },
+      aperture: 4,
+    });
+    expect(r.ambientSource).toBe('place');
+    expect(Number.isFinite(r.ev100)).toBe(true);
+  });
+});

@@ -1,0 +1,207 @@
+import { describe, expect, it } from 'vitest';
+import {
+  computeBacklight,
+  computeFalloff,
+  computeFlash,
+  computeFlashAperture,
+  computeKeyLight,
+  decimalScale,
+  fractionLabel,
+  guideNumberFromMeter,
+  stopsBetween,
+} from '../src/index.js';
+
+describe('guide numbers (ISO 1230: GN = distance x f-number at ISO 100)', () => {
+  it('GN 32 m at 4 m -> f/8 at full power [DER]', () => {
+    const r = computeFlash({
+      guideNumber: 32,
+      guideNumberUnit: 'm',
+      distance: 4,
+      distanceUnit: 'm',
+      aperture: 8,
+      iso: 100,
+    });
+    expect(r.powerFraction).toBeCloseTo(1, 9);
+    expect(r.powerLabel).toBe('1/1');
+    expect(r.feasible).toBe(true);
+    expect(r.requiredGuideNumber).toBeCloseTo(32, 6);
+  });
+  it('GN 80 ft at 20 ft -> f/4; at f/8 -> 10 ft [DER]', () => {
+    expect(
+      computeFlashAperture({
+        guideNumber: 80,
+        guideNumberUnit: 'ft',
+        distance: 20,
+        distanceUnit: 'ft',
+        powerFraction: 1,
+      }).aperture,
+    ).toBeCloseTo(4, 6);
+    const r = computeFlash({
+      guideNumber: 80,
+      guideNumberUnit: 'ft',
+      distance: 10,
+      distanceUnit: 'ft',
+      aperture: 8,
+    });
+    expect(r.powerFraction).toBeCloseTo(1, 9);
+  });
+  it('mixed units: GN 80 ft is 24.38 m (1 ft = 0.3048 m exactly)', () => {
+    const r = computeFlash({
+      guideNumber: 80,
+      guideNumberUnit: 'ft',
+      distance: 3.048,
+      distanceUnit: 'm',
+      aperture: 8,
+    });
+    expect(r.powerFraction).toBeCloseTo(1, 9);
+  });
+  it('each halving of power is one stop: f/4 at 4 m with GN 32 needs 1/4', () => {
+    const r = computeFlash({ guideNumber: 32, distance: 4, aperture: 4 });
+    expect(r.powerFraction).toBeCloseTo(0.25, 9);
+    expect(r.stopsBelowFull).toBeCloseTo(2, 9);
+    expect(r.powerLabel).toBe('1/4');
+    expect(r.decimalPower).toBe(8);
+  });
+  it('GN scales with sqrt(ISO/100): ISO 400 doubles reach', () => {
+    expect(
+      computeFlash({ guideNumber: 32, distance: 8, aperture: 8, iso: 400 }).powerFraction,
+    ).toBeCloseTo(1, 9);
+  });
+  it('losses in stops are applied: 1 stop of modifier needs twice the power', () => {
+    const r = computeFlash({ guideNumber: 32, distance: 4, aperture: 8, modifierLossStops: 1 });
+    expect(r.powerFraction).toBeCloseTo(2, 9);
+    expect(r.feasible).toBe(false);
+    expect(r.fixes?.moveCloserTo).toBeCloseTo(4 / Math.SQRT2, 2);
+    expect(r.fixes?.raiseIsoTo).toBe(200);
+    expect(r.fixes?.openUpTo).toBeCloseTo(8 / Math.SQRT2, 2);
+  });
+  it('gel loss adds to modifier loss', () => {
+    const r = computeFlash({
+      guideNumber: 32,
+      distance: 4,
+      aperture: 4,
+      modifierLossStops: 0.5,
+      gelLossStops: 0.5,
+    });
+    expect(r.powerFraction).toBeCloseTo(0.5, 9);
+  });
+  it('GN from a meter reading: f/11 at 3 m, full power, ISO 100 -> GN 33 m', () => {
+    const r = guideNumberFromMeter({ aperture: 11, distance: 3 });
+    expect(r.guideNumberM).toBeCloseTo(33, 6);
+    expect(r.guideNumberFt).toBeCloseTo(33 / 0.3048, 1);
+    expect(
+      guideNumberFromMeter({ aperture: 8, distance: 2, powerFraction: 0.25, iso: 400 })
+        .guideNumberM,
+    ).toBeCloseTo(16, 6);
+  });
+});
+
+describe('power labels', () => {
+  const third = 2 ** (1 / 3); // a third-stop step is 2^(1/3) [DER]
+  it('third-stop fraction labels', () => {
+    expect(fractionLabel(1 / 8)).toBe('1/8');
+    expect(fractionLabel((1 / 8) * third)).toBe('1/8 +0.3');
+    expect(fractionLabel((1 / 8) * third * third)).toBe('1/8 +0.7');
+    expect(fractionLabel(1 / 256)).toBe('1/256');
+    expect(fractionLabel(1 / 1024)).toBe('below 1/256');
+  });
+  it('decimal 10-stop scale: full = 10, 1/8 = 7, 1/256 = 2', () => {
+    expect(decimalScale(1)).toBe(10);
+    expect(decimalScale(1 / 8)).toBe(7);
+    expect(decimalScale(1 / 256)).toBe(2);
+  });
+});
+
+describe('inverse-square falloff (E = I/d^2, photometry handbooks)', () => {
+  it('doubling the distance loses 2 stops', () => {
+    expect(stopsBetween(1, 2)).toBeCloseTo(2, 12);
+    const r = computeFalloff({ subjectDistance: 2, backgroundDistance: 4, groundDistance: 3 });
+    expect(r.subjectToBackgroundStops).toBeCloseTo(2, 9);
+    expect(r.marks.find((m) => m.id === 'ground')?.stopsRelativeToSubject).toBeCloseTo(
+      -2 * Math.log2(1.5),
+      3,
+    );
+    expect(r.series.length).toBe(40);
+  });
+});
+
+describe('backlight geometry', () => {
+  it('head direction is atan(rise / run) [DER]', () => {
+    const r = computeBacklight({
+      lightHeight: 1,
+      headHeight: 1.6,
+      distanceBehind: 1.8,
+      beamAngleDeg: 20,
+    });
+    expect(r.headDirectionDeg).toBeCloseTo((Math.atan(0.6 / 1.8) * 180) / Math.PI, 2);
+    expect(r.distanceToHead).toBeCloseTo(Math.hypot(0.6, 1.8), 3);
+  });
+  it('rule of thumb: ~1.8 m (6 ft) behind, gridded, aimed up at the head -> no ground spill (common practice, no source)', () => {
+    const r = computeBacklight({ lightHeight: 1.0, distanceBehind: 1.8, beamAngleDeg: 20 });
+    expect(r.aimDeg).toBeGreaterThan(0);
+    expect(r.groundSpill).toBeNull();
+    expect(r.warnings).toEqual([]);
+  });
+  it('a low bare light far behind lights the ground more than the rim -> warning', () => {
+    const r = computeBacklight({ lightHeight: 0.3, distanceBehind: 3 });
+    // steepest beam ray -(100/2 - aim); ground/rim = sin^3(dep) * dHead^2 / H^2 [DER]
+    const aim = Math.atan2(1.3, 3);
+    const dep = 50 * (Math.PI / 180) - aim;
+    const expected = Math.log2((Math.sin(dep) ** 3 * (9 + 1.69)) / 0.09);
+    expect(r.groundVsRimStops).toBeCloseTo(expected, 1);
+    expect(r.warnings.map((w) => w.code)).toContain('ground-outshines-rim');
+  });
+  it('aimed down from above is flagged (common practice, no source)', () => {
+    const r = computeBacklight({ lightHeight: 2.6, distanceBehind: 1.8 });
+    expect(r.aimDeg).toBeLessThan(0);
+    expect(r.warnings.map((w) => w.code)).toContain('aimed-down');
+  });
+});
+
+describe('key light', () => {
+  it('rule of thumb: 45-90° off the camera axis gives a dramatic shadow side (common practice, no source)', () => {
+    for (const a of [45, 60, 90])
+      expect(
+        computeKeyLight({ angleFromCameraDeg: a, distance: 1.5, modifierSize: 0.9 }).shadowSide,
+      ).toBe('dramatic');
+    expect(
+      computeKeyLight({ angleFromCameraDeg: 5, distance: 1.5, modifierSize: 0.9 }).shadowSide,
+    ).toBe('frontal');
+  });
+  it('apparent size 2 atan(s / 2d): a 1 m source at 1 m subtends 53.13° [DER]', () => {
+    const r = computeKeyLight({ angleFromCameraDeg: 45, distance: 1, modifierSize: 1 });
+    expect(r.apparentSizeDeg).toBeCloseTo(53.13, 2);
+    expect(r.quality).toBe('soft');
+    expect(
+      computeKeyLight({ angleFromCameraDeg: 45, distance: 5, modifierSize: 0.1 }).quality,
+    ).toBe('hard');
+  });
+  it('lighting ratio (key + fill) : fill (lighting texts, from memory): 1 stop -> 3:1, 2 stops -> 5:1', () => {
+    expect(
+      computeKeyLight({
+        angleFromCameraDeg: 45,
+        distance: 1,
+        modifierSize: 1,
+        keyOverAmbientStops: 1,
+      }).lightingRatio,
+    ).toBe(3);
+    expect(
+      computeKeyLight({
+        angleFromCameraDeg: 45,
+        distance: 1,
+        modifierSize: 1,
+        keyOverAmbientStops: 2,
+      }).lightingRatioLabel,
+    ).toBe('5:1');
+  });
+  it('position: 60° at 2 m with 30° elevation [DER trig]', () => {
+    const r = computeKeyLight({
+      angleFromCameraDeg: 60,
+      distance: 2,
+      modifierSize: 1,
+      elevationDeg: 30,
+    });
+    expect(r.position.aboveEyes).toBeCloseTo(1, 3);
+    expect(r.position.sideways).toBeCloseTo(2 * Math.cos(Math.PI / 6) * Math.sin(Math.PI / 3), 3);
+  });
+});

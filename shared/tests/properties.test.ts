@@ -1,0 +1,163 @@
+/** Property tests (fast-check): invariants that follow from the cited definitions. */
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import {
+  applyMiredShift,
+  computeFalloff,
+  computeFlash,
+  computeFlashAperture,
+  miredShift,
+  solveBalance,
+  stopsBetween,
+} from '../src/index.js';
+
+const gn = fc.double({ min: 5, max: 80, noNaN: true });
+const dist = fc.double({ min: 0.5, max: 20, noNaN: true });
+const fnum = fc.double({ min: 1, max: 32, noNaN: true });
+const iso = fc.double({ min: 50, max: 12800, noNaN: true });
+
+describe('flash (ISO 1230 guide-number relation)', () => {
+  it('power rises with distance and with aperture', () => {
+    fc.assert(
+      fc.property(
+        gn,
+        dist,
+        fnum,
+        iso,
+        fc.double({ min: 1.01, max: 3, noNaN: true }),
+        (g, d, n, s, k) => {
+          const base = computeFlash({
+            guideNumber: g,
+            distance: d,
+            aperture: n,
+            iso: s,
+          }).powerFraction;
+          expect(
+            computeFlash({ guideNumber: g, distance: Math.min(1000, d * k), aperture: n, iso: s })
+              .powerFraction,
+          ).toBeGreaterThan(base);
+          expect(
+            computeFlash({ guideNumber: g, distance: d, aperture: Math.min(128, n * k), iso: s })
+              .powerFraction,
+          ).toBeGreaterThan(base);
+        },
+      ),
+    );
+  });
+  it('power <-> aperture round-trips', () => {
+    fc.assert(
+      fc.property(
+        gn,
+        dist,
+        fnum,
+        iso,
+        fc.double({ min: 0, max: 3, noNaN: true }),
+        (g, d, n, s, loss) => {
+          const p = computeFlash({
+            guideNumber: g,
+            distance: d,
+            aperture: n,
+            iso: s,
+            modifierLossStops: loss,
+          }).powerFraction;
+          fc.pre(p >= 1 / 4096 && p <= 1);
+          const back = computeFlashAperture({
+            guideNumber: g,
+            distance: d,
+            iso: s,
+            modifierLossStops: loss,
+            powerFraction: p,
+          });
+          expect(back.aperture).toBeCloseTo(n, 2);
+        },
+      ),
+    );
+  });
+});
+
+describe('falloff (inverse square)', () => {
+  it('is antisymmetric and additive', () => {
+    fc.assert(
+      fc.property(dist, dist, dist, (a, b, c) => {
+        expect(stopsBetween(a, b)).toBeCloseTo(-stopsBetween(b, a), 9);
+        expect(stopsBetween(a, c)).toBeCloseTo(stopsBetween(a, b) + stopsBetween(b, c), 9);
+        const r = computeFalloff({ subjectDistance: a, backgroundDistance: b });
+        expect(r.subjectToBackgroundStops).toBeCloseTo(stopsBetween(a, b), 2);
+      }),
+    );
+  });
+});
+
+describe('mireds', () => {
+  it('shifts add: gelling by a then b equals gelling by a + b', () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: 2000, max: 12000, noNaN: true }),
+        fc.double({ min: -150, max: 150, noNaN: true }),
+        fc.double({ min: -150, max: 150, noNaN: true }),
+        (k, a, b) => {
+          fc.pre(1e6 / k + a + b > 20 && 1e6 / k + a > 20);
+          expect(applyMiredShift(applyMiredShift(k, a), b)).toBeCloseTo(
+            applyMiredShift(k, a + b),
+            6,
+          );
+          expect(miredShift(k, applyMiredShift(k, a))).toBeCloseTo(a, 6);
+        },
+      ),
+    );
+  });
+});
+
+describe('gel solver equals brute force on random kits', () => {
+  const gel = fc.record({
+    miredShift: fc.integer({ min: -160, max: 160 }),
+    greenShift: fc.constantFrom(0, 0, 0, 7.5, -7.5, 15),
+    lossStops: fc.integer({ min: 0, max: 20 }).map((x) => x / 10),
+  });
+  it('best stack by |mired residual|, then |green residual|, then fewer gels, then less loss', () => {
+    fc.assert(
+      fc.property(
+        fc.array(gel, { minLength: 1, maxLength: 9 }),
+        fc.integer({ min: 2000, max: 12000 }),
+        fc.integer({ min: 0, max: 3 }),
+        fc.constantFrom(0, 0, 7.5, 15),
+        (kit, cameraKelvin, maxGels, tint) => {
+          const gels = kit.map((g, i) => ({ name: `g${i}`, ...g }));
+          const required = 1e6 / cameraKelvin - 1e6 / 5500;
+          // Brute force over every subset by bitmask.
+          let best: number[] = [];
+          let bestKey = [Math.abs(required), Math.abs(tint), 0, 0];
+          for (let mask = 1; mask < 1 << gels.length; mask++) {
+            const idx = gels.map((_, i) => i).filter((i) => mask & (1 << i));
+            if (idx.length > maxGels) continue;
+            const sum = (f: (g: (typeof gels)[number]) => number) =>
+              idx.reduce((s, i) => s + f(gels[i] as (typeof gels)[number]), 0);
+            const key = [
+              Math.abs(sum((g) => g.miredShift) - required),
+              Math.abs(sum((g) => g.greenShift) - tint),
+              idx.length,
+              sum((g) => g.lossStops),
+            ];
+            const better = (() => {
+              for (let k = 0; k < 4; k++) {
+                const d = (key[k] as number) - (bestKey[k] as number);
+                if (Math.abs(d) > 1e-9) return d < 0;
+              }
+              return false;
+            })();
+            if (better) {
+              best = idx;
+              bestKey = key;
+            }
+          }
+          const r = solveBalance({ cameraKelvin, cameraTint: tint, gels, maxGels });
+          expect(Math.abs(r.residualMired)).toBeCloseTo(bestKey[0] as number, 1);
+          expect(r.gels.length).toBe(bestKey[2]);
+          expect(r.gelLossStops).toBeCloseTo(bestKey[3] as number, 6);
+          expect(best.length).toBe(r.gels.length);
+        },
+      ),
+      { numRuns: 200 },
+    );
+  });
+});
