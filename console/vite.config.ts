@@ -11,7 +11,12 @@ export default defineConfig({
   base: '/',
   plugins: [react(), tailwindcss()],
   resolve: {
-    alias: { '@': fileURLToPath(new URL('./src', import.meta.url)) },
+    // The lighting math is compiled from source, so the console never waits on (or ships a stale)
+    // shared/dist; it is pure TypeScript with no I/O, so bundling its source is safe.
+    alias: {
+      '@': fileURLToPath(new URL('./src', import.meta.url)),
+      '@lumenwright/shared': fileURLToPath(new URL('../shared/src/index.ts', import.meta.url)),
+    },
   },
   server: {
     host: '127.0.0.1',

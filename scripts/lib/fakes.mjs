@@ -16,6 +16,11 @@ export async function startFakes({ root, dataDir, log = console.log }) {
     if (!fs.existsSync(p)) continue;
     const mod = await import(p);
     const f = await mod.start({ root, dir: path.join(dataDir, file.replace(/\.mjs$/, '')), log });
+    // The mail fake describes itself by its SMTP and inbox URLs.
+    if (!f.env && f.smtpUrl) {
+      f.env = { SMTP_URL: f.smtpUrl, MAIL_INBOX_URL: f.webUrl };
+      f.urls = [['Mail inbox', `${f.webUrl}/`]];
+    }
     started.push(f);
     Object.assign(env, f.env ?? {});
     urls.push(...(f.urls ?? []));

@@ -44,7 +44,8 @@ async function waitForHttp(url, child, timeoutMs) {
     } catch {
       // not up yet
     }
-    if (Date.now() > until) throw new Error(`maildev did not answer at ${url} within ${timeoutMs} ms`);
+    if (Date.now() > until)
+      throw new Error(`maildev did not answer at ${url} within ${timeoutMs} ms`);
     await new Promise((r) => setTimeout(r, 100));
   }
 }
@@ -59,10 +60,14 @@ export async function start(opts = {}) {
   const webPort = opts.webPort || (await freePort());
   const args = [
     maildevBin(),
-    '--ip', '127.0.0.1',
-    '--web-ip', '127.0.0.1',
-    '--smtp', String(smtpPort),
-    '--web', String(webPort),
+    '--ip',
+    '127.0.0.1',
+    '--web-ip',
+    '127.0.0.1',
+    '--smtp',
+    String(smtpPort),
+    '--web',
+    String(webPort),
     '--silent',
   ];
   if (opts.dir) {

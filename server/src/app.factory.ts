@@ -2,15 +2,19 @@
 import { randomUUID } from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
+import { ValidationError, ValidationPipe } from '@nestjs/common';
 import { NestFactory } from '@nestjs/core';
 import { FastifyAdapter, NestFastifyApplication } from '@nestjs/platform-fastify';
 import { SwaggerModule } from '@nestjs/swagger';
 import fastifyCors from '@fastify/cors';
 import fastifyHelmet from '@fastify/helmet';
+import fastifyMultipart from '@fastify/multipart';
 import fastifyStatic from '@fastify/static';
 import type { FastifyReply, FastifyRequest } from 'fastify';
 import { Logger } from 'nestjs-pino';
 import { AppModule } from './app.module.js';
+import { registerSessions } from './auth/session.plugin.js';
+import { DomainError } from './common/errors/domain-error.js';
 import { toProblem } from './common/filters/problem.filter.js';
 import { AppConfig } from './config/config.js';
 import { buildOpenApiDocument } from './openapi.js';
@@ -44,9 +48,13 @@ export async function createApp(
     logger: opts.preview || config.nodeEnv === 'test' ? false : undefined,
     bufferLogs: opts.bufferLogs ?? false,
     abortOnError: false,
+    // Billing webhooks verify their signature over the exact bytes received (req.rawBody).
+    rawBody: true,
   });
   if (!opts.preview) app.useLogger(app.get(Logger));
   app.setGlobalPrefix('v1');
+  // DTO validation for every route: failures become 422 problem+json naming each field.
+  app.useGlobalPipes(validationPipe());
   app.enableShutdownHooks();
 
   const fastify = app.getHttpAdapter().getInstance();
@@ -59,7 +67,11 @@ export async function createApp(
     problem.instance = req.url.split('?')[0];
     problem.requestId = String(req.id);
     if (problem.status >= 500) req.log.error({ err }, 'unhandled error');
-    void reply.headers(headers).status(problem.status).type('application/problem+json').send(problem);
+    void reply
+      .headers(headers)
+      .status(problem.status)
+      .type('application/problem+json')
+      .send(problem);
   });
 
   const https = config.publicUrl.startsWith('https://');
@@ -90,6 +102,15 @@ export async function createApp(
     exposedHeaders: ['X-Request-Id', 'RateLimit', 'RateLimit-Policy', 'Retry-After'],
     maxAge: 600,
   });
+
+  // Frames: multipart uploads. fileSize is enforced while streaming (past it the part is cut
+  // off and the route answers 413); the global JSON body limit does not apply to multipart.
+  await app.register(fastifyMultipart, {
+    limits: { fileSize: config.framesMaxBytes, files: 1, fields: 10, fieldSize: 1024, parts: 12 },
+  });
+
+  // Accounts: cookie + PostgreSQL-backed sessions + Origin-based CSRF refusal (src/auth/session.plugin.ts).
+  await registerSessions(app, config, { preview: opts.preview ?? false });
 
   const document = buildOpenApiDocument(app);
   SwaggerModule.setup('docs', app, document, {
@@ -136,5 +157,26 @@ async function registerConsole(app: NestFastifyApplication, config: AppConfig) {
   fastify.get('/', async (_req: FastifyRequest, reply: FastifyReply) => {
     if (!html) return reply.type('text/plain').send('Lumenwright API — see /docs');
     return reply.header('Cache-Control', 'no-cache').type('text/html; charset=utf-8').send(html);
+  });
+}
+
+/** class-validator DTOs; errors are flattened to `[{field, reason}]` with dotted paths. */
+function validationPipe(): ValidationPipe {
+  const flatten = (errs: ValidationError[], parent = ''): { field: string; reason: string }[] =>
+    errs.flatMap((e) => {
+      const field = parent ? `${parent}.${e.property}` : e.property;
+      const own = Object.values(e.constraints ?? {}).map((msg) => ({
+        field,
+        // class-validator prefixes messages with the property name; keep only the reason.
+        reason: msg.startsWith(`${e.property} `) ? msg.slice(e.property.length + 1) : msg,
+      }));
+      return [...own, ...flatten(e.children ?? [], field)];
+    });
+  return new ValidationPipe({
+    transform: true,
+    whitelist: true,
+    forbidNonWhitelisted: true,
+    exceptionFactory: (errs) =>
+      new DomainError('invalid_input', 'Some fields are missing or invalid.', flatten(errs)),
   });
 }

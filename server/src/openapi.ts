@@ -7,7 +7,11 @@ const PROBLEM_SCHEMA = {
   description: 'An RFC 9457 problem detail.',
   required: ['type', 'title', 'status'],
   properties: {
-    type: { type: 'string', format: 'uri', example: 'https://lumenwright.test/problems/invalid-input' },
+    type: {
+      type: 'string',
+      format: 'uri',
+      example: 'https://lumenwright.test/problems/invalid-input',
+    },
     title: { type: 'string', example: 'Invalid input' },
     status: { type: 'integer', example: 422 },
     detail: { type: 'string' },
@@ -52,7 +56,10 @@ export function buildOpenApiDocument(app: INestApplication): OpenAPIObject {
     )
     .setVersion('1')
     .addServer('http://127.0.0.1:3000', 'Local')
-    .addBearerAuth({ type: 'http', scheme: 'bearer', description: 'An API key: lw_live_… or lw_test_…' }, 'apiKey')
+    .addBearerAuth(
+      { type: 'http', scheme: 'bearer', description: 'An API key: lw_live_… or lw_test_…' },
+      'apiKey',
+    )
     .addCookieAuth('lw_session', { type: 'apiKey', in: 'cookie', name: 'lw_session' }, 'session')
     .build();
   const doc = SwaggerModule.createDocument(app, config, {

@@ -96,7 +96,11 @@ async function request<T>(path: string, init: ApiRequest = {}): Promise<T> {
   }
   const body = await readBody(response);
   if (!response.ok) {
-    throw new ApiProblem(response.status, toProblem(response.status, response.statusText, body), body);
+    throw new ApiProblem(
+      response.status,
+      toProblem(response.status, response.statusText, body),
+      body,
+    );
   }
   return body as T;
 }

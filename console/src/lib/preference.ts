@@ -16,29 +16,29 @@ export function createPreference<T extends string>(
   fallback: () => T,
 ): Preference<T> {
   const listeners = new Set<() => void>();
-  let current: T | undefined;
+  // Only used when storage refuses the write; otherwise storage is the single source of truth.
+  let unsaved: T | undefined;
 
-  const read = (): T => {
+  const stored = (): T | undefined => {
     try {
-      const stored = window.localStorage.getItem(storageKey);
-      if (stored !== null && (allowed as readonly string[]).includes(stored)) return stored as T;
+      const value = window.localStorage.getItem(storageKey);
+      if (value !== null && (allowed as readonly string[]).includes(value)) return value as T;
     } catch {
-      // storage blocked: fall through to the default
+      // storage blocked: fall back to the in-memory value
     }
-    return fallback();
+    return undefined;
   };
 
   return {
     get() {
-      current ??= read();
-      return current;
+      return stored() ?? unsaved ?? fallback();
     },
     set(value) {
-      current = value;
       try {
         window.localStorage.setItem(storageKey, value);
+        unsaved = undefined;
       } catch {
-        // storage blocked: keep the in-memory value for this visit
+        unsaved = value;
       }
       listeners.forEach((listener) => listener());
     },
@@ -49,7 +49,9 @@ export function createPreference<T extends string>(
   };
 }
 
-export function usePreference<T extends string>(preference: Preference<T>): [T, (value: T) => void] {
+export function usePreference<T extends string>(
+  preference: Preference<T>,
+): [T, (value: T) => void] {
   const value = useSyncExternalStore(preference.subscribe, preference.get, preference.get);
   return [value, preference.set];
 }

@@ -15,6 +15,26 @@ export interface AppConfig {
   smtpUrl: string | null;
   mailFrom: string;
   redisUrl: string | null;
+  /** Metering and limits (compute API): see the usage and plans features. */
+  rateLimitStore: 'memory' | 'postgres';
+  usageFlushMs: number;
+  usageBatchSize: number;
+  usageMaxBuffer: number;
+  quotaLeaseSize: number;
+  /** Test-frame uploads (src/frames): object storage (S3 API) and limits; null endpoint = off. */
+  s3Endpoint: string | null;
+  s3Bucket: string;
+  s3Region: string;
+  s3AccessKeyId: string;
+  s3SecretAccessKey: string;
+  framesMaxBytes: number;
+  framesMaxPixels: number;
+  /** Billing (src/billing): the payments API (a local fake in development); null URL = off. */
+  paymentsApiUrl: string | null;
+  paymentsSecretKey: string;
+  paymentsWebhookSecret: string;
+  /** Register this server's webhook URL with the payments API at boot (the local fake only). */
+  paymentsRegisterWebhook: boolean;
 }
 
 export class ConfigError extends Error {}
@@ -50,7 +70,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     .map((s) => s.trim())
     .filter(Boolean);
   for (const o of corsOrigins) {
-    if (!/^https?:\/\/[^/]+$/.test(o)) throw new ConfigError(`CORS_ORIGINS: "${o}" is not an origin`);
+    if (!/^https?:\/\/[^/]+$/.test(o))
+      throw new ConfigError(`CORS_ORIGINS: "${o}" is not an origin`);
   }
   const smtpUrl = env.SMTP_URL ?? null;
   if (smtpUrl && !/^smtps?:\/\//.test(smtpUrl)) throw new ConfigError('SMTP_URL must be smtp://');
@@ -68,7 +89,39 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     smtpUrl,
     mailFrom: env.MAIL_FROM ?? 'Lumenwright <no-reply@lumenwright.test>',
     redisUrl: env.REDIS_URL ?? null,
+    rateLimitStore: rateLimitStore(env.RATE_LIMIT_STORE),
+    usageFlushMs: int(env, 'USAGE_FLUSH_MS', 200, 10, 60_000),
+    usageBatchSize: int(env, 'USAGE_BATCH_SIZE', 1000, 1, 10_000),
+    usageMaxBuffer: int(env, 'USAGE_MAX_BUFFER', 50_000, 100, 1_000_000),
+    quotaLeaseSize: int(env, 'QUOTA_LEASE_SIZE', 50, 1, 10_000),
+    s3Endpoint: loopbackOrHttps(env, 'S3_ENDPOINT'),
+    s3Bucket: env.S3_BUCKET ?? 'lumenwright-frames',
+    s3Region: env.S3_REGION ?? 'us-east-1',
+    s3AccessKeyId: env.S3_ACCESS_KEY_ID ?? '',
+    s3SecretAccessKey: env.S3_SECRET_ACCESS_KEY ?? '',
+    framesMaxBytes: int(env, 'FRAMES_MAX_BYTES', 25 * 1024 * 1024, 1024, 200 * 1024 * 1024),
+    framesMaxPixels: int(env, 'FRAMES_MAX_PIXELS', 100_000_000, 1, 1_000_000_000),
+    paymentsApiUrl: loopbackOrHttps(env, 'PAYMENTS_API_URL'),
+    paymentsSecretKey: env.PAYMENTS_SECRET_KEY ?? '',
+    paymentsWebhookSecret: env.PAYMENTS_WEBHOOK_SECRET ?? '',
+    paymentsRegisterWebhook: env.PAYMENTS_REGISTER_WEBHOOK === 'true',
   };
+}
+
+function rateLimitStore(raw: string | undefined): AppConfig['rateLimitStore'] {
+  if (raw === undefined || raw === '' || raw === 'memory') return 'memory';
+  if (raw === 'postgres') return 'postgres';
+  throw new ConfigError(`RATE_LIMIT_STORE must be memory or postgres (got "${raw}")`);
+}
+
+/** An optional service URL: https anywhere, or plain http on loopback (local fakes). */
+function loopbackOrHttps(env: NodeJS.ProcessEnv, name: string): string | null {
+  const raw = env[name];
+  if (raw === undefined || raw === '') return null;
+  if (!/^https:\/\/|^http:\/\/(127\.0\.0\.1|localhost)(:\d+)?(\/|$)/.test(raw)) {
+    throw new ConfigError(`${name} must be an https:// URL, or http:// on 127.0.0.1`);
+  }
+  return raw.replace(/\/$/, '');
 }
 
 export const APP_CONFIG = Symbol('APP_CONFIG');

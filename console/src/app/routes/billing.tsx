@@ -5,10 +5,7 @@ export default function BillingRoute() {
     <SectionPage
       title="Billing"
       lead="Your plan, its limits and your invoices."
-      coming={[
-        'Current plan and limits',
-        'Change plan and download invoices',
-      ]}
+      coming={['Current plan and limits', 'Change plan and download invoices']}
     />
   );
 }

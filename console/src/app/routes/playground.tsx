@@ -1,15 +1,14 @@
-import { SectionPage } from './section-page';
+import { PageHeader } from '@/components/layout/page-header';
+import { Playground } from '@/features/playground';
 
 export default function PlaygroundRoute() {
   return (
-    <SectionPage
-      title="Playground"
-      lead="Try the lighting math for a dusk portrait and see the results drawn."
-      coming={[
-        'Twilight timeline with ambient light',
-        'Flash power, falloff, backlight and gel balance',
-        'The whole dusk setup with diagrams and cautions',
-      ]}
-    />
+    <>
+      <PageHeader
+        title="Playground"
+        lead="Plan a dusk portrait: when the light goes, what the background needs, and how to match it with flash."
+      />
+      <Playground />
+    </>
   );
 }

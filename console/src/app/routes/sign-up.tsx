@@ -30,10 +30,18 @@ export default function SignUpRoute() {
 
   return (
     <>
-      <PageHeader title="Create a studio account" lead="One account per studio; invite your team later." />
+      <PageHeader
+        title="Create a studio account"
+        lead="One account per studio; invite your team later."
+      />
       <Card>
         <form noValidate onSubmit={onSubmit} className="flex flex-col gap-4">
-          <TextField label="Studio name" autoComplete="organization" error={errors.studio?.message} {...register('studio')} />
+          <TextField
+            label="Studio name"
+            autoComplete="organization"
+            error={errors.studio?.message}
+            {...register('studio')}
+          />
           <TextField
             label="Email"
             type="email"

@@ -5,10 +5,7 @@ export default function TeamRoute() {
     <SectionPage
       title="Team"
       lead="People in your studio and what each may do."
-      coming={[
-        'Invite people by email',
-        'Change roles or remove access',
-      ]}
+      coming={['Invite people by email', 'Change roles or remove access']}
     />
   );
 }

@@ -32,7 +32,8 @@ describe('app shell', () => {
     '%s shows one h1 and marks its nav link as the current page',
     async (path, label) => {
       renderApp(path);
-      const heading = await screen.findByRole('heading', { level: 1 });
+      // Sections load as separate chunks; the first import of a big one can take a while here.
+      const heading = await screen.findByRole('heading', { level: 1 }, { timeout: 5000 });
       expect(heading.textContent).toBe(label);
       expect(screen.getAllByRole('heading', { level: 1 })).toHaveLength(1);
       const nav = screen.getByRole('navigation', { name: 'Primary' });

@@ -10,7 +10,12 @@ interface ButtonProps extends React.ButtonHTMLAttributes<HTMLButtonElement> {
   variant?: Variant;
 }
 
-export function Button({ variant = 'primary', className = '', type = 'button', ...rest }: ButtonProps) {
+export function Button({
+  variant = 'primary',
+  className = '',
+  type = 'button',
+  ...rest
+}: ButtonProps) {
   return (
     <button
       type={type}

@@ -3,7 +3,5 @@ interface CardProps extends React.HTMLAttributes<HTMLElement> {
 }
 
 export function Card({ as: Tag = 'section', className = '', ...rest }: CardProps) {
-  return (
-    <Tag className={`rounded-card border border-edge bg-panel p-5 ${className}`} {...rest} />
-  );
+  return <Tag className={`rounded-card border border-edge bg-panel p-5 ${className}`} {...rest} />;
 }

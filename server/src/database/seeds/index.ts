@@ -1,6 +1,10 @@
 // Demo-scenario seeders, run in order by `npm run seed`; each must be idempotent.
 import type { DataSource } from 'typeorm';
+import { plansSeeder } from '../../plans/plans.seeder.js';
+import { accountsSeeder } from '../../auth/accounts.seeder.js';
+import { gearSeeder } from '../../gear/gear.seeder.js';
+import { setupsSeeder } from '../../setups/setups.seeder.js';
 
 export type Seeder = { name: string; run: (ds: DataSource) => Promise<void> };
 
-export const SEEDERS: Seeder[] = [];
+export const SEEDERS: Seeder[] = [plansSeeder, accountsSeeder, gearSeeder, setupsSeeder];

@@ -9,9 +9,7 @@ export interface HealthReport {
   details?: Record<string, { status: 'up' | 'down'; [detail: string]: unknown }>;
 }
 
-export type ApiStatus =
-  | { state: 'up' }
-  | { state: 'down'; reason: string };
+export type ApiStatus = { state: 'up' } | { state: 'down'; reason: string };
 
 /** Any non-2xx, an unreachable server, or a down dependency counts as down. */
 export async function getApiStatus(signal?: AbortSignal): Promise<ApiStatus> {
@@ -21,7 +19,10 @@ export async function getApiStatus(signal?: AbortSignal): Promise<ApiStatus> {
       .filter(([, check]) => check?.status !== 'up')
       .map(([name]) => name);
     if (report?.status !== 'ok' || downChecks.length > 0) {
-      return { state: 'down', reason: downChecks.length ? `${downChecks.join(', ')} down` : 'unhealthy' };
+      return {
+        state: 'down',
+        reason: downChecks.length ? `${downChecks.join(', ')} down` : 'unhealthy',
+      };
     }
     return { state: 'up' };
   } catch (error) {

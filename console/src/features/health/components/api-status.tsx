@@ -24,7 +24,10 @@ export function ApiStatus() {
       data-state={state}
       className="flex items-center gap-2 text-small text-ink-muted"
     >
-      <span aria-hidden="true" className={`inline-block size-2.5 rounded-full ${dotClass[state]}`} />
+      <span
+        aria-hidden="true"
+        className={`inline-block size-2.5 rounded-full ${dotClass[state]}`}
+      />
       <span className={state === 'down' ? 'text-fault' : undefined}>{text}</span>
     </p>
   );

@@ -1,0 +1,210 @@
+import { fromMetres, type DuskSetupInput, type DuskSetupPlan } from '@lumenwright/shared';
+import { clockTime, fixed, signed, stops } from '../../utils/format';
+import { Swatches } from '../balance/swatches';
+import { Cautions } from '../cautions';
+import { SideDiagram } from '../diagrams/side-diagram';
+import { TopDiagram } from '../diagrams/top-diagram';
+import { Readouts } from '../form-grid';
+import { modifierLabels } from '../flash/flash-panel';
+
+/** The head height the plan's rim geometry assumes (computeBacklight's default), metres. */
+const DEFAULT_HEAD_M = 1.6;
+
+export function SetupResultView({ plan, input }: { plan: DuskSetupPlan; input: DuskSetupInput }) {
+  const unit = plan.key.distanceUnit;
+  const rimInput = input.rim;
+  const first = plan.suggestedMinutes[0];
+  return (
+    <div className="flex flex-col gap-4" data-testid="setup-plan">
+      <div className="rounded-card border border-edge bg-panel p-4">
+        <Readouts
+          items={[
+            {
+              term: 'Shooting window',
+              value: `${clockTime(plan.window.start)}–${clockTime(plan.window.end)}`,
+              hint: 'blue hour, else sunset to civil dusk',
+            },
+            {
+              term: 'Usable within it',
+              value: plan.window.usableStart
+                ? `${clockTime(plan.window.usableStart)}–${clockTime(plan.window.usableEnd)}`
+                : 'none',
+              hint: 'every limit met, flashes in range',
+            },
+            {
+              term: 'White balance',
+              value: `${plan.whiteBalance.cameraKelvin} K`,
+              hint: plan.whiteBalance.fineTune.amberBlueSteps
+                ? `fine-tune ${signed(plan.whiteBalance.fineTune.amberBlueSteps, 0)} (+ amber, − blue)`
+                : undefined,
+            },
+            {
+              term: 'Gels on the flash',
+              value: plan.gels.gels.map((gel) => gel.name).join(' + ') || 'none',
+              hint: `${stops(plan.gels.gelLossStops)} loss, flash now ${plan.gels.resultingFlashKelvin} K`,
+            },
+            {
+              term: 'Key character',
+              value: `${plan.key.quality}, ${plan.key.lightingRatioLabel}`,
+              hint: `${modifierLabels[plan.key.modifier as keyof typeof modifierLabels] ?? plan.key.modifier}, ${plan.key.shadowSide} shadow side`,
+            },
+            {
+              term: 'Background falloff',
+              value:
+                plan.backgroundFalloffStops === null ? '—' : stops(-plan.backgroundFalloffStops),
+              hint: 'from the key alone',
+            },
+          ]}
+        />
+      </div>
+
+      <section
+        className="rounded-card border border-edge bg-panel p-4"
+        aria-labelledby="suggested-heading"
+      >
+        <h3 id="suggested-heading" className="mb-2 text-body font-semibold">
+          Suggested minutes
+        </h3>
+        <div className="overflow-x-auto">
+          <table className="w-full min-w-[36rem] text-left text-small tabular-nums">
+            <thead className="text-caption text-ink-muted">
+              <tr>
+                <th scope="col" className="py-1 pr-3 font-medium">
+                  Time
+                </th>
+                <th scope="col" className="py-1 pr-3 font-medium">
+                  Sun
+                </th>
+                <th scope="col" className="py-1 pr-3 font-medium">
+                  EV100
+                </th>
+                <th scope="col" className="py-1 pr-3 font-medium">
+                  Camera
+                </th>
+                <th scope="col" className="py-1 pr-3 font-medium">
+                  Key
+                </th>
+                <th scope="col" className="py-1 pr-3 font-medium">
+                  Rim
+                </th>
+                <th scope="col" className="py-1 font-medium">
+                  Fits
+                </th>
+              </tr>
+            </thead>
+            <tbody>
+              {plan.suggestedMinutes.map((minute) => (
+                <tr key={minute.time} className="border-t border-edge">
+                  <th scope="row" className="py-1.5 pr-3 font-semibold">
+                    {clockTime(minute.time)}
+                  </th>
+                  <td className="py-1.5 pr-3">{fixed(minute.sunAltitudeDeg)}°</td>
+                  <td className="py-1.5 pr-3">{fixed(minute.ambientEv100)}</td>
+                  <td className="py-1.5 pr-3">
+                    {minute.background.shutterLabel} · {minute.background.apertureLabel} ·{' '}
+                    {minute.background.isoLabel}
+                  </td>
+                  <td className="py-1.5 pr-3">{minute.keyFlash.powerLabel}</td>
+                  <td className="py-1.5 pr-3">{minute.rimFlash?.powerLabel ?? '—'}</td>
+                  <td className={`py-1.5 ${minute.usable ? 'text-ok' : 'text-caution'}`}>
+                    {minute.usable ? 'yes' : 'no'}
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+        {plan.suggestedMinutes.length === 0 ? (
+          <p className="text-ink-muted">No minutes in the window.</p>
+        ) : null}
+      </section>
+
+      <div className="grid gap-4 2xl:grid-cols-2">
+        <figure className="rounded-card border border-edge bg-panel p-3">
+          <TopDiagram
+            unit={unit}
+            keyLight={{
+              sideways: plan.key.position.sideways,
+              towardCamera: plan.key.position.towardCamera,
+              size: plan.key.sizeToDistance * input.key.distance,
+              angleFromCameraDeg: input.key.angleFromCameraDeg ?? 60,
+              label:
+                modifierLabels[plan.key.modifier as keyof typeof modifierLabels] ??
+                plan.key.modifier,
+            }}
+            rim={
+              rimInput && plan.backlight
+                ? {
+                    distanceBehind: rimInput.distanceBehind,
+                    beamAngleDeg: plan.backlight.beamAngleDeg,
+                  }
+                : null
+            }
+            backgroundDistance={input.backgroundDistance ?? null}
+          />
+          <figcaption className="px-1 text-caption text-ink-muted">
+            From above, to scale except the camera.
+          </figcaption>
+        </figure>
+        <figure className="rounded-card border border-edge bg-panel p-3">
+          <SideDiagram
+            unit={unit}
+            headHeight={fromMetres(DEFAULT_HEAD_M, unit)}
+            keyLight={{
+              towardCamera: plan.key.position.towardCamera,
+              aboveEyes: plan.key.position.aboveEyes,
+            }}
+            rim={
+              rimInput && plan.backlight
+                ? {
+                    distanceBehind: rimInput.distanceBehind,
+                    lightHeight: rimInput.lightHeight,
+                    aimDeg: plan.backlight.aimDeg,
+                    beamAngleDeg: plan.backlight.beamAngleDeg,
+                    groundSpill: plan.backlight.groundSpill,
+                  }
+                : null
+            }
+          />
+          <figcaption className="px-1 text-caption text-ink-muted">
+            From the side, to scale, with the rim’s beam and ground spill.
+          </figcaption>
+        </figure>
+      </div>
+
+      {first ? (
+        <p className="text-small text-ink-muted">
+          At {clockTime(first.time)}: expose {first.background.shutterLabel} at{' '}
+          {first.background.apertureLabel}, {first.background.isoLabel}; key at{' '}
+          {first.keyFlash.powerLabel}
+          {first.rimFlash ? `, rim at ${first.rimFlash.powerLabel}` : ''}. Ambient is modelled to ±
+          {plan.twilight.ambientUncertaintyStops} stops: meter on the night.
+        </p>
+      ) : null}
+
+      <section
+        className="rounded-card border border-edge bg-panel p-4"
+        aria-labelledby="look-heading"
+      >
+        <h3 id="look-heading" className="mb-3 text-body font-semibold">
+          The look at {plan.whiteBalance.cameraKelvin} K
+        </h3>
+        <Swatches swatches={plan.look} cameraKelvin={plan.whiteBalance.cameraKelvin} />
+      </section>
+
+      {plan.warnings.length > 0 ? (
+        <ul className="flex flex-col gap-2" aria-label="Warnings">
+          {plan.warnings.map((warning) => (
+            <li
+              key={warning.code}
+              className="rounded-control border border-caution/50 bg-panel px-3 py-2 text-small text-ink"
+            >
+              {warning.message}
+            </li>
+          ))}
+        </ul>
+      ) : null}
+      <Cautions cautions={plan.cautions} />
+    </div>
+  );
+}

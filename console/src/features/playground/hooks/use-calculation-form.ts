@@ -1,0 +1,88 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { fromMetres, toMetres } from '@lumenwright/shared';
+import { useEffect, useRef } from 'react';
+import {
+  get,
+  useForm,
+  useWatch,
+  type DefaultValues,
+  type FieldValues,
+  type Path,
+  type PathValue,
+  type Resolver,
+} from 'react-hook-form';
+import type { z } from 'zod';
+import { useLengthUnit, type DisplayUnit } from './use-length-unit';
+import { usePreview } from './use-preview';
+
+interface CalculationFormOptions<F extends FieldValues, I, R> {
+  schema: z.ZodType<F, F>;
+  defaults: DefaultValues<F>;
+  /** Form values (checked by `schema`) to the shared function's input. */
+  toInput: (values: F, unit: DisplayUnit) => I | undefined;
+  compute: (input: I) => R;
+  /** Fields holding lengths in the display unit; converted when the unit is switched. */
+  lengthFields?: readonly Path<F>[];
+}
+
+/**
+ * A playground form: react-hook-form + zod for the basics, the shared function for everything
+ * else (ranges, combinations), recomputed on every change for a live preview.
+ */
+export function useCalculationForm<F extends FieldValues, I, R>({
+  schema,
+  defaults,
+  toInput,
+  compute,
+  lengthFields = [],
+}: CalculationFormOptions<F, I, R>) {
+  const [unit] = useLengthUnit();
+  const form = useForm<F, unknown, F>({
+    resolver: zodResolver(schema as never) as unknown as Resolver<F, unknown, F>,
+    mode: 'onChange',
+    defaultValues: defaults,
+  });
+  const values = useWatch({ control: form.control });
+  const parsed = schema.safeParse(values);
+  const input = parsed.success ? toInput(parsed.data, unit) : undefined;
+  const preview = usePreview(compute, input);
+
+  // Switching metres/feet converts what is typed, so the scene stays the same size.
+  const previousUnit = useRef(unit);
+  useEffect(() => {
+    if (previousUnit.current === unit) return;
+    const from = previousUnit.current;
+    previousUnit.current = unit;
+    for (const field of lengthFields) {
+      const value = form.getValues(field) as unknown;
+      if (typeof value === 'number' && Number.isFinite(value)) {
+        const converted = Number(fromMetres(toMetres(value, from), unit).toFixed(2));
+        form.setValue(field, converted as PathValue<F, Path<F>>, { shouldValidate: true });
+      }
+    }
+  }, [unit, form, lengthFields]);
+
+  const sharedError = preview.state === 'invalid' ? preview : null;
+  /** The form's own error for a field, else the shared function's complaint about it. */
+  const errorFor = (field: string, sharedField: string = field): string | undefined => {
+    const own = get(form.formState.errors, field) as { message?: string } | undefined;
+    if (own?.message) return own.message;
+    return sharedError?.field === sharedField ? sharedError.reason : undefined;
+  };
+
+  /** Props for a numeric TextField bound to `field`. */
+  const numberField = (field: Path<F>, sharedField?: string) => ({
+    type: 'number',
+    step: 'any',
+    inputMode: 'decimal' as const,
+    error: errorFor(field, sharedField),
+    ...form.register(field, { valueAsNumber: true }),
+  });
+
+  return { form, unit, input, preview, errorFor, numberField };
+}
+
+/** valueAsNumber gives NaN for an empty box: treat that as "not given". */
+export function given(value: number | undefined): number | undefined {
+  return value === undefined || Number.isNaN(value) ? undefined : value;
+}

@@ -1,0 +1,1 @@
+export { Playground } from './components/playground';

@@ -1,0 +1,165 @@
+// A thin, typed client over openapi-fetch: one method per compute endpoint, problem+json turned
+// into LumenwrightError, bounded retries on 429 (rate limited) and 503 honouring Retry-After,
+// and a timeout per attempt.
+import createClient, { type Client } from 'openapi-fetch';
+import type { components, paths } from './generated/schema.js';
+import { LumenwrightError, type Problem } from './errors.js';
+
+type Schemas = components['schemas'];
+export type TwilightRequest = Schemas['TwilightRequestDto'];
+export type TwilightResponse = Schemas['TwilightResponseDto'];
+export type ExposureRequest = Schemas['ExposureRequestDto'];
+export type ExposureResponse = Schemas['ExposureResponseDto'];
+export type FlashRequest = Schemas['FlashRequestDto'];
+export type FlashResponse = Schemas['FlashResponseDto'];
+export type FalloffRequest = Schemas['FalloffRequestDto'];
+export type FalloffResponse = Schemas['FalloffResponseDto'];
+export type BacklightRequest = Schemas['BacklightRequestDto'];
+export type BacklightResponse = Schemas['BacklightResponseDto'];
+export type BalanceRequest = Schemas['BalanceRequestDto'];
+export type BalanceResponse = Schemas['BalanceResponseDto'];
+export type SetupRequest = Schemas['SetupRequestDto'];
+export type SetupResponse = Schemas['SetupResponseDto'];
+export type PlanList = Schemas['PlanListResponseDto'];
+
+export type FetchLike = (request: Request) => Promise<Response>;
+
+export interface LumenwrightOptions {
+  /** A secret API key: lw_live_… or lw_test_… */
+  apiKey: string;
+  /** Where the API lives, e.g. http://127.0.0.1:3000 (no /v1). */
+  baseUrl: string;
+  /** Your own fetch (tests, proxies); defaults to the global fetch at call time. */
+  fetch?: FetchLike;
+  /** Per-attempt timeout, ms; default 10 000. */
+  timeoutMs?: number;
+  /** Retries on 429 (rate limited) and 503; default 2. Quota exhaustion is never retried. */
+  maxRetries?: number;
+  /** Longest Retry-After we are willing to wait, seconds; default 30. */
+  maxRetryAfterSeconds?: number;
+}
+
+type ComputePath =
+  | '/v1/twilight'
+  | '/v1/exposure'
+  | '/v1/flash'
+  | '/v1/falloff'
+  | '/v1/backlight'
+  | '/v1/balance'
+  | '/v1/setup';
+
+const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
+
+function retryAfter(res: Response): number | null {
+  const v = res.headers.get('retry-after');
+  if (!v) return null;
+  const n = Number(v);
+  if (Number.isFinite(n)) return Math.max(0, n);
+  const at = Date.parse(v);
+  return Number.isNaN(at) ? null : Math.max(0, (at - Date.now()) / 1000);
+}
+
+export class Lumenwright {
+  private readonly client: Client<paths>;
+  private readonly timeoutMs: number;
+  private readonly maxRetries: number;
+  private readonly maxRetryAfter: number;
+
+  constructor(opts: LumenwrightOptions) {
+    if (!opts.apiKey) throw new TypeError('Lumenwright: apiKey is required');
+    if (!/^https?:\/\//.test(opts.baseUrl))
+      throw new TypeError('Lumenwright: baseUrl must be an absolute http(s) URL');
+    const userFetch = opts.fetch;
+    this.client = createClient<paths>({
+      baseUrl: opts.baseUrl.replace(/\/$/, ''),
+      // Read the global fetch per call so it can be swapped (tests) after the client is made.
+      fetch: (r: Request) => (userFetch ? userFetch(r) : globalThis.fetch(r)),
+      headers: { Authorization: `Bearer ${opts.apiKey}` },
+    });
+    this.timeoutMs = opts.timeoutMs ?? 10_000;
+    this.maxRetries = Math.max(0, Math.min(opts.maxRetries ?? 2, 10));
+    this.maxRetryAfter = opts.maxRetryAfterSeconds ?? 30;
+  }
+
+  twilight = (body: TwilightRequest) => this.compute<TwilightResponse>('/v1/twilight', body);
+  exposure = (body: ExposureRequest) => this.compute<ExposureResponse>('/v1/exposure', body);
+  flash = (body: FlashRequest) => this.compute<FlashResponse>('/v1/flash', body);
+  falloff = (body: FalloffRequest) => this.compute<FalloffResponse>('/v1/falloff', body);
+  backlight = (body: BacklightRequest) => this.compute<BacklightResponse>('/v1/backlight', body);
+  balance = (body: BalanceRequest) => this.compute<BalanceResponse>('/v1/balance', body);
+  setup = (body: SetupRequest) => this.compute<SetupResponse>('/v1/setup', body);
+
+  /** The plans (public). */
+  plans = (): Promise<PlanList> =>
+    this.attempt(async (signal) => this.client.GET('/v1/plans', { signal })) as Promise<PlanList>;
+
+  private compute<T>(path: ComputePath, body: unknown): Promise<T> {
+    return this.attempt((signal) =>
+      // The path/body pairing is enforced by the public methods' signatures.
+      this.client.POST(path as '/v1/balance', { body: body as BalanceRequest, signal }),
+    ) as Promise<T>;
+  }
+
+  private async attempt(
+    call: (signal: AbortSignal) => Promise<{ data?: unknown; error?: unknown; response: Response }>,
+  ): Promise<unknown> {
+    for (let attempt = 0; ; attempt++) {
+      let result: { data?: unknown; error?: unknown; response: Response };
+      try {
+        result = await call(AbortSignal.timeout(this.timeoutMs));
+      } catch (err) {
+        const timeout = (err as { name?: string })?.name === 'TimeoutError';
+        throw new LumenwrightError({
+          kind: timeout ? 'timeout' : 'network',
+          status: 0,
+          message: timeout
+            ? `No answer within ${this.timeoutMs} ms`
+            : `Network error: ${String(err)}`,
+          cause: err,
+        });
+      }
+      const { response } = result;
+      if (response.ok) return result.data;
+      const problem = (
+        result.error && typeof result.error === 'object' ? result.error : null
+      ) as Problem | null;
+      const wait = retryAfter(response);
+      const retryable =
+        (response.status === 503 ||
+          (response.status === 429 && !problem?.type?.endsWith('/quota-exceeded'))) &&
+        attempt < this.maxRetries &&
+        (wait ?? 1) <= this.maxRetryAfter;
+      if (retryable) {
+        // Retry-After when given; otherwise a short exponential backoff with jitter.
+        await sleep(wait !== null ? wait * 1000 : 2 ** attempt * 250 + Math.random() * 100);
+        continue;
+      }
+      throw new LumenwrightError({
+        kind: 'problem',
+        status: response.status,
+        message: problem?.detail ?? problem?.title ?? `HTTP ${response.status}`,
+        problem,
+        requestId: response.headers.get('x-request-id'),
+        retryAfterSeconds: wait,
+      });
+    }
+  }
+}
+
+/**
+ * The raw typed client for the console (cookie session): every path in the API, with
+ * `credentials: 'include'`. Results are openapi-fetch's `{ data, error, response }`.
+ */
+export function createApiClient(opts: {
+  baseUrl: string;
+  fetch?: FetchLike;
+  headers?: Record<string, string>;
+}) {
+  const userFetch = opts.fetch;
+  return createClient<paths>({
+    baseUrl: opts.baseUrl.replace(/\/$/, ''),
+    fetch: (r: Request) => (userFetch ? userFetch(r) : globalThis.fetch(r)),
+    headers: opts.headers,
+    credentials: 'include',
+  });
+}

@@ -1,0 +1,170 @@
+// The SDK against a live server: sign up, make a key, call every endpoint, see typed errors,
+// retries on 429 honouring Retry-After, and timeouts.
+import { randomUUID } from 'node:crypto';
+import { beforeAll, describe, expect, inject, it } from 'vitest';
+import { createApiClient, Lumenwright, LumenwrightError } from '../src/index.js';
+
+const baseUrl = inject('baseUrl');
+
+async function newKey(environment: 'live' | 'test'): Promise<string> {
+  const api = createApiClient({ baseUrl });
+  const email = `sdk-${randomUUID().slice(0, 8)}@sdk-tests.test`;
+  const signUp = await fetch(`${baseUrl}/v1/auth/sign-up`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: JSON.stringify({
+      email,
+      password: 'amber-dusk-over-the-quay',
+      name: 'Ada Fenwick',
+      organizationName: 'Quayside Frames',
+    }),
+  });
+  expect(signUp.status).toBe(201);
+  const cookie = (signUp.headers.getSetCookie?.() ?? []).map((c) => c.split(';')[0]).join('; ');
+  const created = await api.POST('/v1/keys', {
+    body: { name: 'sdk test', environment },
+    headers: { cookie },
+  });
+  expect(created.response.status).toBe(201);
+  return (created.data as { secret: string }).secret;
+}
+
+describe('Lumenwright SDK', () => {
+  let lw: Lumenwright;
+  beforeAll(async () => {
+    lw = new Lumenwright({ apiKey: await newKey('live'), baseUrl });
+  });
+
+  it('balances the flash to the camera (mired = 1e6 / K)', async () => {
+    const r = await lw.balance({ cameraKelvin: 3800, flashKelvin: 5600 });
+    // 1e6/3800 − 1e6/5600 = 84.59 mireds (definition of the mired).
+    expect(r.requiredMiredShift).toBeCloseTo(84.59, 1);
+    expect(r.gels.length).toBeGreaterThan(0);
+  });
+
+  it('answers flash, exposure, twilight, falloff, backlight and setup with typed results', async () => {
+    // ISO 1230: GN 32 m at 4 m needs f/8 at full power, so f/4 needs a quarter.
+    const f = await lw.flash({ guideNumber: 32, distance: 4, aperture: 4 });
+    expect(f.powerFraction).toBeCloseTo(0.25, 3);
+    const e = await lw.exposure({ ev100: 12, aperture: 8, iso: 100 });
+    expect(e.shutterSeconds).toBeCloseTo(1 / 64, 5); // APEX: 2^12 = 8² / t
+    const t = await lw.twilight({
+      latitude: 51.507,
+      longitude: -0.1,
+      date: '2026-06-20',
+      timeZone: 'Europe/London',
+    });
+    // London sunsets around 21:20 BST at the June solstice (from memory; the math library checks
+    // exact times against an astronomy reference).
+    expect(t.sunset).toMatch(/^2026-06-20T21:[12]\d:\d\d\+01:00$/);
+    const fo = await lw.falloff({ subjectDistance: 2, backgroundDistance: 8 });
+    expect(fo.subjectToBackgroundStops).toBeCloseTo(4, 3); // inverse square: 2·log2(8/2) = 4 stops
+    const b = await lw.backlight({ lightHeight: 2, distanceBehind: 3 });
+    expect(typeof b.headInBeam).toBe('boolean');
+    const s = await lw.setup({
+      latitude: 51.507,
+      longitude: -0.1,
+      date: '2026-06-20',
+      timeZone: 'Europe/London',
+      key: { guideNumber: 60, distance: 2.5 },
+    });
+    expect(Array.isArray(s.suggestedMinutes)).toBe(true);
+  });
+
+  it('throws a LumenwrightError carrying the problem for bad input', async () => {
+    const err = await lw.balance({ cameraKelvin: -5, flashKelvin: 5600 }).catch((e: unknown) => e);
+    expect(err).toBeInstanceOf(LumenwrightError);
+    const le = err as LumenwrightError;
+    expect(le.status).toBe(422);
+    expect(le.code).toBe('invalid-input');
+    expect(le.problem?.errors?.[0]?.field).toBe('cameraKelvin');
+    expect(le.requestId).toBeTruthy();
+  });
+
+  it('throws 401 problems for a bad key', async () => {
+    const bad = new Lumenwright({ apiKey: 'lw_live_nope', baseUrl });
+    await expect(bad.exposure({ ev100: 10 })).rejects.toMatchObject({
+      status: 401,
+      kind: 'problem',
+    });
+  });
+
+  it('retries a 429 after Retry-After, then succeeds (bounded)', async () => {
+    const key = await newKey('live');
+    const calls: number[] = [];
+    const flaky = new Lumenwright({
+      apiKey: 'unused',
+      baseUrl,
+      maxRetries: 2,
+      fetch: async (req) => {
+        calls.push(Date.now());
+        if (calls.length === 1) {
+          return new Response(
+            JSON.stringify({
+              type: 'https://lumenwright.test/problems/rate-limited',
+              title: 'Too many requests',
+              status: 429,
+            }),
+            {
+              status: 429,
+              headers: { 'content-type': 'application/problem+json', 'retry-after': '1' },
+            },
+          );
+        }
+        const headers = new Headers(req.headers);
+        headers.set('authorization', `Bearer ${key}`);
+        return globalThis.fetch(new Request(req, { headers }));
+      },
+    });
+    const r = await flaky.exposure({ ev100: 10, aperture: 4 });
+    expect(r.shutterSeconds).toBeGreaterThan(0);
+    expect(calls).toHaveLength(2);
+    expect(calls[1]! - calls[0]!).toBeGreaterThanOrEqual(950);
+  });
+
+  it('gives up after maxRetries and never retries an exhausted quota', async () => {
+    let n = 0;
+    const always429 = (type: string) =>
+      new Lumenwright({
+        apiKey: 'x',
+        baseUrl,
+        maxRetries: 2,
+        fetch: async () => {
+          n++;
+          return new Response(JSON.stringify({ type, title: 'Too many requests', status: 429 }), {
+            status: 429,
+            headers: { 'content-type': 'application/problem+json', 'retry-after': '0' },
+          });
+        },
+      });
+    await expect(
+      always429('https://lumenwright.test/problems/rate-limited').exposure({ ev100: 1 }),
+    ).rejects.toMatchObject({ status: 429 });
+    expect(n).toBe(3);
+    n = 0;
+    await expect(
+      always429('https://lumenwright.test/problems/quota-exceeded').exposure({ ev100: 1 }),
+    ).rejects.toMatchObject({
+      code: 'quota-exceeded',
+    });
+    expect(n).toBe(1);
+  });
+
+  it('times out a call that takes too long', async () => {
+    const slow = new Lumenwright({
+      apiKey: 'x',
+      baseUrl,
+      timeoutMs: 100,
+      fetch: (req) =>
+        new Promise((_resolve, reject) => {
+          req.signal.addEventListener('abort', () => reject(req.signal.reason));
+        }),
+    });
+    await expect(slow.exposure({ ev100: 1 })).rejects.toMatchObject({ kind: 'timeout', status: 0 });
+  });
+
+  it('lists the plans', async () => {
+    const plans = await lw.plans();
+    expect(plans.data.map((p) => p.code)).toEqual(['free', 'studio', 'platform']);
+  });
+});

@@ -1,0 +1,97 @@
+import { Body, Controller } from '@nestjs/common';
+import { ApiTags } from '@nestjs/swagger';
+import type {
+  BacklightInput,
+  BalanceInput,
+  DuskSetupInput,
+  ExposureInput,
+  FalloffInput,
+  FlashInput,
+  TwilightInput,
+} from '@lumenwright/shared';
+import { ComputeRoute } from './compute.decorator.js';
+import { ComputeService } from './compute.service.js';
+import { SchemaPipe } from './validation/schema-dto.js';
+import * as backlight from './schemas/backlight.schema.js';
+import * as balance from './schemas/balance.schema.js';
+import * as exposure from './schemas/exposure.schema.js';
+import * as falloff from './schemas/falloff.schema.js';
+import * as flash from './schemas/flash.schema.js';
+import * as setup from './schemas/setup.schema.js';
+import * as twilight from './schemas/twilight.schema.js';
+
+@ApiTags('compute')
+@Controller()
+export class ComputeController {
+  constructor(private readonly compute: ComputeService) {}
+
+  @ComputeRoute(
+    'twilight',
+    'Sun events, golden and blue hour, and the ambient-light timeline for a place and date.',
+    twilight.TwilightRequestDto,
+    twilight.TwilightResponseDto,
+  )
+  computeTwilight(@Body(new SchemaPipe(twilight.twilightRequestSchema)) body: TwilightInput) {
+    return this.compute.twilight(body);
+  }
+
+  @ComputeRoute(
+    'exposure',
+    'Solve shutter, aperture or ISO for a scene EV (APEX).',
+    exposure.ExposureRequestDto,
+    exposure.ExposureResponseDto,
+  )
+  solveExposure(@Body(new SchemaPipe(exposure.exposureRequestSchema)) body: ExposureInput) {
+    return this.compute.exposure(body);
+  }
+
+  @ComputeRoute(
+    'flash',
+    'Flash power for a distance and aperture from the guide number.',
+    flash.FlashRequestDto,
+    flash.FlashResponseDto,
+  )
+  computeFlash(@Body(new SchemaPipe(flash.flashRequestSchema)) body: FlashInput) {
+    return this.compute.flash(body);
+  }
+
+  @ComputeRoute(
+    'falloff',
+    'Inverse-square falloff from the subject to background and ground.',
+    falloff.FalloffRequestDto,
+    falloff.FalloffResponseDto,
+  )
+  computeFalloff(@Body(new SchemaPipe(falloff.falloffRequestSchema)) body: FalloffInput) {
+    return this.compute.falloff(body);
+  }
+
+  @ComputeRoute(
+    'backlight',
+    'Rim-light geometry: head in the beam, ground spill.',
+    backlight.BacklightRequestDto,
+    backlight.BacklightResponseDto,
+  )
+  computeBacklight(@Body(new SchemaPipe(backlight.backlightRequestSchema)) body: BacklightInput) {
+    return this.compute.backlight(body);
+  }
+
+  @ComputeRoute(
+    'balance',
+    'Gels for the flash to match the camera white balance, in mireds.',
+    balance.BalanceRequestDto,
+    balance.BalanceResponseDto,
+  )
+  solveBalance(@Body(new SchemaPipe(balance.balanceRequestSchema)) body: BalanceInput) {
+    return this.compute.balance(body);
+  }
+
+  @ComputeRoute(
+    'setup',
+    'The whole dusk setup: timing, background exposure, key and rim power, gels, cautions.',
+    setup.SetupRequestDto,
+    setup.SetupResponseDto,
+  )
+  planSetup(@Body(new SchemaPipe(setup.setupRequestSchema)) body: DuskSetupInput) {
+    return this.compute.setup(body);
+  }
+}

@@ -1,0 +1,11 @@
+import { Module } from '@nestjs/common';
+import { PlansModule } from '../plans/plans.module.js';
+import { ComputeController } from './compute.controller.js';
+import { ComputeService } from './compute.service.js';
+
+@Module({
+  imports: [PlansModule],
+  controllers: [ComputeController],
+  providers: [ComputeService],
+})
+export class ComputeModule {}

@@ -1,0 +1,106 @@
+import { schemaDto, type ObjectSchema } from '../validation/schema-dto.js';
+import { num, outNum, str } from './common.js';
+
+export const balanceRequestSchema: ObjectSchema = {
+  type: 'object',
+  additionalProperties: false,
+  description:
+    'Gel the flash so it matches the camera white balance (plus an optional creative offset), ' +
+    'working in mireds (10⁶ / kelvin).',
+  required: ['cameraKelvin'],
+  properties: {
+    cameraKelvin: num('Camera white balance, kelvin (1500..20000).', 3800, { exclusiveMinimum: 0 }),
+    cameraTint: num('Camera tint, CC units (-60..60; + = toward magenta); default 0.', 0),
+    flashKelvin: num('Bare flash colour temperature, kelvin (2500..10000); default 5500.', 5600, {
+      exclusiveMinimum: 0,
+    }),
+    targetMiredOffset: num(
+      'Extra warmth wanted on the subject, mireds (-200..200; + = warmer).',
+      10,
+    ),
+    gels: {
+      type: 'array',
+      maxItems: 200,
+      description:
+        'The gels to choose from; default: the built-in catalogue of common CTO/CTB cuts.',
+      items: {
+        type: 'object',
+        additionalProperties: false,
+        required: ['name', 'miredShift', 'lossStops'],
+        properties: {
+          name: str('Your name for the gel.', 'Half warming', { minLength: 1, maxLength: 80 }),
+          miredShift: num('Mired shift of the gel (+ = warmer, CTO; − = cooler, CTB).', 81),
+          greenShift: num('Green shift, CC units (+ = plus-green); default 0.', 0),
+          lossStops: num('Light the gel absorbs, stops (0..8).', 0.33),
+        },
+      },
+    },
+    maxGels: {
+      type: 'integer',
+      minimum: 0,
+      maximum: 4,
+      description: 'Most gels in one stack (0..4); default 3.',
+      example: 2,
+    },
+  },
+};
+
+export const balanceResponseSchema: ObjectSchema = {
+  type: 'object',
+  required: ['requiredMiredShift', 'achievedMiredShift', 'residualMired', 'gels', 'gelLossStops'],
+  properties: {
+    requiredMiredShift: outNum('Shift the flash needs, mireds (+ = warmer).', 84.6),
+    achievedMiredShift: outNum('Shift of the chosen gels, mireds.', 81),
+    residualMired: outNum('achieved − required, mireds (+ = flash warmer than intended).', -3.6),
+    gels: {
+      type: 'array',
+      description: 'The chosen gels (empty when none is needed).',
+      items: {
+        type: 'object',
+        required: ['name', 'miredShift', 'lossStops'],
+        properties: {
+          name: str('Gel name.', 'Half warming'),
+          miredShift: outNum('Mired shift, mireds.', 81),
+          lossStops: outNum('Light loss, stops.', 0.33),
+        },
+      },
+    },
+    gelLossStops: outNum('Total light lost in the chosen gels, stops.', 0.33),
+    requiredGreenShift: outNum('Green shift needed, CC units.', 0),
+    achievedGreenShift: outNum('Green shift of the chosen gels, CC units.', 0),
+    residualGreen: outNum('Green left after gelling, CC units.', 0),
+    powerCompensationStops: outNum('Raise flash power by this much to make up for the gels.', 0.33),
+    whiteBalanceFineTune: {
+      type: 'object',
+      description: 'Camera white-balance change that cancels the residual on the subject.',
+      properties: {
+        miredShift: outNum('Mireds.'),
+        cameraKelvin: outNum('Camera white balance that would cancel it, kelvin.'),
+        amberBlueSteps: outNum('Steps on an amber(+)/blue(−) fine-tune axis, about 5 mireds each.'),
+        tintCC: outNum('Camera tint change, CC units.'),
+      },
+    },
+    flashKelvin: outNum('Bare flash colour temperature used, kelvin.', 5600),
+    resultingFlashKelvin: outNum('Flash colour temperature through the gels, kelvin.', 3850),
+    scene: {
+      type: 'array',
+      description: 'How light sources in the scene render at this white balance.',
+      items: {
+        type: 'object',
+        properties: {
+          id: str('Swatch id.'),
+          label: str('Swatch label.'),
+          kelvin: outNum('Source colour temperature, kelvin.'),
+          miredOffset: outNum('mired(source) − mired(camera WB); + = warmer than neutral.'),
+          hex: str('Display colour, sRGB hex.'),
+          rendersAs: str('How it renders.', 'warmer', {
+            enum: ['much warmer', 'warmer', 'neutral', 'cooler', 'much cooler'],
+          }),
+        },
+      },
+    },
+  },
+};
+
+export const BalanceRequestDto = schemaDto('BalanceRequestDto', balanceRequestSchema);
+export const BalanceResponseDto = schemaDto('BalanceResponseDto', balanceResponseSchema);

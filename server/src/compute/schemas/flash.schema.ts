@@ -1,0 +1,58 @@
+import { schemaDto, type ObjectSchema } from '../validation/schema-dto.js';
+import { bool, lengthUnit, num, outNum, str, WARNINGS } from './common.js';
+
+export const flashRequestSchema: ObjectSchema = {
+  type: 'object',
+  additionalProperties: false,
+  description:
+    'Flash power for a subject at a distance and aperture, from the guide number (ISO 1230: ' +
+    'GN = distance × f-number at ISO 100, full power).',
+  required: ['guideNumber', 'distance', 'aperture'],
+  properties: {
+    guideNumber: num('Guide number at ISO 100 and full power, in guideNumberUnit (1..500).', 60),
+    guideNumberUnit: lengthUnit('Unit of the guide number.'),
+    distance: num('Light-to-subject distance in distanceUnit (0.05..1000).', 3),
+    distanceUnit: lengthUnit('Unit of the distance.'),
+    aperture: num('f-number (0.7..128).', 5.6),
+    iso: num('ISO speed (3..409600); default 100.', 200),
+    modifierLossStops: num('Light lost in the modifier, stops (0..8).', 1.5),
+    gelLossStops: num('Light lost in gels, stops (0..8).', 0.67),
+    minPowerFraction: num(
+      'Lowest power the light can go to, as a fraction of full; default 1/256.',
+      0.00390625,
+    ),
+  },
+};
+
+export const flashResponseSchema: ObjectSchema = {
+  type: 'object',
+  required: ['powerFraction', 'stopsBelowFull', 'feasible'],
+  properties: {
+    powerFraction: outNum('Fraction of full power needed (above 1 when not feasible).', 0.125),
+    powerLabel: str('Power on the 1/1..1/256 third-stop scale, e.g. "1/8 +0.3".', '1/8'),
+    decimalPower: outNum('Power on a decimal ten-stop scale (10 = full).', 7),
+    stopsBelowFull: outNum('Stops below full power (negative = more than full needed).', 3),
+    feasible: bool('Whether the light can deliver this at or below full power.', true),
+    requiredGuideNumber: outNum('Guide number the shot needs at full power, ISO 100, no losses.'),
+    effectiveGuideNumber: outNum('Guide number after ISO and losses, in guideNumberUnit.'),
+    totalLossStops: outNum('Modifier plus gel losses, stops.', 2.17),
+    fixes: {
+      type: ['object', 'null'],
+      description:
+        'When not feasible: each single change that would fix it (distances in distanceUnit).',
+      properties: {
+        moveCloserTo: outNum('Distance to move the light to.'),
+        raiseIsoTo: outNum('ISO that would work.'),
+        raiseIsoByStops: outNum('Stops of ISO to add.'),
+        openUpTo: outNum('f-number that would work.'),
+        openUpByStops: outNum('Stops to open up.'),
+        moveBackTo: outNum('Distance to move back to (below minimum power).'),
+        stopDownTo: outNum('f-number to stop down to (below minimum power).'),
+      },
+    },
+    warnings: WARNINGS,
+  },
+};
+
+export const FlashRequestDto = schemaDto('FlashRequestDto', flashRequestSchema);
+export const FlashResponseDto = schemaDto('FlashResponseDto', flashResponseSchema);

@@ -1,0 +1,66 @@
+// One JSON schema per DTO is the source of truth: it validates the body (compiled once) and is
+// turned into a named class carrying @ApiProperty metadata, so the OpenAPI document (and the SDK
+// generated from it) shows exactly what the validator enforces.
+import { applyDecorators, PipeTransform } from '@nestjs/common';
+import { ApiProperty, ApiQuery } from '@nestjs/swagger';
+import { DomainError } from '../../common/errors/domain-error.js';
+import { compileSchema, JsonSchema, Validator } from './json-schema.js';
+
+export type ObjectSchema = JsonSchema & { type: 'object'; properties: Record<string, JsonSchema> };
+
+/** A class named `name` whose Swagger metadata mirrors `schema` (properties, required, examples). */
+export function schemaDto(name: string, schema: ObjectSchema): new () => object {
+  const Dto = { [name]: class {} }[name]!;
+  const required = new Set(schema.required ?? []);
+  for (const [key, prop] of Object.entries(schema.properties)) {
+    const { nullable: _nullable, ...rest } = prop;
+    void _nullable;
+    ApiProperty({ ...(rest as Record<string, unknown>), required: required.has(key) })(
+      Dto.prototype,
+      key,
+    );
+  }
+  return Dto;
+}
+
+/** Validates a request body against a compiled schema; 422 problem+json naming each field. */
+export class SchemaPipe implements PipeTransform {
+  private readonly validate: Validator;
+
+  constructor(schema: JsonSchema) {
+    this.validate = compileSchema(schema);
+  }
+
+  transform(value: unknown): unknown {
+    if (value === undefined || value === null) {
+      throw new DomainError('invalid_input', 'Send a JSON object as the request body.', [
+        { field: 'body', reason: 'is required' },
+      ]);
+    }
+    const problems = this.validate(value);
+    if (problems.length) {
+      const first = problems[0]!;
+      throw new DomainError(
+        'invalid_input',
+        `${first.field} ${first.reason}${problems.length > 1 ? ` (and ${problems.length - 1} more)` : ''}.`,
+        problems,
+      );
+    }
+    return value;
+  }
+}
+
+/** Documents each property of a query-string schema as an optional query parameter. */
+export function ApiQueryFromSchema(schema: ObjectSchema): MethodDecorator {
+  const required = new Set(schema.required ?? []);
+  return applyDecorators(
+    ...Object.entries(schema.properties).map(([name, prop]) =>
+      ApiQuery({
+        name,
+        required: required.has(name),
+        description: prop.description,
+        schema: prop as Record<string, unknown>,
+      }),
+    ),
+  );
+}

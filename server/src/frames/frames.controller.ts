@@ -1,0 +1,137 @@
+import { Controller, Get, HttpCode, Param, Post, Query, Req, Res } from '@nestjs/common';
+import {
+  ApiBody,
+  ApiConsumes,
+  ApiOkResponse,
+  ApiOperation,
+  ApiProduces,
+  ApiResponse,
+  ApiTags,
+} from '@nestjs/swagger';
+import type { FastifyReply } from 'fastify';
+import { ApiKeyAuth } from '../common/decorators/access.decorator.js';
+import type { RequestWithPrincipal } from '../common/guards/access.guard.js';
+import { ApiQueryFromSchema, SchemaPipe } from '../compute/validation/schema-dto.js';
+import { FrameListResponseDto, FrameResponseDto } from './dto/frame.dto.js';
+import { toFrameDto } from './frame.mapper.js';
+import { FramesService } from './frames.service.js';
+import { UuidParamPipe } from './uuid-param.pipe.js';
+
+const problem = (status: number, description: string) =>
+  ApiResponse({
+    status,
+    description,
+    content: { 'application/problem+json': { schema: { $ref: '#/components/schemas/Problem' } } },
+  });
+
+const listQuery = {
+  type: 'object' as const,
+  additionalProperties: false,
+  properties: {
+    limit: {
+      type: 'string' as const,
+      pattern: '^([1-9]|[1-9][0-9]|100)$',
+      description: 'Page size, 1-100 (default 20).',
+    },
+    cursor: {
+      type: 'string' as const,
+      maxLength: 100,
+      description: 'nextCursor of the previous page.',
+    },
+  },
+};
+
+@ApiTags('frames')
+@Controller('frames')
+export class FramesController {
+  constructor(private readonly frames: FramesService) {}
+
+  @Post()
+  @ApiKeyAuth()
+  @HttpCode(201)
+  @ApiOperation({
+    summary:
+      'Upload a test frame (JPEG or PNG, at most 25 MB): EXIF, neutral-patch colour (CCT, Duv, mired offset), the white-balance or gel correction, and a scene EV estimate.',
+  })
+  @ApiConsumes('multipart/form-data')
+  @ApiBody({
+    schema: {
+      type: 'object',
+      required: ['file'],
+      properties: {
+        file: {
+          type: 'string',
+          format: 'binary',
+          description: 'The image; its type is read from its content.',
+        },
+        patchX: {
+          type: 'integer',
+          description: 'Neutral patch left edge, pixels (upright image). Give all four or none.',
+        },
+        patchY: { type: 'integer', description: 'Neutral patch top edge, pixels.' },
+        patchWidth: { type: 'integer', description: 'Neutral patch width, pixels.' },
+        patchHeight: { type: 'integer', description: 'Neutral patch height, pixels.' },
+        cameraKelvin: {
+          type: 'integer',
+          description: 'The white balance the frame was shot at, kelvin (1500-20000).',
+        },
+      },
+    },
+  })
+  @ApiResponse({ status: 201, type: FrameResponseDto })
+  @problem(
+    403,
+    'The plan does not include uploads (type …/plan-feature-missing), or the role may not.',
+  )
+  @problem(413, 'The file is larger than 25 MB.')
+  @problem(415, 'Not multipart, or the file is not JPEG or PNG (HEIC is not accepted).')
+  @problem(422, 'A field is invalid, the patch is outside the image, or the file is corrupt.')
+  async uploadFrame(@Req() req: RequestWithPrincipal) {
+    return toFrameDto(await this.frames.upload(req, req.principal!));
+  }
+
+  @Get()
+  @ApiKeyAuth()
+  @ApiOperation({ summary: "Your organisation's test frames, newest first." })
+  @ApiQueryFromSchema(listQuery)
+  @ApiOkResponse({ type: FrameListResponseDto })
+  async listFrames(
+    @Req() req: RequestWithPrincipal,
+    @Query(new SchemaPipe(listQuery)) q: { limit?: string; cursor?: string },
+  ) {
+    const page = await this.frames.list(
+      req.principal!.organizationId,
+      Number(q.limit ?? 20),
+      q.cursor,
+    );
+    return { data: page.data.map(toFrameDto), nextCursor: page.nextCursor };
+  }
+
+  @Get(':id')
+  @ApiKeyAuth()
+  @ApiOperation({ summary: 'One test frame and its analysis.' })
+  @ApiOkResponse({ type: FrameResponseDto })
+  @problem(404, 'No such frame in your organisation.')
+  async getFrame(@Req() req: RequestWithPrincipal, @Param('id', new UuidParamPipe()) id: string) {
+    return toFrameDto(await this.frames.get(req.principal!.organizationId, id));
+  }
+
+  @Get(':id/thumbnail')
+  @ApiKeyAuth()
+  @ApiOperation({ summary: 'The JPEG thumbnail of a test frame (at most 320 px).' })
+  @ApiProduces('image/jpeg')
+  @ApiOkResponse({ description: 'JPEG image.' })
+  @problem(404, 'No such frame in your organisation.')
+  async getFrameThumbnail(
+    @Req() req: RequestWithPrincipal,
+    @Param('id', new UuidParamPipe()) id: string,
+    @Res() reply: FastifyReply,
+  ) {
+    const obj = await this.frames.thumbnail(req.principal!.organizationId, id);
+    void reply
+      .header('Cache-Control', 'private, max-age=3600')
+      .header('X-Content-Type-Options', 'nosniff')
+      .type(obj.contentType);
+    return reply.send(obj.body);
+  }
+}

@@ -1,0 +1,30 @@
+// Documented problem responses shared by the gear and setups routes.
+import { applyDecorators } from '@nestjs/common';
+import { ApiResponse } from '@nestjs/swagger';
+
+export const problem = (status: number, description: string) =>
+  ApiResponse({
+    status,
+    description,
+    content: { 'application/problem+json': { schema: { $ref: '#/components/schemas/Problem' } } },
+  });
+
+/** 401/403 for every management route; 404 when `withId`; 422 (+409) on writes. */
+export function GearProblems(opts: { withId?: boolean; write?: boolean } = {}) {
+  return applyDecorators(
+    problem(401, 'Not signed in.'),
+    problem(403, 'Your role does not allow this.'),
+    ...(opts.withId
+      ? [problem(404, 'No such item in your organisation; `errors` names the field.')]
+      : []),
+    ...(opts.write
+      ? [
+          problem(409, 'The name is already used in your organisation; `errors` names the field.'),
+          problem(
+            422,
+            'A field is missing, of the wrong type or out of range; `errors` names each.',
+          ),
+        ]
+      : []),
+  );
+}

@@ -1,0 +1,139 @@
+// E-mail templates: each renders a subject, a plain-text body and an HTML body from plain data.
+
+export interface Rendered {
+  subject: string;
+  text: string;
+  html: string;
+}
+
+export type MailTemplate =
+  | {
+      template: 'invite';
+      data: {
+        organizationName: string;
+        inviterName: string;
+        role: string;
+        link: string;
+        expiresAt: string;
+      };
+    }
+  | { template: 'password-reset'; data: { name: string; link: string; expiresAt: string } }
+  | {
+      template: 'email-change';
+      data: { name: string; newEmail: string; link: string; expiresAt: string };
+    }
+  | {
+      template: 'key-created';
+      data: {
+        name: string;
+        keyName: string;
+        prefix: string;
+        environment: string;
+        organizationName: string;
+      };
+    }
+  | {
+      template: 'key-revoked';
+      data: {
+        name: string;
+        keyName: string;
+        prefix: string;
+        organizationName: string;
+        revokedBy: string;
+      };
+    };
+
+const esc = (s: string) =>
+  s.replace(
+    /[&<>"']/g,
+    (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!,
+  );
+
+function layout(
+  title: string,
+  paragraphs: string[],
+  action?: { label: string; href: string },
+): string {
+  const body = paragraphs.map((p) => `<p style="margin:0 0 16px">${esc(p)}</p>`).join('');
+  const button = action
+    ? `<p style="margin:24px 0"><a href="${esc(action.href)}" style="background:#1f2a44;color:#ffffff;padding:12px 20px;border-radius:6px;text-decoration:none;display:inline-block">${esc(action.label)}</a></p>` +
+      `<p style="margin:0 0 16px;font-size:13px;color:#555">Or paste this address into your browser: ${esc(action.href)}</p>`
+    : '';
+  return (
+    `<!doctype html><html lang="en"><head><meta charset="utf-8"><title>${esc(title)}</title></head>` +
+    `<body style="font-family:system-ui,sans-serif;color:#1b1b1b;max-width:560px;margin:0 auto;padding:24px">` +
+    `<h1 style="font-size:20px">${esc(title)}</h1>${body}${button}` +
+    `<p style="margin-top:32px;font-size:12px;color:#666">Lumenwright · sent automatically, replies are not read.</p>` +
+    `</body></html>`
+  );
+}
+
+function text(paragraphs: string[], link?: string): string {
+  return [...paragraphs, ...(link ? [link] : []), '', '— Lumenwright (sent automatically)'].join(
+    '\n\n',
+  );
+}
+
+export function render(m: MailTemplate): Rendered {
+  switch (m.template) {
+    case 'invite': {
+      const d = m.data;
+      const subject = `You're invited to ${d.organizationName} on Lumenwright`;
+      const p = [
+        `${d.inviterName} invited you to join ${d.organizationName} as ${d.role}.`,
+        `The invitation is valid until ${d.expiresAt}. Open the link to accept it:`,
+      ];
+      return {
+        subject,
+        text: text(p, d.link),
+        html: layout(subject, p, { label: 'Accept the invitation', href: d.link }),
+      };
+    }
+    case 'password-reset': {
+      const d = m.data;
+      const subject = 'Reset your Lumenwright password';
+      const p = [
+        `Hello ${d.name},`,
+        `Someone asked to reset the password of this account. The link works once, until ${d.expiresAt}.`,
+        'If it was not you, ignore this message: your password stays as it is.',
+      ];
+      return {
+        subject,
+        text: text(p, d.link),
+        html: layout(subject, p, { label: 'Choose a new password', href: d.link }),
+      };
+    }
+    case 'email-change': {
+      const d = m.data;
+      const subject = 'Confirm your new Lumenwright e-mail address';
+      const p = [
+        `Hello ${d.name},`,
+        `Confirm that ${d.newEmail} should become the sign-in address of your account. The link works once, until ${d.expiresAt}.`,
+      ];
+      return {
+        subject,
+        text: text(p, d.link),
+        html: layout(subject, p, { label: 'Confirm the address', href: d.link }),
+      };
+    }
+    case 'key-created': {
+      const d = m.data;
+      const subject = `New ${d.environment} API key "${d.keyName}" created`;
+      const p = [
+        `Hello ${d.name},`,
+        `A ${d.environment} API key named "${d.keyName}" (${d.prefix}…) was created for ${d.organizationName}.`,
+        'If you did not expect this, revoke the key in the console and tell your organisation owner.',
+      ];
+      return { subject, text: text(p), html: layout(subject, p) };
+    }
+    case 'key-revoked': {
+      const d = m.data;
+      const subject = `API key "${d.keyName}" revoked`;
+      const p = [
+        `Hello ${d.name},`,
+        `The API key "${d.keyName}" (${d.prefix}…) of ${d.organizationName} was revoked by ${d.revokedBy}. Requests using it are refused from now on.`,
+      ];
+      return { subject, text: text(p), html: layout(subject, p) };
+    }
+  }
+}

@@ -1,0 +1,47 @@
+import { Controller, Get, Req } from '@nestjs/common';
+import { ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
+import { Public, SessionAuth } from '../common/decorators/access.decorator.js';
+import type { RequestWithPrincipal } from '../common/guards/access.guard.js';
+import {
+  CurrentPlanResponseDto,
+  PlanListResponseDto,
+  toPlanDto,
+  type PlanDto,
+} from './plans.dto.js';
+import { PlansService } from './plans.service.js';
+import { monthBounds } from './quota.service.js';
+import { UsageService } from '../usage/usage.service.js';
+
+@ApiTags('plans')
+@Controller('plans')
+export class PlansController {
+  constructor(
+    private readonly plans: PlansService,
+    private readonly usage: UsageService,
+  ) {}
+
+  @Get()
+  @Public()
+  @ApiOperation({ summary: 'The plans: included calls, rate limits, overage price and features.' })
+  @ApiOkResponse({ type: PlanListResponseDto })
+  async listPlans(): Promise<{ data: PlanDto[] }> {
+    return { data: (await this.plans.list()).map(toPlanDto) };
+  }
+
+  @Get('current')
+  @SessionAuth()
+  @ApiOperation({ summary: "Your organisation's plan and this month's calls against it." })
+  @ApiOkResponse({ type: CurrentPlanResponseDto })
+  async getCurrentPlan(@Req() req: RequestWithPrincipal) {
+    const orgId = req.principal!.organizationId;
+    const plan = await this.plans.forOrganization(orgId);
+    const { start, reset } = monthBounds(new Date());
+    const month = await this.usage.monthTotals(orgId, start);
+    return {
+      plan: toPlanDto(plan),
+      periodStart: start,
+      resetsAt: reset.toISOString(),
+      usage: month,
+    };
+  }
+}

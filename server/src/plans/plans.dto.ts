@@ -1,0 +1,91 @@
+import { num, str, bool } from '../compute/schemas/common.js';
+import { schemaDto, type ObjectSchema } from '../compute/validation/schema-dto.js';
+import type { PlanEntity } from './plan.entity.js';
+
+export interface PlanDto {
+  code: string;
+  name: string;
+  description: string;
+  monthlyPriceCents: number;
+  includedCallsPerMonth: number;
+  testCallsPerMonth: number;
+  ratePerSecond: number;
+  burst: number;
+  overagePricePer1000Cents: number | null;
+  features: { uploads: boolean; savedSetups: number | null; seats: number };
+}
+
+export const toPlanDto = (p: PlanEntity): PlanDto => ({
+  code: p.code,
+  name: p.name,
+  description: p.description,
+  monthlyPriceCents: p.monthlyPriceCents,
+  includedCallsPerMonth: p.includedCallsPerMonth,
+  testCallsPerMonth: p.testCallsPerMonth,
+  ratePerSecond: p.ratePerSecond,
+  burst: p.burst,
+  overagePricePer1000Cents: p.overagePricePer1000Cents,
+  features: { uploads: p.uploads, savedSetups: p.savedSetups, seats: p.seats },
+});
+
+const planSchema: ObjectSchema = {
+  type: 'object',
+  properties: {
+    code: str('Plan code.', 'studio', { enum: ['free', 'studio', 'platform'] }),
+    name: str('Display name.', 'Studio'),
+    description: str('One line about the plan.'),
+    monthlyPriceCents: num('Monthly price, cents.', 2900),
+    includedCallsPerMonth: num('Live calls included per calendar month (UTC).', 100000),
+    testCallsPerMonth: num('Test-key calls allowed per month (test keys are free).', 20000),
+    ratePerSecond: num('Sustained calls per second per API key.', 50),
+    burst: num('Calls a key may make at once before the rate applies.', 100),
+    overagePricePer1000Cents: {
+      type: ['number', 'null'],
+      description: 'Price per 1,000 live calls over the included amount, cents; null = hard cap.',
+      example: 40,
+    },
+    features: {
+      type: 'object',
+      description: 'What the plan includes.',
+      required: ['uploads', 'savedSetups', 'seats'],
+      properties: {
+        uploads: bool('Test-frame uploads.', true),
+        savedSetups: {
+          type: ['number', 'null'],
+          description: 'Saved setups; null = unlimited.',
+          example: 500,
+        },
+        seats: num('Team members.', 10),
+      },
+    },
+  },
+};
+planSchema.required = Object.keys(planSchema.properties);
+
+export const PlanResponseDto = schemaDto('PlanResponseDto', planSchema);
+
+export const PlanListResponseDto = schemaDto('PlanListResponseDto', {
+  type: 'object',
+  required: ['data'],
+  properties: { data: { type: 'array', items: planSchema } },
+});
+
+export const CurrentPlanResponseDto = schemaDto('CurrentPlanResponseDto', {
+  type: 'object',
+  required: ['plan', 'periodStart', 'resetsAt', 'usage'],
+  properties: {
+    plan: planSchema,
+    periodStart: str('First day of this billing month (UTC).', '2026-12-01', { format: 'date' }),
+    resetsAt: str('When the monthly quota resets (ISO 8601).', '2027-01-01T00:00:00.000Z'),
+    usage: {
+      type: 'object',
+      required: ['liveCalls', 'testCalls', 'consoleCalls', 'billableUnits'],
+      properties: {
+        liveCalls: num('Calls with live keys this month.', 1520),
+        testCalls: num('Calls with test keys this month.', 310),
+        consoleCalls: num('Calls from the console this month (not billed).', 42),
+        billableUnits: num('Billable units this month (successful live calls).', 1498),
+      },
+    },
+  },
+});

@@ -1,0 +1,34 @@
+import { Module } from '@nestjs/common';
+import type pg from 'pg';
+import { APP_CONFIG, AppConfig } from '../config/config.js';
+import { UsageModule } from '../usage/usage.module.js';
+import { USAGE_POOL } from '../usage/usage-writer.service.js';
+import { ComputeLimitsGuard } from './compute-limits.guard.js';
+import { PlansController } from './plans.controller.js';
+import { PlansService } from './plans.service.js';
+import { QuotaService } from './quota.service.js';
+import {
+  MemoryRateLimitStorage,
+  PostgresRateLimitStorage,
+  RATE_LIMIT_STORAGE,
+} from './rate-limit.storage.js';
+
+@Module({
+  imports: [UsageModule],
+  controllers: [PlansController],
+  providers: [
+    PlansService,
+    QuotaService,
+    ComputeLimitsGuard,
+    {
+      provide: RATE_LIMIT_STORAGE,
+      inject: [APP_CONFIG, USAGE_POOL],
+      useFactory: (config: AppConfig, pool: pg.Pool) =>
+        config.rateLimitStore === 'postgres'
+          ? new PostgresRateLimitStorage(pool)
+          : new MemoryRateLimitStorage(),
+    },
+  ],
+  exports: [PlansService, QuotaService, ComputeLimitsGuard, RATE_LIMIT_STORAGE, UsageModule],
+})
+export class PlansModule {}

@@ -1,0 +1,94 @@
+// Token buckets behind @nestjs/throttler's ThrottlerStorage interface, constant cost per call.
+// `limit` is the bucket size (the burst) and the bucket refills `limit` tokens every `ttl` ms,
+// so a plan of R calls/s with burst B is (limit B, ttl 1000·B/R). Returned times are seconds.
+import type { ThrottlerStorage } from '@nestjs/throttler';
+import type pg from 'pg';
+
+type ThrottlerStorageRecord = Awaited<ReturnType<ThrottlerStorage['increment']>>;
+
+export const RATE_LIMIT_STORAGE = Symbol('RATE_LIMIT_STORAGE');
+
+function record(
+  limit: number,
+  ttl: number,
+  tokens: number,
+  allowed: boolean,
+): ThrottlerStorageRecord {
+  const perMs = limit / ttl;
+  const secsToOne = Math.max(1, Math.ceil((1 - tokens) / perMs / 1000));
+  return {
+    totalHits: Math.ceil(limit - tokens),
+    timeToExpire: Math.max(0, Math.ceil((limit - tokens) / perMs / 1000)),
+    isBlocked: !allowed,
+    timeToBlockExpire: allowed ? 0 : secsToOne,
+  };
+}
+
+/** One instance: buckets in a Map, idle ones swept every minute. */
+export class MemoryRateLimitStorage implements ThrottlerStorage {
+  private readonly buckets = new Map<string, { tokens: number; at: number; fullAt: number }>();
+  private readonly sweeper: NodeJS.Timeout;
+
+  constructor(private readonly now: () => number = Date.now) {
+    this.sweeper = setInterval(() => this.sweep(), 60_000);
+    this.sweeper.unref();
+  }
+
+  async increment(key: string, ttl: number, limit: number): Promise<ThrottlerStorageRecord> {
+    return this.take(key, ttl, limit);
+  }
+
+  /** Synchronous core (the guard's fast path). */
+  take(key: string, ttl: number, limit: number): ThrottlerStorageRecord {
+    const now = this.now();
+    const perMs = limit / ttl;
+    const b = this.buckets.get(key);
+    let tokens = b ? Math.min(limit, b.tokens + (now - b.at) * perMs) : limit;
+    const allowed = tokens >= 1;
+    if (allowed) tokens -= 1;
+    const fullAt = now + (limit - tokens) / perMs;
+    if (b) {
+      b.tokens = tokens;
+      b.at = now;
+      b.fullAt = fullAt;
+    } else {
+      this.buckets.set(key, { tokens, at: now, fullAt });
+    }
+    return record(limit, ttl, tokens, allowed);
+  }
+
+  private sweep() {
+    const now = this.now();
+    for (const [k, b] of this.buckets) if (b.fullAt <= now) this.buckets.delete(k);
+  }
+
+  close() {
+    clearInterval(this.sweeper);
+  }
+}
+
+const TAKE_SQL = `
+  WITH prev AS (SELECT tokens, updated_ms FROM rate_limit_buckets WHERE key = $1 FOR UPDATE),
+  refilled AS (
+    SELECT COALESCE((SELECT LEAST($2::float8, tokens + ($3::bigint - updated_ms) * $4::float8) FROM prev), $2::float8) AS t
+  )
+  INSERT INTO rate_limit_buckets AS b (key, tokens, updated_ms)
+  SELECT $1, CASE WHEN t >= 1 THEN t - 1 ELSE t END, $3 FROM refilled
+  ON CONFLICT (key) DO UPDATE SET tokens = EXCLUDED.tokens, updated_ms = EXCLUDED.updated_ms
+  RETURNING tokens, (SELECT t >= 1 FROM refilled) AS allowed`;
+
+/** Several instances: the same bucket arithmetic in one statement on PostgreSQL. */
+export class PostgresRateLimitStorage implements ThrottlerStorage {
+  constructor(private readonly pool: pg.Pool) {}
+
+  async increment(key: string, ttl: number, limit: number): Promise<ThrottlerStorageRecord> {
+    const res = await this.pool.query<{ tokens: number; allowed: boolean }>(TAKE_SQL, [
+      key,
+      limit,
+      Date.now(),
+      limit / ttl,
+    ]);
+    const row = res.rows[0]!;
+    return record(limit, ttl, Number(row.tokens), row.allowed);
+  }
+}

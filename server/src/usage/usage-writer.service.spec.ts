@@ -1,0 +1,85 @@
+import type pg from 'pg';
+import type { AppConfig } from '../config/config.js';
+import type { UsageEvent } from './usage-event.js';
+import { UsageWriter } from './usage-writer.service.js';
+
+/** A pool whose INSERTs fail while `down` is true and record rows otherwise. */
+function fakePool() {
+  const state = { down: false, rows: 0, statements: 0 };
+  const client = {
+    query: async (sql: string, params?: unknown[][]) => {
+      if (state.down && sql !== 'ROLLBACK') throw new Error('connection refused');
+      if (sql.includes('INSERT INTO usage_events')) {
+        state.statements++;
+        state.rows += params![0]!.length;
+      }
+      return { rows: [] };
+    },
+    release: () => undefined,
+  };
+  const pool = { connect: async () => client, end: async () => undefined } as unknown as pg.Pool;
+  return { pool, state };
+}
+
+const cfg = { usageFlushMs: 10_000, usageBatchSize: 100, usageMaxBuffer: 250 } as AppConfig;
+const ev = (i: number): UsageEvent => ({
+  occurredAt: new Date(),
+  organizationId: '00000000-0000-0000-0000-000000000001',
+  keyId: null,
+  userId: null,
+  source: 'live',
+  endpoint: 'balance',
+  status: 200,
+  latencyMs: 1,
+  billableUnits: 1,
+  requestId: `r${i}`,
+});
+
+describe('usage batch writer', () => {
+  it('writes in multi-row batches of at most the batch size', async () => {
+    const { pool, state } = fakePool();
+    const w = new UsageWriter(cfg, pool);
+    for (let i = 0; i < 230; i++) w.record(ev(i));
+    await w.flush();
+    await w.flush();
+    expect(state.rows).toBe(230);
+    expect(state.statements).toBe(3);
+    expect(w.pending).toBe(0);
+  });
+
+  it('keeps every event while the database is down and writes them when it returns', async () => {
+    const { pool, state } = fakePool();
+    const w = new UsageWriter(cfg, pool);
+    state.down = true;
+    for (let i = 0; i < 180; i++) w.record(ev(i));
+    await w.flush();
+    expect(w.pending).toBe(180);
+    state.down = false;
+    await w.flush();
+    expect(state.rows).toBe(180);
+  });
+
+  it('applies back-pressure when full instead of dropping, and gives up with a 503 in time', async () => {
+    const { pool, state } = fakePool();
+    const w = new UsageWriter(cfg, pool);
+    state.down = true;
+    for (let i = 0; i < 260; i++) w.record(ev(i));
+    const blocked = w.waitForRoom(50);
+    expect(blocked).not.toBeNull();
+    await expect(blocked).rejects.toMatchObject({ code: 'unavailable' });
+    expect(w.pending).toBe(260); // nothing dropped
+    const waiting = w.waitForRoom(5000)!;
+    state.down = false;
+    await w.flush();
+    await expect(waiting).resolves.toBeUndefined();
+    expect(state.rows).toBe(260);
+  });
+
+  it('flushes everything on shutdown', async () => {
+    const { pool, state } = fakePool();
+    const w = new UsageWriter(cfg, pool);
+    for (let i = 0; i < 42; i++) w.record(ev(i));
+    await w.onApplicationShutdown();
+    expect(state.rows).toBe(42);
+  });
+});

@@ -1,0 +1,52 @@
+// The demo studio: idempotent seeding, one member per role who can sign in.
+import request from 'supertest';
+import type { DataSource } from 'typeorm';
+import {
+  accountsSeeder,
+  DEMO_MEMBERS,
+  DEMO_ORG_ID,
+  DEMO_PASSWORD,
+} from '../../src/auth/accounts.seeder.js';
+import { bootApp, TestApp } from '../setup/app.js';
+import { openDataSource } from '../setup/db.js';
+
+describe('accounts: demo seed', () => {
+  let t: TestApp;
+  let db: DataSource;
+  beforeAll(async () => {
+    t = await bootApp();
+    db = await openDataSource();
+  }, 60000);
+  afterAll(async () => {
+    await db?.destroy();
+    await t?.close();
+  });
+
+  it('seeds twice without duplicating anything, and every demo member signs in with their role', async () => {
+    const count = async () =>
+      (
+        await db.query(
+          `SELECT (SELECT count(*) FROM memberships WHERE organization_id = $1)::int AS m,
+                (SELECT count(*) FROM api_keys WHERE organization_id = $1)::int AS k,
+                (SELECT count(*) FROM audit_events WHERE organization_id = $1)::int AS a`,
+          [DEMO_ORG_ID],
+        )
+      )[0];
+    await accountsSeeder.run(db);
+    const first = await count();
+    await accountsSeeder.run(db);
+    expect(await count()).toEqual(first);
+    expect(first).toEqual({ m: 4, k: 3, a: 12 });
+    for (const m of DEMO_MEMBERS) {
+      expect(m.email.endsWith('.test')).toBe(true);
+      const res = await request(t.url)
+        .post('/v1/auth/sign-in')
+        .send({ email: m.email, password: DEMO_PASSWORD })
+        .expect(200);
+      expect(res.body).toMatchObject({
+        role: m.role,
+        organization: { id: DEMO_ORG_ID, name: 'Kestrelmoor Evening Portraits' },
+      });
+    }
+  });
+});

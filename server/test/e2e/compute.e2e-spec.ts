@@ -1,0 +1,212 @@
+// The compute endpoints end to end: real keys, real validation, the shared math behind them.
+import request from 'supertest';
+import { DataSource } from 'typeorm';
+import { compileSchema } from '../../src/compute/validation/json-schema.js';
+import * as schemas from '../../src/compute/schemas/index.js';
+import { bootApp, TestApp } from '../setup/app.js';
+import { openDataSource } from '../setup/db.js';
+import { DEMO_BODIES, ENDPOINTS, keyedOrg, KeyedOrg, post } from '../factories/compute.js';
+
+describe('compute API', () => {
+  let t: TestApp;
+  let org: KeyedOrg;
+  let ds: DataSource;
+  beforeAll(async () => {
+    t = await bootApp();
+    ds = await openDataSource();
+    org = await keyedOrg(t.url);
+    // Functional checks, not limit checks: give the organisation the roomiest plan.
+    await ds.query(`UPDATE organizations SET plan_code = 'platform' WHERE id = $1`, [
+      org.owner.organizationId,
+    ]);
+  });
+  afterAll(async () => {
+    await ds.destroy();
+    await t.close();
+  });
+
+  it.each(ENDPOINTS)(
+    'POST /v1/%s answers 200 with a body matching its documented schema',
+    async (ep) => {
+      const res = await post(t.url, ep, org.test.secret, DEMO_BODIES[ep]);
+      expect(res.status).toBe(200);
+      expect(res.headers['ratelimit-policy']).toMatch(/^"key";q=\d+;w=\d+$/);
+      expect(res.headers['ratelimit']).toMatch(/^"key";r=\d+;t=\d+$/);
+      const validate = compileSchema(schemas.RESPONSE_SCHEMAS[ep]!);
+      expect(validate(res.body)).toEqual([]);
+    },
+  );
+
+  it('balances a 5600 K flash to a 3800 K camera with a warming gel (mired arithmetic)', async () => {
+    const res = await post(t.url, 'balance', org.live.secret, DEMO_BODIES.balance).expect(200);
+    // Mired = 1e6 / K (CIE / any photometry handbook): 1e6/3800 - 1e6/5600 = 84.59 mireds.
+    expect(res.body.requiredMiredShift).toBeCloseTo(1e6 / 3800 - 1e6 / 5600, 0);
+    expect(res.body.gels.length).toBeGreaterThan(0);
+    expect(typeof res.body.gels[0].name).toBe('string');
+  });
+
+  it('solves flash power from the guide number (ISO 1230: GN = distance × f-number)', async () => {
+    // GN 32 m at ISO 100 and 4 m needs f/8 at full power; at f/4 it needs a quarter power.
+    const res = await post(t.url, 'flash', org.live.secret, {
+      guideNumber: 32,
+      distance: 4,
+      aperture: 4,
+      iso: 100,
+    }).expect(200);
+    expect(res.body.powerFraction).toBeCloseTo(0.25, 3);
+    expect(res.body.stopsBelowFull).toBeCloseTo(2, 3);
+    expect(res.body.feasible).toBe(true);
+  });
+
+  it('solves shutter time from EV100 (APEX: EV = log2(N²/t)): EV 12 at f/8 ISO 100 → 1/64 s', async () => {
+    const res = await post(t.url, 'exposure', org.live.secret, {
+      ev100: 12,
+      aperture: 8,
+      iso: 100,
+    }).expect(200);
+    expect(res.body.shutterSeconds).toBeCloseTo(64 / 4096, 5);
+    expect(typeof res.body.shutterLabel).toBe('string');
+  });
+
+  it('explains missing events: no sunset at 78° N at the June solstice (midnight sun)', async () => {
+    // Above the Arctic Circle the sun stays up around the June solstice (any astronomy text).
+    const res = await post(t.url, 'twilight', org.live.secret, {
+      latitude: 78.2,
+      longitude: 15.6,
+      date: '2026-06-21',
+      timeZone: 'Arctic/Longyearbyen',
+    }).expect(200);
+    expect(res.body.sunset).toBeNull();
+    expect(res.body.reasons.sunset).toEqual(expect.any(String));
+  });
+
+  it('refuses calls without a key (401) and with an unknown key (401 + WWW-Authenticate)', async () => {
+    const none = await request(t.url).post('/v1/balance').send(DEMO_BODIES.balance);
+    expect(none.status).toBe(401);
+    expect(none.headers['content-type']).toMatch(/problem\+json/);
+    const bad = await post(t.url, 'balance', 'lw_live_not-a-real-key', DEMO_BODIES.balance);
+    expect(bad.status).toBe(401);
+    expect(bad.headers['www-authenticate']).toMatch(/Bearer/);
+  });
+
+  it.each([
+    [{ cameraKelvin: -3200, flashKelvin: 5600 }, 'cameraKelvin'],
+    [{ cameraKelvin: 0, flashKelvin: 5600 }, 'cameraKelvin'],
+    [{ cameraKelvin: '3200', flashKelvin: 5600 }, 'cameraKelvin'],
+    [{ flashKelvin: 5600 }, 'cameraKelvin'],
+    [{ cameraKelvin: 3200, flashKelvin: 1e300 }, 'flashKelvin'],
+    [
+      { cameraKelvin: 3200, gels: [{ name: 'x', miredShift: 'warm', lossStops: 0 }] },
+      'gels[0].miredShift',
+    ],
+    [{ cameraKelvin: 3200, colour: 'warm' }, 'colour'],
+  ])('balance: %j → 422 naming %s', async (body, field) => {
+    const res = await post(t.url, 'balance', org.live.secret, body);
+    expect(res.status).toBe(422);
+    expect(res.headers['content-type']).toMatch(/problem\+json/);
+    expect(res.body.errors.map((e: { field: string }) => e.field)).toContain(field);
+  });
+
+  it.each([
+    [{ latitude: 91, longitude: 0, date: '2026-06-20', timeZone: 'UTC' }, 'latitude'],
+    [{ latitude: 51, longitude: 0, date: '2026-06-20', timeZone: 'Mars/Olympus_Mons' }, 'timeZone'],
+    [{ latitude: 51, longitude: 0, date: '2026-02-30', timeZone: 'UTC' }, 'date'],
+  ])('twilight: %j → 422 naming %s', async (body, field) => {
+    const res = await post(t.url, 'twilight', org.live.secret, body);
+    expect(res.status).toBe(422);
+    expect(res.body.errors.map((e: { field: string }) => e.field)).toContain(field);
+  });
+
+  it('answers broken JSON with 400 and a body over 100 kB with 413, both problem+json', async () => {
+    const broken = await request(t.url)
+      .post('/v1/flash')
+      .set('Authorization', `Bearer ${org.live.secret}`)
+      .set('Content-Type', 'application/json')
+      .send('{"guideNumber": NaN}');
+    expect(broken.status).toBe(400);
+    expect(broken.headers['content-type']).toMatch(/problem\+json/);
+    const big = await request(t.url)
+      .post('/v1/flash')
+      .set('Authorization', `Bearer ${org.live.secret}`)
+      .set('Content-Type', 'application/json')
+      .send(JSON.stringify({ guideNumber: 60, pad: 'x'.repeat(101 * 1024) }));
+    expect(big.status).toBe(413);
+    expect(big.headers['content-type']).toMatch(/problem\+json/);
+  });
+
+  it('records a usage event for every call, success or failure, with key, status and request id', async () => {
+    const ok = await post(t.url, 'exposure', org.live.secret, DEMO_BODIES.exposure).set(
+      'X-Request-Id',
+      'meter-ok-1',
+    );
+    const bad = await post(t.url, 'exposure', org.live.secret, { ev100: 'bright' }).set(
+      'X-Request-Id',
+      'meter-bad-1',
+    );
+    expect(ok.status).toBe(200);
+    expect(bad.status).toBe(422);
+    let rows: {
+      request_id: string;
+      status: number;
+      key_id: string;
+      billable_units: number;
+      source: string;
+    }[] = [];
+    for (let i = 0; i < 50 && rows.length < 2; i++) {
+      await new Promise((r) => setTimeout(r, 100));
+      rows = await ds.query(
+        `SELECT request_id, status, key_id, billable_units, source FROM usage_events
+         WHERE request_id IN ('meter-ok-1', 'meter-bad-1') ORDER BY request_id`,
+      );
+    }
+    expect(rows).toEqual([
+      {
+        request_id: 'meter-bad-1',
+        status: 422,
+        key_id: org.live.id,
+        billable_units: 0,
+        source: 'live',
+      },
+      {
+        request_id: 'meter-ok-1',
+        status: 200,
+        key_id: org.live.id,
+        billable_units: 1,
+        source: 'live',
+      },
+    ]);
+  });
+});
+
+describe('compute API from a console session (the playground)', () => {
+  let t: TestApp;
+  let ds: DataSource;
+  beforeAll(async () => {
+    t = await bootApp({ USAGE_FLUSH_MS: '20' });
+    ds = await openDataSource();
+  });
+  afterAll(async () => {
+    await ds.destroy();
+    await t.close();
+  });
+
+  it('records session calls as console usage, not billed and not keyed', async () => {
+    const org = await keyedOrg(t.url);
+    const res = await org.owner.agent
+      .post('/v1/balance')
+      .set('X-Request-Id', `console-${org.owner.userId}`)
+      .send(DEMO_BODIES.balance);
+    expect(res.status).toBe(200);
+    let rows: Record<string, unknown>[] = [];
+    for (let i = 0; i < 50 && !rows.length; i++) {
+      await new Promise((r) => setTimeout(r, 50));
+      rows = await ds.query(
+        `SELECT source, key_id, user_id, billable_units FROM usage_events WHERE request_id = $1`,
+        [`console-${org.owner.userId}`],
+      );
+    }
+    expect(rows).toEqual([
+      { source: 'console', key_id: null, user_id: org.owner.userId, billable_units: 0 },
+    ]);
+  });
+});

@@ -1,0 +1,200 @@
+// Gear named by id resolves, within the caller's organisation only, to exactly the result of
+// sending the same values inline: the saved-setup route end to end, and the resolver the
+// balance and setup compute routes use, against POST /v1/balance and POST /v1/setup.
+import type { DataSource } from 'typeorm';
+import { DomainError } from '../../src/common/errors/domain-error.js';
+import { ComputeService } from '../../src/compute/compute.service.js';
+import { GearReferenceResolver, hasGearRefs } from '../../src/gear/gear-reference.resolver.js';
+import { bootApp, TestApp } from '../setup/app.js';
+import { openDataSource } from '../setup/db.js';
+import { signUp, type SignedInAgent } from '../factories/accounts.js';
+import { createGelKit, createLight, createModifier, SMALL_KIT_PIECES } from '../factories/gear.js';
+import { LAKESIDE_INPUTS } from '../factories/setups.js';
+
+type Kit = {
+  id: string;
+  pieces: { name: string; miredShift: number; greenShift: number; lossStops: number }[];
+};
+const inlineGels = (kit: Kit) =>
+  kit.pieces.map(({ name, miredShift, greenShift, lossStops }) => ({
+    name,
+    miredShift,
+    greenShift,
+    lossStops,
+  }));
+
+describe('gear by id', () => {
+  let t: TestApp;
+  let ds: DataSource;
+  let owner: SignedInAgent;
+  let other: SignedInAgent;
+  let key: Record<string, unknown> & { id: string };
+  let rim: Record<string, unknown> & { id: string };
+  let octa: Record<string, unknown> & { id: string };
+  let grid: Record<string, unknown> & { id: string };
+  let kit: Kit;
+  beforeAll(async () => {
+    t = await bootApp();
+    ds = await openDataSource();
+    owner = await signUp(t.url);
+    other = await signUp(t.url);
+    key = await createLight(owner, { name: 'Key strobe A', guideNumber: 60 });
+    // A light entered from a meter reading, in feet: f/8 at 12 ft → GN 96 ft.
+    rim = await createLight(owner, {
+      name: 'Rim speedlight',
+      guideNumber: undefined,
+      meterReading: { aperture: 8, distance: 12, distanceUnit: 'ft' },
+    });
+    octa = await createModifier(owner, {
+      name: '90 cm octa',
+      kind: 'octabox',
+      lossStops: 2,
+      size: 90 / 30.48,
+      sizeUnit: 'ft',
+    });
+    grid = await createModifier(owner, {
+      name: 'Grid 20°',
+      kind: 'grid',
+      lossStops: 0.7,
+      beamAngleDeg: 20,
+    });
+    kit = (await createGelKit(owner, {
+      name: 'Studio gel kit',
+      pieces: SMALL_KIT_PIECES,
+    })) as unknown as Kit;
+  }, 60000);
+  afterAll(async () => {
+    await ds?.destroy();
+    await t?.close();
+  });
+
+  it('a setup saved with gear ids has the plan POST /v1/setup gives for the same values inline', async () => {
+    const byId = {
+      ...LAKESIDE_INPUTS,
+      key: { lightId: key.id, modifierId: octa.id, distance: 2.2, angleFromCameraDeg: 50 },
+      rim: { lightId: rim.id, modifierId: grid.id, distanceBehind: 3, lightHeight: 1.2 },
+      gelKitId: kit.id,
+    };
+    const inline = {
+      ...LAKESIDE_INPUTS,
+      key: {
+        guideNumber: 60,
+        guideNumberUnit: 'm',
+        modifier: 'octabox',
+        modifierLossStops: 2,
+        modifierSize: 0.9,
+        distance: 2.2,
+        angleFromCameraDeg: 50,
+      },
+      rim: {
+        guideNumber: 96,
+        guideNumberUnit: 'ft',
+        modifierLossStops: 0.7,
+        beamAngleDeg: 20,
+        distanceBehind: 3,
+        lightHeight: 1.2,
+      },
+      gels: inlineGels(kit),
+    };
+    const saved = await owner.agent
+      .post('/v1/setups')
+      .send({ name: 'By id', inputs: byId })
+      .expect(201);
+    const computed = await owner.agent.post('/v1/setup').send(inline).expect(200);
+    expect(saved.body.plan).toEqual(computed.body);
+    expect(saved.body.inputs).toEqual(byId);
+    expect(saved.body.resolvedInputs.key).toMatchObject({
+      guideNumber: 60,
+      modifierLossStops: 2,
+      modifier: 'octabox',
+    });
+    expect(saved.body.resolvedInputs.key.modifierSize).toBeCloseTo(0.9, 4);
+    // The kit's gels were the ones searched: every chosen gel is a piece of the kit.
+    const names = new Set(kit.pieces.map((p) => p.name));
+    for (const g of saved.body.plan.gels.gels) expect(names.has(g.name)).toBe(true);
+  });
+
+  it('the resolver gives POST /v1/balance the same answer for gelKitId as for the gels inline', async () => {
+    const resolver = t.app.get(GearReferenceResolver);
+    const compute = t.app.get(ComputeService);
+    for (const body of [
+      { cameraKelvin: 3800, flashKelvin: 5600, targetMiredOffset: 10 },
+      { cameraKelvin: 6500, flashKelvin: 5500, cameraTint: 8 },
+    ]) {
+      const viaId = compute.balance(
+        await resolver.resolveBalance(owner.organizationId, { ...body, gelKitId: kit.id }),
+      );
+      const inline = await owner.agent
+        .post('/v1/balance')
+        .send({ ...body, gels: inlineGels(kit) })
+        .expect(200);
+      expect(JSON.parse(JSON.stringify(viaId))).toEqual(inline.body);
+    }
+    expect(hasGearRefs({ cameraKelvin: 3800 })).toBe(false);
+    expect(hasGearRefs({ cameraKelvin: 3800, gelKitId: kit.id })).toBe(true);
+    expect(hasGearRefs({ key: { lightId: key.id } })).toBe(true);
+  });
+
+  it("another organisation's gear id is a 404 naming the field", async () => {
+    const resolver = t.app.get(GearReferenceResolver);
+    const err = await resolver
+      .resolveBalance(other.organizationId, { cameraKelvin: 3800, gelKitId: kit.id })
+      .catch((e: unknown) => e);
+    expect(err).toBeInstanceOf(DomainError);
+    expect(err).toMatchObject({ code: 'not_found', errors: [{ field: 'gelKitId' }] });
+    const cases: [Record<string, unknown>, string][] = [
+      [{ key: { lightId: key.id, distance: 2 } }, 'inputs.key.lightId'],
+      [{ key: { guideNumber: 60, distance: 2, modifierId: octa.id } }, 'inputs.key.modifierId'],
+      [{ rim: { lightId: rim.id, distanceBehind: 3, lightHeight: 1 } }, 'inputs.rim.lightId'],
+      [{ gelKitId: kit.id }, 'inputs.gelKitId'],
+    ];
+    for (const [patch, field] of cases) {
+      const res = await other.agent
+        .post('/v1/setups')
+        .send({ name: 'borrowed gear', inputs: { ...LAKESIDE_INPUTS, ...patch } });
+      expect({ field, status: res.status }).toEqual({ field, status: 404 });
+      expect(res.body.errors.map((e: { field: string }) => e.field)).toEqual([field]);
+    }
+    const [{ n }] = await ds.query(
+      `SELECT count(*)::int AS n FROM setups WHERE organization_id = $1`,
+      [other.organizationId],
+    );
+    expect(n).toBe(0);
+  });
+
+  it('refuses an id together with the values it stands for, and a malformed id (422 naming the field)', async () => {
+    const cases: [Record<string, unknown>, string][] = [
+      [{ key: { lightId: key.id, guideNumber: 60, distance: 2 } }, 'inputs.key.lightId'],
+      [
+        { key: { guideNumber: 60, distance: 2, modifierId: octa.id, modifierLossStops: 1 } },
+        'inputs.key.modifierId',
+      ],
+      [{ gelKitId: kit.id, gels: inlineGels(kit) }, 'inputs.gelKitId'],
+      [{ gelKitId: 'studio-kit' }, 'inputs.gelKitId'],
+      [{ key: { lightId: 42, distance: 2 } }, 'inputs.key.lightId'],
+    ];
+    for (const [patch, field] of cases) {
+      const res = await owner.agent
+        .post('/v1/setups')
+        .send({ name: 'conflict', inputs: { ...LAKESIDE_INPUTS, ...patch } });
+      expect({ field, status: res.status }).toEqual({ field, status: 422 });
+      expect(res.body.errors.map((e: { field: string }) => e.field)).toContain(field);
+    }
+  });
+
+  it('saved plans keep the values they were computed with when the gear changes later', async () => {
+    const light = await createLight(owner, { guideNumber: 45 });
+    const saved = await owner.agent
+      .post('/v1/setups')
+      .send({
+        name: 'Before the repair',
+        inputs: { ...LAKESIDE_INPUTS, key: { lightId: light.id, distance: 2.2 } },
+      })
+      .expect(201);
+    await owner.agent.patch(`/v1/gear/lights/${light.id}`).send({ guideNumber: 30 }).expect(200);
+    await owner.agent.delete(`/v1/gear/lights/${light.id}`).expect(204);
+    const again = await owner.agent.get(`/v1/setups/${saved.body.id}`).expect(200);
+    expect(again.body.resolvedInputs.key.guideNumber).toBe(45);
+    expect(again.body.plan).toEqual(saved.body.plan);
+  });
+});
