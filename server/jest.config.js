@@ -20,7 +20,7 @@ export default {
   globalSetup: '<rootDir>/test/setup/global-setup.ts',
   moduleNameMapper: {
     '^(\\.{1,2}/.*)\\.js$': '$1',
-    '^file-type$': '<rootDir>/../node_modules/file-type/index.js',
+    '^file-type$': '<rootDir>/node_modules/file-type/index.js',
   },
   transform: { '^.+\\.(t|j)s$': swc },
   transformIgnorePatterns: [

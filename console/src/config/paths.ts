@@ -10,6 +10,12 @@ export const paths = {
   billing: '/billing',
   signIn: '/sign-in',
   signUp: '/sign-up',
+  frames: '/frames',
+  audit: '/audit',
+  forgotPassword: '/forgot-password',
+  resetPassword: '/reset-password',
+  acceptInvite: '/accept-invite',
+  confirmEmail: '/confirm-email',
 } as const;
 
 export interface NavEntry {
@@ -17,15 +23,19 @@ export interface NavEntry {
   to: string;
   /** One line for screen readers and tooltips. */
   hint: string;
+  /** The server permission needed to see this entry (everyone when absent). */
+  permission?: string;
 }
 
 export const primaryNav: readonly NavEntry[] = [
   { label: 'Overview', to: paths.overview, hint: 'Your studio at a glance' },
-  { label: 'Keys', to: paths.keys, hint: 'API keys for your apps' },
-  { label: 'Usage', to: paths.usage, hint: 'Calls made with your keys' },
+  { label: 'Keys', to: paths.keys, hint: 'API keys for your apps', permission: 'keys:manage-own' },
+  { label: 'Usage', to: paths.usage, hint: 'Calls made with your keys', permission: 'usage:read' },
   { label: 'Playground', to: paths.playground, hint: 'Try the lighting math' },
   { label: 'Setups', to: paths.setups, hint: 'Saved dusk setups' },
+  { label: 'Test frames', to: paths.frames, hint: 'Check a test shot’s colour balance' },
   { label: 'Gear', to: paths.gear, hint: 'Lights, modifiers and gels' },
-  { label: 'Team', to: paths.team, hint: 'People in your studio' },
-  { label: 'Billing', to: paths.billing, hint: 'Plan and invoices' },
+  { label: 'Team', to: paths.team, hint: 'People in your studio', permission: 'team:manage' },
+  { label: 'Audit', to: paths.audit, hint: 'Who did what, and when', permission: 'audit:read' },
+  { label: 'Billing', to: paths.billing, hint: 'Plan and invoices', permission: 'billing:manage' },
 ];

@@ -7,6 +7,8 @@
  * `fetch: (request) => globalThis.fetch(request)` so tests can stub fetch.
  */
 
+import { createApiClient } from '@lumenwright/sdk';
+
 /** RFC 9457 problem details, as the server renders every error. */
 export interface ProblemDetails {
   type?: string;
@@ -14,7 +16,7 @@ export interface ProblemDetails {
   status?: number;
   detail?: string;
   instance?: string;
-  errors?: { field?: string; path?: string; message?: string }[];
+  errors?: { field?: string; path?: string; message?: string; reason?: string }[];
   [extension: string]: unknown;
 }
 
@@ -115,3 +117,40 @@ export const api = {
   delete: <T>(path: string, init?: Omit<ApiRequest, 'method' | 'body'>) =>
     request<T>(path, { ...init, method: 'DELETE' }),
 };
+
+/**
+ * The typed SDK client (cookie session, `credentials: 'include'`) for every console call.
+ * CSRF: the server refuses cookie-carrying writes whose Origin is foreign; the browser sends our
+ * own Origin on same-origin fetches, so no token is needed.
+ */
+export const client = createApiClient({
+  baseUrl: baseUrl(),
+  fetch: (request) => globalThis.fetch(request),
+});
+
+interface SdkResult<T> {
+  data?: T;
+  error?: unknown;
+  response: Response;
+}
+
+/** Awaits an SDK call and returns its data, or throws an `ApiProblem` like `api` does. */
+export async function unwrap<T>(call: Promise<SdkResult<T>>): Promise<T> {
+  let result: SdkResult<T>;
+  try {
+    result = await call;
+  } catch (error) {
+    if (error instanceof DOMException && error.name === 'AbortError') throw error;
+    const detail = error instanceof Error ? error.message : 'Network request failed';
+    throw new ApiProblem(0, { title: 'API unreachable', detail, status: 0 });
+  }
+  const { response } = result;
+  if (!response.ok) {
+    throw new ApiProblem(
+      response.status,
+      toProblem(response.status, response.statusText, result.error),
+      result.error,
+    );
+  }
+  return result.data as T;
+}

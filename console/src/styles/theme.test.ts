@@ -50,6 +50,22 @@ describe.each(Object.entries(themes))('%s theme meets WCAG 2.2 AA', (_name, colo
       contrastRatio(color('--color-on-accent'), color('--color-accent')),
     ).toBeGreaterThanOrEqual(4.5);
   });
+  // Chart labels sit on the shaded twilight bands; series lines are graphics (SC 1.4.11).
+  it.each([
+    ['--color-ink', '--color-chart-golden'],
+    ['--color-ink', '--color-chart-blue'],
+    ['--color-ink-muted', '--color-chart-civil'],
+    ['--color-ink-muted', '--color-chart-nautical'],
+    ['--color-ink-muted', '--color-chart-astro'],
+  ])('chart label %s on band %s is at least 4.5:1', (text, band) => {
+    expect(contrastRatio(color(text), color(band))).toBeGreaterThanOrEqual(4.5);
+  });
+  it.each(['--color-chart-sun', '--color-chart-ev'])(
+    'series %s on the panel is at least 3:1',
+    (series) => {
+      expect(contrastRatio(color(series), color('--color-panel'))).toBeGreaterThanOrEqual(3);
+    },
+  );
   it.each(surfaces)(
     'control edges and focus rings on %s are at least 3:1 (SC 1.4.11)',
     (surface) => {

@@ -174,6 +174,91 @@ export interface paths {
     patch?: never;
     trace?: never;
   };
+  '/v1/billing': {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    /** The organisation's plan, subscription and any open checkout (owners). */
+    get: operations['getBilling'];
+    put?: never;
+    post?: never;
+    delete?: never;
+    options?: never;
+    head?: never;
+    patch?: never;
+    trace?: never;
+  };
+  '/v1/billing/cancel': {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    get?: never;
+    put?: never;
+    /** Cancel the subscription now; the organisation moves to the free plan. */
+    post: operations['cancelSubscription'];
+    delete?: never;
+    options?: never;
+    head?: never;
+    patch?: never;
+    trace?: never;
+  };
+  '/v1/billing/checkout': {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    get?: never;
+    put?: never;
+    /** Start a hosted checkout to move to a paid plan (upgrade or downgrade). */
+    post: operations['createCheckout'];
+    delete?: never;
+    options?: never;
+    head?: never;
+    patch?: never;
+    trace?: never;
+  };
+  '/v1/billing/invoices': {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    /** Invoices with their lines (plan, metered overage), newest first. */
+    get: operations['listInvoices'];
+    put?: never;
+    post?: never;
+    delete?: never;
+    options?: never;
+    head?: never;
+    patch?: never;
+    trace?: never;
+  };
+  '/v1/billing/invoices/{id}': {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    /** One invoice. */
+    get: operations['getInvoice'];
+    put?: never;
+    post?: never;
+    delete?: never;
+    options?: never;
+    head?: never;
+    patch?: never;
+    trace?: never;
+  };
   '/v1/exposure': {
     parameters: {
       query?: never;
@@ -223,6 +308,204 @@ export interface paths {
     options?: never;
     head?: never;
     patch?: never;
+    trace?: never;
+  };
+  '/v1/frames': {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    /** Your organisation's test frames, newest first. */
+    get: operations['listFrames'];
+    put?: never;
+    /** Upload a test frame (JPEG or PNG, at most 25 MB): EXIF, neutral-patch colour (CCT, Duv, mired offset), the white-balance or gel correction, and a scene EV estimate. */
+    post: operations['uploadFrame'];
+    delete?: never;
+    options?: never;
+    head?: never;
+    patch?: never;
+    trace?: never;
+  };
+  '/v1/frames/{id}': {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    /** One test frame and its analysis. */
+    get: operations['getFrame'];
+    put?: never;
+    post?: never;
+    delete?: never;
+    options?: never;
+    head?: never;
+    patch?: never;
+    trace?: never;
+  };
+  '/v1/frames/{id}/thumbnail': {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    /** The JPEG thumbnail of a test frame (at most 320 px). */
+    get: operations['getFrameThumbnail'];
+    put?: never;
+    post?: never;
+    delete?: never;
+    options?: never;
+    head?: never;
+    patch?: never;
+    trace?: never;
+  };
+  '/v1/gear/gel-kits': {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    /** The organisation's gel kits with their pieces. */
+    get: operations['listGelKits'];
+    put?: never;
+    /** Add a gel kit, optionally with its pieces. */
+    post: operations['createGelKit'];
+    delete?: never;
+    options?: never;
+    head?: never;
+    patch?: never;
+    trace?: never;
+  };
+  '/v1/gear/gel-kits/{id}': {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    /** One gel kit with its pieces. */
+    get: operations['getGelKit'];
+    put?: never;
+    post?: never;
+    /** Remove a gel kit and its pieces. */
+    delete: operations['deleteGelKit'];
+    options?: never;
+    head?: never;
+    /** Rename a gel kit or change its notes (pieces have their own routes). */
+    patch: operations['updateGelKit'];
+    trace?: never;
+  };
+  '/v1/gear/gel-kits/{kitId}/pieces': {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    get?: never;
+    put?: never;
+    /** Add a gel to a kit (at most 30 per kit). */
+    post: operations['addGelPiece'];
+    delete?: never;
+    options?: never;
+    head?: never;
+    patch?: never;
+    trace?: never;
+  };
+  '/v1/gear/gel-kits/{kitId}/pieces/{pieceId}': {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    get?: never;
+    put?: never;
+    post?: never;
+    /** Remove one gel from a kit. */
+    delete: operations['deleteGelPiece'];
+    options?: never;
+    head?: never;
+    /** Change one gel of a kit. */
+    patch: operations['updateGelPiece'];
+    trace?: never;
+  };
+  '/v1/gear/lights': {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    /** The organisation's lights, by name. */
+    get: operations['listLights'];
+    put?: never;
+    /** Add a light: a rated guide number, or a meter reading to derive it from. */
+    post: operations['createLight'];
+    delete?: never;
+    options?: never;
+    head?: never;
+    patch?: never;
+    trace?: never;
+  };
+  '/v1/gear/lights/{id}': {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    /** One light. */
+    get: operations['getLight'];
+    put?: never;
+    post?: never;
+    /** Remove a light (saved setups keep the values they were computed with). */
+    delete: operations['deleteLight'];
+    options?: never;
+    head?: never;
+    /** Change a light (a new guide number or meter reading replaces the old). */
+    patch: operations['updateLight'];
+    trace?: never;
+  };
+  '/v1/gear/modifiers': {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    /** The organisation's modifiers, by name. */
+    get: operations['listModifiers'];
+    put?: never;
+    /** Add a modifier with its light loss (default: the typical loss for its kind). */
+    post: operations['createModifier'];
+    delete?: never;
+    options?: never;
+    head?: never;
+    patch?: never;
+    trace?: never;
+  };
+  '/v1/gear/modifiers/{id}': {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    /** One modifier. */
+    get: operations['getModifier'];
+    put?: never;
+    post?: never;
+    /** Remove a modifier (saved setups keep the values they were computed with). */
+    delete: operations['deleteModifier'];
+    options?: never;
+    head?: never;
+    /** Change a modifier. */
+    patch: operations['updateModifier'];
     trace?: never;
   };
   '/v1/health': {
@@ -496,6 +779,77 @@ export interface paths {
     put?: never;
     /** The whole dusk setup: timing, background exposure, key and rim power, gels, cautions. */
     post: operations['planSetup'];
+    delete?: never;
+    options?: never;
+    head?: never;
+    patch?: never;
+    trace?: never;
+  };
+  '/v1/setups': {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    /** Saved setups, newest first; `q` searches name, venue and notes. */
+    get: operations['listSetups'];
+    put?: never;
+    /** Save a setup: the plan is computed from the inputs (gear may be named by id). */
+    post: operations['createSetup'];
+    delete?: never;
+    options?: never;
+    head?: never;
+    patch?: never;
+    trace?: never;
+  };
+  '/v1/setups/{id}': {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    /** One saved setup with its inputs and plan. */
+    get: operations['getSetup'];
+    put?: never;
+    post?: never;
+    /** Delete a saved setup. */
+    delete: operations['deleteSetup'];
+    options?: never;
+    head?: never;
+    /** Rename, re-describe, or send new inputs (the plan is computed again). */
+    patch: operations['updateSetup'];
+    trace?: never;
+  };
+  '/v1/setups/{id}/duplicate': {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    get?: never;
+    put?: never;
+    /** Copy a saved setup (counts against the plan’s saved-setups limit). */
+    post: operations['duplicateSetup'];
+    delete?: never;
+    options?: never;
+    head?: never;
+    patch?: never;
+    trace?: never;
+  };
+  '/v1/setups/{id}/sheet': {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    /** A print-ready HTML shot sheet: plan, diagram, gels, cautions. */
+    get: operations['getSetupSheet'];
+    put?: never;
+    post?: never;
     delete?: never;
     options?: never;
     head?: never;
@@ -1040,11 +1394,40 @@ export interface components {
         tintCC?: number;
       };
     };
+    CancelResponseDto: {
+      /**
+       * @description The webhook moves the organisation to free.
+       * @enum {string}
+       */
+      status: 'cancelling';
+      subscriptionId: string;
+    };
     ChangePasswordRequestDto: {
       /** @example long-dusk-over-the-pier */
       currentPassword: string;
       /** @example a-new-blue-hour-phrase */
       newPassword: string;
+    };
+    CheckoutRequestDto: {
+      /**
+       * @description The paid plan to move to.
+       * @example studio
+       */
+      planCode: string;
+    };
+    CheckoutResponseDto: {
+      /** @enum {string} */
+      change: 'upgrade' | 'downgrade';
+      /** Format: date-time */
+      createdAt: string;
+      /** @example cs_test_a1b2c3 */
+      id: string;
+      /** @example studio */
+      planCode: string;
+      /** @enum {string} */
+      status: 'open' | 'complete' | 'expired';
+      /** @description Send the owner here to approve or decline the payment. */
+      url: string;
     };
     CreateApiKeyRequestDto: {
       /**
@@ -1061,6 +1444,32 @@ export interface components {
       /** @example Booking app (production) */
       name: string;
     };
+    CreateGelKitRequestDto: {
+      /** @example Studio gel kit */
+      name: string;
+      notes?: string | null;
+      /** @description The kit's pieces (at most 30); more can be added later. */
+      pieces?: components['schemas']['CreateGelPieceRequestDto'][];
+    };
+    CreateGelPieceRequestDto: {
+      /**
+       * @description Green shift, CC units (−60..60; + = plus-green, − = minus-green). Default 0.
+       * @example 0
+       */
+      greenShift?: number;
+      /**
+       * @description Light the gel absorbs, stops (0..6).
+       * @example 0.4
+       */
+      lossStops: number;
+      /**
+       * @description Mired shift (−400..400; + = warmer, CTO family; − = cooler, CTB family). Default 0.
+       * @example 93
+       */
+      miredShift?: number;
+      /** @example 1/2 CTO */
+      name: string;
+    };
     CreateInviteRequestDto: {
       /** @example noor@kestrelmoor.test */
       email: string;
@@ -1069,6 +1478,76 @@ export interface components {
        * @enum {string}
        */
       role: 'owner' | 'admin' | 'developer' | 'photographer';
+    };
+    CreateLightRequestDto: {
+      /**
+       * @description Guide number at ISO 100, full power (1..500), in guideNumberUnit. Send this or meterReading.
+       * @example 60
+       */
+      guideNumber?: number;
+      /**
+       * @description Unit of the guide number.
+       * @default m
+       * @enum {string}
+       */
+      guideNumberUnit: 'm' | 'ft';
+      /** @description A meter reading to derive the guide number from (GN = f-number × distance at ISO 100, full power). */
+      meterReading?: components['schemas']['MeterReadingDto'];
+      /** @example Key strobe A */
+      name: string;
+      /** @example Spare battery in the red case. */
+      notes?: string | null;
+    };
+    CreateModifierRequestDto: {
+      /**
+       * @description Full beam angle of a grid or reflector, degrees (1..180).
+       * @example 20
+       */
+      beamAngleDeg?: number | null;
+      /**
+       * @description Kind of modifier (sets size defaults in the setup math); null = unspecified.
+       * @example octabox
+       * @enum {string|null}
+       */
+      kind?:
+        | 'bare'
+        | 'umbrella'
+        | 'softbox'
+        | 'softbox-double-diffusion'
+        | 'octabox'
+        | 'beauty-dish'
+        | 'grid'
+        | 'snoot'
+        | null;
+      /**
+       * @description Light lost in the modifier, stops (0..8). Default: the typical loss for its kind.
+       * @example 2
+       */
+      lossStops?: number;
+      /** @example 90 cm octa */
+      name: string;
+      notes?: string | null;
+      /**
+       * @description Diameter or diagonal (0.01..10), in sizeUnit.
+       * @example 0.9
+       */
+      size?: number | null;
+      /**
+       * @description Unit of size.
+       * @default m
+       * @enum {string}
+       */
+      sizeUnit: 'm' | 'ft';
+    };
+    CreateSavedSetupRequestDto: {
+      /** @description The setup inputs, as POST /v1/setup takes them; gear may be named by id. The plan is computed from them when saved. Date and time zone come from here. */
+      inputs: components['schemas']['SavedSetupInputsDto'];
+      /** @example Engagement session, lakeside terrace */
+      name: string;
+      /** @example Couple arrives 19:15. Jetty closes at dusk. */
+      notes?: string | null;
+      /** @example Tallowmere boathouse terrace, Quillby-on-Wend */
+      venue?: string | null;
     };
     CurrentPlanResponseDto: {
       /**
@@ -1174,6 +1653,10 @@ export interface components {
        * @example Kestrelmoor Evening Portraits
        */
       confirmName: string;
+    };
+    DuplicateSavedSetupRequestDto: {
+      /** @description Default: the name with " (copy)". */
+      name?: string;
     };
     EmailChangeRequestDto: {
       /** @example ilse.m@kestrelmoor.test */
@@ -1439,6 +1922,361 @@ export interface components {
         message: string;
       }[];
     };
+    FrameListResponseDto: {
+      data: {
+        /** @description Size of the original, bytes. */
+        byteSize: number;
+        /** @description Colour of the patch and the correction. */
+        colour: {
+          /** @description The shot white balance, kelvin (given, or assumed). */
+          cameraKelvin: number;
+          /**
+           * @description Where cameraKelvin came from.
+           * @enum {string}
+           */
+          cameraKelvinSource: 'caller' | 'assumed';
+          /** @description Correlated colour temperature, kelvin (Robertson 1968). */
+          cctKelvin: number | null;
+          /** @description False when |Duv| > 0.05. */
+          cctMeaningful: boolean;
+          /** @description CIE 1931 xy of the patch (sRGB decoded, linear average). */
+          chromaticity: {
+            /** @description x */
+            x: number;
+            /** @description y */
+            y: number;
+          };
+          /** @description Distance from the Planckian locus in CIE 1960 uv (+ greenish). */
+          duv: number | null;
+          /** @description Gel for the light that neutralises the patch at the shot white balance (shared balance solver). */
+          gel: {
+            gels: {
+              /** @description Its light loss, stops. */
+              lossStops: number;
+              /** @description Its mired shift. */
+              miredShift: number;
+              /** @description Gel name. */
+              name: string;
+            }[];
+            /** @description Total light loss of the stack, stops. */
+            lossStops: number;
+            /** @description Mired shift needed on the light (+ warms: CTO; - cools: CTB). */
+            requiredMiredShift: number;
+            /** @description Achieved minus required shift, mireds. */
+            residualMired: number;
+          } | null;
+          /** @description The light on the patch implied at that white balance, kelvin. */
+          lightKelvin: number | null;
+          /** @description CCT method. */
+          method: string;
+          /** @description mired(patch) - mired(neutral): + = renders warmer than neutral. */
+          miredOffset: number | null;
+          /** @description The neutral reference: sRGB white (CIE D65). */
+          neutral: {
+            /** @description Its CCT, kelvin. */
+            cctKelvin: number;
+            /** @description x */
+            x: number;
+            /** @description y */
+            y: number;
+          };
+          notes: string[];
+          /**
+           * @description Green-magenta lean of the patch.
+           * @enum {string}
+           */
+          tint: 'green' | 'magenta' | 'none';
+          /** @description Camera white balance that renders the patch neutral. */
+          whiteBalance: {
+            /** @description Same change in fine-tune steps (+ amber, - blue), ~5 mired each. */
+            amberBlueSteps: number;
+            /** @description Set the camera to this, kelvin. */
+            kelvin: number;
+            /** @description Change from the shot white balance, mireds. */
+            miredShift: number;
+          } | null;
+        };
+        /**
+         * @description Type sniffed from the content.
+         * @example image/jpeg
+         * @enum {string}
+         */
+        contentType: 'image/jpeg' | 'image/png';
+        /** @description When it was uploaded (ISO 8601). */
+        createdAt: string;
+        /** @description EXIF exposure settings (null when absent). */
+        exif: {
+          /** @description Shutter time, seconds. */
+          exposureTime: number | null;
+          /** @description Aperture f-number. */
+          fNumber: number | null;
+          /** @description Whether the flash fired. */
+          flashFired: boolean | null;
+          /** @description Focal length, mm. */
+          focalLengthMm: number | null;
+          /** @description ISO speed. */
+          iso: number | null;
+          /** @description EXIF white-balance mode. One of auto, manual, or null. */
+          whiteBalance: string | null;
+        };
+        /** @description Exposure estimate. */
+        exposure: {
+          /** @description What the estimate assumes. */
+          basis: string;
+          /** @description Mean linear Y of the patch. */
+          patchLuminance: number;
+          /** @description Scene EV100, taking the patch as an 18 % grey card. */
+          sceneEv100: number | null;
+          /** @description EV100 of the EXIF settings (APEX). */
+          settingsEv100: number | null;
+        };
+        /** @description The uploaded file name, if any. */
+        fileName: string | null;
+        /** @description Upright height, pixels. */
+        height: number;
+        /**
+         * Format: uuid
+         * @description Frame id.
+         */
+        id: string;
+        /** @description The measured patch (upright pixel coordinates). */
+        patch: {
+          /** @description Share of nearly clipped pixels. */
+          clippedFraction: number;
+          /** @description Height, pixels. */
+          height: number;
+          /** @description Mean linear RGB, 0..1. */
+          linearRgb: {
+            /** @description b */
+            b: number;
+            /** @description g */
+            g: number;
+            /** @description r */
+            r: number;
+          };
+          /** @description Mean relative luminance Y (white = 1). */
+          luminance: number;
+          /** @description Unevenness: coefficient of variation of Y. */
+          luminanceCv: number;
+          /**
+           * @description Given by the caller or found automatically.
+           * @enum {string}
+           */
+          source: 'caller' | 'auto';
+          /** @description Width, pixels. */
+          width: number;
+          /** @description Left, pixels. */
+          x: number;
+          /** @description Top, pixels. */
+          y: number;
+        };
+        /** @description SHA-256 of the original, hex. */
+        sha256: string;
+        /** @description Where to fetch the JPEG thumbnail (same credentials). */
+        thumbnailUrl: string;
+        warnings: string[];
+        /** @description Upright width, pixels. */
+        width: number;
+      }[];
+      /** @description Pass as `cursor` for the next page; null on the last page. */
+      nextCursor: string[];
+    };
+    FrameResponseDto: {
+      /** @description Size of the original, bytes. */
+      byteSize: number;
+      /** @description Colour of the patch and the correction. */
+      colour: {
+        /** @description The shot white balance, kelvin (given, or assumed). */
+        cameraKelvin?: number;
+        /**
+         * @description Where cameraKelvin came from.
+         * @enum {string}
+         */
+        cameraKelvinSource?: 'caller' | 'assumed';
+        /** @description Correlated colour temperature, kelvin (Robertson 1968). */
+        cctKelvin?: number | null;
+        /** @description False when |Duv| > 0.05. */
+        cctMeaningful?: boolean;
+        /** @description CIE 1931 xy of the patch (sRGB decoded, linear average). */
+        chromaticity?: {
+          /** @description x */
+          x: number;
+          /** @description y */
+          y: number;
+        };
+        /** @description Distance from the Planckian locus in CIE 1960 uv (+ greenish). */
+        duv?: number | null;
+        /** @description Gel for the light that neutralises the patch at the shot white balance (shared balance solver). */
+        gel?: {
+          gels: {
+            /** @description Its light loss, stops. */
+            lossStops: number;
+            /** @description Its mired shift. */
+            miredShift: number;
+            /** @description Gel name. */
+            name: string;
+          }[];
+          /** @description Total light loss of the stack, stops. */
+          lossStops: number;
+          /** @description Mired shift needed on the light (+ warms: CTO; - cools: CTB). */
+          requiredMiredShift: number;
+          /** @description Achieved minus required shift, mireds. */
+          residualMired: number;
+        } | null;
+        /** @description The light on the patch implied at that white balance, kelvin. */
+        lightKelvin?: number | null;
+        /** @description CCT method. */
+        method?: string;
+        /** @description mired(patch) - mired(neutral): + = renders warmer than neutral. */
+        miredOffset?: number | null;
+        /** @description The neutral reference: sRGB white (CIE D65). */
+        neutral?: {
+          /** @description Its CCT, kelvin. */
+          cctKelvin: number;
+          /** @description x */
+          x: number;
+          /** @description y */
+          y: number;
+        };
+        notes?: string[];
+        /**
+         * @description Green-magenta lean of the patch.
+         * @enum {string}
+         */
+        tint?: 'green' | 'magenta' | 'none';
+        /** @description Camera white balance that renders the patch neutral. */
+        whiteBalance?: {
+          /** @description Same change in fine-tune steps (+ amber, - blue), ~5 mired each. */
+          amberBlueSteps: number;
+          /** @description Set the camera to this, kelvin. */
+          kelvin: number;
+          /** @description Change from the shot white balance, mireds. */
+          miredShift: number;
+        } | null;
+      };
+      /**
+       * @description Type sniffed from the content.
+       * @example image/jpeg
+       * @enum {string}
+       */
+      contentType: 'image/jpeg' | 'image/png';
+      /** @description When it was uploaded (ISO 8601). */
+      createdAt: string;
+      /** @description EXIF exposure settings (null when absent). */
+      exif: {
+        /** @description Shutter time, seconds. */
+        exposureTime?: number | null;
+        /** @description Aperture f-number. */
+        fNumber?: number | null;
+        /** @description Whether the flash fired. */
+        flashFired?: boolean | null;
+        /** @description Focal length, mm. */
+        focalLengthMm?: number | null;
+        /** @description ISO speed. */
+        iso?: number | null;
+        /** @description EXIF white-balance mode. One of auto, manual, or null. */
+        whiteBalance?: string | null;
+      };
+      /** @description Exposure estimate. */
+      exposure: {
+        /** @description What the estimate assumes. */
+        basis?: string;
+        /** @description Mean linear Y of the patch. */
+        patchLuminance?: number;
+        /** @description Scene EV100, taking the patch as an 18 % grey card. */
+        sceneEv100?: number | null;
+        /** @description EV100 of the EXIF settings (APEX). */
+        settingsEv100?: number | null;
+      };
+      /** @description The uploaded file name, if any. */
+      fileName: string[];
+      /** @description Upright height, pixels. */
+      height: number;
+      /**
+       * Format: uuid
+       * @description Frame id.
+       */
+      id: string;
+      /** @description The measured patch (upright pixel coordinates). */
+      patch: {
+        /** @description Share of nearly clipped pixels. */
+        clippedFraction?: number;
+        /** @description Height, pixels. */
+        height?: number;
+        /** @description Mean linear RGB, 0..1. */
+        linearRgb?: {
+          /** @description b */
+          b: number;
+          /** @description g */
+          g: number;
+          /** @description r */
+          r: number;
+        };
+        /** @description Mean relative luminance Y (white = 1). */
+        luminance?: number;
+        /** @description Unevenness: coefficient of variation of Y. */
+        luminanceCv?: number;
+        /**
+         * @description Given by the caller or found automatically.
+         * @enum {string}
+         */
+        source?: 'caller' | 'auto';
+        /** @description Width, pixels. */
+        width?: number;
+        /** @description Left, pixels. */
+        x?: number;
+        /** @description Top, pixels. */
+        y?: number;
+      };
+      /** @description SHA-256 of the original, hex. */
+      sha256: string;
+      /** @description Where to fetch the JPEG thumbnail (same credentials). */
+      thumbnailUrl: string;
+      warnings: string[];
+      /** @description Upright width, pixels. */
+      width: number;
+    };
+    GelKitListResponseDto: {
+      data: components['schemas']['GelKitResponseDto'][];
+    };
+    GelKitResponseDto: {
+      /** Format: date-time */
+      createdAt: string;
+      /** Format: uuid */
+      id: string;
+      /** @example Studio gel kit */
+      name: string;
+      notes: string | null;
+      pieces: components['schemas']['GelPieceResponseDto'][];
+      /** Format: date-time */
+      updatedAt: string;
+    };
+    GelPieceResponseDto: {
+      /**
+       * @description Green shift, CC units.
+       * @example 0
+       */
+      greenShift: number;
+      /** Format: uuid */
+      id: string;
+      /**
+       * @description Light loss, stops.
+       * @example 0.4
+       */
+      lossStops: number;
+      /**
+       * @description Mired shift (+ = warmer).
+       * @example 93
+       */
+      miredShift: number;
+      /** @example 1/2 CTO */
+      name: string;
+      /**
+       * @description Order in the kit.
+       * @example 0
+       */
+      position: number;
+    };
     InviteListResponseDto: {
       data: components['schemas']['InviteResponseDto'][];
     };
@@ -1476,6 +2314,69 @@ export interface components {
       /** @enum {string} */
       status: 'pending' | 'expired' | 'accepted' | 'canceled';
     };
+    InvoiceLineDto: {
+      /** @description Cents. */
+      amountCents: number;
+      description: string;
+      /** @enum {string} */
+      kind: 'plan' | 'overage' | 'other';
+      /** @description Calls over the included amount for overage lines, else 1. */
+      quantity: number;
+    };
+    InvoiceListResponseDto: {
+      data: components['schemas']['InvoiceResponseDto'][];
+    };
+    InvoiceResponseDto: {
+      amountPaidCents: number;
+      /** @example subscription_cycle */
+      billingReason: string;
+      /** @example usd */
+      currency: string;
+      id: string;
+      /** Format: date-time */
+      issuedAt: string;
+      lines: components['schemas']['InvoiceLineDto'][];
+      /** Format: date-time */
+      periodEnd: string | null;
+      /** Format: date-time */
+      periodStart: string | null;
+      /** @enum {string} */
+      status: 'draft' | 'open' | 'paid' | 'void' | 'uncollectible';
+      totalCents: number;
+    };
+    LightListResponseDto: {
+      data: components['schemas']['LightResponseDto'][];
+    };
+    LightResponseDto: {
+      /** Format: date-time */
+      createdAt: string;
+      /**
+       * @description Guide number at ISO 100, full power, in guideNumberUnit.
+       * @example 60
+       */
+      guideNumber: number;
+      /**
+       * @description The guide number in feet.
+       * @example 196.85
+       */
+      guideNumberFt: number;
+      /**
+       * @description The guide number in metres.
+       * @example 60
+       */
+      guideNumberM: number;
+      /** @enum {string} */
+      guideNumberUnit: 'm' | 'ft';
+      /** Format: uuid */
+      id: string;
+      /** @description The reading the guide number was derived from; null when entered as rated. */
+      meterReading: components['schemas']['MeterReadingResponseDto'] | null;
+      /** @example Key strobe A */
+      name: string;
+      notes: string | null;
+      /** Format: date-time */
+      updatedAt: string;
+    };
     MeResponseDto: {
       organization: components['schemas']['OrganizationResponseDto'];
       /**
@@ -1507,6 +2408,81 @@ export interface components {
       role: 'owner' | 'admin' | 'developer' | 'photographer';
       /** Format: uuid */
       userId: string;
+    };
+    MeterReadingDto: {
+      /**
+       * @description f-number the meter read (0.7..128).
+       * @example 8
+       */
+      aperture: number;
+      /**
+       * @description Light-to-meter distance (0.05..1000), in distanceUnit.
+       * @example 5
+       */
+      distance: number;
+      /**
+       * @description Metres or feet.
+       * @default m
+       * @enum {string}
+       */
+      distanceUnit: 'm' | 'ft';
+      /**
+       * @description ISO set on the meter (3..409600); default 100.
+       * @example 100
+       */
+      iso?: number;
+      /**
+       * @description Power fraction during the reading (1/4096..1); default 1 (full power).
+       * @example 1
+       */
+      powerFraction?: number;
+    };
+    MeterReadingResponseDto: {
+      /** @example 8 */
+      aperture: number;
+      /** @example 5 */
+      distance: number;
+      /** @enum {string} */
+      distanceUnit: 'm' | 'ft';
+      /** @example 100 */
+      iso: number;
+      /** @example 1 */
+      powerFraction: number;
+    };
+    ModifierListResponseDto: {
+      data: components['schemas']['ModifierResponseDto'][];
+    };
+    ModifierResponseDto: {
+      /** @description Beam angle, degrees. */
+      beamAngleDeg: number | null;
+      /** Format: date-time */
+      createdAt: string;
+      /** Format: uuid */
+      id: string;
+      /** @enum {string|null} */
+      kind:
+        | 'bare'
+        | 'umbrella'
+        | 'softbox'
+        | 'softbox-double-diffusion'
+        | 'octabox'
+        | 'beauty-dish'
+        | 'grid'
+        | 'snoot'
+        | null;
+      /**
+       * @description Light loss, stops.
+       * @example 2
+       */
+      lossStops: number;
+      /** @example 90 cm octa */
+      name: string;
+      notes: string | null;
+      size: number | null;
+      /** @enum {string|null} */
+      sizeUnit: 'm' | 'ft' | null;
+      /** Format: date-time */
+      updatedAt: string;
     };
     MyOrganizationResponseDto: {
       /** @description The organisation this session acts for. */
@@ -1642,6 +2618,354 @@ export interface components {
        * @example 3600
        */
       gracePeriodSeconds: number;
+    };
+    SavedSetupAuthorDto: {
+      /** Format: uuid */
+      id: string;
+      /** @example Orla Featherstone */
+      name: string;
+    };
+    SavedSetupInputsDto: {
+      /**
+       * @description Key-light-to-background distance, in key.distanceUnit.
+       * @example 12
+       */
+      backgroundDistance?: number;
+      /** @description Camera limits and taste. */
+      camera?: {
+        /**
+         * @description Working f-number; default 5.6.
+         * @example 4
+         */
+        aperture?: number;
+        /**
+         * @description Background bias, stops (taste); default −1.
+         * @example -1
+         */
+        biasStops?: number;
+        /**
+         * @description Flash sync speed, seconds; default 1/200.
+         * @example 0.005
+         */
+        flashSyncSeconds?: number;
+        /**
+         * @description ISO ceiling; default 6400.
+         * @example 3200
+         */
+        isoMax?: number;
+        /**
+         * @description Lowest ISO to use.
+         * @example 100
+         */
+        isoMin?: number;
+        /**
+         * @description Camera white balance, kelvin; default 3800.
+         * @example 3800
+         */
+        kelvin?: number;
+        /**
+         * @description Slowest handheld shutter time, seconds.
+         * @example 0.0167
+         */
+        slowestHandheldSeconds?: number;
+        /**
+         * @description Handheld or on a tripod.
+         * @example handheld
+         * @enum {string}
+         */
+        support?: 'handheld' | 'tripod';
+        /**
+         * @description Camera tint, CC units.
+         * @example 0
+         */
+        tint?: number;
+      };
+      /** @description Site conditions; they add safety cautions. */
+      conditions?: {
+        /**
+         * @description Using cold fog or haze.
+         * @example false
+         */
+        coldFogOrHaze?: boolean;
+        /**
+         * @description Using hot modelling lamps.
+         * @example false
+         */
+        modellingLamps?: boolean;
+        /**
+         * @description Working near a road.
+         * @example false
+         */
+        nearRoad?: boolean;
+        /**
+         * @description Working near water.
+         * @example true
+         */
+        nearWater?: boolean;
+        /**
+         * @description Wind speed, km/h.
+         * @example 15
+         */
+        windKmh?: number;
+      };
+      /**
+       * Format: date
+       * @description Local calendar date, YYYY-MM-DD (1900..2100).
+       * @example 2026-06-20
+       */
+      date: string;
+      /**
+       * @description Observer height above the visible horizon, metres (0..9000).
+       * @example 0
+       */
+      elevation?: number;
+      /**
+       * @description Bare flash colour temperature, kelvin (2500..10000); default 5500.
+       * @example 5600
+       */
+      flashKelvin?: number;
+      /**
+       * @description Id of one of your gel kits (GET /v1/gear/gel-kits): its pieces are the gels to choose from. Send this or `gels`, not both.
+       * @example 0b7c6a52-3d0e-4c55-9f59-2b1f4e0d8a11
+       */
+      gelKitId?: string;
+      /** @description The gels to choose from; default: the built-in catalogue of common CTO/CTB cuts. */
+      gels?: {
+        /**
+         * @description Green shift, CC units (+ = plus-green); default 0.
+         * @example 0
+         */
+        greenShift?: number;
+        /**
+         * @description Light the gel absorbs, stops (0..8).
+         * @example 0.33
+         */
+        lossStops: number;
+        /**
+         * @description Mired shift of the gel (+ = warmer, CTO; − = cooler, CTB).
+         * @example 81
+         */
+        miredShift: number;
+        /**
+         * @description Your name for the gel.
+         * @example Half warming
+         */
+        name: string;
+      }[];
+      /** @description The key light. Name a light and modifier of your gear by id, or give the values. */
+      key: {
+        /**
+         * @description Angle of the key from the camera axis, degrees; default 60.
+         * @example 45
+         */
+        angleFromCameraDeg?: number;
+        /**
+         * @description Light-to-subject distance in distanceUnit.
+         * @example 2.5
+         */
+        distance?: number;
+        /**
+         * @description Unit of the distances. Metres ("m", default) or feet ("ft").
+         * @example m
+         * @enum {string}
+         */
+        distanceUnit?: 'm' | 'ft';
+        /**
+         * @description Guide number at ISO 100, full power, in guideNumberUnit.
+         * @example 60
+         */
+        guideNumber?: number;
+        /**
+         * @description Unit of the guide number. Metres ("m", default) or feet ("ft").
+         * @example m
+         * @enum {string}
+         */
+        guideNumberUnit?: 'm' | 'ft';
+        /**
+         * @description Id of one of your lights (GET /v1/gear/lights): its guide number and unit. Send this or key.guideNumber.
+         * @example 0b7c6a52-3d0e-4c55-9f59-2b1f4e0d8a11
+         */
+        lightId?: string;
+        /** @description Modifier kind (see the math library’s modifier list). */
+        modifier?: string;
+        /**
+         * @description Id of one of your modifiers (GET /v1/gear/modifiers): its loss, kind and size. Send this or key.modifierLossStops.
+         * @example 0b7c6a52-3d0e-4c55-9f59-2b1f4e0d8a11
+         */
+        modifierId?: string;
+        /**
+         * @description Light lost in the modifier, stops.
+         * @example 1.3
+         */
+        modifierLossStops?: number;
+        /**
+         * @description Modifier size in distanceUnit.
+         * @example 0.9
+         */
+        modifierSize?: number;
+      };
+      /**
+       * @description Degrees, north positive (-90..90).
+       * @example 51.507
+       */
+      latitude: number;
+      /**
+       * @description Degrees, east positive (-180..180).
+       * @example -0.1
+       */
+      longitude: number;
+      /**
+       * @description Most gels in one stack (0..4); default 3.
+       * @example 2
+       */
+      maxGels?: number;
+      /** @description An optional rim light behind the subject. Name a light and modifier of your gear by id, or give the values. */
+      rim?: {
+        /**
+         * @description Full beam angle, degrees.
+         * @example 40
+         */
+        beamAngleDeg?: number;
+        /**
+         * @description Horizontal distance behind the subject.
+         * @example 3
+         */
+        distanceBehind?: number;
+        /**
+         * @description Unit of the distances. Metres ("m", default) or feet ("ft").
+         * @example m
+         * @enum {string}
+         */
+        distanceUnit?: 'm' | 'ft';
+        /**
+         * @description Gel the rim like the key (default true).
+         * @example true
+         */
+        gelled?: boolean;
+        /**
+         * @description Guide number at ISO 100, full power.
+         * @example 45
+         */
+        guideNumber?: number;
+        /**
+         * @description Unit of the guide number. Metres ("m", default) or feet ("ft").
+         * @example m
+         * @enum {string}
+         */
+        guideNumberUnit?: 'm' | 'ft';
+        /**
+         * @description Height of the light above the ground.
+         * @example 2
+         */
+        lightHeight?: number;
+        /**
+         * @description Id of one of your lights (GET /v1/gear/lights): its guide number and unit. Send this or rim.guideNumber.
+         * @example 0b7c6a52-3d0e-4c55-9f59-2b1f4e0d8a11
+         */
+        lightId?: string;
+        /**
+         * @description Id of one of your modifiers (GET /v1/gear/modifiers): its loss and beam angle. Send this or rim.modifierLossStops.
+         * @example 0b7c6a52-3d0e-4c55-9f59-2b1f4e0d8a11
+         */
+        modifierId?: string;
+        /**
+         * @description Light lost in the modifier, stops.
+         * @example 0
+         */
+        modifierLossStops?: number;
+        /**
+         * @description Rim brighter than the key by, stops; default 1.
+         * @example 1
+         */
+        rimOverKeyStops?: number;
+      };
+      /**
+       * @description Sky condition for the ambient estimate; default clear.
+       * @example clear
+       * @enum {string}
+       */
+      sky?: 'clear' | 'partly-cloudy' | 'overcast';
+      /**
+       * @description Ambient timeline step, minutes (0.5..60); default 2.
+       * @example 5
+       */
+      stepMinutes?: number;
+      /**
+       * @description How many suggested minutes (1..10); default 3.
+       * @example 3
+       */
+      suggestions?: number;
+      /**
+       * @description Extra warmth wanted on the subject, mireds (-200..200; + = warmer).
+       * @example 10
+       */
+      targetMiredOffset?: number;
+      /**
+       * @description IANA time zone name.
+       * @example Europe/London
+       */
+      timeZone: string;
+    };
+    SavedSetupPageResponseDto: {
+      data: components['schemas']['SavedSetupSummaryDto'][];
+      /** @description Pass as `cursor` for the next page; null at the end. */
+      nextCursor: string | null;
+    };
+    SavedSetupResponseDto: {
+      /** Format: date-time */
+      createdAt: string;
+      createdBy: components['schemas']['SavedSetupAuthorDto'] | null;
+      /**
+       * Format: date
+       * @description Local shoot date.
+       * @example 2026-09-12
+       */
+      date: string;
+      /** Format: uuid */
+      id: string;
+      /** @description The inputs as sent (gear may be named by id). */
+      inputs: components['schemas']['SavedSetupInputsDto'];
+      /** @example Engagement session, lakeside terrace */
+      name: string;
+      notes: string | null;
+      /** @description The plan, as POST /v1/setup returns it. */
+      plan: components['schemas']['SetupResponseDto'];
+      /** @description The inputs with gear resolved to the values used (reopen these in the playground). */
+      resolvedInputs: components['schemas']['SavedSetupInputsDto'];
+      /** @example Europe/London */
+      timeZone: string;
+      /** Format: date-time */
+      updatedAt: string;
+      venue: string | null;
+      /** @description Shooting window end, ISO 8601 with offset. */
+      windowEnd: string | null;
+      /** @description Shooting window start, ISO 8601 with offset. */
+      windowStart: string | null;
+    };
+    SavedSetupSummaryDto: {
+      /** Format: date-time */
+      createdAt: string;
+      createdBy: components['schemas']['SavedSetupAuthorDto'] | null;
+      /**
+       * Format: date
+       * @description Local shoot date.
+       * @example 2026-09-12
+       */
+      date: string;
+      /** Format: uuid */
+      id: string;
+      /** @example Engagement session, lakeside terrace */
+      name: string;
+      notes: string | null;
+      /** @example Europe/London */
+      timeZone: string;
+      /** Format: date-time */
+      updatedAt: string;
+      venue: string | null;
+      /** @description Shooting window end, ISO 8601 with offset. */
+      windowEnd: string | null;
+      /** @description Shooting window start, ISO 8601 with offset. */
+      windowStart: string | null;
     };
     SetupRequestDto: {
       /**
@@ -2203,6 +3527,81 @@ export interface components {
        */
       timeZone?: string;
     };
+    UpdateGelKitRequestDto: {
+      name?: string;
+      notes?: string | null;
+    };
+    UpdateGelPieceRequestDto: {
+      /**
+       * @description Green shift, CC units (−60..60; + = plus-green, − = minus-green). Default 0.
+       * @example 0
+       */
+      greenShift?: number;
+      /** @description Light the gel absorbs, stops (0..6). */
+      lossStops?: number;
+      /**
+       * @description Mired shift (−400..400; + = warmer, CTO family; − = cooler, CTB family). Default 0.
+       * @example 93
+       */
+      miredShift?: number;
+      name?: string;
+    };
+    UpdateLightRequestDto: {
+      /**
+       * @description New guide number (replaces any meter reading).
+       * @example 58
+       */
+      guideNumber?: number;
+      /**
+       * @description Unit of guideNumber; send with it.
+       * @enum {string}
+       */
+      guideNumberUnit?: 'm' | 'ft';
+      /** @description A new meter reading (replaces the guide number). */
+      meterReading?: components['schemas']['MeterReadingDto'];
+      name?: string;
+      notes?: string | null;
+    };
+    UpdateModifierRequestDto: {
+      /**
+       * @description Full beam angle of a grid or reflector, degrees (1..180).
+       * @example 20
+       */
+      beamAngleDeg?: number | null;
+      /**
+       * @description Kind of modifier (sets size defaults in the setup math); null = unspecified.
+       * @example octabox
+       * @enum {string|null}
+       */
+      kind?:
+        | 'bare'
+        | 'umbrella'
+        | 'softbox'
+        | 'softbox-double-diffusion'
+        | 'octabox'
+        | 'beauty-dish'
+        | 'grid'
+        | 'snoot'
+        | null;
+      /**
+       * @description Light lost in the modifier, stops (0..8).
+       * @example 2
+       */
+      lossStops?: number;
+      name?: string;
+      notes?: string | null;
+      /**
+       * @description Diameter or diagonal (0.01..10), in sizeUnit.
+       * @example 0.9
+       */
+      size?: number | null;
+      /**
+       * @description Unit of size.
+       * @default m
+       * @enum {string}
+       */
+      sizeUnit: 'm' | 'ft';
+    };
     UpdateOrganizationRequestDto: {
       /** @example Kestrelmoor Evening Portraits */
       name: string;
@@ -2210,6 +3609,13 @@ export interface components {
     UpdateProfileRequestDto: {
       /** @example Ilse Marrowind */
       name: string;
+    };
+    UpdateSavedSetupRequestDto: {
+      /** @description New inputs: the plan is computed again. */
+      inputs?: components['schemas']['SavedSetupInputsDto'];
+      name?: string;
+      notes?: string | null;
+      venue?: string | null;
     };
     UsageEventPageResponseDto: {
       data: {
@@ -2804,6 +4210,106 @@ export interface operations {
       };
     };
   };
+  getBilling: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      /** @description plan (as in /v1/plans), subscription or null, openCheckout or null. */
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content?: never;
+      };
+    };
+  };
+  cancelSubscription: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      202: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/json': components['schemas']['CancelResponseDto'];
+        };
+      };
+    };
+  };
+  createCheckout: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    requestBody: {
+      content: {
+        'application/json': components['schemas']['CheckoutRequestDto'];
+      };
+    };
+    responses: {
+      201: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/json': components['schemas']['CheckoutResponseDto'];
+        };
+      };
+    };
+  };
+  listInvoices: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/json': components['schemas']['InvoiceListResponseDto'];
+        };
+      };
+    };
+  };
+  getInvoice: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        id: string;
+      };
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/json': components['schemas']['InvoiceResponseDto'];
+        };
+      };
+    };
+  };
   solveExposure: {
     parameters: {
       query?: never;
@@ -3026,6 +4532,1136 @@ export interface operations {
       };
       /** @description Temporarily unavailable; retry after Retry-After seconds. */
       503: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  listFrames: {
+    parameters: {
+      query?: {
+        /** @description Page size, 1-100 (default 20). */
+        limit?: string;
+        /** @description nextCursor of the previous page. */
+        cursor?: string;
+      };
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/json': components['schemas']['FrameListResponseDto'];
+        };
+      };
+    };
+  };
+  uploadFrame: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    requestBody: {
+      content: {
+        'multipart/form-data': {
+          /** @description The white balance the frame was shot at, kelvin (1500-20000). */
+          cameraKelvin?: number;
+          /**
+           * Format: binary
+           * @description The image; its type is read from its content.
+           */
+          file: string;
+          /** @description Neutral patch height, pixels. */
+          patchHeight?: number;
+          /** @description Neutral patch width, pixels. */
+          patchWidth?: number;
+          /** @description Neutral patch left edge, pixels (upright image). Give all four or none. */
+          patchX?: number;
+          /** @description Neutral patch top edge, pixels. */
+          patchY?: number;
+        };
+      };
+    };
+    responses: {
+      201: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/json': components['schemas']['FrameResponseDto'];
+        };
+      };
+      /** @description The plan does not include uploads (type …/plan-feature-missing), or the role may not. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The file is larger than 25 MB. */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not multipart, or the file is not JPEG or PNG (HEIC is not accepted). */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is invalid, the patch is outside the image, or the file is corrupt. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  getFrame: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        id: string;
+      };
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/json': components['schemas']['FrameResponseDto'];
+        };
+      };
+      /** @description No such frame in your organisation. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  getFrameThumbnail: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        id: string;
+      };
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      /** @description JPEG image. */
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content?: never;
+      };
+      /** @description No such frame in your organisation. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  listGelKits: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/json': components['schemas']['GelKitListResponseDto'];
+        };
+      };
+      /** @description Not signed in. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  createGelKit: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    requestBody: {
+      content: {
+        'application/json': components['schemas']['CreateGelKitRequestDto'];
+      };
+    };
+    responses: {
+      201: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/json': components['schemas']['GelKitResponseDto'];
+        };
+      };
+      /** @description Not signed in. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The name is already used in your organisation; `errors` names the field. */
+      409: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  getGelKit: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        id: string;
+      };
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/json': components['schemas']['GelKitResponseDto'];
+        };
+      };
+      /** @description Not signed in. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation; `errors` names the field. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  deleteGelKit: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        id: string;
+      };
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      /** @description Removed. */
+      204: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content?: never;
+      };
+      /** @description Not signed in. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation; `errors` names the field. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  updateGelKit: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        id: string;
+      };
+      cookie?: never;
+    };
+    requestBody: {
+      content: {
+        'application/json': components['schemas']['UpdateGelKitRequestDto'];
+      };
+    };
+    responses: {
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/json': components['schemas']['GelKitResponseDto'];
+        };
+      };
+      /** @description Not signed in. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation; `errors` names the field. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The name is already used in your organisation; `errors` names the field. */
+      409: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  addGelPiece: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        kitId: string;
+      };
+      cookie?: never;
+    };
+    requestBody: {
+      content: {
+        'application/json': components['schemas']['CreateGelPieceRequestDto'];
+      };
+    };
+    responses: {
+      201: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/json': components['schemas']['GelPieceResponseDto'];
+        };
+      };
+      /** @description Not signed in. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation; `errors` names the field. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The name is already used in your organisation; `errors` names the field. */
+      409: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  deleteGelPiece: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        kitId: string;
+        pieceId: string;
+      };
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      /** @description Removed. */
+      204: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content?: never;
+      };
+      /** @description Not signed in. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation; `errors` names the field. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  updateGelPiece: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        kitId: string;
+        pieceId: string;
+      };
+      cookie?: never;
+    };
+    requestBody: {
+      content: {
+        'application/json': components['schemas']['UpdateGelPieceRequestDto'];
+      };
+    };
+    responses: {
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/json': components['schemas']['GelPieceResponseDto'];
+        };
+      };
+      /** @description Not signed in. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation; `errors` names the field. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The name is already used in your organisation; `errors` names the field. */
+      409: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  listLights: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/json': components['schemas']['LightListResponseDto'];
+        };
+      };
+      /** @description Not signed in. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  createLight: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    requestBody: {
+      content: {
+        'application/json': components['schemas']['CreateLightRequestDto'];
+      };
+    };
+    responses: {
+      201: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/json': components['schemas']['LightResponseDto'];
+        };
+      };
+      /** @description Not signed in. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The name is already used in your organisation; `errors` names the field. */
+      409: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  getLight: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        id: string;
+      };
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/json': components['schemas']['LightResponseDto'];
+        };
+      };
+      /** @description Not signed in. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation; `errors` names the field. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  deleteLight: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        id: string;
+      };
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      /** @description Removed. */
+      204: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content?: never;
+      };
+      /** @description Not signed in. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation; `errors` names the field. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  updateLight: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        id: string;
+      };
+      cookie?: never;
+    };
+    requestBody: {
+      content: {
+        'application/json': components['schemas']['UpdateLightRequestDto'];
+      };
+    };
+    responses: {
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/json': components['schemas']['LightResponseDto'];
+        };
+      };
+      /** @description Not signed in. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation; `errors` names the field. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The name is already used in your organisation; `errors` names the field. */
+      409: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  listModifiers: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/json': components['schemas']['ModifierListResponseDto'];
+        };
+      };
+      /** @description Not signed in. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  createModifier: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    requestBody: {
+      content: {
+        'application/json': components['schemas']['CreateModifierRequestDto'];
+      };
+    };
+    responses: {
+      201: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/json': components['schemas']['ModifierResponseDto'];
+        };
+      };
+      /** @description Not signed in. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The name is already used in your organisation; `errors` names the field. */
+      409: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  getModifier: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        id: string;
+      };
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/json': components['schemas']['ModifierResponseDto'];
+        };
+      };
+      /** @description Not signed in. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation; `errors` names the field. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  deleteModifier: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        id: string;
+      };
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      /** @description Removed. */
+      204: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content?: never;
+      };
+      /** @description Not signed in. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation; `errors` names the field. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  updateModifier: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        id: string;
+      };
+      cookie?: never;
+    };
+    requestBody: {
+      content: {
+        'application/json': components['schemas']['UpdateModifierRequestDto'];
+      };
+    };
+    responses: {
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/json': components['schemas']['ModifierResponseDto'];
+        };
+      };
+      /** @description Not signed in. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation; `errors` names the field. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The name is already used in your organisation; `errors` names the field. */
+      409: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
         headers: {
           [name: string]: unknown;
         };
@@ -3682,6 +6318,401 @@ export interface operations {
       };
       /** @description Temporarily unavailable; retry after Retry-After seconds. */
       503: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  listSetups: {
+    parameters: {
+      query?: {
+        limit?: number;
+        /** @description The `nextCursor` of the previous page. */
+        cursor?: string;
+        /** @description Search in name, venue and notes (case-insensitive). */
+        q?: string;
+      };
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/json': components['schemas']['SavedSetupPageResponseDto'];
+        };
+      };
+      /** @description Not signed in. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  createSetup: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    requestBody: {
+      content: {
+        'application/json': components['schemas']['CreateSavedSetupRequestDto'];
+      };
+    };
+    responses: {
+      201: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/json': components['schemas']['SavedSetupResponseDto'];
+        };
+      };
+      /** @description Not signed in. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A gear id in the inputs is not in your organisation; `errors` names the field. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The name is already used in your organisation; `errors` names the field. */
+      409: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  getSetup: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        id: string;
+      };
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/json': components['schemas']['SavedSetupResponseDto'];
+        };
+      };
+      /** @description Not signed in. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation; `errors` names the field. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  deleteSetup: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        id: string;
+      };
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      /** @description Deleted. */
+      204: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content?: never;
+      };
+      /** @description Not signed in. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation; `errors` names the field. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  updateSetup: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        id: string;
+      };
+      cookie?: never;
+    };
+    requestBody: {
+      content: {
+        'application/json': components['schemas']['UpdateSavedSetupRequestDto'];
+      };
+    };
+    responses: {
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/json': components['schemas']['SavedSetupResponseDto'];
+        };
+      };
+      /** @description Not signed in. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation; `errors` names the field. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The name is already used in your organisation; `errors` names the field. */
+      409: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  duplicateSetup: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        id: string;
+      };
+      cookie?: never;
+    };
+    requestBody: {
+      content: {
+        'application/json': components['schemas']['DuplicateSavedSetupRequestDto'];
+      };
+    };
+    responses: {
+      201: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/json': components['schemas']['SavedSetupResponseDto'];
+        };
+      };
+      /** @description Not signed in. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation; `errors` names the field. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The name is already used in your organisation; `errors` names the field. */
+      409: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  getSetupSheet: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        id: string;
+      };
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      /** @description The sheet. */
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'text/html': string;
+        };
+      };
+      /** @description Not signed in. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation; `errors` names the field. */
+      404: {
         headers: {
           [name: string]: unknown;
         };

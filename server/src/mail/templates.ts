@@ -41,7 +41,19 @@ export type MailTemplate =
         organizationName: string;
         revokedBy: string;
       };
-    };
+    }
+  | { template: 'payment-succeeded'; data: PaymentMailData }
+  | { template: 'payment-failed'; data: PaymentMailData };
+
+/** Data for the billing e-mails; `amount` is already formatted with its currency. */
+export interface PaymentMailData {
+  name: string;
+  organizationName: string;
+  amount: string;
+  planName: string;
+  invoiceId: string;
+  link: string;
+}
 
 const esc = (s: string) =>
   s.replace(
@@ -134,6 +146,33 @@ export function render(m: MailTemplate): Rendered {
         `The API key "${d.keyName}" (${d.prefix}…) of ${d.organizationName} was revoked by ${d.revokedBy}. Requests using it are refused from now on.`,
       ];
       return { subject, text: text(p), html: layout(subject, p) };
+    }
+    case 'payment-succeeded': {
+      const d = m.data;
+      const subject = `Payment received for ${d.organizationName}`;
+      const p = [
+        `Hello ${d.name},`,
+        `We received ${d.amount} for the ${d.planName} plan of ${d.organizationName} (invoice ${d.invoiceId}). Thank you.`,
+      ];
+      return {
+        subject,
+        text: text(p, d.link),
+        html: layout(subject, p, { label: 'See the invoice', href: d.link }),
+      };
+    }
+    case 'payment-failed': {
+      const d = m.data;
+      const subject = `Payment failed for ${d.organizationName}`;
+      const p = [
+        `Hello ${d.name},`,
+        `We could not collect ${d.amount} for the ${d.planName} plan of ${d.organizationName} (invoice ${d.invoiceId}).`,
+        'Until a payment goes through, the organisation has the free plan’s limits. Update the payment method in the console to restore the plan.',
+      ];
+      return {
+        subject,
+        text: text(p, d.link),
+        html: layout(subject, p, { label: 'Review billing', href: d.link }),
+      };
     }
   }
 }

@@ -8,9 +8,11 @@ import { ThemeToggle } from './theme-toggle';
 interface AppShellProps {
   /** The API status badge, passed in by the app so layout stays free of features. */
   status?: React.ReactNode;
+  /** The signed-in member's menu (sign-out), passed in by the app for the same reason. */
+  userMenu?: React.ReactNode;
 }
 
-export function AppShell({ status }: AppShellProps) {
+export function AppShell({ status, userMenu }: AppShellProps) {
   const [menuOpen, setMenuOpen] = useState(false);
   const navId = useId();
 
@@ -43,6 +45,7 @@ export function AppShell({ status }: AppShellProps) {
         <div
           className={`${menuOpen ? 'flex' : 'hidden'} flex-col gap-3 border-b border-edge px-4 py-3 md:flex md:border-t md:border-b-0`}
         >
+          {userMenu}
           {status}
           <ThemeToggle />
         </div>

@@ -1,5 +1,6 @@
 import { NavLink } from 'react-router-dom';
 import { primaryNav } from '@/config/paths';
+import { useSession } from '@/lib/session';
 
 interface PrimaryNavProps {
   id?: string;
@@ -9,10 +10,15 @@ interface PrimaryNavProps {
 
 /** The main sections; plain links so they open in new tabs and work without script state. */
 export function PrimaryNav({ id, className, onNavigate }: PrimaryNavProps) {
+  const session = useSession();
+  // Hide what the role can't do (the server refuses it anyway); with no session show everything.
+  const entries = primaryNav.filter(
+    (entry) => !session || !entry.permission || session.permissions.includes(entry.permission),
+  );
   return (
     <nav id={id} aria-label="Primary" className={className}>
       <ul className="flex flex-col gap-1">
-        {primaryNav.map((entry) => (
+        {entries.map((entry) => (
           <li key={entry.to}>
             <NavLink
               to={entry.to}

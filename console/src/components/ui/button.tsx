@@ -1,9 +1,10 @@
-type Variant = 'primary' | 'secondary' | 'quiet';
+type Variant = 'primary' | 'secondary' | 'quiet' | 'danger';
 
 const variants: Record<Variant, string> = {
   primary: 'bg-accent text-on-accent hover:brightness-110 border border-transparent',
   secondary: 'bg-panel text-ink border border-edge-strong hover:bg-raised',
   quiet: 'bg-transparent text-ink border border-transparent hover:bg-raised',
+  danger: 'bg-panel text-fault border border-fault hover:bg-raised',
 };
 
 interface ButtonProps extends React.ButtonHTMLAttributes<HTMLButtonElement> {

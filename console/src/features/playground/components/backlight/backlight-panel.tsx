@@ -140,7 +140,7 @@ export function BacklightPanel() {
                 ]}
               />
             </div>
-            <figure className="rounded-card border border-edge bg-panel p-3">
+            <figure className="overflow-x-auto rounded-card border border-edge bg-panel p-3">
               <SideDiagram
                 unit={result.distanceUnit}
                 headHeight={input.headHeight ?? fromMetres(DEFAULT_HEAD_M, result.distanceUnit)}

@@ -140,7 +140,7 @@ export function BalancePanel() {
                 />
               </div>
             </div>
-            <figure className="rounded-card border border-edge bg-panel p-3">
+            <figure className="overflow-x-auto rounded-card border border-edge bg-panel p-3">
               <MiredBar required={result.requiredMiredShift} gels={result.gels} />
             </figure>
             <section

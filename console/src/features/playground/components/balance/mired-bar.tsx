@@ -33,7 +33,7 @@ export function MiredBar({ required, gels }: MiredBarProps) {
       viewBox={`0 0 ${W} ${H}`}
       role="img"
       aria-labelledby={titleId}
-      className="h-auto w-full"
+      className="h-auto w-full min-w-[32rem]"
       data-chart="mired"
     >
       <title id={titleId}>

@@ -90,7 +90,7 @@ export function SideDiagram({ unit, headHeight, rim, keyLight, cameraDistance }:
       viewBox={`0 0 ${W} ${H}`}
       role="img"
       aria-labelledby={titleId}
-      className="h-auto w-full"
+      className="h-auto w-full min-w-[32rem]"
       data-diagram="side"
     >
       <title id={titleId}>{`Side view: ${describe}`}</title>

@@ -82,7 +82,7 @@ export function TopDiagram({ unit, keyLight, rim, backgroundDistance }: TopDiagr
       viewBox={`0 0 ${W} ${H}`}
       role="img"
       aria-labelledby={titleId}
-      className="h-auto w-full"
+      className="h-auto w-full min-w-[32rem]"
       data-diagram="top"
     >
       <title id={titleId}>{title}</title>

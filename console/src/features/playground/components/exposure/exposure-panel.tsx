@@ -186,7 +186,7 @@ export function ExposurePanel() {
                 ]}
               />
             </div>
-            <figure className="rounded-card border border-edge bg-panel p-3">
+            <figure className="overflow-x-auto rounded-card border border-edge bg-panel p-3">
               <ShutterScale
                 shutterSeconds={result.shutterSeconds}
                 handheldSeconds={input.slowestHandheldSeconds ?? 1 / 60}

@@ -38,7 +38,7 @@ export function ShutterScale({ shutterSeconds, handheldSeconds, syncSeconds }: S
       viewBox={`0 0 ${W} ${H}`}
       role="img"
       aria-labelledby={titleId}
-      className="h-auto w-full"
+      className="h-auto w-full min-w-[32rem]"
       data-chart="shutter"
     >
       <title id={titleId}>

@@ -40,7 +40,7 @@ export function FalloffChart({ result }: { result: FalloffResult }) {
       viewBox={`0 0 ${W} ${H}`}
       role="img"
       aria-labelledby={`${titleId} ${descId}`}
-      className="h-auto w-full"
+      className="h-auto w-full min-w-[32rem]"
       data-chart="falloff"
     >
       <title id={titleId}>Light falloff from the key</title>

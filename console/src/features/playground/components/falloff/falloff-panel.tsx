@@ -98,7 +98,7 @@ export function FalloffPanel() {
                   ]}
                 />
               </div>
-              <figure className="rounded-card border border-edge bg-panel p-3">
+              <figure className="overflow-x-auto rounded-card border border-edge bg-panel p-3">
                 <FalloffChart result={result} />
                 <figcaption className="px-1 text-caption text-ink-muted">
                   Inverse-square falloff of a small source: each doubling of distance costs two

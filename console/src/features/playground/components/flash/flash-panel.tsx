@@ -163,7 +163,7 @@ export function FlashPanel() {
                 ]}
               />
             </div>
-            <figure className="rounded-card border border-edge bg-panel p-3">
+            <figure className="overflow-x-auto rounded-card border border-edge bg-panel p-3">
               <PowerScale stopsBelowFull={result.stopsBelowFull} powerLabel={result.powerLabel} />
               <figcaption className="px-1 text-caption text-ink-muted">
                 Power setting on a 1/256 to full scale, in thirds of a stop.

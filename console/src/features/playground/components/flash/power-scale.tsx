@@ -27,7 +27,7 @@ export function PowerScale({ stopsBelowFull, powerLabel, floorStops = 8 }: Power
       viewBox={`0 0 ${W} ${H}`}
       role="img"
       aria-labelledby={titleId}
-      className="h-auto w-full"
+      className="h-auto w-full min-w-[32rem]"
       data-chart="power"
     >
       <title

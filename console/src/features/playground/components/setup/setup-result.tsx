@@ -120,7 +120,7 @@ export function SetupResultView({ plan, input }: { plan: DuskSetupPlan; input: D
       </section>
 
       <div className="grid gap-4 2xl:grid-cols-2">
-        <figure className="rounded-card border border-edge bg-panel p-3">
+        <figure className="overflow-x-auto rounded-card border border-edge bg-panel p-3">
           <TopDiagram
             unit={unit}
             keyLight={{
@@ -146,7 +146,7 @@ export function SetupResultView({ plan, input }: { plan: DuskSetupPlan; input: D
             From above, to scale except the camera.
           </figcaption>
         </figure>
-        <figure className="rounded-card border border-edge bg-panel p-3">
+        <figure className="overflow-x-auto rounded-card border border-edge bg-panel p-3">
           <SideDiagram
             unit={unit}
             headHeight={fromMetres(DEFAULT_HEAD_M, unit)}

@@ -109,7 +109,7 @@ export function TwilightChart({ result, selectedIndex, onSelect }: TwilightChart
       viewBox={`0 0 ${W} ${H}`}
       role="img"
       aria-labelledby={`${titleId} ${descId}`}
-      className="h-auto w-full touch-none select-none"
+      className="h-auto w-full min-w-[34rem] touch-none select-none"
       data-chart="twilight"
     >
       <title id={titleId}>Twilight timeline</title>

@@ -68,6 +68,54 @@ function Legend() {
   );
 }
 
+/** The timeline as a table, every ten minutes, for reading values exactly or by screen reader. */
+function NumbersTable({ result }: { result: TwilightResult }) {
+  const every = Math.max(1, Math.round(10 / result.ambient.stepMinutes));
+  const rows = result.ambient.points.filter((_, i) => i % every === 0);
+  if (rows.length === 0) return null;
+  return (
+    <details className="rounded-card border border-edge bg-panel p-4">
+      <summary className="cursor-pointer text-small font-semibold">Show the numbers</summary>
+      <div className="mt-3 max-h-80 overflow-auto">
+        <table className="w-full text-left text-small tabular-nums">
+          <thead className="text-caption text-ink-muted">
+            <tr>
+              <th scope="col" className="py-1 pr-3 font-medium">
+                Time
+              </th>
+              <th scope="col" className="py-1 pr-3 font-medium">
+                Sun
+              </th>
+              <th scope="col" className="py-1 pr-3 font-medium">
+                EV100
+              </th>
+              <th scope="col" className="py-1 pr-3 font-medium">
+                Lux
+              </th>
+              <th scope="col" className="py-1 font-medium">
+                Stops / 10 min
+              </th>
+            </tr>
+          </thead>
+          <tbody>
+            {rows.map((point) => (
+              <tr key={point.time} className="border-t border-edge">
+                <th scope="row" className="py-1 pr-3 font-medium">
+                  {clockTime(point.time)}
+                </th>
+                <td className="py-1 pr-3">{fixed(point.sunAltitudeDeg)}°</td>
+                <td className="py-1 pr-3">{fixed(point.ev100)}</td>
+                <td className="py-1 pr-3">{point.illuminanceLux.toPrecision(3)}</td>
+                <td className="py-1">{signed(point.stopsPer10Min)}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+    </details>
+  );
+}
+
 export function TwilightResultView({ result, selectedIndex, onSelect }: TwilightResultViewProps) {
   const points = result.ambient.points;
   const chosen = points[selectedIndex];
@@ -111,7 +159,7 @@ export function TwilightResultView({ result, selectedIndex, onSelect }: Twilight
           ]}
         />
       </div>
-      <figure className="rounded-card border border-edge bg-panel p-3">
+      <figure className="overflow-x-auto rounded-card border border-edge bg-panel p-3">
         {points.length > 1 ? (
           <TwilightChart result={result} selectedIndex={selectedIndex} onSelect={onSelect} />
         ) : (
@@ -136,6 +184,7 @@ export function TwilightResultView({ result, selectedIndex, onSelect }: Twilight
           ) : null}
         </figcaption>
       </figure>
+      <NumbersTable result={result} />
       {chosen ? (
         <div className="rounded-card border border-edge bg-panel p-4" data-testid="chosen-minute">
           <h3 className="mb-3 text-body font-semibold">

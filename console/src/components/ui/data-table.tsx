@@ -1,0 +1,78 @@
+import { tableFeatures, useTable, type ColumnDef } from '@tanstack/react-table';
+
+const features = tableFeatures({});
+
+export type DataColumn<Row> = ColumnDef<typeof features, Row, unknown>;
+
+interface DataTableProps<Row> {
+  /** Names the table for screen readers (rendered as its caption). */
+  caption: string;
+  columns: DataColumn<Row>[];
+  data: Row[];
+  getRowId?: (row: Row) => string;
+  empty?: React.ReactNode;
+  /** Pager or other controls under the table. */
+  footer?: React.ReactNode;
+}
+
+/** The one table of the console: TanStack Table for the model, our own semantic markup. */
+export function DataTable<Row>({
+  caption,
+  columns,
+  data,
+  getRowId,
+  empty = 'Nothing here yet.',
+  footer,
+}: DataTableProps<Row>) {
+  const table = useTable({
+    features,
+    columns,
+    data,
+    getRowId: getRowId ? (row: Row) => getRowId(row) : undefined,
+  });
+  const rows = table.getRowModel().rows;
+  return (
+    <div>
+      <div className="overflow-x-auto rounded-card border border-edge">
+        <table className="w-full border-collapse text-left text-small">
+          <caption className="sr-only">{caption}</caption>
+          <thead className="bg-raised">
+            {table.getHeaderGroups().map((group) => (
+              <tr key={group.id}>
+                {group.headers.map((header) => (
+                  <th
+                    key={header.id}
+                    scope="col"
+                    className="border-b border-edge px-3 py-2 font-semibold whitespace-nowrap text-ink"
+                  >
+                    {header.isPlaceholder ? null : <table.FlexRender header={header} />}
+                  </th>
+                ))}
+              </tr>
+            ))}
+          </thead>
+          <tbody>
+            {rows.length === 0 ? (
+              <tr>
+                <td colSpan={columns.length} className="px-3 py-4 text-ink-muted">
+                  {empty}
+                </td>
+              </tr>
+            ) : (
+              rows.map((row) => (
+                <tr key={row.id} className="border-b border-edge last:border-b-0">
+                  {row.getAllCells().map((cell) => (
+                    <td key={cell.id} className="px-3 py-2 align-top text-ink tabular-nums">
+                      <table.FlexRender cell={cell} />
+                    </td>
+                  ))}
+                </tr>
+              ))
+            )}
+          </tbody>
+        </table>
+      </div>
+      {footer}
+    </div>
+  );
+}
