@@ -7,4 +7,11 @@ import { BillingModule } from './billing/billing.module.js';
 import { GearModule } from './gear/gear.module.js';
 import { SetupsModule } from './setups/setups.module.js';
 
-export const FEATURE_MODULES: Type[] = [...ACCOUNTS_MODULES, ComputeModule, FramesModule, BillingModule, GearModule, SetupsModule];
+export const FEATURE_MODULES: Type[] = [
+  ...ACCOUNTS_MODULES,
+  ComputeModule,
+  FramesModule,
+  BillingModule,
+  GearModule,
+  SetupsModule,
+];

@@ -33,7 +33,14 @@ export const PERMISSIONS = {
   'gear:manage': { roles: ['owner', 'admin'], description: 'Add and edit the studio gear list' },
   'gear:read': { roles: ROLES, description: 'Read the studio gear list' },
   'playground:use': { roles: ROLES, description: 'Run calculations in the console playground' },
-  'setups:manage': { roles: ROLES, description: 'Save and reopen lighting setups' },
+  'setups:read': {
+    roles: ROLES,
+    description: 'List and open saved lighting setups and shot sheets',
+  },
+  'setups:manage': {
+    roles: ['owner', 'admin', 'photographer'],
+    description: 'Save, edit, duplicate and delete lighting setups',
+  },
   'profile:manage': {
     roles: ROLES,
     description: 'Own name, e-mail, password; sign out everywhere',

@@ -1,4 +1,4 @@
-import { Body, Controller } from '@nestjs/common';
+import { Body, Controller, Req } from '@nestjs/common';
 import { ApiTags } from '@nestjs/swagger';
 import type {
   BacklightInput,
@@ -9,6 +9,8 @@ import type {
   FlashInput,
   TwilightInput,
 } from '@lumenwright/shared';
+import type { RequestWithPrincipal } from '../common/guards/access.guard.js';
+import type { GearRefs } from '../gear/gear-refs.schema.js';
 import { ComputeRoute } from './compute.decorator.js';
 import { ComputeService } from './compute.service.js';
 import { SchemaPipe } from './validation/schema-dto.js';
@@ -17,6 +19,7 @@ import * as balance from './schemas/balance.schema.js';
 import * as exposure from './schemas/exposure.schema.js';
 import * as falloff from './schemas/falloff.schema.js';
 import * as flash from './schemas/flash.schema.js';
+import * as gearAware from './schemas/gear-aware.dto.js';
 import * as setup from './schemas/setup.schema.js';
 import * as twilight from './schemas/twilight.schema.js';
 
@@ -78,20 +81,26 @@ export class ComputeController {
   @ComputeRoute(
     'balance',
     'Gels for the flash to match the camera white balance, in mireds.',
-    balance.BalanceRequestDto,
+    gearAware.BalanceRequestDto,
     balance.BalanceResponseDto,
   )
-  solveBalance(@Body(new SchemaPipe(balance.balanceRequestSchema)) body: BalanceInput) {
-    return this.compute.balance(body);
+  solveBalance(
+    @Req() req: RequestWithPrincipal,
+    @Body(new SchemaPipe(gearAware.gearBalanceRequestSchema)) body: BalanceInput & GearRefs,
+  ) {
+    return this.compute.balanceFor(req.principal!.organizationId, body);
   }
 
   @ComputeRoute(
     'setup',
     'The whole dusk setup: timing, background exposure, key and rim power, gels, cautions.',
-    setup.SetupRequestDto,
+    gearAware.SetupRequestDto,
     setup.SetupResponseDto,
   )
-  planSetup(@Body(new SchemaPipe(setup.setupRequestSchema)) body: DuskSetupInput) {
-    return this.compute.setup(body);
+  planSetup(
+    @Req() req: RequestWithPrincipal,
+    @Body(new SchemaPipe(gearAware.gearSetupRequestSchema)) body: DuskSetupInput & GearRefs,
+  ) {
+    return this.compute.setupFor(req.principal!.organizationId, body);
   }
 }

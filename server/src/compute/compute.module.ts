@@ -1,10 +1,11 @@
 import { Module } from '@nestjs/common';
+import { GearModule } from '../gear/gear.module.js';
 import { PlansModule } from '../plans/plans.module.js';
 import { ComputeController } from './compute.controller.js';
 import { ComputeService } from './compute.service.js';
 
 @Module({
-  imports: [PlansModule],
+  imports: [PlansModule, GearModule],
   controllers: [ComputeController],
   providers: [ComputeService],
 })

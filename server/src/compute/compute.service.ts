@@ -1,5 +1,5 @@
 // Thin wrappers over the shared lighting math; its input errors become 422 problems.
-import { Injectable } from '@nestjs/common';
+import { Injectable, Optional } from '@nestjs/common';
 import {
   computeBacklight,
   computeFalloff,
@@ -18,13 +18,16 @@ import {
   type TwilightInput,
 } from '@lumenwright/shared';
 import { DomainError } from '../common/errors/domain-error.js';
+import { GearReferenceResolver, hasGearRefs } from '../gear/gear-reference.resolver.js';
+import type { GearRefs } from '../gear/gear-refs.schema.js';
 
 /**
- * Where gear referred to by id (an organisation's gel kit or lights) will be resolved into the
- * plain values the math takes. Until the gear feature exists, requests list gels inline.
+ * Turns gear referred to by id (the organisation's gel kits, lights, modifiers) into the plain
+ * values the math takes; implemented by the gear feature.
  */
 export interface GearResolver {
-  resolveBalance(organizationId: string, input: BalanceInput): Promise<BalanceInput>;
+  resolveBalance(organizationId: string, input: BalanceInput & GearRefs): Promise<BalanceInput>;
+  resolveSetup(organizationId: string, input: DuskSetupInput & GearRefs): Promise<DuskSetupInput>;
 }
 
 function run<T>(fn: () => T): T {
@@ -42,6 +45,20 @@ function run<T>(fn: () => T): T {
 
 @Injectable()
 export class ComputeService {
+  constructor(@Optional() private readonly gear?: GearReferenceResolver) {}
+
+  /** Balance for a caller: gear ids resolved first (only when the body has any). */
+  balanceFor(organizationId: string, input: BalanceInput & GearRefs) {
+    if (!this.gear || !hasGearRefs(input)) return this.balance(input);
+    return this.gear.resolveBalance(organizationId, input).then((i) => this.balance(i));
+  }
+
+  /** The dusk setup for a caller, gear ids resolved first. */
+  setupFor(organizationId: string, input: DuskSetupInput & GearRefs) {
+    if (!this.gear || !hasGearRefs(input)) return this.setup(input);
+    return this.gear.resolveSetup(organizationId, input).then((i) => this.setup(i));
+  }
+
   twilight = (input: TwilightInput) => run(() => computeTwilight(input));
   exposure = (input: ExposureInput) => run(() => solveExposure(input));
   flash = (input: FlashInput) => run(() => computeFlash(input));

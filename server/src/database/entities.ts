@@ -5,4 +5,11 @@ import { FrameEntity } from '../frames/frame.entity.js';
 import { BILLING_ENTITIES } from '../billing/billing.entities.js';
 import { GEAR_ENTITIES } from '../gear/gear.entities.js';
 import { SetupEntity } from '../setups/setup.entity.js';
-export const ENTITIES: (new (...args: never[]) => unknown)[] = [...ACCOUNTS_ENTITIES, PlanEntity, FrameEntity, ...BILLING_ENTITIES, ...GEAR_ENTITIES, SetupEntity];
+export const ENTITIES: (new (...args: never[]) => unknown)[] = [
+  ...ACCOUNTS_ENTITIES,
+  PlanEntity,
+  FrameEntity,
+  ...BILLING_ENTITIES,
+  ...GEAR_ENTITIES,
+  SetupEntity,
+];

@@ -19,7 +19,8 @@ import {
   ApiTags,
 } from '@nestjs/swagger';
 import { CurrentPrincipal, type SessionPrincipal } from '../auth/request-context.js';
-import { ROLES, Role, SessionAuth } from '../common/decorators/access.decorator.js';
+import { SessionAuth } from '../common/decorators/access.decorator.js';
+import { can } from '../auth/permissions.js';
 import type { Principal } from '../common/guards/access.guard.js';
 import { GearProblems, problem } from '../gear/gear-docs.js';
 import {
@@ -35,8 +36,8 @@ import { SetupsService } from './setups.service.js';
 import { renderShotSheet } from './sheet/shot-sheet.js';
 
 /** Everyone in the organisation reads saved setups; developers do not edit them. */
-const READERS = [...ROLES];
-const EDITORS: Role[] = ['owner', 'admin', 'photographer'];
+const READERS = can('setups:read');
+const EDITORS = can('setups:manage');
 
 @ApiTags('setups')
 @Controller('setups')

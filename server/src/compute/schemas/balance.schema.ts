@@ -102,5 +102,4 @@ export const balanceResponseSchema: ObjectSchema = {
   },
 };
 
-export const BalanceRequestDto = schemaDto('BalanceRequestDto', balanceRequestSchema);
 export const BalanceResponseDto = schemaDto('BalanceResponseDto', balanceResponseSchema);

@@ -159,5 +159,4 @@ export const setupResponseSchema: ObjectSchema = {
   },
 };
 
-export const SetupRequestDto = schemaDto('SetupRequestDto', setupRequestSchema);
 export const SetupResponseDto = schemaDto('SetupResponseDto', setupResponseSchema);

@@ -6,4 +6,11 @@ import { Frames1764892800000 } from './1764892800000-Frames.js';
 import { GearSetups1764979200000 } from './1764979200000-GearSetups.js';
 import { Billing1765065600000 } from './1765065600000-Billing.js';
 
-export const MIGRATIONS = [Init1764633600000, Accounts1764720000000, MeteringPlans1764806400000, Frames1764892800000, GearSetups1764979200000, Billing1765065600000];
+export const MIGRATIONS = [
+  Init1764633600000,
+  Accounts1764720000000,
+  MeteringPlans1764806400000,
+  Frames1764892800000,
+  GearSetups1764979200000,
+  Billing1765065600000,
+];
