@@ -2,6 +2,7 @@ import { lazy } from 'react';
 import type { RouteObject } from 'react-router-dom';
 import { AppShell } from '@/components/layout/app-shell';
 import { paths } from '@/config/paths';
+import { SessionGate, UserMenu } from '@/features/auth/shell';
 import { ApiStatus } from '@/features/health';
 import { AuthLayout } from './routes/auth-layout';
 import NotFoundRoute from './routes/not-found';
@@ -17,6 +18,12 @@ const TeamRoute = lazy(() => import('./routes/team'));
 const BillingRoute = lazy(() => import('./routes/billing'));
 const SignInRoute = lazy(() => import('./routes/sign-in'));
 const SignUpRoute = lazy(() => import('./routes/sign-up'));
+const ForgotPasswordRoute = lazy(() => import('./routes/forgot-password'));
+const ResetPasswordRoute = lazy(() => import('./routes/reset-password'));
+const AcceptInviteRoute = lazy(() => import('./routes/accept-invite'));
+const ConfirmEmailRoute = lazy(() => import('./routes/confirm-email'));
+const AuditRoute = lazy(() => import('./routes/audit'));
+const FramesRoute = lazy(() => import('./routes/frames'));
 
 export const routes: RouteObject[] = [
   {
@@ -24,10 +31,18 @@ export const routes: RouteObject[] = [
     children: [
       { path: paths.signIn, element: <SignInRoute /> },
       { path: paths.signUp, element: <SignUpRoute /> },
+      { path: paths.forgotPassword, element: <ForgotPasswordRoute /> },
+      { path: paths.resetPassword, element: <ResetPasswordRoute /> },
+      { path: paths.acceptInvite, element: <AcceptInviteRoute /> },
+      { path: paths.confirmEmail, element: <ConfirmEmailRoute /> },
     ],
   },
   {
-    element: <AppShell status={<ApiStatus />} />,
+    element: (
+      <SessionGate>
+        <AppShell status={<ApiStatus />} userMenu={<UserMenu />} />
+      </SessionGate>
+    ),
     children: [
       { index: true, element: <OverviewRoute /> },
       { path: paths.keys, element: <KeysRoute /> },
@@ -37,6 +52,8 @@ export const routes: RouteObject[] = [
       { path: paths.gear, element: <GearRoute /> },
       { path: paths.team, element: <TeamRoute /> },
       { path: paths.billing, element: <BillingRoute /> },
+      { path: paths.audit, element: <AuditRoute /> },
+      { path: paths.frames, element: <FramesRoute /> },
       { path: '*', element: <NotFoundRoute /> },
     ],
   },

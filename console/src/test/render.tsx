@@ -16,6 +16,4 @@ export function renderApp(path = '/') {
   return { ...view, router, queryClient };
 }
 
-export function jsonResponse(body: unknown, status = 200, contentType = 'application/json') {
-  return new Response(JSON.stringify(body), { status, headers: { 'content-type': contentType } });
-}
+export { jsonResponse } from './responses';

@@ -1260,6 +1260,11 @@ export interface components {
        * @example 5600
        */
       flashKelvin?: number;
+      /**
+       * @description Id of one of your gel kits (GET /v1/gear/gel-kits): its pieces are the gels to choose from. Send this or `gels`, not both.
+       * @example 0b7c6a52-3d0e-4c55-9f59-2b1f4e0d8a11
+       */
+      gelKitId?: string;
       /** @description The gels to choose from; default: the built-in catalogue of common CTO/CTB cuts. */
       gels?: {
         /**
@@ -3066,6 +3071,11 @@ export interface components {
        * @example 5600
        */
       flashKelvin?: number;
+      /**
+       * @description Id of one of your gel kits (GET /v1/gear/gel-kits): its pieces are the gels to choose from. Send this or `gels`, not both.
+       * @example 0b7c6a52-3d0e-4c55-9f59-2b1f4e0d8a11
+       */
+      gelKitId?: string;
       /** @description The gels to choose from; default: the built-in catalogue of common CTO/CTB cuts. */
       gels?: {
         /**
@@ -3089,7 +3099,7 @@ export interface components {
          */
         name: string;
       }[];
-      /** @description The key light. */
+      /** @description The key light. Name a light and modifier of your gear by id, or give the values. */
       key: {
         /**
          * @description Angle of the key from the camera axis, degrees; default 60.
@@ -3118,8 +3128,18 @@ export interface components {
          * @enum {string}
          */
         guideNumberUnit?: 'm' | 'ft';
+        /**
+         * @description Id of one of your lights (GET /v1/gear/lights): its guide number and unit. Send this or key.guideNumber.
+         * @example 0b7c6a52-3d0e-4c55-9f59-2b1f4e0d8a11
+         */
+        lightId?: string;
         /** @description Modifier kind (see the math library’s modifier list). */
         modifier?: string;
+        /**
+         * @description Id of one of your modifiers (GET /v1/gear/modifiers): its loss, kind and size. Send this or key.modifierLossStops.
+         * @example 0b7c6a52-3d0e-4c55-9f59-2b1f4e0d8a11
+         */
+        modifierId?: string;
         /**
          * @description Light lost in the modifier, stops.
          * @example 1.3
@@ -3146,7 +3166,7 @@ export interface components {
        * @example 2
        */
       maxGels?: number;
-      /** @description An optional rim light behind the subject. */
+      /** @description An optional rim light behind the subject. Name a light and modifier of your gear by id, or give the values. */
       rim?: {
         /**
          * @description Full beam angle, degrees.
@@ -3185,6 +3205,16 @@ export interface components {
          * @example 2
          */
         lightHeight?: number;
+        /**
+         * @description Id of one of your lights (GET /v1/gear/lights): its guide number and unit. Send this or rim.guideNumber.
+         * @example 0b7c6a52-3d0e-4c55-9f59-2b1f4e0d8a11
+         */
+        lightId?: string;
+        /**
+         * @description Id of one of your modifiers (GET /v1/gear/modifiers): its loss and beam angle. Send this or rim.modifierLossStops.
+         * @example 0b7c6a52-3d0e-4c55-9f59-2b1f4e0d8a11
+         */
+        modifierId?: string;
         /**
          * @description Light lost in the modifier, stops.
          * @example 0

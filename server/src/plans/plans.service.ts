@@ -3,7 +3,16 @@
 import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource } from 'typeorm';
+import { DomainError } from '../common/errors/domain-error.js';
 import { PlanEntity } from './plan.entity.js';
+
+/** The database could not be reached: a 503 the client may retry, never a 500. */
+export const databaseUnavailable = (err?: unknown) => {
+  if (err instanceof DomainError) return err;
+  return new DomainError('unavailable', 'The database is unavailable; try again shortly.', [], {
+    'Retry-After': '2',
+  });
+};
 
 const PLAN_CACHE_MS = 30_000;
 
@@ -26,12 +35,17 @@ export class PlansService {
     const plans = await this.catalogue();
     let cached = this.orgPlan.get(organizationId);
     if (!cached || now - cached.at > PLAN_CACHE_MS) {
-      const rows: { plan_code: string }[] = await this.ds.query(
-        `SELECT plan_code FROM organizations WHERE id = $1`,
-        [organizationId],
-      );
-      cached = { code: rows[0]?.plan_code ?? 'free', at: now };
-      this.orgPlan.set(organizationId, cached);
+      try {
+        const rows: { plan_code: string }[] = await this.ds.query(
+          `SELECT plan_code FROM organizations WHERE id = $1`,
+          [organizationId],
+        );
+        cached = { code: rows[0]?.plan_code ?? 'free', at: now };
+        this.orgPlan.set(organizationId, cached);
+      } catch (err) {
+        // Database down: a plan we knew a moment ago is better than failing the call.
+        if (!cached) throw databaseUnavailable(err);
+      }
     }
     return plans.get(cached.code) ?? plans.get('free')!;
   }
@@ -42,9 +56,13 @@ export class PlansService {
 
   private async catalogue(): Promise<Map<string, PlanEntity>> {
     if (!this.plans || Date.now() - this.plansLoadedAt > PLAN_CACHE_MS) {
-      const rows = await this.ds.getRepository(PlanEntity).find();
-      this.plans = new Map(rows.map((p) => [p.code, p]));
-      this.plansLoadedAt = Date.now();
+      try {
+        const rows = await this.ds.getRepository(PlanEntity).find();
+        this.plans = new Map(rows.map((p) => [p.code, p]));
+        this.plansLoadedAt = Date.now();
+      } catch (err) {
+        if (!this.plans) throw databaseUnavailable(err);
+      }
     }
     return this.plans;
   }

@@ -10,6 +10,7 @@ import { DomainError } from '../common/errors/domain-error.js';
 import type { Principal } from '../common/guards/access.guard.js';
 import { APP_CONFIG, AppConfig } from '../config/config.js';
 import type { PlanEntity } from './plan.entity.js';
+import { databaseUnavailable } from './plans.service.js';
 
 interface Lease {
   orgId: string;
@@ -94,13 +95,11 @@ export class QuotaService implements BeforeApplicationShutdown {
 
   private async acquire(lease: Lease, limit: number): Promise<void> {
     const block = this.closing ? 1 : this.config.quotaLeaseSize;
-    const rows: { last_grant: number }[] = await this.ds.query(RESERVE, [
-      lease.orgId,
-      lease.period,
-      lease.mode,
-      block,
-      limit,
-    ]);
+    const rows: { last_grant: number }[] = await this.ds
+      .query(RESERVE, [lease.orgId, lease.period, lease.mode, block, limit])
+      .catch((err: unknown) => {
+        throw databaseUnavailable(err);
+      });
     const granted = Number(rows[0]?.last_grant ?? 0);
     lease.remaining += granted;
     // Nothing left: say so for a second without asking the database again.

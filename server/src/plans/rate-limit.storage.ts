@@ -3,6 +3,7 @@
 // so a plan of R calls/s with burst B is (limit B, ttl 1000·B/R). Returned times are seconds.
 import type { ThrottlerStorage } from '@nestjs/throttler';
 import type pg from 'pg';
+import { databaseUnavailable } from './plans.service.js';
 
 type ThrottlerStorageRecord = Awaited<ReturnType<ThrottlerStorage['increment']>>;
 
@@ -82,12 +83,11 @@ export class PostgresRateLimitStorage implements ThrottlerStorage {
   constructor(private readonly pool: pg.Pool) {}
 
   async increment(key: string, ttl: number, limit: number): Promise<ThrottlerStorageRecord> {
-    const res = await this.pool.query<{ tokens: number; allowed: boolean }>(TAKE_SQL, [
-      key,
-      limit,
-      Date.now(),
-      limit / ttl,
-    ]);
+    const res = await this.pool
+      .query<{ tokens: number; allowed: boolean }>(TAKE_SQL, [key, limit, Date.now(), limit / ttl])
+      .catch((err: unknown) => {
+        throw databaseUnavailable(err);
+      });
     const row = res.rows[0]!;
     return record(limit, ttl, Number(row.tokens), row.allowed);
   }

@@ -6,6 +6,7 @@ import * as schemas from '../../src/compute/schemas/index.js';
 import { bootApp, TestApp } from '../setup/app.js';
 import { openDataSource } from '../setup/db.js';
 import { DEMO_BODIES, ENDPOINTS, keyedOrg, KeyedOrg, post } from '../factories/compute.js';
+import { createGelKit, SMALL_KIT_PIECES } from '../factories/gear.js';
 
 describe('compute API', () => {
   let t: TestApp;
@@ -208,5 +209,43 @@ describe('compute API from a console session (the playground)', () => {
     expect(rows).toEqual([
       { source: 'console', key_id: null, user_id: org.owner.userId, billable_units: 0 },
     ]);
+  });
+});
+
+describe('compute API with gear named by id', () => {
+  let t: TestApp;
+  beforeAll(async () => {
+    t = await bootApp();
+  });
+  afterAll(async () => {
+    await t.close();
+  });
+
+  it('balances with a gel kit id exactly as with the same gels inline, and only for its owner', async () => {
+    const org = await keyedOrg(t.url);
+    const kit = (await createGelKit(org.owner, { pieces: SMALL_KIT_PIECES })) as {
+      id: string;
+      pieces: { name: string; miredShift: number; greenShift: number; lossStops: number }[];
+    };
+    const gels = kit.pieces.map(({ name, miredShift, greenShift, lossStops }) => ({
+      name,
+      miredShift,
+      greenShift,
+      lossStops,
+    }));
+    const byId = await post(t.url, 'balance', org.live.secret, {
+      cameraKelvin: 3800,
+      gelKitId: kit.id,
+    });
+    const inline = await post(t.url, 'balance', org.live.secret, { cameraKelvin: 3800, gels });
+    expect(byId.status).toBe(200);
+    expect(byId.body).toEqual(inline.body);
+    const stranger = await keyedOrg(t.url);
+    const other = await post(t.url, 'balance', stranger.live.secret, {
+      cameraKelvin: 3800,
+      gelKitId: kit.id,
+    });
+    expect(other.status).toBe(404);
+    expect(other.body.errors[0].field).toBe('gelKitId');
   });
 });

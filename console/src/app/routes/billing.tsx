@@ -1,11 +1,12 @@
-import { SectionPage } from './section-page';
+import { PageHeader } from '@/components/layout/page-header';
+import { BillingPage } from '@/features/billing';
+import { RequirePermission } from './require-permission';
 
 export default function BillingRoute() {
   return (
-    <SectionPage
-      title="Billing"
-      lead="Your plan, its limits and your invoices."
-      coming={['Current plan and limits', 'Change plan and download invoices']}
-    />
+    <RequirePermission permission="billing:manage" title="Billing">
+      <PageHeader title="Billing" lead="Your plan, its limits and your invoices." />
+      <BillingPage />
+    </RequirePermission>
   );
 }

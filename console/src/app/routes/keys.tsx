@@ -1,14 +1,15 @@
-import { SectionPage } from './section-page';
+import { PageHeader } from '@/components/layout/page-header';
+import { KeysPage } from '@/features/keys';
+import { RequirePermission } from './require-permission';
 
 export default function KeysRoute() {
   return (
-    <SectionPage
-      title="Keys"
-      lead="API keys let your apps call Lumenwright; each key belongs to your studio."
-      coming={[
-        'Create a key, copy it once, name it by app',
-        'Revoke a key and see when each was last used',
-      ]}
-    />
+    <RequirePermission permission="keys:manage-own" title="Keys">
+      <PageHeader
+        title="Keys"
+        lead="API keys let your apps call Lumenwright; each key belongs to your studio."
+      />
+      <KeysPage />
+    </RequirePermission>
   );
 }

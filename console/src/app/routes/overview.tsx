@@ -2,6 +2,8 @@ import { Link } from 'react-router-dom';
 import { Card } from '@/components/ui/card';
 import { PageHeader } from '@/components/layout/page-header';
 import { paths } from '@/config/paths';
+import { OverviewUsage } from '@/features/usage';
+import { useCan } from '@/lib/session';
 
 const starts = [
   {
@@ -22,12 +24,18 @@ const starts = [
 ];
 
 export default function OverviewRoute() {
+  const canReadUsage = useCan('usage:read');
   return (
     <>
       <PageHeader
         title="Overview"
         lead="Lighting math for flash portraits at dusk: when the light goes, and how to match it."
       />
+      {canReadUsage ? (
+        <div className="mb-8">
+          <OverviewUsage usageHref={paths.usage} />
+        </div>
+      ) : null}
       <ul className="grid gap-4 sm:grid-cols-2 xl:grid-cols-3">
         {starts.map((start) => (
           <li key={start.to}>

@@ -1,15 +1,14 @@
-import { SectionPage } from './section-page';
+import { PageHeader } from '@/components/layout/page-header';
+import { SetupsPage } from '@/features/setups';
 
 export default function SetupsRoute() {
   return (
-    <SectionPage
-      title="Setups"
-      lead="Dusk setups saved from the playground, ready to reopen or print."
-      coming={[
-        'Save a setup with a name, venue, date and notes',
-        'Search, duplicate, delete, reopen in the playground',
-        'A printable shot sheet with the plan, diagram and cautions',
-      ]}
-    />
+    <>
+      <PageHeader
+        title="Setups"
+        lead="Dusk setups saved by your studio, ready to reopen in the playground or print."
+      />
+      <SetupsPage />
+    </>
   );
 }

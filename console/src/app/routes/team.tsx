@@ -1,11 +1,12 @@
-import { SectionPage } from './section-page';
+import { PageHeader } from '@/components/layout/page-header';
+import { TeamPage } from '@/features/team';
+import { RequirePermission } from './require-permission';
 
 export default function TeamRoute() {
   return (
-    <SectionPage
-      title="Team"
-      lead="People in your studio and what each may do."
-      coming={['Invite people by email', 'Change roles or remove access']}
-    />
+    <RequirePermission permission="team:manage" title="Team">
+      <PageHeader title="Team" lead="People in your studio and what each may do." />
+      <TeamPage />
+    </RequirePermission>
   );
 }

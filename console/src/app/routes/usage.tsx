@@ -1,11 +1,15 @@
-import { SectionPage } from './section-page';
+import { PageHeader } from '@/components/layout/page-header';
+import { UsagePage } from '@/features/usage';
+import { RequirePermission } from './require-permission';
 
 export default function UsageRoute() {
   return (
-    <SectionPage
-      title="Usage"
-      lead="Calls your keys made, by day and by endpoint, against your plan."
-      coming={['Daily calls per key and per calculation', 'How close you are to the plan limit']}
-    />
+    <RequirePermission permission="usage:read" title="Usage">
+      <PageHeader
+        title="Usage"
+        lead="Calls your keys and your playground made, by day and by endpoint, against your plan."
+      />
+      <UsagePage />
+    </RequirePermission>
   );
 }

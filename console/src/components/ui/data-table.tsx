@@ -1,10 +1,10 @@
-import { tableFeatures, useTable, type ColumnDef } from '@tanstack/react-table';
+import { tableFeatures, useTable, type ColumnDef, type RowData } from '@tanstack/react-table';
 
 const features = tableFeatures({});
 
-export type DataColumn<Row> = ColumnDef<typeof features, Row, unknown>;
+export type DataColumn<Row extends RowData> = ColumnDef<typeof features, Row, unknown>;
 
-interface DataTableProps<Row> {
+interface DataTableProps<Row extends RowData> {
   /** Names the table for screen readers (rendered as its caption). */
   caption: string;
   columns: DataColumn<Row>[];
@@ -16,7 +16,7 @@ interface DataTableProps<Row> {
 }
 
 /** The one table of the console: TanStack Table for the model, our own semantic markup. */
-export function DataTable<Row>({
+export function DataTable<Row extends RowData>({
   caption,
   columns,
   data,

@@ -1,8 +1,11 @@
-import { computeFlash, computeTwilight } from '@lumenwright/shared';
-import { fireEvent, screen, waitFor, within } from '@testing-library/react';
+import { computeBacklight, computeFlash, computeTwilight, solveBalance } from '@lumenwright/shared';
+import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
+import { fireEvent, render, screen, waitFor, within } from '@testing-library/react';
+import { MemoryRouter } from 'react-router-dom';
 import { beforeEach, describe, expect, it, vi } from 'vitest';
-import { jsonResponse, renderApp } from '@/test/render';
-import { clockTime } from '../utils/format';
+import { jsonResponse } from '@/test/responses';
+import { clockTime, fixed } from '../utils/format';
+import { Playground } from './playground';
 
 type Responder = (path: string, body: unknown) => Response;
 let respond: Responder;
@@ -22,8 +25,15 @@ beforeEach(() => {
 });
 
 async function openCalculation(calc: string) {
-  renderApp(`/playground?calc=${calc}`);
-  const panel = await screen.findByRole('tabpanel', {}, { timeout: 5000 });
+  const queryClient = new QueryClient({ defaultOptions: { queries: { retry: false } } });
+  render(
+    <QueryClientProvider client={queryClient}>
+      <MemoryRouter initialEntries={[`/playground?calc=${calc}`]}>
+        <Playground />
+      </MemoryRouter>
+    </QueryClientProvider>,
+  );
+  const panel = await screen.findByRole('tabpanel');
   return panel;
 }
 
@@ -121,7 +131,7 @@ describe('playground', () => {
     });
     fireEvent.click(within(panel).getByRole('button', { name: 'Copy as SDK call' }));
     const sdk = (await within(panel).findByLabelText('SDK call')).textContent ?? '';
-    expect(sdk).toContain('client.POST("/v1/flash"');
+    expect(sdk).toContain('await lw.flash({');
   });
 
   it('says the API agrees when the server returns what the preview computed', async () => {
@@ -178,5 +188,56 @@ describe('playground', () => {
     expect(within(plan).getAllByRole('row').length).toBeGreaterThan(1);
     expect(plan.querySelector('[data-caution="batteries"]')).not.toBeNull();
     expect(plan.querySelectorAll('[data-swatch]').length).toBeGreaterThan(3);
+  });
+
+  it('exposes the background for the minute chosen on the Twilight tab, or for a meter reading', async () => {
+    const panel = await openCalculation('exposure');
+    const source = within(panel).getByLabelText('Light level from') as HTMLSelectElement;
+    // The twilight tab (mounted, hidden) publishes its default minute.
+    await waitFor(() =>
+      expect(source.options[0]!.textContent).toMatch(/^Twilight tab: \d{2}:\d{2} \(EV100 /),
+    );
+    const evFromTwilight = /EV100 (−?[\d.]+)/.exec(source.options[0]!.textContent ?? '')![1];
+    const readout = () => within(panel).getByText('Ambient EV100').nextElementSibling?.textContent;
+    expect(readout()).toBe(evFromTwilight);
+    setValue(source, 'metered');
+    setValue(await within(panel).findByLabelText('Metered EV100 (incident)'), '9');
+    await waitFor(() => expect(readout()).toBe('9.0'));
+    expect(panel.querySelector('svg[data-chart="shutter"]')).not.toBeNull();
+  });
+
+  it('shows the gel stack and scene swatches solveBalance picks for the camera white balance', async () => {
+    const panel = await openCalculation('balance');
+    setValue(within(panel).getByLabelText('Camera WB (K)'), '3200');
+    const expected = solveBalance({ cameraKelvin: 3200, flashKelvin: 5500, maxGels: 3 });
+    await waitFor(() =>
+      expect(within(panel).getByTestId('gel-stack').textContent).toBe(
+        expected.gels.map((gel) => gel.name).join('') || 'No gel needed',
+      ),
+    );
+    expect(panel.querySelectorAll('[data-swatch]').length).toBe(expected.scene.length);
+    expect(panel.querySelector('svg[data-chart="mired"]')).not.toBeNull();
+  });
+
+  it('draws the rim beam and marks ground spill when the light is aimed down', async () => {
+    const panel = await openCalculation('backlight');
+    setValue(within(panel).getByLabelText('Height (m)'), '2.5');
+    setValue(within(panel).getByLabelText('Tilt (°, + up)'), '-20');
+    const expected = computeBacklight({
+      lightHeight: 2.5,
+      distanceBehind: 2.5,
+      headHeight: 1.6,
+      distanceUnit: 'm',
+      beamAngleDeg: 30,
+      tiltDeg: -20,
+    });
+    expect(expected.groundSpill).not.toBeNull();
+    await waitFor(() =>
+      expect(panel.querySelector('svg[data-diagram="side"] [data-spill]')).not.toBeNull(),
+    );
+    expect(panel.querySelector('svg[data-diagram="side"] [data-beam]')).not.toBeNull();
+    expect(within(panel).getByText('Aim').nextElementSibling?.textContent).toBe(
+      `${fixed(expected.aimDeg)}°`,
+    );
   });
 });

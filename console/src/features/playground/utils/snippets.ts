@@ -14,7 +14,7 @@ export interface SnippetRequest {
   body: unknown;
 }
 
-export const API_KEY_VARIABLE = 'LUMENWRIGHT_API_KEY';
+export const API_KEY_VARIABLE = 'LUMENWRIGHT_KEY';
 
 export function curlSnippet({ origin, path, body }: SnippetRequest): string {
   const json = JSON.stringify(body, null, 2);
@@ -26,20 +26,27 @@ export function curlSnippet({ origin, path, body }: SnippetRequest): string {
   ].join('\n');
 }
 
+/** `/v1/flash` -> `flash`: the SDK has one method per compute endpoint, named after it. */
+export function sdkMethod(path: string): string {
+  return path.replace(/^\/v1\//, '').replace(/[-/](\w)/g, (_, c: string) => c.toUpperCase());
+}
+
 export function sdkSnippet({ origin, path, body }: SnippetRequest): string {
-  const json = JSON.stringify(body, null, 2).replace(/\n/g, '\n  ');
+  const json = JSON.stringify(body, null, 2);
   return [
-    `import { createApiClient } from '@lumenwright/sdk';`,
+    `import { Lumenwright, LumenwrightError } from '@lumenwright/sdk';`,
     ``,
-    `const client = createApiClient({`,
+    `const lw = new Lumenwright({`,
+    `  apiKey: process.env.${API_KEY_VARIABLE}!,`,
     `  baseUrl: ${JSON.stringify(origin)},`,
-    `  headers: { Authorization: \`Bearer \${process.env.${API_KEY_VARIABLE}}\` },`,
     `});`,
     ``,
-    `const { data, error } = await client.POST(${JSON.stringify(path)}, {`,
-    `  body: ${json},`,
-    `});`,
-    `if (error) throw new Error(error.detail ?? error.title);`,
-    `console.log(data);`,
+    `try {`,
+    `  const result = await lw.${sdkMethod(path)}(${json.replace(/\n/g, '\n  ')});`,
+    `  console.log(result);`,
+    `} catch (error) {`,
+    `  if (error instanceof LumenwrightError) console.error(error.status, error.message);`,
+    `  else throw error;`,
+    `}`,
   ].join('\n');
 }

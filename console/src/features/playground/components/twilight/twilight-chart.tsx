@@ -11,8 +11,11 @@ interface TwilightChartProps {
 }
 
 const W = 720;
-const H = 330;
+const H = 400;
 const M = { left: 46, right: 50, top: 40, bottom: 34 };
+/** Bottom of the main plot; the drift strip sits below the time axis. */
+const PLOT_BOTTOM = 296;
+const DRIFT = { top: 346, bottom: 392 };
 
 const epochOf = (iso: string | null | undefined) => (iso ? Date.parse(iso) : Number.NaN);
 
@@ -32,8 +35,8 @@ export function TwilightChart({ result, selectedIndex, onSelect }: TwilightChart
     const evExtent = niceExtent(Math.min(...evs), Math.max(...evs), 6);
     const altTicks = altExtent.ticks;
     const evTicks = evExtent.ticks;
-    const alt = linearScale(altExtent.domain, [H - M.bottom, M.top]);
-    const ev = linearScale(evExtent.domain, [H - M.bottom, M.top]);
+    const alt = linearScale(altExtent.domain, [PLOT_BOTTOM, M.top]);
+    const ev = linearScale(evExtent.domain, [PLOT_BOTTOM, M.top]);
     const span = (last - first) / 60_000;
     const timeTicks = clockTicks(
       points[0]?.time ?? '',
@@ -89,6 +92,8 @@ export function TwilightChart({ result, selectedIndex, onSelect }: TwilightChart
   ];
 
   const selected = points[selectedIndex];
+  const maxDrift = Math.max(0, ...points.map((point) => Math.abs(point.stopsPer10Min)));
+  const barWidth = Math.max(1, ((W - M.left - M.right) / Math.max(1, points.length)) * 0.8);
   const sx = x(epochs[selectedIndex] ?? first);
 
   const pick = (event: React.PointerEvent<SVGRectElement>) => {
@@ -122,13 +127,13 @@ export function TwilightChart({ result, selectedIndex, onSelect }: TwilightChart
               x={phase.span.x0}
               y={M.top}
               width={Math.max(0, phase.span.x1 - phase.span.x0)}
-              height={H - M.top - M.bottom}
+              height={PLOT_BOTTOM - M.top}
               fill={phase.fill}
             />
             {phase.span.x1 - phase.span.x0 > 56 ? (
               <text
                 x={phase.span.x0 + 4}
-                y={H - M.bottom - 6}
+                y={PLOT_BOTTOM - 6}
                 className="fill-ink-muted text-[11px]"
               >
                 {phase.label}
@@ -196,13 +201,13 @@ export function TwilightChart({ result, selectedIndex, onSelect }: TwilightChart
           <line
             x1={x(tick.epoch)}
             x2={x(tick.epoch)}
-            y1={H - M.bottom}
-            y2={H - M.bottom + 4}
+            y1={PLOT_BOTTOM}
+            y2={PLOT_BOTTOM + 4}
             stroke="var(--color-edge-strong)"
           />
           <text
             x={x(tick.epoch)}
-            y={H - M.bottom + 17}
+            y={PLOT_BOTTOM + 17}
             textAnchor="middle"
             className="fill-ink-muted text-[11px] tabular-nums"
           >
@@ -233,13 +238,45 @@ export function TwilightChart({ result, selectedIndex, onSelect }: TwilightChart
         data-series="ev100"
       />
 
+      <g data-series="drift">
+        <text
+          x={M.left - 6}
+          y={DRIFT.top - 6}
+          textAnchor="start"
+          className="fill-ink-muted text-[10px]"
+        >
+          Drift, stops per 10 min (max {fixed(maxDrift, 1)})
+        </text>
+        <line
+          x1={M.left}
+          x2={W - M.right}
+          y1={DRIFT.top}
+          y2={DRIFT.top}
+          stroke="var(--color-edge)"
+        />
+        {points.map((point, i) => {
+          const height =
+            (Math.abs(point.stopsPer10Min) / (maxDrift || 1)) * (DRIFT.bottom - DRIFT.top);
+          return (
+            <rect
+              key={point.time}
+              x={x(epochs[i] ?? 0) - barWidth / 2}
+              y={DRIFT.top}
+              width={barWidth}
+              height={height}
+              fill={i === selectedIndex ? 'var(--color-accent)' : 'var(--color-chart-ev)'}
+              opacity={i === selectedIndex ? 1 : 0.55}
+            />
+          );
+        })}
+      </g>
       {selected ? (
         <g data-selected={selected.time}>
           <line
             x1={sx}
             x2={sx}
             y1={M.top}
-            y2={H - M.bottom}
+            y2={PLOT_BOTTOM}
             stroke="var(--color-ink)"
             strokeWidth={1.25}
           />
@@ -273,7 +310,7 @@ export function TwilightChart({ result, selectedIndex, onSelect }: TwilightChart
         x={M.left}
         y={M.top}
         width={W - M.left - M.right}
-        height={H - M.top - M.bottom}
+        height={PLOT_BOTTOM - M.top}
         fill="transparent"
         onPointerDown={pick}
         onPointerMove={(event) => event.buttons === 1 && pick(event)}

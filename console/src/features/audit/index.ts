@@ -1,0 +1,1 @@
+export { AuditLog } from './components/audit-log';

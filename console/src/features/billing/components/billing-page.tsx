@@ -1,0 +1,190 @@
+import { useState } from 'react';
+import { useSearchParams } from 'react-router-dom';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
+import { DataTable, type DataColumn } from '@/components/ui/data-table';
+import { Notice } from '@/components/ui/notice';
+import { PageLoading } from '@/components/ui/page-loading';
+import { problemMessage } from '@/lib/form-errors';
+import { formatCount, formatDate, formatMoney } from '@/lib/format';
+import {
+  useBilling,
+  useCancelSubscription,
+  useInvoices,
+  usePlans,
+  useStartCheckout,
+  type Invoice,
+  type Plan,
+} from '../api/billing';
+
+const invoiceColumns: DataColumn<Invoice>[] = [
+  { id: 'issued', header: 'Issued', accessorFn: (i) => formatDate(i.issuedAt) },
+  {
+    id: 'period',
+    header: 'Period',
+    accessorFn: (i) =>
+      i.periodStart ? `${formatDate(i.periodStart)} – ${formatDate(i.periodEnd)}` : '—',
+  },
+  {
+    id: 'lines',
+    header: 'Lines',
+    cell: ({ row }) => (
+      <ul>
+        {row.original.lines.map((line, index) => (
+          <li key={index}>
+            {line.description} × {line.quantity}:{' '}
+            {formatMoney(line.amountCents, row.original.currency)}
+          </li>
+        ))}
+      </ul>
+    ),
+  },
+  { id: 'total', header: 'Total', accessorFn: (i) => formatMoney(i.totalCents, i.currency) },
+  { id: 'status', header: 'Status', accessorFn: (i) => i.status },
+];
+
+/** Where a plan sits relative to the current one, by monthly price. */
+function changeLabel(plan: Plan, current: Plan | undefined): string {
+  if (!current) return 'Choose';
+  return plan.monthlyPriceCents > current.monthlyPriceCents ? 'Upgrade' : 'Downgrade';
+}
+
+export function BillingPage() {
+  const plans = usePlans();
+  const billing = useBilling();
+  const invoices = useInvoices();
+  const checkout = useStartCheckout();
+  const cancel = useCancelSubscription();
+  const [confirmCancel, setConfirmCancel] = useState(false);
+  const [params] = useSearchParams();
+  const status = params.get('checkout');
+
+  const current = billing.data?.plan;
+  const go = (planCode: string) =>
+    checkout.mutate(planCode, {
+      // The hosted checkout is another site: a full navigation, not a fetch.
+      onSuccess: (session) => globalThis.location.assign(session.url),
+    });
+
+  return (
+    <div className="flex flex-col gap-8">
+      {status === 'complete' ? (
+        <Notice tone="ok">
+          Payment approved. Your plan changes as soon as the payment is confirmed.
+        </Notice>
+      ) : status === 'cancelled' ? (
+        <Notice tone="caution">Checkout was cancelled; nothing changed.</Notice>
+      ) : null}
+      {billing.isError ? <Notice tone="fault">{problemMessage(billing.error)}</Notice> : null}
+      {checkout.isError ? <Notice tone="fault">{problemMessage(checkout.error)}</Notice> : null}
+      <section aria-labelledby="plans-heading">
+        <h2 id="plans-heading" className="mb-3 text-title font-semibold">
+          Plans
+        </h2>
+        {plans.isPending || billing.isPending ? (
+          <PageLoading />
+        ) : plans.isError ? (
+          <Notice tone="fault">{problemMessage(plans.error)}</Notice>
+        ) : (
+          <ul className="grid gap-4 md:grid-cols-3">
+            {plans.data.data.map((plan) => {
+              const isCurrent = plan.code === current?.code;
+              return (
+                <li key={plan.code}>
+                  <Card as="article" className={`h-full ${isCurrent ? 'border-accent' : ''}`}>
+                    <h3 className="text-lead font-semibold">
+                      {plan.name}{' '}
+                      {isCurrent ? <span className="text-small text-accent">(current)</span> : null}
+                    </h3>
+                    <p className="text-display font-semibold tabular-nums">
+                      {formatMoney(plan.monthlyPriceCents)}
+                      <span className="text-small font-normal text-ink-muted"> / month</span>
+                    </p>
+                    <p className="mt-1 text-small text-ink-muted">{plan.description}</p>
+                    <ul className="mt-3 space-y-1 text-small">
+                      <li>{formatCount(plan.includedCallsPerMonth)} live calls a month</li>
+                      <li>{formatCount(plan.testCallsPerMonth)} test calls a month</li>
+                      <li>
+                        {plan.overagePricePer1000Cents === null
+                          ? 'No overage: calls stop at the limit'
+                          : `Overage ${formatMoney(plan.overagePricePer1000Cents)} per 1,000 calls`}
+                      </li>
+                      <li>
+                        {plan.ratePerSecond} calls/s (bursts of {plan.burst})
+                      </li>
+                      <li>{plan.features.seats} seats</li>
+                      <li>
+                        {plan.features.savedSetups === null
+                          ? 'Unlimited saved setups'
+                          : `${plan.features.savedSetups} saved setups`}
+                      </li>
+                      <li>
+                        {plan.features.uploads ? 'Test-frame uploads' : 'No test-frame uploads'}
+                      </li>
+                    </ul>
+                    {!isCurrent && plan.monthlyPriceCents > 0 ? (
+                      <Button
+                        className="mt-4"
+                        disabled={checkout.isPending}
+                        onClick={() => go(plan.code)}
+                      >
+                        {changeLabel(plan, current)} to {plan.name}
+                      </Button>
+                    ) : null}
+                    {!isCurrent && plan.monthlyPriceCents === 0 && billing.data?.subscription ? (
+                      <Button
+                        variant="secondary"
+                        className="mt-4"
+                        onClick={() => setConfirmCancel(true)}
+                      >
+                        Cancel subscription
+                      </Button>
+                    ) : null}
+                  </Card>
+                </li>
+              );
+            })}
+          </ul>
+        )}
+        {billing.data?.subscription ? (
+          <p className="mt-3 text-small text-ink-muted">
+            Subscription {billing.data.subscription.status}; current period ends{' '}
+            {formatDate(billing.data.subscription.currentPeriodEnd)}.
+          </p>
+        ) : null}
+        <p className="mt-2 text-caption text-ink-muted">
+          Changing plan opens the payments page; you come back here when it’s done.
+        </p>
+      </section>
+      <section aria-labelledby="invoices-heading">
+        <h2 id="invoices-heading" className="mb-3 text-title font-semibold">
+          Invoices
+        </h2>
+        {invoices.isPending ? (
+          <PageLoading />
+        ) : invoices.isError ? (
+          <Notice tone="fault">{problemMessage(invoices.error)}</Notice>
+        ) : (
+          <DataTable
+            caption="Invoices"
+            columns={invoiceColumns}
+            data={invoices.data.data}
+            getRowId={(i) => i.id}
+            empty="No invoices yet."
+          />
+        )}
+      </section>
+      <ConfirmDialog
+        open={confirmCancel}
+        title="Cancel the subscription?"
+        description="Your studio moves to the free plan now, with its lower limits."
+        confirmLabel="Cancel subscription"
+        pending={cancel.isPending}
+        error={cancel.isError ? problemMessage(cancel.error) : null}
+        onClose={() => setConfirmCancel(false)}
+        onConfirm={() => cancel.mutate(undefined, { onSuccess: () => setConfirmCancel(false) })}
+      />
+    </div>
+  );
+}

@@ -1,0 +1,1 @@
+export { BillingPage } from './components/billing-page';

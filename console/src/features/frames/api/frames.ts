@@ -1,0 +1,54 @@
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { components } from '@lumenwright/sdk';
+import { client, unwrap } from '@/lib/api';
+import type { PixelRect } from '../patch';
+
+export type Frame = components['schemas']['FrameListResponseDto']['data'][number];
+
+export const frameKeys = {
+  all: ['frames'] as const,
+  list: () => [...frameKeys.all, 'list'] as const,
+};
+
+/** GET /v1/frames: the latest uploads. */
+export const framesQueryOptions = () =>
+  queryOptions({
+    queryKey: frameKeys.list(),
+    queryFn: ({ signal }) =>
+      unwrap(client.GET('/v1/frames', { params: { query: { limit: '12' } }, signal })),
+  });
+export const useFrames = () => useQuery(framesQueryOptions());
+
+export interface UploadFrameInput {
+  file: File;
+  patch: PixelRect | null;
+  cameraKelvin?: number;
+}
+
+/** POST /v1/frames (multipart): stores the frame and measures the patch (or finds one). */
+export function uploadFrame(input: UploadFrameInput): Promise<Frame> {
+  const form = new FormData();
+  if (input.patch) {
+    form.set('patchX', String(input.patch.x));
+    form.set('patchY', String(input.patch.y));
+    form.set('patchWidth', String(input.patch.width));
+    form.set('patchHeight', String(input.patch.height));
+  }
+  if (input.cameraKelvin) form.set('cameraKelvin', String(Math.round(input.cameraKelvin)));
+  // Fields first, file last: the server reads the parts in order while streaming.
+  form.set('file', input.file, input.file.name);
+  return unwrap(
+    client.POST('/v1/frames', {
+      // openapi-fetch passes FormData through untouched (the browser sets the boundary).
+      body: form as unknown as never,
+    }),
+  ).then((frame) => frame as unknown as Frame);
+}
+
+export function useUploadFrame() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: uploadFrame,
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: frameKeys.all }),
+  });
+}

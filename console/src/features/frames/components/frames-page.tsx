@@ -1,0 +1,195 @@
+import { useEffect, useId, useState } from 'react';
+import { Link } from 'react-router-dom';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { Notice } from '@/components/ui/notice';
+import { TextField } from '@/components/ui/text-field';
+import { paths } from '@/config/paths';
+import { ApiProblem } from '@/lib/api';
+import { problemMessage } from '@/lib/form-errors';
+import { formatDateTime } from '@/lib/format';
+import { useFrames, useUploadFrame, type Frame } from '../api/frames';
+import { checkFile, type PixelRect, type Size } from '../patch';
+import { FrameResult } from './frame-result';
+import { PatchPicker } from './patch-picker';
+
+function UploadError({ error }: { error: unknown }) {
+  if (error instanceof ApiProblem && error.status === 403) {
+    return (
+      <Notice tone="fault">
+        <strong>Test-frame uploads aren’t in your studio’s plan.</strong>{' '}
+        {error.problem.detail ?? ''} An owner can change the plan on the{' '}
+        <Link to={paths.billing}>Billing</Link> page.
+      </Notice>
+    );
+  }
+  return <Notice tone="fault">{problemMessage(error)}</Notice>;
+}
+
+export function FramesPage() {
+  const inputId = useId();
+  const upload = useUploadFrame();
+  const frames = useFrames();
+  const [file, setFile] = useState<File | null>(null);
+  const [preview, setPreview] = useState<string | null>(null);
+  const [natural, setNatural] = useState<Size | null>(null);
+  const [patch, setPatch] = useState<PixelRect | null>(null);
+  const [kelvin, setKelvin] = useState('');
+  const [fileError, setFileError] = useState<string | null>(null);
+  const [dragging, setDragging] = useState(false);
+  const [result, setResult] = useState<Frame | null>(null);
+
+  // The preview URL lives as long as it is shown; the old one is released when it changes.
+  useEffect(() => {
+    if (!preview) return;
+    return () => URL.revokeObjectURL(preview);
+  }, [preview]);
+
+  const choose = (chosen: File | undefined) => {
+    if (!chosen) return;
+    const problem = checkFile(chosen);
+    setFileError(problem);
+    setResult(null);
+    upload.reset();
+    if (problem) return;
+    setPatch(null);
+    setNatural(null);
+    setFile(chosen);
+    setPreview(URL.createObjectURL(chosen));
+  };
+
+  const submit = () => {
+    if (!file) return;
+    const cameraKelvin = Number(kelvin);
+    upload.mutate(
+      {
+        file,
+        patch,
+        cameraKelvin: kelvin && Number.isFinite(cameraKelvin) ? cameraKelvin : undefined,
+      },
+      { onSuccess: (frame) => setResult(frame) },
+    );
+  };
+
+  return (
+    <div className="flex flex-col gap-6">
+      <Card>
+        <label
+          htmlFor={inputId}
+          onDragOver={(event) => {
+            event.preventDefault();
+            setDragging(true);
+          }}
+          onDragLeave={() => setDragging(false)}
+          onDrop={(event) => {
+            event.preventDefault();
+            setDragging(false);
+            choose(event.dataTransfer.files[0]);
+          }}
+          className={`flex cursor-pointer flex-col items-center justify-center gap-2 rounded-card border-2 border-dashed p-8 text-center ${dragging ? 'border-accent bg-raised' : 'border-edge-strong'}`}
+        >
+          <span className="text-lead font-medium">Drop a test frame here, or choose a file</span>
+          <span className="text-small text-ink-muted">
+            JPEG or PNG, up to 25 MB. Shoot a grey card or white wall under your key light.
+          </span>
+          <input
+            id={inputId}
+            type="file"
+            accept="image/jpeg,image/png"
+            className="sr-only"
+            onChange={(event) => choose(event.target.files?.[0])}
+          />
+        </label>
+        {fileError ? (
+          <Notice tone="fault" className="mt-3">
+            {fileError}
+          </Notice>
+        ) : null}
+      </Card>
+
+      {preview ? (
+        <Card aria-labelledby="patch-heading">
+          <h2 id="patch-heading" className="text-title font-semibold">
+            Mark the neutral patch
+          </h2>
+          <p className="mt-1 text-small text-ink-muted">
+            Drag a rectangle over something that should be neutral grey or white. Leave it unmarked
+            and the server looks for one itself.
+          </p>
+          <div className="mt-3">
+            <PatchPicker
+              src={preview}
+              natural={natural}
+              onNaturalSize={setNatural}
+              patch={patch}
+              onPatch={setPatch}
+            />
+          </div>
+          <p role="status" className="mt-2 text-small tabular-nums">
+            {patch
+              ? `Patch: ${patch.width} × ${patch.height} px at (${patch.x}, ${patch.y})`
+              : 'No patch marked: the server will find one.'}
+          </p>
+          <div className="mt-4 flex flex-wrap items-end gap-3">
+            <TextField
+              label="Camera white balance (K, optional)"
+              type="number"
+              min={2000}
+              max={12000}
+              value={kelvin}
+              onChange={(event) => setKelvin(event.target.value)}
+              hint="What the camera was set to; otherwise it is assumed."
+            />
+            {patch ? (
+              <Button variant="secondary" onClick={() => setPatch(null)}>
+                Clear patch
+              </Button>
+            ) : null}
+            <Button onClick={submit} disabled={upload.isPending}>
+              {upload.isPending ? 'Measuring…' : 'Upload and measure'}
+            </Button>
+          </div>
+          {upload.isError ? (
+            <div className="mt-3">
+              <UploadError error={upload.error} />
+            </div>
+          ) : null}
+        </Card>
+      ) : null}
+
+      {result ? <FrameResult frame={result} /> : null}
+
+      {frames.data && frames.data.data.length ? (
+        <section aria-labelledby="recent-frames-heading">
+          <h2 id="recent-frames-heading" className="mb-3 text-title font-semibold">
+            Recent frames
+          </h2>
+          <ul className="grid grid-cols-2 gap-3 sm:grid-cols-4">
+            {frames.data.data.map((frame) => (
+              <li key={frame.id}>
+                <button
+                  type="button"
+                  onClick={() => setResult(frame)}
+                  className="w-full rounded-card border border-edge bg-panel p-2 text-left"
+                >
+                  <img
+                    src={frame.thumbnailUrl}
+                    alt=""
+                    className="aspect-video w-full object-cover"
+                  />
+                  <span className="mt-1 block text-small">
+                    {frame.fileName ?? 'frame'} ·{' '}
+                    {frame.colour.cctKelvin ? `${Math.round(frame.colour.cctKelvin)} K` : '—'}
+                  </span>
+                  <span className="block text-caption text-ink-muted">
+                    {formatDateTime(frame.createdAt)}
+                  </span>
+                </button>
+              </li>
+            ))}
+          </ul>
+        </section>
+      ) : null}
+    </div>
+  );
+}

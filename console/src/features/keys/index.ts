@@ -1,0 +1,1 @@
+export { KeysPage } from './components/keys-page';

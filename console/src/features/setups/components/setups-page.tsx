@@ -1,0 +1,167 @@
+import { useMemo, useState } from 'react';
+import { Link, useSearchParams } from 'react-router-dom';
+import { Button } from '@/components/ui/button';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
+import { CursorPager } from '@/components/ui/cursor-pager';
+import { DataTable, type DataColumn } from '@/components/ui/data-table';
+import { Notice } from '@/components/ui/notice';
+import { PageLoading } from '@/components/ui/page-loading';
+import { TextField } from '@/components/ui/text-field';
+import { paths } from '@/config/paths';
+import { problemMessage } from '@/lib/form-errors';
+import { formatDate, formatDateTime } from '@/lib/format';
+import { currentCursor, firstPageParams } from '@/lib/pagination';
+import {
+  setupSheetHref,
+  useDeleteSetup,
+  useDuplicateSetup,
+  useSetups,
+  type SavedSetupSummary,
+} from '../api/setups';
+import { playgroundHref } from '../schemas';
+import { SaveSetupDialog } from './save-setup-dialog';
+
+const actionLink =
+  'inline-flex rounded-control border border-edge-strong px-2 py-1 text-small font-medium text-ink no-underline hover:bg-raised';
+
+export function SetupsPage() {
+  const [params, setParams] = useSearchParams();
+  const q = params.get('q') ?? '';
+  const setups = useSetups({ q, cursor: currentCursor(params) });
+  const duplicate = useDuplicateSetup();
+  const remove = useDeleteSetup();
+  const [saving, setSaving] = useState(false);
+  const [deleting, setDeleting] = useState<SavedSetupSummary | null>(null);
+  const [actionError, setActionError] = useState<string | null>(null);
+
+  const columns = useMemo<DataColumn<SavedSetupSummary>[]>(
+    () => [
+      { id: 'name', header: 'Name', cell: ({ row }) => <strong>{row.original.name}</strong> },
+      { id: 'venue', header: 'Venue', accessorFn: (s) => s.venue ?? '—' },
+      { id: 'date', header: 'Date', accessorFn: (s) => formatDate(s.date) },
+      {
+        id: 'window',
+        header: 'Shooting window',
+        accessorFn: (s) =>
+          s.windowStart && s.windowEnd
+            ? `${formatDateTime(s.windowStart)} – ${new Date(s.windowEnd).toLocaleTimeString(undefined, { timeStyle: 'short' })}`
+            : '—',
+      },
+      { id: 'by', header: 'Saved by', accessorFn: (s) => s.createdBy?.name ?? '—' },
+      {
+        id: 'actions',
+        header: () => <span className="sr-only">Actions</span>,
+        cell: ({ row }) => {
+          const setup = row.original;
+          return (
+            <div className="flex flex-wrap gap-2">
+              <Link
+                to={playgroundHref(paths.playground, setup.id)}
+                className={actionLink}
+                aria-label={`Open ${setup.name} in the playground`}
+              >
+                Open
+              </Link>
+              <a
+                href={setupSheetHref(setup.id)}
+                target="_blank"
+                rel="noopener"
+                className={actionLink}
+                aria-label={`Shot sheet for ${setup.name} (opens a new tab)`}
+              >
+                Shot sheet
+              </a>
+              <Button
+                variant="secondary"
+                className="px-2 py-1 text-small"
+                aria-label={`Duplicate ${setup.name}`}
+                onClick={() => {
+                  setActionError(null);
+                  duplicate.mutate(
+                    { id: setup.id, name: `${setup.name} (copy)`.slice(0, 100) },
+                    { onError: (error) => setActionError(problemMessage(error)) },
+                  );
+                }}
+              >
+                Duplicate
+              </Button>
+              <Button
+                variant="danger"
+                className="px-2 py-1 text-small"
+                aria-label={`Delete ${setup.name}`}
+                onClick={() => setDeleting(setup)}
+              >
+                Delete
+              </Button>
+            </div>
+          );
+        },
+      },
+    ],
+    // eslint-disable-next-line react-hooks/exhaustive-deps -- the mutation object is stable
+    [],
+  );
+
+  const closeDelete = () => {
+    setDeleting(null);
+    remove.reset();
+  };
+
+  return (
+    <>
+      <div className="mb-4 flex flex-wrap items-end justify-between gap-4">
+        <form
+          role="search"
+          className="w-full max-w-sm"
+          onSubmit={(event) => {
+            event.preventDefault();
+            const value = new FormData(event.currentTarget).get('q');
+            const next = firstPageParams(params);
+            if (typeof value === 'string' && value.trim()) next.set('q', value.trim());
+            else next.delete('q');
+            setParams(next);
+          }}
+        >
+          <TextField
+            label="Search setups"
+            name="q"
+            type="search"
+            defaultValue={q}
+            hint="Name, venue or notes; press Enter."
+          />
+        </form>
+        <Button onClick={() => setSaving(true)}>Save a setup</Button>
+      </div>
+      {actionError ? (
+        <Notice tone="fault" className="mb-4">
+          {actionError}
+        </Notice>
+      ) : null}
+      {setups.isPending ? (
+        <PageLoading />
+      ) : setups.isError ? (
+        <Notice tone="fault">{problemMessage(setups.error)}</Notice>
+      ) : (
+        <DataTable
+          caption="Saved setups"
+          columns={columns}
+          data={setups.data.data}
+          getRowId={(s) => s.id}
+          empty={q ? `No setups match “${q}”.` : 'No saved setups yet.'}
+          footer={<CursorPager nextCursor={setups.data.nextCursor} label="Setups" />}
+        />
+      )}
+      <SaveSetupDialog open={saving} onClose={() => setSaving(false)} />
+      <ConfirmDialog
+        open={deleting !== null}
+        title={`Delete “${deleting?.name ?? ''}”?`}
+        description="The setup and its shot sheet are removed for everyone in the studio."
+        confirmLabel="Delete setup"
+        pending={remove.isPending}
+        error={remove.isError ? problemMessage(remove.error) : null}
+        onClose={closeDelete}
+        onConfirm={() => deleting && remove.mutate(deleting.id, { onSuccess: closeDelete })}
+      />
+    </>
+  );
+}

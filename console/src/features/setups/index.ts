@@ -1,0 +1,1 @@
+export { SetupsPage } from './components/setups-page';

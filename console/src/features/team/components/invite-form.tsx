@@ -1,0 +1,74 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { z } from 'zod';
+import { Button } from '@/components/ui/button';
+import { Notice } from '@/components/ui/notice';
+import { SelectField } from '@/components/ui/select-field';
+import { TextField } from '@/components/ui/text-field';
+import { applyServerErrors } from '@/lib/form-errors';
+import { useCreateInvite } from '../api/team';
+import { roleOptions } from './roles';
+
+export const inviteSchema = z.object({
+  email: z.email('Enter the address to send the invitation to'),
+  role: z.enum(['owner', 'admin', 'developer', 'photographer']),
+});
+type InviteValues = z.infer<typeof inviteSchema>;
+
+export function InviteForm({ canGrantOwner }: { canGrantOwner: boolean }) {
+  const create = useCreateInvite();
+  const [formError, setFormError] = useState<string | null>(null);
+  const [sentTo, setSentTo] = useState<string | null>(null);
+  const {
+    register,
+    handleSubmit,
+    setError,
+    reset,
+    formState: { errors, isSubmitting },
+  } = useForm<InviteValues>({
+    resolver: zodResolver(inviteSchema),
+    defaultValues: { email: '', role: 'photographer' },
+  });
+
+  const onSubmit = handleSubmit(async (values) => {
+    setFormError(null);
+    setSentTo(null);
+    try {
+      await create.mutateAsync(values);
+      setSentTo(values.email);
+      reset();
+    } catch (error) {
+      setFormError(applyServerErrors(error, ['email', 'role'], setError).formMessage);
+    }
+  });
+
+  return (
+    <form
+      noValidate
+      onSubmit={onSubmit}
+      className="grid gap-4 sm:grid-cols-[2fr_1fr_auto] sm:items-start"
+    >
+      <TextField label="Email" type="email" error={errors.email?.message} {...register('email')} />
+      <SelectField
+        label="Role"
+        options={roleOptions(canGrantOwner)}
+        error={errors.role?.message}
+        {...register('role')}
+      />
+      <Button type="submit" disabled={isSubmitting} className="sm:mt-6">
+        Send invitation
+      </Button>
+      {formError ? (
+        <Notice tone="fault" className="sm:col-span-3">
+          {formError}
+        </Notice>
+      ) : null}
+      {sentTo ? (
+        <Notice tone="ok" className="sm:col-span-3">
+          Invitation sent to {sentTo}. The link is valid for 7 days.
+        </Notice>
+      ) : null}
+    </form>
+  );
+}

@@ -1,0 +1,1 @@
+export { TeamPage } from './components/team-page';

@@ -1,0 +1,207 @@
+import { useSearchParams } from 'react-router-dom';
+import { Card } from '@/components/ui/card';
+import { CursorPager } from '@/components/ui/cursor-pager';
+import { DataTable, type DataColumn } from '@/components/ui/data-table';
+import { Notice } from '@/components/ui/notice';
+import { PageLoading } from '@/components/ui/page-loading';
+import { problemMessage } from '@/lib/form-errors';
+import { formatCount, formatDateTime } from '@/lib/format';
+import {
+  ENDPOINTS,
+  usageCsvHref,
+  useUsageEvents,
+  useUsageSummary,
+  type UsageEvent,
+  type UsageSummary,
+} from '../api/usage';
+import { daysBetween, filterFromParams, rangeFromParams } from '../filters';
+import { CallsChart, toDayBars } from './calls-chart';
+import { firstPageParams } from '@/lib/pagination';
+
+const eventColumns: DataColumn<UsageEvent>[] = [
+  { id: 'when', header: 'When', accessorFn: (e) => formatDateTime(e.occurredAt) },
+  { id: 'endpoint', header: 'Endpoint', accessorFn: (e) => e.endpoint },
+  {
+    id: 'status',
+    header: 'Status',
+    cell: ({ row }) => (
+      <span className={row.original.status >= 400 ? 'font-semibold text-fault' : ''}>
+        {row.original.status}
+      </span>
+    ),
+  },
+  { id: 'source', header: 'Source', accessorFn: (e) => e.source },
+  { id: 'key', header: 'Key', accessorFn: (e) => (e.keyId ? e.keyId.slice(0, 8) : '—') },
+  { id: 'latency', header: 'Latency (ms)', accessorFn: (e) => e.latencyMs },
+  { id: 'units', header: 'Billable', accessorFn: (e) => e.billableUnits },
+];
+
+type EndpointRow = UsageSummary['byEndpoint'][number];
+const endpointColumns: DataColumn<EndpointRow>[] = [
+  { id: 'endpoint', header: 'Endpoint', accessorFn: (r) => r.endpoint },
+  { id: 'calls', header: 'Calls', accessorFn: (r) => formatCount(r.calls) },
+  { id: 'errors', header: 'Errors', accessorFn: (r) => formatCount(r.errors) },
+  { id: 'units', header: 'Billable', accessorFn: (r) => formatCount(r.billableUnits) },
+  {
+    id: 'latency',
+    header: 'Mean latency (ms)',
+    accessorFn: (r) => (r.meanLatencyMs === null ? '—' : r.meanLatencyMs.toFixed(1)),
+  },
+];
+
+const controlClass =
+  'rounded-control border border-edge-strong bg-panel px-3 py-2 text-body text-ink';
+
+export function UsagePage() {
+  const [params, setParams] = useSearchParams();
+  const range = rangeFromParams(params);
+  const filter = filterFromParams(params);
+  const summary = useUsageSummary(range);
+  const events = useUsageEvents(filter);
+
+  const applyFilters = (form: HTMLFormElement) => {
+    const data = new FormData(form);
+    const next = firstPageParams(params);
+    for (const name of ['from', 'to', 'endpoint', 'status', 'keyId']) {
+      const value = data.get(name);
+      if (typeof value === 'string' && value.trim()) next.set(name, value.trim());
+      else next.delete(name);
+    }
+    setParams(next);
+  };
+
+  return (
+    <div className="flex flex-col gap-6">
+      <form
+        aria-label="Usage filters"
+        key={params.toString()}
+        className="grid gap-3 sm:grid-cols-3 lg:grid-cols-6 lg:items-end"
+        onSubmit={(event) => {
+          event.preventDefault();
+          applyFilters(event.currentTarget);
+        }}
+      >
+        <label className="flex flex-col gap-1 text-small font-medium">
+          From (UTC day)
+          <input
+            type="date"
+            name="from"
+            defaultValue={params.get('from') ?? ''}
+            className={controlClass}
+          />
+        </label>
+        <label className="flex flex-col gap-1 text-small font-medium">
+          To (UTC day)
+          <input
+            type="date"
+            name="to"
+            defaultValue={params.get('to') ?? ''}
+            className={controlClass}
+          />
+        </label>
+        <label className="flex flex-col gap-1 text-small font-medium">
+          Endpoint
+          <select
+            name="endpoint"
+            defaultValue={params.get('endpoint') ?? ''}
+            className={controlClass}
+          >
+            <option value="">All</option>
+            {ENDPOINTS.map((endpoint) => (
+              <option key={endpoint} value={endpoint}>
+                {endpoint}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="flex flex-col gap-1 text-small font-medium">
+          Status
+          <input
+            name="status"
+            inputMode="numeric"
+            pattern="[1-5][0-9][0-9]"
+            placeholder="e.g. 429"
+            defaultValue={params.get('status') ?? ''}
+            className={controlClass}
+          />
+        </label>
+        <label className="flex flex-col gap-1 text-small font-medium">
+          Key id
+          <input name="keyId" defaultValue={params.get('keyId') ?? ''} className={controlClass} />
+        </label>
+        <div className="flex gap-2">
+          <button
+            type="submit"
+            className="rounded-control bg-accent px-4 py-2 font-medium text-on-accent"
+          >
+            Apply
+          </button>
+          <a
+            href={usageCsvHref(filter)}
+            download
+            className="rounded-control border border-edge-strong px-4 py-2 font-medium text-ink no-underline"
+          >
+            Export CSV
+          </a>
+        </div>
+      </form>
+
+      <Card aria-labelledby="usage-chart-heading">
+        <h2 id="usage-chart-heading" className="text-title font-semibold">
+          Calls by day
+        </h2>
+        {summary.isPending ? (
+          <PageLoading />
+        ) : summary.isError ? (
+          <Notice tone="fault">{problemMessage(summary.error)}</Notice>
+        ) : (
+          <>
+            <p className="mt-1 text-small text-ink-muted" data-testid="usage-total">
+              {formatCount(summary.data.totals.calls)} calls,{' '}
+              {formatCount(summary.data.totals.errors)} errors,{' '}
+              {formatCount(summary.data.totals.billableUnits)} billable, {summary.data.from} to{' '}
+              {summary.data.to}
+            </p>
+            <div className="mt-3">
+              <CallsChart
+                title="Calls by day"
+                days={toDayBars(
+                  summary.data.byDay,
+                  daysBetween(summary.data.from, summary.data.to),
+                )}
+              />
+            </div>
+            <h3 className="mt-6 mb-2 text-lead font-semibold">By endpoint</h3>
+            <DataTable
+              caption="Calls by endpoint"
+              columns={endpointColumns}
+              data={summary.data.byEndpoint}
+              getRowId={(r) => r.endpoint}
+              empty="No calls in this range."
+            />
+          </>
+        )}
+      </Card>
+
+      <section aria-labelledby="events-heading">
+        <h2 id="events-heading" className="mb-3 text-title font-semibold">
+          Calls
+        </h2>
+        {events.isPending ? (
+          <PageLoading />
+        ) : events.isError ? (
+          <Notice tone="fault">{problemMessage(events.error)}</Notice>
+        ) : (
+          <DataTable
+            caption="Calls"
+            columns={eventColumns}
+            data={events.data.data}
+            getRowId={(e) => e.id}
+            empty="No calls match these filters."
+            footer={<CursorPager nextCursor={events.data.nextCursor} label="Calls" />}
+          />
+        )}
+      </section>
+    </div>
+  );
+}

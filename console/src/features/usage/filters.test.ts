@@ -1,0 +1,66 @@
+import { describe, expect, it } from 'vitest';
+import { usageCsvHref } from './api/usage';
+import { niceCeiling, ticks } from './chart-scale';
+import { daysBetween, filterFromParams, nextDay, rangeFromParams } from './filters';
+
+describe('usage filters from the URL', () => {
+  it('keeps valid filters, drops malformed ones, and makes "to" exclusive', () => {
+    const filter = filterFromParams(
+      new URLSearchParams(
+        'endpoint=flash&status=429&from=2026-12-01&to=2026-12-31&keyId=k1&cursor=abc&bogus=1',
+      ),
+    );
+    expect(filter).toEqual({
+      limit: '50',
+      endpoint: 'flash',
+      status: '429',
+      from: '2026-12-01',
+      to: '2027-01-01',
+      keyId: 'k1',
+      cursor: 'abc',
+    });
+    expect(
+      filterFromParams(new URLSearchParams('endpoint=teleport&status=99&from=yesterday')),
+    ).toEqual({ limit: '50' });
+  });
+
+  it('nextDay crosses month and leap-day boundaries', () => {
+    expect(nextDay('2028-02-28')).toBe('2028-02-29');
+    expect(nextDay('2027-02-28')).toBe('2027-03-01');
+  });
+
+  it('the summary range passes only well-formed days', () => {
+    expect(rangeFromParams(new URLSearchParams('from=2026-12-01&to=soon'))).toEqual({
+      from: '2026-12-01',
+    });
+  });
+
+  it('daysBetween lists every day inclusive', () => {
+    expect(daysBetween('2026-11-29', '2026-12-02')).toEqual([
+      '2026-11-29',
+      '2026-11-30',
+      '2026-12-01',
+      '2026-12-02',
+    ]);
+  });
+
+  it('the CSV link carries the filters but not the page position', () => {
+    expect(usageCsvHref({ limit: '50', endpoint: 'flash', cursor: 'abc', status: '500' })).toBe(
+      '/v1/usage/events.csv?endpoint=flash&status=500',
+    );
+    expect(usageCsvHref({ limit: '50' })).toBe('/v1/usage/events.csv');
+  });
+});
+
+describe('chart scale', () => {
+  it('rounds the axis top up to 1, 2 or 5 × 10^n', () => {
+    expect([0, 1, 3, 7, 10, 11, 180, 201, 999].map(niceCeiling)).toEqual([
+      1, 1, 5, 10, 10, 20, 200, 500, 1000,
+    ]);
+  });
+
+  it('ticks are whole numbers from 0 to the top', () => {
+    expect(ticks(200)).toEqual([0, 50, 100, 150, 200]);
+    expect(ticks(1)).toEqual([0, 1]);
+  });
+});

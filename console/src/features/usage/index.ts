@@ -1,0 +1,2 @@
+export { OverviewUsage } from './components/overview-usage';
+export { UsagePage } from './components/usage-page';
