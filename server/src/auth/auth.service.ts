@@ -46,6 +46,14 @@ export class AuthService {
     meta: RequestMeta,
   ): Promise<SignedIn> {
     assertPassword(input.password, input);
+    // Mass account creation from one address is slowed down (OWASP API6).
+    const rule = {
+      key: 'signup:ip:' + sha256Hex(meta.ip ?? 'unknown'),
+      limit: this.config.signUpsPerIpPerHour,
+      windowSeconds: 3600,
+    };
+    const wait = await this.throttle.retryAfter([rule]);
+    if (wait > 0) throw throttled(wait);
     const passwordHash = await hashPassword(input.password);
     const result = await this.ds.transaction(async (m) => {
       if (await m.existsBy(UserEntity, { email: input.email })) throw emailTaken('email');
@@ -62,6 +70,7 @@ export class AuthService {
       });
       return { user, organization, role: 'owner' as const };
     });
+    await this.throttle.fail([rule]);
     await this.audit.record({
       organizationId: result.organization.id,
       action: 'auth.sign_up',

@@ -51,8 +51,9 @@ export class WebhookService {
         errors: [{ field: signature ? 'body' : 'Stripe-Signature', reason: 'is missing' }],
       });
     }
+    let event: Stripe.Event;
     try {
-      return this.payments.webhooks.constructEvent(
+      event = this.payments.webhooks.constructEvent(
         raw,
         signature,
         this.config.paymentsWebhookSecret,
@@ -63,6 +64,27 @@ export class WebhookService {
         errors: [{ field: 'Stripe-Signature', reason: (e as Error).message.slice(0, 200) }],
       });
     }
+    // A correctly signed body can still be malformed: refuse it (400) rather than fail later.
+    const e = event as Partial<Stripe.Event> | null;
+    const bad =
+      !e || typeof e !== 'object'
+        ? 'body'
+        : typeof e.id !== 'string' || !e.id
+          ? 'body.id'
+          : typeof e.type !== 'string'
+            ? 'body.type'
+            : typeof e.created !== 'number'
+              ? 'body.created'
+              : !e.data || typeof e.data.object !== 'object' || e.data.object === null
+                ? 'body.data.object'
+                : null;
+    if (bad) {
+      throw new BadRequestException({
+        message: 'The webhook event is malformed.',
+        errors: [{ field: bad, reason: 'is missing or has the wrong type' }],
+      });
+    }
+    return event;
   }
 
   async handle(

@@ -15,6 +15,8 @@ export interface AppConfig {
   smtpUrl: string | null;
   mailFrom: string;
   redisUrl: string | null;
+  /** Sign-ups accepted from one IP address per hour (abuse of account creation). */
+  signUpsPerIpPerHour: number;
   /** Metering and limits (compute API): see the usage and plans features. */
   rateLimitStore: 'memory' | 'postgres';
   usageFlushMs: number;
@@ -89,6 +91,13 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     smtpUrl,
     mailFrom: env.MAIL_FROM ?? 'Lumenwright <no-reply@lumenwright.test>',
     redisUrl: env.REDIS_URL ?? null,
+    signUpsPerIpPerHour: int(
+      env,
+      'SIGNUPS_PER_IP_PER_HOUR',
+      nodeEnv === 'test' ? 1_000_000 : 20,
+      1,
+      1_000_000,
+    ),
     rateLimitStore: rateLimitStore(env.RATE_LIMIT_STORE),
     usageFlushMs: int(env, 'USAGE_FLUSH_MS', 200, 10, 60_000),
     usageBatchSize: int(env, 'USAGE_BATCH_SIZE', 1000, 1, 10_000),

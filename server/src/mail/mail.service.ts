@@ -7,6 +7,7 @@ import {
   OnApplicationBootstrap,
   OnApplicationShutdown,
 } from '@nestjs/common';
+import { createCipheriv, createDecipheriv, hkdfSync, randomBytes } from 'node:crypto';
 import nodemailer, { Transporter } from 'nodemailer';
 import PgBoss from 'pg-boss';
 import { APP_CONFIG, AppConfig } from '../config/config.js';
@@ -15,6 +16,37 @@ import { MailTemplate, render } from './templates.js';
 export const MAIL_QUEUE = 'mail';
 
 export type MailJob = MailTemplate & { to: string };
+
+/**
+ * What the queue stores: the template name and recipient in clear (for operations), the data —
+ * which holds single-use links such as password-reset tokens — sealed with AES-256-GCM under a
+ * key derived from the session secret, so the job table never holds a usable token.
+ */
+interface QueuedMail {
+  template: MailJob['template'];
+  to: string;
+  sealed: string;
+}
+
+function mailKey(secret: string): Buffer {
+  return Buffer.from(hkdfSync('sha256', secret, 'lumenwright', 'mail-queue-v1', 32));
+}
+
+export function sealMail(job: MailJob, secret: string): QueuedMail {
+  const iv = randomBytes(12);
+  const c = createCipheriv('aes-256-gcm', mailKey(secret), iv);
+  const body = Buffer.concat([c.update(JSON.stringify(job.data), 'utf8'), c.final()]);
+  const sealed = Buffer.concat([iv, c.getAuthTag(), body]).toString('base64');
+  return { template: job.template, to: job.to, sealed };
+}
+
+export function unsealMail(q: QueuedMail, secret: string): MailJob {
+  const raw = Buffer.from(q.sealed, 'base64');
+  const d = createDecipheriv('aes-256-gcm', mailKey(secret), raw.subarray(0, 12));
+  d.setAuthTag(raw.subarray(12, 28));
+  const data = JSON.parse(Buffer.concat([d.update(raw.subarray(28)), d.final()]).toString('utf8'));
+  return { template: q.template, to: q.to, data } as MailJob;
+}
 
 @Injectable()
 export class MailService implements OnApplicationBootstrap, OnApplicationShutdown {
@@ -53,11 +85,12 @@ export class MailService implements OnApplicationBootstrap, OnApplicationShutdow
       : nodemailer.createTransport({ jsonTransport: true });
     // One job per handler call: a failure retries that message only (v10 hands over arrays).
     for (let i = 0; i < 2; i++) {
-      await boss.work<MailJob>(
+      await boss.work<QueuedMail>(
         MAIL_QUEUE,
         { batchSize: 1, pollingIntervalSeconds: this.config.nodeEnv === 'test' ? 0.5 : 2 },
         async (jobs) => {
-          for (const job of jobs) await this.deliver(job.data);
+          for (const job of jobs)
+            await this.deliver(unsealMail(job.data, this.config.sessionSecret));
         },
       );
     }
@@ -68,7 +101,11 @@ export class MailService implements OnApplicationBootstrap, OnApplicationShutdow
   async send(job: MailJob): Promise<void> {
     if (!this.boss) await this.started;
     if (!this.boss) throw new Error('The mail queue is not running');
-    await this.boss.send(MAIL_QUEUE, job, { retryLimit: 10, retryDelay: 5, retryBackoff: true });
+    await this.boss.send(MAIL_QUEUE, sealMail(job, this.config.sessionSecret), {
+      retryLimit: 10,
+      retryDelay: 5,
+      retryBackoff: true,
+    });
   }
 
   private async deliver(job: MailJob): Promise<void> {

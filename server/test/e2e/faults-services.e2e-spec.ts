@@ -5,7 +5,6 @@ import { randomBytes } from 'node:crypto';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import request from 'supertest';
 import type { DataSource } from 'typeorm';
 import { signUp, type SignedInAgent } from '../factories/accounts.js';
 import { buyer, eventually, fakeApi } from '../factories/billing.js';

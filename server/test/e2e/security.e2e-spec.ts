@@ -27,8 +27,13 @@ describe('security', () => {
   let owner: SignedInAgent;
 
   beforeAll(async () => {
+    // Earlier suites signed up many accounts from 127.0.0.1 into this database: start clean.
+    const pre = await openDataSource();
+    await pre.query(`DELETE FROM auth_throttle WHERE key LIKE 'signup:%'`);
+    await pre.destroy();
     t = await bootApp({
       CORS_ORIGINS: CONSOLE_ORIGIN,
+      SIGNUPS_PER_IP_PER_HOUR: '8',
       // Storage and payments are "configured" at addresses where nothing listens: every check
       // below is decided before either service would be called.
       S3_ENDPOINT: 'http://127.0.0.1:9',

@@ -17,6 +17,8 @@ export async function bootApp(env: Record<string, string> = {}): Promise<TestApp
     DATABASE_URL: process.env.TEST_DATABASE_URL!,
     LOG_LEVEL: 'silent',
     PORT: '0',
+    // One secret for every instance in a run, so any instance can open queued mail.
+    SESSION_SECRET: 'test-session-secret-for-every-instance-0123456789',
     ...env,
   });
   await migrate();

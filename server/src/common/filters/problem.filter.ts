@@ -53,6 +53,37 @@ const SLUG: Record<number, string> = {
   503: 'unavailable',
 };
 
+const DB_DOWN_CODES = new Set([
+  'ECONNREFUSED',
+  'ECONNRESET',
+  'EPIPE',
+  '57P01',
+  '57P02',
+  '57P03',
+  '53300',
+]);
+const DB_DOWN_MESSAGE =
+  /Connection terminated|connect ECONNREFUSED|timeout exceeded when trying to connect|Connection is not established|terminating connection|Client has encountered a connection error/i;
+
+/** True when the error means PostgreSQL can't be reached right now (not a bad query). */
+export function isDatabaseUnavailable(err: unknown, depth = 0): boolean {
+  if (!err || typeof err !== 'object' || depth > 3) return false;
+  const e = err as { code?: unknown; message?: unknown; driverError?: unknown; cause?: unknown };
+  const code = typeof e.code === 'string' ? e.code : '';
+  if (DB_DOWN_CODES.has(code) || /^08/.test(code)) return true;
+  if (typeof e.message === 'string' && DB_DOWN_MESSAGE.test(e.message)) return true;
+  return (
+    isDatabaseUnavailable(e.driverError, depth + 1) || isDatabaseUnavailable(e.cause, depth + 1)
+  );
+}
+
+function unavailable(detail: string): { problem: Problem; headers: Record<string, string> } {
+  return {
+    problem: { type: PROBLEM_BASE + 'unavailable', title: TITLES[503]!, status: 503, detail },
+    headers: { 'Retry-After': '5' },
+  };
+}
+
 /** Turns anything thrown into a Problem (pure; exported for unit tests). */
 export function toProblem(err: unknown): { problem: Problem; headers: Record<string, string> } {
   if (err instanceof DomainError) {
@@ -78,17 +109,34 @@ export function toProblem(err: unknown): { problem: Problem; headers: Record<str
         : typeof (body as { message?: unknown }).message === 'string'
           ? (body as { message: string }).message
           : err.message;
-    const errors = (body as { errors?: FieldProblem[] }).errors;
+    let errors = (body as { errors?: FieldProblem[] }).errors;
+    // A body Fastify could not parse: name the field, as every other 400 does.
+    if (!errors && (status === 400 || status === 415)) errors = [{ field: 'body', reason: detail }];
+    // Health checks (terminus) carry the state of each dependency: keep it.
+    const checks = (body as { details?: Record<string, unknown> }).details;
+    const down = checks
+      ? Object.entries(checks)
+          .filter(([, v]) => (v as { status?: string }).status !== 'up')
+          .map(([k]) => k)
+      : [];
     return {
       problem: {
         type: PROBLEM_BASE + (SLUG[status] ?? 'error'),
         title: TITLES[status] ?? 'Error',
         status,
-        detail,
+        detail: down.length ? `Down: ${down.join(', ')}.` : detail,
         ...(errors ? { errors } : {}),
+        ...(checks ? { checks } : {}),
       },
-      headers: {},
+      headers: status === 503 ? { 'Retry-After': '5' } : {},
     };
+  }
+  if (isDatabaseUnavailable(err)) {
+    return unavailable('The database is not answering; try again in a few seconds.');
+  }
+  const typed = err as { type?: unknown; name?: unknown };
+  if (typed?.type === 'StripeConnectionError' || typed?.name === 'StripeConnectionError') {
+    return unavailable('The payments service is not answering; try again in a few minutes.');
   }
   // Fastify's own errors (body too large, bad JSON, bad content type) carry statusCode.
   const e = err as { statusCode?: number; code?: string; message?: string };
