@@ -45,13 +45,22 @@ export async function openBrowser(
   const allowed = new Set(opts.allowStatuses ?? []);
   page.on('console', (message) => {
     if (message.type() !== 'error') return;
-    // Chromium logs every non-2xx fetch as a console error; expected ones are allowed by status.
-    const text = message.text();
-    const status = /status of (\d{3})/.exec(text)?.[1];
-    if (status && allowed.has(Number(status))) return;
-    errors.push(`console: ${text}`);
+    // Chromium also logs each non-2xx response here; those are checked below, with their URL.
+    if (message.text().startsWith('Failed to load resource')) return;
+    errors.push(`console: ${message.text()}`);
   });
   page.on('pageerror', (error) => errors.push(`pageerror: ${error.message}`));
+  page.on('response', (response) => {
+    if (response.status() < 400 || allowed.has(response.status())) return;
+    const request = response.request();
+    const entry = `http ${response.status()}: ${request.method()} ${response.url()}`;
+    errors.push(entry);
+    // The problem body helps when a test fails; it is logged, not compared.
+    response
+      .text()
+      .then((body) => console.error(`${entry} -> ${body.slice(0, 400)}`))
+      .catch(() => undefined);
+  });
   return {
     context,
     page,

@@ -33,7 +33,8 @@ export function DataTable<Row extends RowData>({
   const rows = table.getRowModel().rows;
   return (
     <div>
-      <div className="overflow-x-auto rounded-card border border-edge">
+      {/* relative: keeps sr-only cells (absolutely positioned) inside the scroll box on phones */}
+      <div className="relative overflow-x-auto rounded-card border border-edge">
         <table className="w-full border-collapse text-left text-small">
           <caption className="sr-only">{caption}</caption>
           <thead className="bg-raised">
