@@ -268,7 +268,7 @@ export interface paths {
     };
     get?: never;
     put?: never;
-    /** Solve shutter, aperture or ISO for a scene EV (APEX). */
+    /** Solve shutter, aperture or ISO for a scene EV (APEX), or the background exposure at dusk. */
     post: operations['solveExposure'];
     delete?: never;
     options?: never;
@@ -1226,9 +1226,14 @@ export interface components {
        */
       distanceUnit: 'm' | 'ft';
       /** @description Where the beam reaches the ground, measured from the subject toward the light. */
-      groundSpill: Record<string, never>[];
+      groundSpill: {
+        /** @description Near edge. */
+        from?: number;
+        /** @description Far edge (null: beyond). */
+        to?: number | null;
+      } | null;
       /** @description Peak ground illuminance relative to the rim, stops (+ = ground brighter). */
-      groundVsRimStops?: number[];
+      groundVsRimStops?: number | null;
       /** @description Direction from the light to the head, degrees of elevation. */
       headDirectionDeg?: number;
       /**
@@ -1675,23 +1680,87 @@ export interface components {
        * @example 4
        */
       aperture?: number;
+      /** @description Background mode: narrowest f-number when aperture is solved (default 22). */
+      apertureMax?: number;
+      /** @description Background mode: widest f-number when aperture is solved (default 1.4). */
+      apertureMin?: number;
+      /**
+       * @description Background mode: stops brighter (+) or darker (-) than metered, -6..6.
+       * @example -1
+       */
+      biasStops?: number;
       /**
        * @description Scene or incident exposure value at ISO 100, EV (-10..25).
        * @example 9
        */
-      ev100: number;
+      ev100?: number;
+      /**
+       * @description Background mode: flash sync speed, s (e.g. 0.005 for 1/200).
+       * @example 0.005
+       */
+      flashSyncSeconds?: number;
       /**
        * @description ISO speed (3..409600).
        * @example 400
        */
       iso?: number;
       /**
-       * @description Shutter time, seconds (1/64000..3600).
+       * @description Background mode: highest ISO the solver may use (default 6400).
+       * @example 3200
+       */
+      isoMax?: number;
+      /**
+       * @description Background mode: lowest ISO the solver may use (default 100).
+       * @example 100
+       */
+      isoMin?: number;
+      /** @description Background mode: estimate the ambient EV100 here (USNO Circular 171 model). */
+      place?: {
+        /**
+         * @description Degrees, -90..90.
+         * @example 51.5
+         */
+        latitude?: number;
+        /**
+         * @description Degrees, -180..180.
+         * @example -0.1
+         */
+        longitude?: number;
+        /**
+         * @description Sky condition.
+         * @example clear
+         * @enum {string}
+         */
+        sky?: 'clear' | 'partly-cloudy' | 'overcast';
+        /**
+         * @description ISO 8601 instant with offset.
+         * @example 2026-06-21T21:40:00+01:00
+         */
+        time?: string;
+      };
+      /**
+       * @description Shutter time, seconds (1/64000..3600); plain mode only.
        * @example 0.0125
        */
       shutterSeconds?: number;
+      /** @description Background mode: slowest hand-held shutter, s (default 1/60). */
+      slowestHandheldSeconds?: number;
+      /** @description Background mode: slowest tripod shutter, s (default 30). */
+      slowestTripodSeconds?: number;
+      /**
+       * @description Background mode: camera support.
+       * @example handheld
+       * @enum {string}
+       */
+      support?: 'handheld' | 'tripod';
     };
     ExposureResponseDto: {
+      /**
+       * @description Background mode: where ev100 came from.
+       * @example place
+       * @enum {string}
+       */
+      ambientSource?: 'ev100' | 'place';
       /**
        * @description Exact f-number.
        * @example 4
@@ -1702,6 +1771,8 @@ export interface components {
        * @example f/4
        */
       apertureLabel?: string;
+      /** @description Background mode: the bias applied, stops. */
+      biasStops?: number;
       /**
        * @description Settings EV at the chosen ISO, log2(N²/t).
        * @example 11
@@ -1712,6 +1783,10 @@ export interface components {
        * @example 9
        */
       ev100: number;
+      /** @description Background mode: the shutter is faster than the flash sync speed. */
+      exceedsSync?: boolean;
+      /** @description Background mode: flash power lost to high-speed sync, stops. */
+      hssLossStops?: number | null;
       /**
        * @description ISO speed.
        * @example 400
@@ -1722,6 +1797,10 @@ export interface components {
        * @example 400
        */
       isoLabel?: string;
+      /** @description Background mode: ND strength that brings the shutter to sync. */
+      ndStopsForSync?: number | null;
+      /** @description Background mode: the shutter is slower than the hand-held limit. */
+      needsTripod?: boolean;
       /** @description Nearest third-stop settings and the exposure error they leave. */
       nominal?: {
         /** @description Nominal f-number. */
@@ -1733,6 +1812,8 @@ export interface components {
         /** @description Nominal shutter time, seconds. */
         shutterSeconds?: number;
       };
+      /** @description Background mode: exposure the limits could not reach, stops. */
+      shortfallStops?: number;
       /**
        * @description Shutter time as printed on a camera, e.g. "1/80".
        * @example 1/80
@@ -1749,6 +1830,8 @@ export interface components {
        * @enum {string}
        */
       solvedFor: 'shutterSeconds' | 'aperture' | 'iso' | 'none';
+      /** @description Background mode: the EV100 the settings expose for (ev100 - biasStops). */
+      targetEv100?: number;
       /** @description Things to look at: a stable code and a sentence for people. */
       warnings?: {
         /** @description Stable warning code. */
@@ -1831,7 +1914,7 @@ export interface components {
        * @description Stops the background sits below the subject (+ = darker).
        * @example 3.85
        */
-      subjectToBackgroundStops: number[];
+      subjectToBackgroundStops: number | null;
     };
     FlashRequestDto: {
       /**
@@ -1896,7 +1979,22 @@ export interface components {
        */
       feasible: boolean;
       /** @description When not feasible: each single change that would fix it (distances in distanceUnit). */
-      fixes?: Record<string, never>[];
+      fixes?: {
+        /** @description Distance to move back to (below minimum power). */
+        moveBackTo?: number;
+        /** @description Distance to move the light to. */
+        moveCloserTo?: number;
+        /** @description Stops to open up. */
+        openUpByStops?: number;
+        /** @description f-number that would work. */
+        openUpTo?: number;
+        /** @description Stops of ISO to add. */
+        raiseIsoByStops?: number;
+        /** @description ISO that would work. */
+        raiseIsoTo?: number;
+        /** @description f-number to stop down to (below minimum power). */
+        stopDownTo?: number;
+      } | null;
       /**
        * @description Fraction of full power needed (above 1 when not feasible).
        * @example 0.125
@@ -2084,7 +2182,7 @@ export interface components {
         width: number;
       }[];
       /** @description Pass as `cursor` for the next page; null on the last page. */
-      nextCursor: string[];
+      nextCursor: string | null;
     };
     FrameResponseDto: {
       /** @description Size of the original, bytes. */
@@ -2194,7 +2292,7 @@ export interface components {
         settingsEv100?: number | null;
       };
       /** @description The uploaded file name, if any. */
-      fileName: string[];
+      fileName: string | null;
       /** @description Upright height, pixels. */
       height: number;
       /**
@@ -3255,9 +3353,9 @@ export interface components {
     };
     SetupResponseDto: {
       /** @description Key falloff from subject to background, stops. */
-      backgroundFalloffStops?: number[];
+      backgroundFalloffStops?: number | null;
       /** @description Rim-light geometry, as /v1/backlight returns it. */
-      backlight?: Record<string, never>[];
+      backlight?: Record<string, never> | null;
       /** @description Safety cautions for the conditions (defer to local codes and venue rules). */
       cautions: Record<string, never>[];
       /** @description Chosen gels, their loss and the power compensation. */
@@ -3458,15 +3556,17 @@ export interface components {
         uncertaintyStops?: number;
       };
       /**
+       * Format: date-time
        * @description Astronomical dawn (18° below). ISO 8601 local time with offset, or null (see reasons).
        * @example null
        */
-      astronomicalDawn: string[];
+      astronomicalDawn: string | null;
       /**
+       * Format: date-time
        * @description Astronomical dusk (18° below). ISO 8601 local time with offset, or null (see reasons).
        * @example null
        */
-      astronomicalDusk: string[];
+      astronomicalDusk: string | null;
       /** @description Evening blue hour. */
       blueHour: {
         /**
@@ -3483,15 +3583,17 @@ export interface components {
         start?: string | null;
       };
       /**
+       * Format: date-time
        * @description Civil dawn (sun 6° below the horizon). ISO 8601 local time with offset, or null (see reasons).
        * @example 2026-06-20T03:57:00+01:00
        */
-      civilDawn: string[];
+      civilDawn: string | null;
       /**
+       * Format: date-time
        * @description Civil dusk (sun 6° below the horizon). ISO 8601 local time with offset, or null (see reasons).
        * @example 2026-06-20T22:08:00+01:00
        */
-      civilDusk: string[];
+      civilDusk: string | null;
       /**
        * @description The local date.
        * @example 2026-06-20
@@ -3513,15 +3615,17 @@ export interface components {
         start?: string | null;
       };
       /**
+       * Format: date-time
        * @description Nautical dawn (12° below). ISO 8601 local time with offset, or null (see reasons).
        * @example null
        */
-      nauticalDawn: string[];
+      nauticalDawn: string | null;
       /**
+       * Format: date-time
        * @description Nautical dusk (12° below). ISO 8601 local time with offset, or null (see reasons).
        * @example 2026-06-20T23:18:00+01:00
        */
-      nauticalDusk: string[];
+      nauticalDusk: string | null;
       /** @description Notes, e.g. an event after local midnight. */
       notes?: string[];
       /**
@@ -3532,25 +3636,28 @@ export interface components {
        */
       reasons: Record<string, never>;
       /**
+       * Format: date-time
        * @description Solar noon. ISO 8601 local time with offset, or null (see reasons).
        * @example 2026-06-20T13:02:00+01:00
        */
-      solarNoon?: string[];
+      solarNoon?: string | null;
       /**
+       * Format: date-time
        * @description Sunrise. ISO 8601 local time with offset, or null (see reasons).
        * @example 2026-06-20T04:43:00+01:00
        */
-      sunrise: string[];
+      sunrise: string | null;
       /**
+       * Format: date-time
        * @description Sunset. ISO 8601 local time with offset, or null (see reasons).
        * @example 2026-06-20T21:21:00+01:00
        */
-      sunset: string[];
+      sunset: string | null;
       /**
        * @description Sun azimuth at sunset, degrees clockwise from north.
        * @example 310.9
        */
-      sunsetAzimuthDeg?: number[];
+      sunsetAzimuthDeg?: number | null;
       /**
        * @description The IANA time zone.
        * @example Europe/London
@@ -3691,7 +3798,7 @@ export interface components {
         userId: string | null;
       }[];
       /** @description Pass as cursor for the next page; null at the end. */
-      nextCursor: string[];
+      nextCursor: string | null;
     };
     UsageSummaryResponseDto: {
       byDay: {

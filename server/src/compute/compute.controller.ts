@@ -2,6 +2,7 @@ import { Body, Controller, Req } from '@nestjs/common';
 import { ApiTags } from '@nestjs/swagger';
 import type {
   BacklightInput,
+  BackgroundExposureInput,
   BalanceInput,
   DuskSetupInput,
   ExposureInput,
@@ -40,11 +41,14 @@ export class ComputeController {
 
   @ComputeRoute(
     'exposure',
-    'Solve shutter, aperture or ISO for a scene EV (APEX).',
+    'Solve shutter, aperture or ISO for a scene EV (APEX), or the background exposure at dusk.',
     exposure.ExposureRequestDto,
     exposure.ExposureResponseDto,
   )
-  solveExposure(@Body(new SchemaPipe(exposure.exposureRequestSchema)) body: ExposureInput) {
+  solveExposure(
+    @Body(new SchemaPipe(exposure.exposureRequestSchema))
+    body: ExposureInput | BackgroundExposureInput,
+  ) {
     return this.compute.exposure(body);
   }
 

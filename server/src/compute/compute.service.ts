@@ -8,16 +8,19 @@ import {
   LightingInputError,
   planDuskSetup,
   solveBalance,
+  solveBackgroundExposure,
   solveExposure,
   type BacklightInput,
   type BalanceInput,
   type DuskSetupInput,
+  type BackgroundExposureInput,
   type ExposureInput,
   type FalloffInput,
   type FlashInput,
   type TwilightInput,
 } from '@lumenwright/shared';
 import { DomainError } from '../common/errors/domain-error.js';
+import { BACKGROUND_FIELDS } from './schemas/exposure.schema.js';
 import { GearReferenceResolver, hasGearRefs } from '../gear/gear-reference.resolver.js';
 import type { GearRefs } from '../gear/gear-refs.schema.js';
 
@@ -60,7 +63,12 @@ export class ComputeService {
   }
 
   twilight = (input: TwilightInput) => run(() => computeTwilight(input));
-  exposure = (input: ExposureInput) => run(() => solveExposure(input));
+  exposure = (input: ExposureInput | BackgroundExposureInput) =>
+    run(() =>
+      BACKGROUND_FIELDS.some((f) => (input as Record<string, unknown>)[f] !== undefined)
+        ? solveBackgroundExposure(input as BackgroundExposureInput)
+        : solveExposure(input as ExposureInput),
+    );
   flash = (input: FlashInput) => run(() => computeFlash(input));
   falloff = (input: FalloffInput) => run(() => computeFalloff(input));
   backlight = (input: BacklightInput) => run(() => computeBacklight(input));

@@ -69,6 +69,26 @@ describe('compute API', () => {
     expect(typeof res.body.shutterLabel).toBe('string');
   });
 
+  it('switches to the background solver when constraints are sent, and warns past flash sync', async () => {
+    // APEX (ASA PH2.5-1960): t = N² / 2^EV. EV100 12 at f/4 ISO 100 → 16/4096 s = 1/256 s, which is
+    // faster than a 1/200 s sync, so high-speed sync or an ND filter is needed.
+    const res = await post(t.url, 'exposure', org.live.secret, {
+      ev100: 12,
+      aperture: 4,
+      iso: 100,
+      isoMin: 100,
+      isoMax: 100,
+      flashSyncSeconds: 1 / 200,
+    }).expect(200);
+    expect(res.body.ambientSource).toBe('ev100');
+    expect(res.body.shutterSeconds).toBeCloseTo(16 / 4096, 6);
+    expect(res.body.exceedsSync).toBe(true);
+    // The ND strength back to sync is log2((1/200) / (1/256)) stops [DER from the definition of a stop].
+    expect(res.body.ndStopsForSync).toBeCloseTo(Math.log2(256 / 200), 1);
+    const bad = await post(t.url, 'exposure', org.live.secret, { biasStops: -1 }).expect(422);
+    expect(bad.body.errors[0].field).toBe('ev100');
+  });
+
   it('explains missing events: no sunset at 78° N at the June solstice (midnight sun)', async () => {
     // Above the Arctic Circle the sun stays up around the June solstice (any astronomy text).
     const res = await post(t.url, 'twilight', org.live.secret, {

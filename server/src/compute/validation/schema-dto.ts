@@ -15,7 +15,17 @@ export function schemaDto(name: string, schema: ObjectSchema): new () => object 
   for (const [key, prop] of Object.entries(schema.properties)) {
     const { nullable: _nullable, ...rest } = prop;
     void _nullable;
-    ApiProperty({ ...(rest as Record<string, unknown>), required: required.has(key) })(
+    // A JSON-Schema type list such as ['string', 'null'] would read as "array of string" to the
+    // Swagger decorators: describe it as the non-null type, marked nullable.
+    const types = Array.isArray(rest.type) ? (rest.type as string[]) : null;
+    const typed = types
+      ? {
+          ...rest,
+          type: types.find((x) => x !== 'null') ?? 'string',
+          nullable: types.includes('null'),
+        }
+      : rest;
+    ApiProperty({ ...(typed as Record<string, unknown>), required: required.has(key) })(
       Dto.prototype,
       key,
     );
