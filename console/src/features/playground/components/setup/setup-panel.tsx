@@ -5,16 +5,33 @@ import {
   type DuskSetupPlan,
   type ModifierName,
 } from '@lumenwright/shared';
+import { useEffect, useRef, useState } from 'react';
+import { Link, useSearchParams } from 'react-router-dom';
 import { z } from 'zod';
+import { Button } from '@/components/ui/button';
+import { Notice } from '@/components/ui/notice';
 import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
+import { paths } from '@/config/paths';
+import { ApiProblem } from '@/lib/api';
+import { problemMessage } from '@/lib/form-errors';
+import { useSession, type Role } from '@/lib/session';
+import { useSavedSetup, type OpenedSetup } from '../../api/saved-setups';
 import { given, useCalculationForm } from '../../hooks/use-calculation-form';
 import type { DisplayUnit } from '../../hooks/use-length-unit';
 import { fixed } from '../../utils/format';
 import { CalculationResult } from '../calculation-result';
 import { FormGrid } from '../form-grid';
 import { modifierOptions } from '../flash/flash-panel';
-import { usePlaygroundScene, type SceneMoment, type SiteConditions } from '../playground-scene';
+import { usePlaygroundScene, type SiteConditions } from '../playground-scene';
+import { SaveSetupDialog } from './save-setup-dialog';
+import {
+  fromSetupInput,
+  savedConditions,
+  savedPlace,
+  unsupportedInputs,
+  type SavedPlace,
+} from './saved-inputs';
 import { SetupResultView } from './setup-result';
 
 const maybe = z.union([z.number(), z.nan()]).optional();
@@ -40,7 +57,7 @@ const schema = z.object({
   rimGelled: z.boolean(),
   backgroundDistance: maybe,
 });
-type SetupForm = z.infer<typeof schema>;
+export type SetupForm = z.infer<typeof schema>;
 
 const labels: Record<string, string> = {
   'camera.aperture': 'Aperture',
@@ -66,7 +83,7 @@ function compact<T extends object>(value: T): T {
 export function toSetupInput(
   form: SetupForm,
   unit: DisplayUnit,
-  moment: SceneMoment | null,
+  moment: SavedPlace | null,
   conditions: SiteConditions,
 ): DuskSetupInput | undefined {
   if (!moment) return undefined;
@@ -111,9 +128,36 @@ export function toSetupInput(
   return input;
 }
 
+/** Roles that may save setups (the server checks `setups:manage` too). */
+const SAVERS: readonly Role[] = ['owner', 'admin', 'photographer'];
+
+function openFailure(error: unknown): string {
+  if (error instanceof ApiProblem && error.status === 404)
+    return 'That saved setup was not found: it may have been deleted, or it belongs to another organisation.';
+  if (error instanceof ApiProblem && error.status === 403)
+    return 'Your role may not open saved setups. Ask an owner or admin.';
+  return `The saved setup could not be opened. ${problemMessage(error)}`;
+}
+
+function describe(setup: Pick<OpenedSetup, 'name' | 'venue' | 'date'>): string {
+  return `${setup.name} (${setup.venue ? `${setup.venue}, ` : ''}${setup.date})`;
+}
+
 export function SetupPanel() {
-  const { moment, conditions } = usePlaygroundScene();
-  const { form, unit, preview, numberField } = useCalculationForm<
+  const { moment, conditions, setConditions } = usePlaygroundScene();
+  const [params] = useSearchParams();
+  const setupId = params.get('setup');
+  const opened = useSavedSetup(setupId);
+  const openedInputs = opened.data ? (opened.data.resolvedInputs ?? opened.data.inputs) : undefined;
+  // A reopened setup brings its own place and date until the Twilight tab's are chosen instead.
+  const [sceneWins, setSceneWins] = useState(false);
+  const place: SavedPlace | null = openedInputs && !sceneWins ? savedPlace(openedInputs) : moment;
+  const role = useSession()?.role;
+  const maySave = role !== undefined && SAVERS.includes(role);
+  const [saving, setSaving] = useState(false);
+  const [saved, setSaved] = useState<OpenedSetup | null>(null);
+
+  const { form, unit, input, preview, numberField } = useCalculationForm<
     SetupForm,
     DuskSetupInput,
     DuskSetupPlan
@@ -141,121 +185,212 @@ export function SetupPanel() {
       backgroundDistance: 12,
     },
     lengthFields: ['keyDistance', 'rimDistanceBehind', 'rimHeight', 'backgroundDistance'],
-    toInput: (values, displayUnit) => toSetupInput(values, displayUnit, moment, conditions),
+    toInput: (values, displayUnit) => toSetupInput(values, displayUnit, place, conditions),
     compute: planDuskSetup,
   });
   const rimEnabled = form.watch('rimEnabled');
 
+  // Fill the form once per reopened setup (not again on refetch, so edits survive).
+  const filledFrom = useRef<string | null>(null);
+  useEffect(() => {
+    if (!opened.data || !openedInputs || filledFrom.current === opened.data.id) return;
+    filledFrom.current = opened.data.id;
+    form.reset(fromSetupInput(openedInputs, unit));
+    setConditions(savedConditions(openedInputs));
+  }, [opened.data, openedInputs, unit, form, setConditions]);
+  const leftOut = openedInputs ? unsupportedInputs(openedInputs) : [];
+
+  const fromSaved = !!openedInputs && !sceneWins;
+  const setupsLink = (
+    <Link to={paths.setups} className="font-medium text-accent underline">
+      Back to setups
+    </Link>
+  );
+
   return (
-    <div className="grid gap-6 lg:grid-cols-[minmax(16rem,22rem)_1fr]">
-      <form noValidate onSubmit={(event) => event.preventDefault()} className="flex flex-col gap-4">
-        <p className="rounded-card border border-edge bg-panel p-4 text-small text-ink-muted">
-          {moment
-            ? `Place and date from the Twilight tab: ${fixed(moment.latitude, 3)}°, ${fixed(moment.longitude, 3)}° on ${moment.date} (${moment.timeZone}), sky ${moment.sky}. Site conditions above set the cautions.`
-            : 'Set the place and date on the Twilight tab first.'}
-        </p>
-        <FormGrid legend="Camera">
-          <TextField label="Aperture (f/)" {...numberField('aperture', 'camera.aperture')} />
-          <TextField label="Highest ISO" {...numberField('isoMax', 'camera.isoMax')} />
-          <SelectField
-            label="Support"
-            options={[
-              { value: 'handheld', label: 'Hand-held' },
-              { value: 'tripod', label: 'Tripod' },
-            ]}
-            {...form.register('support')}
-          />
-          <TextField
-            label="Flash sync (1/x s)"
-            {...numberField('syncDenominator', 'camera.flashSyncSeconds')}
-          />
-          <TextField
-            label="Background bias (stops)"
-            {...numberField('biasStops', 'camera.biasStops')}
-          />
-          <TextField label="White balance (K)" {...numberField('kelvin', 'camera.kelvin')} />
-        </FormGrid>
-        <FormGrid legend="Key light">
-          <TextField label="Guide number" {...numberField('keyGuideNumber', 'key.guideNumber')} />
-          <SelectField
-            label="Guide numbers in"
-            options={[
-              { value: 'm', label: 'metres' },
-              { value: 'ft', label: 'feet' },
-            ]}
-            {...form.register('guideNumberUnit')}
-          />
-          <TextField label={`Distance (${unit})`} {...numberField('keyDistance', 'key.distance')} />
-          <TextField
-            label="Angle from camera (°)"
-            {...numberField('keyAngle', 'key.angleFromCameraDeg')}
-          />
-          <SelectField
-            label="Modifier"
-            className="col-span-2"
-            options={modifierOptions}
-            {...form.register('modifier')}
-          />
-          <TextField
-            label={`Key to background (${unit})`}
-            hint="Optional"
-            className="col-span-2"
-            {...numberField('backgroundDistance')}
-          />
-        </FormGrid>
-        <FormGrid legend="Rim light">
-          <label className="col-span-2 flex items-center gap-2 text-small font-medium">
-            <input
-              type="checkbox"
-              className="size-4 accent-(--color-accent)"
-              {...form.register('rimEnabled')}
-            />
-            Use a rim light behind the subject
-          </label>
-          {rimEnabled ? (
-            <>
-              <TextField
-                label="Guide number"
-                {...numberField('rimGuideNumber', 'rim.guideNumber')}
-              />
-              <TextField
-                label={`Behind subject (${unit})`}
-                {...numberField('rimDistanceBehind', 'rim.distanceBehind')}
-              />
-              <TextField
-                label={`Height (${unit})`}
-                {...numberField('rimHeight', 'rim.lightHeight')}
-              />
-              <SelectField
-                label="Beam"
-                options={[
-                  { value: '100', label: 'Bare' },
-                  { value: '40', label: '40° grid' },
-                  { value: '30', label: '30° grid' },
-                  { value: '20', label: '20° grid' },
-                  { value: '10', label: '10° grid' },
-                ]}
-                {...form.register('rimBeam')}
-              />
-              <TextField
-                label="Rim over key (stops)"
-                {...numberField('rimOverKeyStops', 'rim.rimOverKeyStops')}
-              />
-              <label className="flex items-center gap-2 self-end pb-2 text-small">
-                <input
-                  type="checkbox"
-                  className="size-4 accent-(--color-accent)"
-                  {...form.register('rimGelled')}
-                />
-                Gel like the key
-              </label>
-            </>
+    <div className="flex flex-col gap-4">
+      {setupId && opened.isPending ? <Notice>Opening the saved setup…</Notice> : null}
+      {setupId && opened.isError ? (
+        <Notice tone="fault">
+          {openFailure(opened.error)} {setupsLink}
+        </Notice>
+      ) : null}
+      {opened.data ? (
+        <Notice tone="ok">
+          Opened saved setup {describe(opened.data)}. {setupsLink}
+          {leftOut.length ? (
+            <span className="mt-1 block text-ink-muted">
+              Saved values with no field here, left out of this preview: {leftOut.join(', ')}.
+            </span>
           ) : null}
-        </FormGrid>
-      </form>
-      <CalculationResult calculation="setup" preview={preview} fieldLabels={labels}>
-        {(plan, input) => <SetupResultView plan={plan} input={input} />}
-      </CalculationResult>
+        </Notice>
+      ) : null}
+      {saved ? (
+        <Notice tone="ok">
+          Saved setup {describe(saved)}.{' '}
+          <Link to={paths.setups} className="font-medium text-accent underline">
+            See it in Setups
+          </Link>
+        </Notice>
+      ) : null}
+      <div className="grid gap-6 lg:grid-cols-[minmax(16rem,22rem)_1fr]">
+        <form
+          noValidate
+          onSubmit={(event) => event.preventDefault()}
+          className="flex flex-col gap-4"
+        >
+          <div className="rounded-card border border-edge bg-panel p-4 text-small text-ink-muted">
+            {place
+              ? `Place and date from ${fromSaved ? 'the saved setup' : 'the Twilight tab'}: ${fixed(place.latitude, 3)}°, ${fixed(place.longitude, 3)}° on ${place.date} (${place.timeZone}), sky ${place.sky}. Site conditions above set the cautions.`
+              : 'Set the place and date on the Twilight tab first.'}
+            {fromSaved && moment ? (
+              <Button variant="quiet" className="mt-2 px-0 py-0" onClick={() => setSceneWins(true)}>
+                Use the Twilight tab’s place instead
+              </Button>
+            ) : null}
+          </div>
+          {maySave ? (
+            <div className="flex items-center gap-3">
+              <Button
+                variant="secondary"
+                disabled={!input}
+                onClick={() => {
+                  setSaved(null);
+                  setSaving(true);
+                }}
+              >
+                Save setup
+              </Button>
+              {!input ? (
+                <span className="text-small text-ink-muted">Complete the inputs to save.</span>
+              ) : null}
+            </div>
+          ) : null}
+          <FormGrid legend="Camera">
+            <TextField label="Aperture (f/)" {...numberField('aperture', 'camera.aperture')} />
+            <TextField label="Highest ISO" {...numberField('isoMax', 'camera.isoMax')} />
+            <SelectField
+              label="Support"
+              options={[
+                { value: 'handheld', label: 'Hand-held' },
+                { value: 'tripod', label: 'Tripod' },
+              ]}
+              {...form.register('support')}
+            />
+            <TextField
+              label="Flash sync (1/x s)"
+              {...numberField('syncDenominator', 'camera.flashSyncSeconds')}
+            />
+            <TextField
+              label="Background bias (stops)"
+              {...numberField('biasStops', 'camera.biasStops')}
+            />
+            <TextField label="White balance (K)" {...numberField('kelvin', 'camera.kelvin')} />
+          </FormGrid>
+          <FormGrid legend="Key light">
+            <TextField label="Guide number" {...numberField('keyGuideNumber', 'key.guideNumber')} />
+            <SelectField
+              label="Guide numbers in"
+              options={[
+                { value: 'm', label: 'metres' },
+                { value: 'ft', label: 'feet' },
+              ]}
+              {...form.register('guideNumberUnit')}
+            />
+            <TextField
+              label={`Distance (${unit})`}
+              {...numberField('keyDistance', 'key.distance')}
+            />
+            <TextField
+              label="Angle from camera (°)"
+              {...numberField('keyAngle', 'key.angleFromCameraDeg')}
+            />
+            <SelectField
+              label="Modifier"
+              className="col-span-2"
+              options={modifierOptions}
+              {...form.register('modifier')}
+            />
+            <TextField
+              label={`Key to background (${unit})`}
+              hint="Optional"
+              className="col-span-2"
+              {...numberField('backgroundDistance')}
+            />
+          </FormGrid>
+          <FormGrid legend="Rim light">
+            <label className="col-span-2 flex items-center gap-2 text-small font-medium">
+              <input
+                type="checkbox"
+                className="size-4 accent-(--color-accent)"
+                {...form.register('rimEnabled')}
+              />
+              Use a rim light behind the subject
+            </label>
+            {rimEnabled ? (
+              <>
+                <TextField
+                  label="Guide number"
+                  {...numberField('rimGuideNumber', 'rim.guideNumber')}
+                />
+                <TextField
+                  label={`Behind subject (${unit})`}
+                  {...numberField('rimDistanceBehind', 'rim.distanceBehind')}
+                />
+                <TextField
+                  label={`Height (${unit})`}
+                  {...numberField('rimHeight', 'rim.lightHeight')}
+                />
+                <SelectField
+                  label="Beam"
+                  options={[
+                    { value: '100', label: 'Bare' },
+                    { value: '40', label: '40° grid' },
+                    { value: '30', label: '30° grid' },
+                    { value: '20', label: '20° grid' },
+                    { value: '10', label: '10° grid' },
+                  ]}
+                  {...form.register('rimBeam')}
+                />
+                <TextField
+                  label="Rim over key (stops)"
+                  {...numberField('rimOverKeyStops', 'rim.rimOverKeyStops')}
+                />
+                <label className="flex items-center gap-2 self-end pb-2 text-small">
+                  <input
+                    type="checkbox"
+                    className="size-4 accent-(--color-accent)"
+                    {...form.register('rimGelled')}
+                  />
+                  Gel like the key
+                </label>
+              </>
+            ) : null}
+          </FormGrid>
+        </form>
+        <CalculationResult calculation="setup" preview={preview} fieldLabels={labels}>
+          {(plan, input) => <SetupResultView plan={plan} input={input} />}
+        </CalculationResult>
+      </div>
+      {maySave && input ? (
+        <SaveSetupDialog
+          open={saving}
+          onClose={() => setSaving(false)}
+          input={input}
+          initial={
+            opened.data
+              ? {
+                  venue: opened.data.venue ?? '',
+                  notes: opened.data.notes ?? '',
+                }
+              : undefined
+          }
+          onSaved={(setup) => {
+            setSaving(false);
+            setSaved(setup);
+          }}
+        />
+      ) : null}
     </div>
   );
 }

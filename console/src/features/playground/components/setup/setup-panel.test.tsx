@@ -1,0 +1,253 @@
+import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
+import { fireEvent, render, screen, waitFor, within } from '@testing-library/react';
+import { MemoryRouter } from 'react-router-dom';
+import { beforeEach, describe, expect, it, vi } from 'vitest';
+import { SessionContext, type Session } from '@/lib/session';
+import { demoSession } from '@/test/api-stub';
+import { jsonResponse } from '@/test/responses';
+import { Playground } from '../playground';
+
+const SETUP_ID = '3f1c2a9e-7b4d-4e2a-9c1f-5a6b7c8d9e01';
+
+/** An invented saved setup: a lakeside terrace at an invented venue. */
+const savedInputs = {
+  latitude: 47.1,
+  longitude: 8.2,
+  date: '2026-06-20',
+  timeZone: 'Europe/Zurich',
+  sky: 'partly-cloudy',
+  camera: { aperture: 4, isoMax: 3200, support: 'tripod', flashSyncSeconds: 0.004, kelvin: 4000 },
+  key: {
+    guideNumber: 45,
+    guideNumberUnit: 'm',
+    distance: 3,
+    distanceUnit: 'm',
+    angleFromCameraDeg: 50,
+    modifier: 'bare',
+  },
+  rim: {
+    guideNumber: 36,
+    guideNumberUnit: 'm',
+    distanceBehind: 10,
+    lightHeight: 5,
+    distanceUnit: 'ft',
+    beamAngleDeg: 20,
+    rimOverKeyStops: 0.5,
+    gelled: false,
+  },
+  backgroundDistance: 15,
+  conditions: { nearWater: true },
+};
+
+const savedSetup = {
+  id: SETUP_ID,
+  name: 'Boathouse couple',
+  venue: 'Quillmere boathouse terrace',
+  notes: null,
+  date: '2026-06-20',
+  timeZone: 'Europe/Zurich',
+  windowStart: null,
+  windowEnd: null,
+  createdBy: null,
+  createdAt: '2026-05-01T10:00:00Z',
+  updatedAt: '2026-05-01T10:00:00Z',
+  inputs: savedInputs,
+  resolvedInputs: savedInputs,
+  plan: {},
+};
+
+interface Call {
+  method: string;
+  path: string;
+  body: unknown;
+}
+type Responder = (call: Call) => Response;
+let respond: Responder;
+let calls: Call[];
+
+beforeEach(() => {
+  calls = [];
+  respond = ({ path }) =>
+    path === `/v1/setups/${SETUP_ID}`
+      ? jsonResponse(savedSetup)
+      : jsonResponse({ title: 'Not Found', status: 404 }, 404, 'application/problem+json');
+  vi.stubGlobal(
+    'fetch',
+    vi.fn(async (input: RequestInfo | URL, init?: RequestInit) => {
+      // The SDK client passes a Request; the plain helper passes a URL and init.
+      const request = input instanceof Request ? input : new Request(String(input), init);
+      const text = await request.text();
+      const call = {
+        method: request.method,
+        path: new URL(request.url).pathname,
+        body: text ? (JSON.parse(text) as unknown) : undefined,
+      };
+      calls.push(call);
+      if (call.path === '/v1/health')
+        return jsonResponse({ status: 'ok', info: { database: { status: 'up' } } });
+      return respond(call);
+    }),
+  );
+});
+
+function openPlayground(search: string, role: Session['role'] = 'photographer') {
+  const queryClient = new QueryClient({ defaultOptions: { queries: { retry: false } } });
+  render(
+    <QueryClientProvider client={queryClient}>
+      <SessionContext.Provider value={{ ...demoSession, role }}>
+        <MemoryRouter initialEntries={[`/playground${search}`]}>
+          <Playground />
+        </MemoryRouter>
+      </SessionContext.Provider>
+    </QueryClientProvider>,
+  );
+  return screen.findByRole('tabpanel');
+}
+
+const valueOf = (element: HTMLElement) => (element as HTMLInputElement).value;
+
+async function openSaved() {
+  const panel = await openPlayground(`?setup=${SETUP_ID}&calc=setup`);
+  await within(panel).findByText(/Opened saved setup Boathouse couple/);
+  const key = within(panel).getByRole('group', { name: 'Key light' });
+  await waitFor(() => expect(valueOf(within(key).getByLabelText('Guide number'))).toBe('45'));
+  return { panel, key };
+}
+
+describe('Dusk setup: saved setups', () => {
+  it('fills the form from a saved setup, converting lengths to the display unit', async () => {
+    const { panel, key } = await openSaved();
+    expect(
+      within(panel).getByText(
+        'Opened saved setup Boathouse couple (Quillmere boathouse terrace, 2026-06-20).',
+        { exact: false },
+      ),
+    ).toBeTruthy();
+    expect(within(panel).getByRole('link', { name: 'Back to setups' }).getAttribute('href')).toBe(
+      '/setups',
+    );
+    expect(calls.some((c) => c.method === 'GET' && c.path === `/v1/setups/${SETUP_ID}`)).toBe(true);
+    expect(valueOf(within(key).getByLabelText('Distance (m)'))).toBe('3');
+    expect(valueOf(within(key).getByLabelText('Angle from camera (°)'))).toBe('50');
+    expect(valueOf(within(key).getByLabelText('Modifier'))).toBe('bare');
+    expect(valueOf(within(key).getByLabelText('Key to background (m)'))).toBe('15');
+    const camera = within(panel).getByRole('group', { name: 'Camera' });
+    expect(valueOf(within(camera).getByLabelText('Aperture (f/)'))).toBe('4');
+    // 0.004 s is 1/250 s.
+    expect(valueOf(within(camera).getByLabelText('Flash sync (1/x s)'))).toBe('250');
+    expect(valueOf(within(camera).getByLabelText('Support'))).toBe('tripod');
+    const rim = within(panel).getByRole('group', { name: 'Rim light' });
+    // 1 ft = 0.3048 m exactly (international yard and pound, 1959): 10 ft = 3.048 m, 5 ft = 1.524 m.
+    expect(valueOf(within(rim).getByLabelText('Behind subject (m)'))).toBe('3.05');
+    expect(valueOf(within(rim).getByLabelText('Height (m)'))).toBe('1.52');
+    expect(valueOf(within(rim).getByLabelText('Beam'))).toBe('20');
+    expect((within(rim).getByLabelText('Gel like the key') as HTMLInputElement).checked).toBe(
+      false,
+    );
+    expect(within(panel).getByText(/Place and date from the saved setup: 47\.100°/)).toBeTruthy();
+  });
+
+  it('saves the current inputs and shows the server’s field errors inline', async () => {
+    const { panel, key } = await openSaved();
+    fireEvent.change(within(key).getByLabelText('Distance (m)'), { target: { value: '3.5' } });
+    await waitFor(() => expect(valueOf(within(key).getByLabelText('Distance (m)'))).toBe('3.5'));
+    respond = ({ method, path, body }) => {
+      if (method === 'POST' && path === '/v1/setups') {
+        const name = (body as { name: string }).name;
+        if (name === 'Taken name')
+          return jsonResponse(
+            {
+              title: 'Conflict',
+              status: 409,
+              errors: [{ field: 'name', reason: 'is already used in your organisation' }],
+            },
+            409,
+            'application/problem+json',
+          );
+        return jsonResponse({ ...savedSetup, id: 'new-id', name }, 201);
+      }
+      return jsonResponse(savedSetup);
+    };
+    const save = within(panel).getByRole('button', { name: 'Save setup' });
+    await waitFor(() => expect((save as HTMLButtonElement).disabled).toBe(false));
+    fireEvent.click(save);
+    const dialog = await screen.findByRole('dialog');
+    expect(valueOf(within(dialog).getByLabelText('Date'))).toBe('2026-06-20');
+    expect(valueOf(within(dialog).getByLabelText('Time zone'))).toBe('Europe/Zurich');
+    expect(valueOf(within(dialog).getByLabelText('Venue (optional)'))).toBe(
+      'Quillmere boathouse terrace',
+    );
+
+    fireEvent.change(within(dialog).getByLabelText('Name'), { target: { value: 'Taken name' } });
+    fireEvent.click(within(dialog).getByRole('button', { name: 'Save setup' }));
+    expect(await within(dialog).findByText('Is already used in your organisation')).toBeTruthy();
+    expect(within(dialog).getByLabelText('Name').getAttribute('aria-invalid')).toBe('true');
+
+    fireEvent.change(within(dialog).getByLabelText('Name'), { target: { value: 'Second look' } });
+    fireEvent.click(within(dialog).getByRole('button', { name: 'Save setup' }));
+    expect(await within(panel).findByText(/Saved setup Second look/)).toBeTruthy();
+    await waitFor(() => expect(screen.queryByRole('dialog')).toBeNull());
+
+    const posts = calls.filter((c) => c.method === 'POST' && c.path === '/v1/setups');
+    expect(posts).toHaveLength(2);
+    expect(posts[1]!.body).toEqual({
+      name: 'Second look',
+      venue: 'Quillmere boathouse terrace',
+      inputs: {
+        latitude: 47.1,
+        longitude: 8.2,
+        date: '2026-06-20',
+        timeZone: 'Europe/Zurich',
+        sky: 'partly-cloudy',
+        camera: {
+          aperture: 4,
+          isoMax: 3200,
+          support: 'tripod',
+          flashSyncSeconds: 1 / 250,
+          kelvin: 4000,
+        },
+        key: {
+          guideNumber: 45,
+          guideNumberUnit: 'm',
+          distance: 3.5,
+          distanceUnit: 'm',
+          angleFromCameraDeg: 50,
+          modifier: 'bare',
+        },
+        rim: {
+          guideNumber: 36,
+          guideNumberUnit: 'm',
+          distanceBehind: 3.05,
+          lightHeight: 1.52,
+          distanceUnit: 'm',
+          beamAngleDeg: 20,
+          rimOverKeyStops: 0.5,
+          gelled: false,
+        },
+        backgroundDistance: 15,
+        conditions: {
+          nearRoad: false,
+          nearWater: true,
+          coldFogOrHaze: false,
+          modellingLamps: false,
+        },
+      },
+    });
+  });
+
+  it('says so when the saved setup is not there, and hides Save from developers', async () => {
+    const panel = await openPlayground('?setup=missing&calc=setup', 'developer');
+    const alert = await within(panel).findByRole('alert');
+    expect(alert.textContent).toContain('That saved setup was not found');
+    expect(within(alert).getByRole('link', { name: 'Back to setups' })).toBeTruthy();
+    expect(within(panel).queryByRole('button', { name: 'Save setup' })).toBeNull();
+  });
+
+  it('names the role problem on 403', async () => {
+    respond = () =>
+      jsonResponse({ title: 'Forbidden', status: 403 }, 403, 'application/problem+json');
+    const panel = await openPlayground(`?setup=${SETUP_ID}&calc=setup`);
+    const alert = await within(panel).findByRole('alert');
+    expect(alert.textContent).toContain('Your role may not open saved setups');
+  });
+});
