@@ -4,7 +4,12 @@ import http from 'node:http';
 import { solveBalance } from '@lumenwright/shared';
 
 const port = Number(process.argv[2] ?? 0);
-const keys = new Map((process.env.BENCH_KEYS ?? '').split(',').filter(Boolean).map((k) => [k, true]));
+const keys = new Map(
+  (process.env.BENCH_KEYS ?? '')
+    .split(',')
+    .filter(Boolean)
+    .map((k) => [k, true]),
+);
 
 const server = http.createServer((req, res) => {
   if (req.method !== 'POST' || req.url !== '/v1/balance') {
@@ -24,7 +29,9 @@ const server = http.createServer((req, res) => {
       const out = JSON.stringify(solveBalance(body));
       res.writeHead(200, { 'content-type': 'application/json' }).end(out);
     } catch (e) {
-      res.writeHead(422, { 'content-type': 'application/problem+json' }).end(JSON.stringify({ detail: e.message }));
+      res
+        .writeHead(422, { 'content-type': 'application/problem+json' })
+        .end(JSON.stringify({ detail: e.message }));
     }
   });
 });

@@ -53,7 +53,8 @@ export class AuthService {
       windowSeconds: 3600,
     };
     const wait = await this.throttle.retryAfter([rule]);
-    if (wait > 0) throw throttled(wait);
+    if (wait > 0)
+      throw throttled(wait, 'Too many new accounts from this address. Wait before trying again.');
     const passwordHash = await hashPassword(input.password);
     const result = await this.ds.transaction(async (m) => {
       if (await m.existsBy(UserEntity, { email: input.email })) throw emailTaken('email');
@@ -344,10 +345,13 @@ const invalidToken = () =>
     { field: 'token', reason: 'is invalid, already used or expired' },
   ]);
 
-const throttled = (seconds: number) =>
+const throttled = (
+  seconds: number,
+  message = 'Too many failed sign-ins. Wait before trying again.',
+) =>
   new DomainError(
     'rate_limited',
-    'Too many failed sign-ins. Wait before trying again.',
+    message,
     [],
     {
       'Retry-After': String(seconds),
