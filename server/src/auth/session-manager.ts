@@ -3,6 +3,7 @@ import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import type { FastifyRequest } from 'fastify';
 import { DataSource } from 'typeorm';
+import { DomainError } from '../common/errors/domain-error.js';
 
 @Injectable()
 export class SessionManager {
@@ -10,6 +11,12 @@ export class SessionManager {
 
   /** A fresh session id at every sign-in (no fixation), bound to the user and organisation. */
   async start(req: FastifyRequest, userId: string, organizationId: string): Promise<void> {
+    // Requests carrying a Bearer key and no cookie get no session (see session.plugin.ts).
+    if (!(req as { session?: unknown }).session) {
+      throw new DomainError('invalid_input', 'Sign in without an Authorization header.', [
+        { field: 'Authorization', reason: 'must be absent when signing in' },
+      ]);
+    }
     await req.session.regenerate();
     req.session.userId = userId;
     req.session.organizationId = organizationId;
