@@ -9,6 +9,7 @@ export default mergeConfig(
       include: ['src/**/*.test.{ts,tsx}'],
       setupFiles: ['src/test/setup.ts'],
       restoreMocks: true,
+      testTimeout: 20000,
       unstubGlobals: true,
     },
   }),

@@ -14,7 +14,7 @@ import { ConfigError, loadConfig } from '../../src/config/config.js';
 import { PASSWORD, signUp, uniqueEmail, type SignedInAgent } from '../factories/accounts.js';
 import { createKey, DEMO_BODIES } from '../factories/compute.js';
 import { bootApp, type TestApp } from '../setup/app.js';
-import { openDataSource } from '../setup/db.js';
+import { migrate, openDataSource } from '../setup/db.js';
 
 const CONSOLE_ORIGIN = 'https://console.lanternfield.test';
 const WEBHOOK_SECRET = `whsec_${randomUUID()}`;
@@ -28,6 +28,7 @@ describe('security', () => {
 
   beforeAll(async () => {
     // Earlier suites signed up many accounts from 127.0.0.1 into this database: start clean.
+    await migrate();
     const pre = await openDataSource();
     await pre.query(`DELETE FROM auth_throttle WHERE key LIKE 'signup:%'`);
     await pre.destroy();

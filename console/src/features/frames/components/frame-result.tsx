@@ -7,7 +7,10 @@ const fmt = (value: number | null | undefined, digits = 0, unit = '') =>
 
 function signed(value: number | null | undefined, digits = 0) {
   if (value === null || value === undefined) return '—';
-  return `${value > 0 ? '+' : ''}${value.toFixed(digits)}`;
+  const text = value.toFixed(digits);
+  // What rounds to zero reads as 0, not −0 or +0.
+  if (Number(text) === 0) return (0).toFixed(digits);
+  return `${value > 0 ? '+' : ''}${text}`;
 }
 
 /** What the server measured in the patch, and the change that would neutralise it. */
