@@ -93,11 +93,16 @@ async function main() {
     SIGNUPS_PER_IP_PER_HOUR: '1000000', // every test signs up from 127.0.0.1
   };
   await must('node', ['server/dist/bin/migrate.js'], { cwd: root, env });
-  service('server', 'node', ['server/dist/main.js'], {
-    cwd: root,
-    env,
-    stdio: ['ignore', 'ignore', 'inherit'],
-  });
+  service(
+    'server',
+    'node',
+    [...(process.env.BENCH_NODE_ARGS ?? '').split(' ').filter(Boolean), 'server/dist/main.js'],
+    {
+      cwd: root,
+      env,
+      stdio: ['ignore', 'ignore', 'inherit'],
+    },
+  );
   await waitForHttp(`${base}/v1/health`);
 
   // A studio on the top plan with a few live keys (the plan's per-key rate is above what we send).
