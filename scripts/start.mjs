@@ -66,8 +66,10 @@ async function main() {
     console.log('Using the database in DATABASE_URL.');
   }
 
-  const fakes = await startFakes({ root, dataDir, log: console.log });
-  stoppers.push(() => fakes.stop());
+  // The fakes (maildev takes a few seconds) start while we build, migrate and seed.
+  const fakesReady = startFakes({ root, dataDir, log: console.log });
+  stoppers.push(async () => (await fakesReady.catch(() => null))?.stop());
+  const fakes = { env: {}, urls: [] };
 
   const serverEnv = {
     ...env,
@@ -92,6 +94,8 @@ async function main() {
   }
   await must('node', ['server/dist/bin/migrate.js'], { cwd: root, env: serverEnv });
   await must('node', ['server/dist/bin/seed.js'], { cwd: root, env: serverEnv });
+  Object.assign(fakes, await fakesReady);
+  Object.assign(serverEnv, fakes.env);
 
   if (dev) {
     service(
