@@ -7,9 +7,9 @@
 //   await mail.stop();
 import { spawn } from 'node:child_process';
 import fs from 'node:fs';
-import net from 'node:net';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { freePort, waitForHttp } from './proc.mjs';
 
 const here = path.dirname(fileURLToPath(import.meta.url));
 const root = path.resolve(here, '../..');
@@ -20,34 +20,6 @@ function maildevBin() {
   const pkg = JSON.parse(fs.readFileSync(path.join(pkgDir, 'package.json'), 'utf8'));
   const rel = typeof pkg.bin === 'string' ? pkg.bin : pkg.bin.maildev;
   return path.join(pkgDir, rel);
-}
-
-function freePort() {
-  return new Promise((resolve, reject) => {
-    const srv = net.createServer();
-    srv.unref();
-    srv.on('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const { port } = srv.address();
-      srv.close(() => resolve(port));
-    });
-  });
-}
-
-async function waitForHttp(url, child, timeoutMs) {
-  const until = Date.now() + timeoutMs;
-  for (;;) {
-    if (child.exitCode !== null) throw new Error(`maildev exited early (code ${child.exitCode})`);
-    try {
-      const res = await fetch(url);
-      if (res.ok) return;
-    } catch {
-      // not up yet
-    }
-    if (Date.now() > until)
-      throw new Error(`maildev did not answer at ${url} within ${timeoutMs} ms`);
-    await new Promise((r) => setTimeout(r, 100));
-  }
 }
 
 /**
@@ -79,7 +51,7 @@ export async function start(opts = {}) {
   if (typeof out === 'number') fs.closeSync(out);
   const webUrl = `http://127.0.0.1:${webPort}`;
   try {
-    await waitForHttp(`${webUrl}/api/email`, child, opts.timeoutMs ?? 20000);
+    await waitForHttp(`${webUrl}/api/email`, opts.timeoutMs ?? 20000, child);
   } catch (e) {
     if (child.exitCode === null) child.kill('SIGTERM');
     throw e;

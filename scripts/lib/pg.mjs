@@ -251,16 +251,5 @@ function safeRead(f) {
   }
 }
 
-/** Asks the OS for a free loopback port. */
-export async function freePort() {
-  const net = await import('node:net');
-  return new Promise((resolve, reject) => {
-    const srv = net.createServer();
-    srv.unref();
-    srv.on('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const { port } = srv.address();
-      srv.close(() => resolve(port));
-    });
-  });
-}
+// Kept here too for callers that already import it from this module.
+export { freePort } from './proc.mjs';

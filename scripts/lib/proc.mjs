@@ -1,6 +1,7 @@
 // Child-process helpers for the start and test scripts (Node built-ins only).
 import { spawn } from 'node:child_process';
 import fs from 'node:fs';
+import net from 'node:net';
 import path from 'node:path';
 
 const children = new Set();
@@ -69,11 +70,14 @@ export async function stopAll() {
   await Promise.all([...children].map((c) => stopChild(c)));
 }
 
-/** Polls a URL until it answers 2xx or the timeout passes. */
-export async function waitForHttp(url, timeoutMs = 60000) {
+/** Polls a URL until it answers 2xx or the timeout passes (or `child`, if given, exits). */
+export async function waitForHttp(url, timeoutMs = 60000, child = null) {
   const deadline = Date.now() + timeoutMs;
   let last = '';
   while (Date.now() < deadline) {
+    if (child && child.exitCode !== null) {
+      throw new Error(`the process serving ${url} exited early (code ${child.exitCode})`);
+    }
     try {
       const res = await fetch(url);
       if (res.ok) return true;
@@ -98,4 +102,17 @@ export async function ensureInstalled(root) {
     env: { ...process.env, SCARF_ANALYTICS: 'false' },
   });
   return true;
+}
+
+/** Asks the OS for a free loopback port. */
+export function freePort() {
+  return new Promise((resolve, reject) => {
+    const srv = net.createServer();
+    srv.unref();
+    srv.on('error', reject);
+    srv.listen(0, '127.0.0.1', () => {
+      const { port } = srv.address();
+      srv.close(() => resolve(port));
+    });
+  });
 }
