@@ -626,7 +626,7 @@ export interface paths {
     delete?: never;
     options?: never;
     head?: never;
-    /** Update your own profile. */
+    /** Update your own name and/or preferences (send at least one). */
     patch: operations['updateMe'];
     trace?: never;
   };
@@ -2490,6 +2490,8 @@ export interface components {
        *     ]
        */
       permissions: string[];
+      /** @description The signed-in user’s own settings. */
+      preferences: components['schemas']['UserPreferencesDto'];
       /**
        * @example owner
        * @enum {string}
@@ -3745,7 +3747,8 @@ export interface components {
     };
     UpdateProfileRequestDto: {
       /** @example Ilse Marrowind */
-      name: string;
+      name?: string;
+      preferences?: components['schemas']['UserPreferencesDto'];
     };
     UpdateSavedSetupRequestDto: {
       /** @description New inputs: the plan is computed again. */
@@ -3962,6 +3965,14 @@ export interface components {
         /** @description Mean server time, ms. */
         meanLatencyMs?: number | null;
       };
+    };
+    UserPreferencesDto: {
+      /**
+       * @description Metres or feet for distances in the console.
+       * @example ft
+       * @enum {string}
+       */
+      lengthUnit: 'm' | 'ft';
     };
     UserResponseDto: {
       /** Format: date-time */

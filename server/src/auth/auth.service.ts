@@ -1,3 +1,4 @@
+import type { LengthUnit } from '@lumenwright/shared';
 import { Inject, Injectable, Logger } from '@nestjs/common';
 import { InjectDataSource, InjectRepository } from '@nestjs/typeorm';
 import { DataSource, IsNull, Repository } from 'typeorm';
@@ -144,8 +145,22 @@ export class AuthService {
     return { user: m.user, organization: m.organization, role: m.role };
   }
 
-  async updateProfile(userId: string, name: string): Promise<void> {
-    await this.users.update({ id: userId }, { name });
+  async updateProfile(
+    userId: string,
+    change: { name?: string; lengthUnit?: LengthUnit },
+  ): Promise<void> {
+    const { name, lengthUnit } = change;
+    if (name === undefined && lengthUnit === undefined) {
+      const reason = 'send a name, preferences, or both';
+      throw new DomainError('invalid_input', 'Nothing to change.', [
+        { field: 'name', reason },
+        { field: 'preferences', reason },
+      ]);
+    }
+    await this.users.update(
+      { id: userId },
+      { ...(name !== undefined && { name }), ...(lengthUnit !== undefined && { lengthUnit }) },
+    );
   }
 
   async listMemberships(userId: string) {

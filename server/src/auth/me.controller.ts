@@ -45,13 +45,18 @@ export class MeController {
 
   @Patch()
   @SessionAuth(...can('profile:manage'))
-  @ApiOperation({ summary: 'Update your own profile.' })
+  @ApiOperation({
+    summary: 'Update your own name and/or preferences (send at least one).',
+  })
   @ApiOkResponse({ type: MeResponseDto })
   async updateMe(
     @CurrentPrincipal() p: SessionPrincipal,
     @Body() body: UpdateProfileRequestDto,
   ): Promise<MeResponseDto> {
-    await this.auth.updateProfile(p.userId, body.name);
+    await this.auth.updateProfile(p.userId, {
+      name: body.name,
+      lengthUnit: body.preferences?.lengthUnit,
+    });
     const s = await this.auth.me(p.userId, p.organizationId);
     return toMeDto(s.user, s.organization, s.role);
   }

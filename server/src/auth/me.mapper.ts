@@ -24,5 +24,6 @@ export function toMeDto(user: UserEntity, org: OrganizationEntity, role: Role): 
     organization: toOrganizationDto(org),
     role,
     permissions: (Object.keys(PERMISSIONS) as Permission[]).filter((p) => hasPermission(role, p)),
+    preferences: { lengthUnit: user.lengthUnit },
   };
 }

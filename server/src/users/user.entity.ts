@@ -1,4 +1,6 @@
+import type { LengthUnit } from '@lumenwright/shared';
 import {
+  Check,
   Column,
   CreateDateColumn,
   Entity,
@@ -9,6 +11,7 @@ import {
 
 /** A person who signs in to the console. E-mail is citext: unique regardless of case. */
 @Entity('users')
+@Check('users_length_unit_check', `length_unit IN ('m', 'ft')`)
 @Index('uq_users_email', ['email'], { unique: true })
 export class UserEntity {
   @PrimaryGeneratedColumn('uuid')
@@ -26,6 +29,10 @@ export class UserEntity {
 
   @Column({ type: 'timestamptz', nullable: true })
   passwordChangedAt: Date | null;
+
+  /** Metres or feet for distances in the console; follows the person across browsers. */
+  @Column({ type: 'text', default: 'm' })
+  lengthUnit: LengthUnit;
 
   @CreateDateColumn({ type: 'timestamptz' })
   createdAt: Date;

@@ -1,7 +1,18 @@
-import { ApiProperty } from '@nestjs/swagger';
-import { Transform } from 'class-transformer';
-import { IsEmail, IsIn, IsString, IsUUID, Length, MaxLength } from 'class-validator';
+import type { LengthUnit } from '@lumenwright/shared';
+import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
+import { Transform, Type } from 'class-transformer';
+import {
+  IsEmail,
+  IsIn,
+  IsObject,
+  IsString,
+  IsUUID,
+  Length,
+  MaxLength,
+  ValidateNested,
+} from 'class-validator';
 import { ROLES, Role } from '../../common/decorators/access.decorator.js';
+import { LENGTH_UNITS, OptionalNotNull } from '../../gear/dto/common.js';
 
 const trim = ({ value }: { value: unknown }) => (typeof value === 'string' ? value.trim() : value);
 const email = ({ value }: { value: unknown }) =>
@@ -72,12 +83,31 @@ export class TokenRequestDto {
   token: string;
 }
 
+export class UserPreferencesDto {
+  @ApiProperty({
+    enum: LENGTH_UNITS,
+    example: 'ft',
+    description: 'Metres or feet for distances in the console.',
+  })
+  @IsIn(LENGTH_UNITS)
+  lengthUnit: LengthUnit;
+}
+
+/** Send `name`, `preferences`, or both; at least one. */
 export class UpdateProfileRequestDto {
-  @ApiProperty({ minLength: 1, maxLength: 100, example: 'Ilse Marrowind' })
+  @ApiPropertyOptional({ minLength: 1, maxLength: 100, example: 'Ilse Marrowind' })
   @Transform(trim)
+  @OptionalNotNull()
   @IsString()
   @Length(1, 100)
-  name: string;
+  name?: string;
+
+  @ApiPropertyOptional({ type: UserPreferencesDto })
+  @OptionalNotNull()
+  @IsObject()
+  @ValidateNested()
+  @Type(() => UserPreferencesDto)
+  preferences?: UserPreferencesDto;
 }
 
 export class ChangePasswordRequestDto {
@@ -155,6 +185,9 @@ export class MeResponseDto {
     example: ['keys:manage-own', 'playground:use'],
   })
   permissions: string[];
+
+  @ApiProperty({ type: UserPreferencesDto, description: 'The signed-in user’s own settings.' })
+  preferences: UserPreferencesDto;
 }
 
 export class MyOrganizationResponseDto {

@@ -5,6 +5,7 @@ import { MeteringPlans1764806400000 } from './1764806400000-MeteringPlans.js';
 import { Frames1764892800000 } from './1764892800000-Frames.js';
 import { GearSetups1764979200000 } from './1764979200000-GearSetups.js';
 import { Billing1765065600000 } from './1765065600000-Billing.js';
+import { UserPreferences1765152000000 } from './1765152000000-UserPreferences.js';
 
 export const MIGRATIONS = [
   Init1764633600000,
@@ -13,4 +14,5 @@ export const MIGRATIONS = [
   Frames1764892800000,
   GearSetups1764979200000,
   Billing1765065600000,
+  UserPreferences1765152000000,
 ];
