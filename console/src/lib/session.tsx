@@ -9,6 +9,8 @@ export interface Session {
   role: Role;
   /** Server permission names, e.g. `keys:manage-all`, `billing:manage`. */
   permissions: readonly string[];
+  /** The user's own settings, saved on the server (they follow the user to any browser). */
+  preferences: { lengthUnit: 'm' | 'ft' };
 }
 
 export const SessionContext = createContext<Session | null>(null);

@@ -18,25 +18,36 @@ export const demoSession = {
   },
   role: 'owner' as const,
   permissions: primaryNav.flatMap((entry) => (entry.permission ? [entry.permission] : [])),
+  preferences: { lengthUnit: 'm' as 'm' | 'ft' },
 };
 
-type Handler = (path: string, init?: RequestInit) => Response | Promise<Response>;
+/** `request` is what was fetched (the SDK passes a Request; `init` is then undefined). */
+type Handler = (
+  path: string,
+  init: RequestInit | undefined,
+  request: Request,
+) => Response | Promise<Response>;
 
 /**
- * Stub fetch: GET /v1/me answers with `demoSession`, GET /v1/health with an up report, anything
- * else goes to `handler` (404 problem by default). Returns the mock to inspect calls.
+ * Stub fetch: GET /v1/me answers with `session` (`demoSession` by default), GET /v1/health with an
+ * up report, anything else (PATCH /v1/me too) goes to `handler` (404 problem by default). Returns
+ * the mock to inspect calls.
  */
-export function stubApi(handler?: Handler, health?: () => Response | Promise<Response>) {
+export function stubApi(
+  handler?: Handler,
+  health?: () => Response | Promise<Response>,
+  session: typeof demoSession = demoSession,
+) {
   const mock = vi.fn(async (input: RequestInfo | URL, init?: RequestInit) => {
-    const url = input instanceof Request ? input.url : String(input);
-    const path = new URL(url).pathname;
-    if (path === '/v1/me') return jsonResponse(demoSession);
+    const request = input instanceof Request ? input : new Request(String(input), init);
+    const path = new URL(request.url).pathname;
+    if (path === '/v1/me' && request.method === 'GET') return jsonResponse(session);
     if (path === '/v1/health') {
       return health
         ? health()
         : jsonResponse({ status: 'ok', info: { database: { status: 'up' } } });
     }
-    if (handler) return handler(path, init);
+    if (handler) return handler(path, init, request);
     return jsonResponse({ title: 'Not Found', status: 404 }, 404, 'application/problem+json');
   });
   vi.stubGlobal('fetch', mock);

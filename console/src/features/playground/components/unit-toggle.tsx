@@ -1,4 +1,5 @@
 import { Segmented } from '@/components/ui/segmented';
+import { problemMessage } from '@/lib/form-errors';
 import { useLengthUnit, type DisplayUnit } from '../hooks/use-length-unit';
 
 const options = [
@@ -7,6 +8,15 @@ const options = [
 ] as const satisfies readonly { value: DisplayUnit; label: string; title: string }[];
 
 export function UnitToggle() {
-  const [unit, setUnit] = useLengthUnit();
-  return <Segmented label="Distances in" value={unit} onChange={setUnit} options={options} />;
+  const [unit, setUnit, saveError] = useLengthUnit();
+  return (
+    <div className="flex flex-wrap items-center gap-2">
+      <Segmented label="Distances in" value={unit} onChange={setUnit} options={options} />
+      {saveError ? (
+        <p role="alert" className="text-small text-fault">
+          Not saved to your account: {problemMessage(saveError)}
+        </p>
+      ) : null}
+    </div>
+  );
 }
