@@ -190,6 +190,18 @@ describe('playground', () => {
     expect(plan.querySelectorAll('[data-swatch]').length).toBeGreaterThan(3);
   });
 
+  it('gives the Dusk setup tab a new time zone or sky even when the chosen instant stays the same', async () => {
+    const panel = await openCalculation('setup');
+    const place = () =>
+      within(panel).getByText(/^Place and date from the Twilight tab/).textContent;
+    await waitFor(() => expect(place()).toMatch(/\(Europe\/Zurich\), sky clear\./));
+    // Same UTC offset as Zurich all year: the instants (and so the chosen minute) do not move.
+    setValue(screen.getByLabelText('Time zone'), 'Europe/Rome');
+    await waitFor(() => expect(place()).toMatch(/\(Europe\/Rome\), sky clear\./));
+    setValue(screen.getByLabelText('Sky'), 'overcast');
+    await waitFor(() => expect(place()).toMatch(/\(Europe\/Rome\), sky overcast\./));
+  });
+
   it('exposes the background for the minute chosen on the Twilight tab, or for a meter reading', async () => {
     const panel = await openCalculation('exposure');
     const source = within(panel).getByLabelText('Light level from') as HTMLSelectElement;

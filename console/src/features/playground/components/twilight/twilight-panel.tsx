@@ -130,9 +130,21 @@ export function TwilightPanel({ initial }: { initial?: Partial<TwilightForm> }) 
       sunAltitudeDeg: chosen.sunAltitudeDeg,
       sunsetAzimuthDeg: result.sunsetAzimuthDeg,
     });
-    // Publish when the chosen minute or the place changes, not on every render.
+    // Publish when anything published changes (not on every render): a new time zone or sky can
+    // leave the chosen instant and the sunset azimuth as they were.
     // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [chosen?.time, result?.sunsetAzimuthDeg, setMoment]);
+  }, [
+    input?.latitude,
+    input?.longitude,
+    input?.timeZone,
+    input?.date,
+    input?.sky,
+    chosen?.time,
+    chosen?.ev100,
+    chosen?.sunAltitudeDeg,
+    result?.sunsetAzimuthDeg,
+    setMoment,
+  ]);
 
   return (
     <div className="grid gap-6 lg:grid-cols-[minmax(16rem,22rem)_1fr]">
