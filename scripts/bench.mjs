@@ -162,6 +162,22 @@ async function main() {
   console.log(
     `\nusage rows with a 2xx status: ${rows}; 2xx answered (warm-up + measured): ${answered}`,
   );
+  const result = {
+    at: new Date().toISOString(),
+    machine: `${os.cpus().length} × ${os.cpus()[0]?.model ?? 'unknown'}, Node ${process.version}`,
+    connections: CONNECTIONS,
+    seconds: DURATION,
+    lumenwright: lw,
+    bare: bareR,
+    ratio,
+    usageRows: rows,
+    answered,
+    lost,
+  };
+  if (process.env.BENCH_OUTPUT)
+    fs.writeFileSync(process.env.BENCH_OUTPUT, JSON.stringify(result, null, 2));
+  // Speed is reported, not enforced; lost usage or refused calls are failures.
+  if (lost > 0 || lw.non2xx > 0 || bareR.non2xx > 0) process.exitCode = 1;
   console.log(
     `bench: ${lw.rps.toFixed(0)} req/s, p99 ${lw.p99} ms, ${ratio.toFixed(2)} of bare node, ${lost} usage events lost`,
   );

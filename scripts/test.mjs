@@ -1,6 +1,7 @@
 #!/usr/bin/env node
 // `npm test`: lint, typecheck, drift checks, every workspace's tests on a throwaway PostgreSQL
-// cluster, the SDK against a live server, and the browser tests. Always stops what it started.
+// cluster, the SDK against a live server, the browser tests and the benchmark. Always stops what
+// it started.
 // Prints "N passed, N failed" at the end; exits non-zero on any failure.
 import fs from 'node:fs';
 import os from 'node:os';
@@ -130,6 +131,22 @@ async function main() {
       });
     }
   }
+
+  // Last, on a quiet machine: the benchmark (reported, not a speed gate; it fails only when a
+  // usage event is lost or a call is refused). Its figures are the README's performance table.
+  if (want('bench'))
+    await step('benchmark (autocannon)', async () => {
+      const out = path.join(artifacts, 'bench.json');
+      const code = await run('node', ['scripts/bench.mjs'], {
+        cwd: root,
+        env: {
+          ...process.env,
+          BENCH_SECONDS: process.env.BENCH_SECONDS ?? '10',
+          BENCH_OUTPUT: out,
+        },
+      });
+      return { ok: code === 0, passed: code === 0 ? 1 : 0, failed: code === 0 ? 0 : 1 };
+    });
 
   await cleanup();
   report();

@@ -7,14 +7,14 @@ import { NestFactory } from '@nestjs/core';
 import { FastifyAdapter, NestFastifyApplication } from '@nestjs/platform-fastify';
 import { SwaggerModule } from '@nestjs/swagger';
 import fastifyCors from '@fastify/cors';
-import fastifyHelmet from '@fastify/helmet';
 import fastifyMultipart from '@fastify/multipart';
 import fastifyStatic from '@fastify/static';
 import type { FastifyReply, FastifyRequest } from 'fastify';
-import { Logger } from 'nestjs-pino';
 import { AppModule } from './app.module.js';
 import { registerSessions } from './auth/session.plugin.js';
 import { DomainError } from './common/errors/domain-error.js';
+import { registerSecurityHeaders, securityHeaderOptions } from './common/http/security-headers.js';
+import { createLogger, PinoNestLogger, registerRequestLogging } from './common/logging/logging.js';
 import { toProblem } from './common/filters/problem.filter.js';
 import { AppConfig } from './config/config.js';
 import { buildOpenApiDocument } from './openapi.js';
@@ -40,7 +40,6 @@ export async function createApp(
       return typeof given === 'string' && REQUEST_ID.test(given) ? given : randomUUID();
     },
     trustProxy: false,
-    allowErrorHandlerOverride: true,
     routerOptions: { ignoreTrailingSlash: true },
   });
   const app = await NestFactory.create<NestFastifyApplication>(AppModule.forRoot(config), adapter, {
@@ -51,49 +50,24 @@ export async function createApp(
     // Billing webhooks verify their signature over the exact bytes received (req.rawBody).
     rawBody: true,
   });
-  if (!opts.preview) app.useLogger(app.get(Logger));
+  const logger = createLogger(opts.preview ? 'silent' : config.logLevel);
+  if (!opts.preview) app.useLogger(new PinoNestLogger(logger));
   app.setGlobalPrefix('v1');
   // DTO validation for every route: failures become 422 problem+json naming each field.
   app.useGlobalPipes(validationPipe());
   app.enableShutdownHooks();
 
   const fastify = app.getHttpAdapter().getInstance();
-  fastify.addHook('onRequest', async (req, reply) => {
+  fastify.addHook('onRequest', (req, reply, done) => {
     void reply.header('X-Request-Id', req.id);
+    done();
   });
-  // Errors raised by Fastify itself (body limits, bad JSON) never reach Nest's filters.
-  fastify.setErrorHandler((err, req, reply) => {
-    const { problem, headers } = toProblem(err);
-    problem.instance = req.url.split('?')[0];
-    problem.requestId = String(req.id);
-    if (problem.status >= 500) req.log.error({ err }, 'unhandled error');
-    void reply
-      .headers(headers)
-      .status(problem.status)
-      .type('application/problem+json')
-      .send(problem);
-  });
+  registerRequestLogging(fastify, logger);
+  // Errors Fastify raises itself (body limits, bad JSON) reach the error handler Nest installs at
+  // init, and from there the global ProblemFilter: every refusal is problem+json.
 
-  const https = config.publicUrl.startsWith('https://');
-  await app.register(fastifyHelmet, {
-    // HSTS and upgrade-insecure-requests only make sense when served over HTTPS.
-    hsts: https ? { maxAge: 31536000, includeSubDomains: true } : false,
-    contentSecurityPolicy: {
-      directives: {
-        upgradeInsecureRequests: https ? [] : null,
-        defaultSrc: ["'self'"],
-        // Swagger UI at /docs runs an inline initialiser.
-        scriptSrc: ["'self'", "'unsafe-inline'"],
-        styleSrc: ["'self'", "'unsafe-inline'"],
-        imgSrc: ["'self'", 'data:', 'blob:'],
-        connectSrc: ["'self'"],
-        fontSrc: ["'self'", 'data:'],
-        objectSrc: ["'none'"],
-        frameAncestors: ["'none'"],
-      },
-    },
-    crossOriginEmbedderPolicy: false,
-  });
+  // Helmet's headers, computed once (src/common/http/security-headers.ts).
+  registerSecurityHeaders(fastify, securityHeaderOptions(config.publicUrl.startsWith('https://')));
   await app.register(fastifyCors, {
     origin: config.corsOrigins.length ? config.corsOrigins : false,
     credentials: false,
