@@ -117,9 +117,21 @@ async function registerConsole(app: NestFastifyApplication, config: AppConfig) {
       },
     });
   }
-  const html = index && fs.existsSync(index) ? fs.readFileSync(index, 'utf8') : null;
+  // Re-read when the file changes, so a console rebuild is served without a restart.
+  let cached: { mtimeMs: number; html: string } | null = null;
+  const indexHtml = (): string | null => {
+    if (!index) return null;
+    try {
+      const { mtimeMs } = fs.statSync(index);
+      if (cached?.mtimeMs !== mtimeMs) cached = { mtimeMs, html: fs.readFileSync(index, 'utf8') };
+      return cached.html;
+    } catch {
+      return null;
+    }
+  };
   fastify.get('/*', async (req: FastifyRequest, reply: FastifyReply) => {
     const p = req.url.split('?')[0] ?? '/';
+    const html = indexHtml();
     if (p.startsWith('/v1/') || p === '/v1' || p.startsWith('/docs') || !html) {
       const { problem } = toProblem({ statusCode: 404, message: `No route for GET ${p}` });
       problem.instance = p;
@@ -129,6 +141,7 @@ async function registerConsole(app: NestFastifyApplication, config: AppConfig) {
     return reply.header('Cache-Control', 'no-cache').type('text/html; charset=utf-8').send(html);
   });
   fastify.get('/', async (_req: FastifyRequest, reply: FastifyReply) => {
+    const html = indexHtml();
     if (!html) return reply.type('text/plain').send('Lumenwright API — see /docs');
     return reply.header('Cache-Control', 'no-cache').type('text/html; charset=utf-8').send(html);
   });

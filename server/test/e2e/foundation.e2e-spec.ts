@@ -1,3 +1,6 @@
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
 import request from 'supertest';
 import { bootApp, TestApp } from '../setup/app.js';
 
@@ -57,5 +60,32 @@ describe('foundation', () => {
     expect(res.headers['x-content-type-options']).toBe('nosniff');
     expect(res.headers['content-security-policy']).toContain("frame-ancestors 'none'");
     expect(res.headers['access-control-allow-origin']).toBeUndefined();
+  });
+});
+
+describe('console files', () => {
+  let t: TestApp;
+  let dir: string;
+  beforeAll(async () => {
+    dir = fs.mkdtempSync(path.join(os.tmpdir(), 'lw-console-dist-'));
+    fs.writeFileSync(path.join(dir, 'index.html'), '<!doctype html><title>first build</title>');
+    t = await bootApp({ CONSOLE_DIST: dir });
+  });
+  afterAll(async () => {
+    await t.close();
+    fs.rmSync(dir, { recursive: true, force: true });
+  });
+
+  it('serves index.html for console routes and the newest build without a restart', async () => {
+    const first = await request(t.url).get('/setups/abc').expect(200);
+    expect(first.text).toContain('first build');
+    expect(first.headers['cache-control']).toBe('no-cache');
+    // A rebuild replaces the file (a later mtime).
+    const later = new Date(Date.now() + 5000);
+    fs.writeFileSync(path.join(dir, 'index.html'), '<!doctype html><title>second build</title>');
+    fs.utimesSync(path.join(dir, 'index.html'), later, later);
+    const second = await request(t.url).get('/').expect(200);
+    expect(second.text).toContain('second build');
+    await request(t.url).get('/v1/nothing-here').expect(404);
   });
 });
