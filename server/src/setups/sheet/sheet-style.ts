@@ -35,13 +35,21 @@ th { font-weight: 600; color: var(--muted); font-size: 12px; }
 .notes { white-space: pre-wrap; }
 footer { margin-top: 26px; color: var(--muted); font-size: 12px; border-top: 1px solid var(--rule); padding-top: 8px; }
 .print-hint { color: var(--muted); font-size: 12px; }
-@media (max-width: 640px) { .grid { grid-template-columns: 1fr; } main { padding: 16px; } }
+.table-scroll { overflow-x: auto; }
+@media (max-width: 640px) {
+  .grid { grid-template-columns: 1fr; }
+  main { padding: 16px; }
+  th, td { padding: 4px 5px; }
+}
 @media print {
   @page { margin: 14mm; }
   body { background: #fff; font-size: 11pt; }
   main { max-width: none; padding: 0; }
   .print-hint { display: none; }
-  section, .cautions, table, .diagram { break-inside: avoid; }
+  section, table, .diagram { break-inside: avoid; }
+  /* The safety list is longer than what is left of most pages: let it flow, keep items whole. */
+  section.cautions { break-inside: auto; }
+  .cautions li { break-inside: avoid; }
   h2 { break-after: avoid; }
 }
 `;

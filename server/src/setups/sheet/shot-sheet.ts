@@ -75,9 +75,10 @@ function minutes(p: DuskSetupPlan): string {
       <td>${m.usable ? 'yes' : '<span class="no">no</span>'}</td></tr>`,
     )
     .join('');
-  return `<section><h2>Suggested minutes</h2><table>
+  // Seven columns: on a phone the table scrolls inside its box instead of widening the page.
+  return `<section><h2>Suggested minutes</h2><div class="table-scroll"><table>
     <thead><tr><th>Time</th><th>Sun</th><th>EV₁₀₀</th><th>Camera (background)</th><th>Key power</th><th>Rim power</th><th>Usable</th></tr></thead>
-    <tbody>${rows || '<tr><td colspan="7">No minute in the window.</td></tr>'}</tbody></table></section>`;
+    <tbody>${rows || '<tr><td colspan="7">No minute in the window.</td></tr>'}</tbody></table></div></section>`;
 }
 
 function lights(p: DuskSetupPlan, inputs: Obj): string {
