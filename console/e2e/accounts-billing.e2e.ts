@@ -1,7 +1,15 @@
 import { createRequire } from 'node:module';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { baseUrl, openBrowser, screenshot, signUp, uniqueEmail, type Session } from './browser';
+import {
+  baseUrl,
+  finishTest,
+  openBrowser,
+  screenshot,
+  signUp,
+  uniqueEmail,
+  type Session,
+} from './browser';
 
 // Team, password reset, audit, billing and test frames through the production console. The mail
 // fake (maildev) and the payments fake stand in for the hosted services; `npm test` passes their
@@ -119,12 +127,9 @@ afterAll(async () => {
 });
 
 afterEach(async (context) => {
-  await screenshot(page, `ab-${context.task.name.replace(/[^a-z0-9]+/gi, '-').toLowerCase()}`);
-  // Leave the page so late responses are charged to this test, not the next one.
-  await page.goto('about:blank');
-  const seen = session.errors.splice(0).filter((error) => !expectedErrors.includes(error));
+  const expected = expectedErrors;
   expectedErrors = [];
-  expect(seen).toEqual([]);
+  await finishTest(session, `ab-${context.task.name}`, expected);
 });
 
 describe('accounts and billing in a real browser', () => {

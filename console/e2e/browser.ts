@@ -2,6 +2,7 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { expect } from 'vitest';
 
 export const baseUrl = (() => {
   const url = process.env.LUMENWRIGHT_TEST_URL;
@@ -19,16 +20,23 @@ export interface Session {
   close: () => Promise<void>;
 }
 
-/** A fresh chromium profile; every console error and uncaught exception is recorded. */
+/** A phone-sized screen (CSS pixels), as a mid-sized phone held upright. */
+export const PHONE = { width: 390, height: 844 };
+
+/**
+ * A fresh chromium profile; every console error and uncaught exception is recorded. `mobile`
+ * emulates a touch phone (meta viewport honoured, touch events) rather than a narrow window.
+ */
 export async function openBrowser(
   viewport = { width: 1280, height: 900 },
-  opts: { allowStatuses?: number[] } = {},
+  opts: { allowStatuses?: number[]; mobile?: boolean } = {},
 ): Promise<Session> {
   const profile = fs.mkdtempSync(path.join(os.tmpdir(), 'lw-chromium-'));
   const context = await chromium.launchPersistentContext(profile, {
     executablePath: '/usr/bin/chromium',
     headless: true,
     viewport,
+    ...(opts.mobile ? { isMobile: true, hasTouch: true, deviceScaleFactor: 2 } : {}),
     args: [
       '--headless',
       '--no-sandbox',
@@ -72,9 +80,56 @@ export async function openBrowser(
   };
 }
 
-export async function screenshot(page: Page, name: string): Promise<void> {
+/** Where a test's screenshots and other by-products go (never committed). */
+export function artifactPath(file: string): string {
   fs.mkdirSync(artifacts, { recursive: true });
-  await page.screenshot({ path: path.join(artifacts, `${name}.png`), fullPage: true });
+  return path.join(artifacts, file);
+}
+
+export async function screenshot(page: Page, name: string): Promise<void> {
+  await page.screenshot({ path: artifactPath(`${name}.png`), fullPage: true });
+}
+
+/**
+ * The end of every test: a screenshot named after it, then no error may be left over except the
+ * ones the test provoked on purpose (exact strings as recorded by openBrowser).
+ */
+export async function finishTest(session: Session, name: string, expected: string[] = []) {
+  const { page } = session;
+  await screenshot(page, name.replace(/[^a-z0-9]+/gi, '-').toLowerCase());
+  // Leave the page so late responses are charged to this test, not the next one.
+  await page.goto('about:blank');
+  const seen = session.errors.splice(0).filter((error) => !expected.includes(error));
+  expect(seen).toEqual([]);
+}
+
+/** How wide the page scrolls against the window: equal when nothing sticks out sideways. */
+export function pageWidths(page: Page): Promise<{ scrollWidth: number; innerWidth: number }> {
+  return page.evaluate(() => ({
+    scrollWidth: (document.scrollingElement ?? document.documentElement).scrollWidth,
+    innerWidth: window.innerWidth,
+  }));
+}
+
+/** The demo studio's sign-ins, as `npm start` prints them (invented people). */
+export function demoSignIn(role: 'owner' | 'admin' | 'developer' | 'photographer') {
+  const file = new URL('../../scripts/demo-sign-ins.json', import.meta.url);
+  const list = JSON.parse(fs.readFileSync(file, 'utf8')) as {
+    role: string;
+    email: string;
+    password: string;
+  }[];
+  const found = list.find((entry) => entry.role === role);
+  if (!found) throw new Error(`no demo sign-in for ${role}`);
+  return found;
+}
+
+export async function signIn(page: Page, who: { email: string; password: string }) {
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.getByLabel('Email', { exact: true }).fill(who.email);
+  await page.getByLabel('Password').fill(who.password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByRole('heading', { level: 1, name: 'Overview' }).waitFor();
 }
 
 /** A unique invented address per run (the domain is reserved for tests). */
@@ -82,12 +137,15 @@ export function uniqueEmail(prefix: string): string {
   return `${prefix}-${Date.now().toString(36)}-${Math.random().toString(36).slice(2, 6)}@studio.test`;
 }
 
+/** The password every signed-up test account gets. */
+export const TEST_PASSWORD = 'lantern-dusk-2026!';
+
 export async function signUp(page: Page, who: { name: string; studio: string; email: string }) {
   await page.goto(`${baseUrl}/sign-up`);
   await page.getByLabel('Your name').fill(who.name);
   await page.getByLabel('Studio name').fill(who.studio);
   await page.getByLabel('Email').fill(who.email);
-  await page.getByLabel('Password').fill('lantern-dusk-2026!');
+  await page.getByLabel('Password').fill(TEST_PASSWORD);
   await page.getByRole('button', { name: 'Create account' }).click();
   await page.getByRole('heading', { level: 1, name: 'Overview' }).waitFor();
 }

@@ -1,6 +1,16 @@
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { baseUrl, openBrowser, screenshot, signUp, uniqueEmail, type Session } from './browser';
+import {
+  TEST_PASSWORD,
+  baseUrl,
+  finishTest,
+  openBrowser,
+  screenshot,
+  signIn,
+  signUp,
+  uniqueEmail,
+  type Session,
+} from './browser';
 
 const owner = {
   name: 'Odile Farrow',
@@ -40,12 +50,9 @@ afterAll(async () => {
 });
 
 afterEach(async (context) => {
-  await screenshot(page, context.task.name.replace(/[^a-z0-9]+/gi, '-').toLowerCase());
-  // Leave the page so late responses are charged to this test, not the next one.
-  await page.goto('about:blank');
-  const seen = session.errors.splice(0).filter((error) => !expectedErrors.includes(error));
+  const expected = expectedErrors;
   expectedErrors = [];
-  expect(seen).toEqual([]);
+  await finishTest(session, context.task.name, expected);
 });
 
 describe('the console in a real browser', () => {
@@ -217,11 +224,7 @@ describe('the console in a real browser', () => {
   it('works at phone width: the menu folds and opens', async () => {
     const phone = await openBrowser({ width: 390, height: 844 });
     try {
-      await phone.page.goto(`${baseUrl}/sign-in`);
-      await phone.page.getByLabel('Email').fill(owner.email);
-      await phone.page.getByLabel('Password').fill('lantern-dusk-2026!');
-      await phone.page.getByRole('button', { name: 'Sign in' }).click();
-      await phone.page.getByRole('heading', { level: 1, name: 'Overview' }).waitFor();
+      await signIn(phone.page, { email: owner.email, password: TEST_PASSWORD });
       const nav = phone.page.getByRole('navigation', { name: 'Primary' });
       await expect(nav.isVisible()).resolves.toBe(false);
       await phone.page.getByRole('button', { name: 'Menu' }).click();
