@@ -96,6 +96,23 @@ describe('solveBalance mechanics', () => {
     const after = mired(r.resultingFlashKelvin) - mired(r.whiteBalanceFineTune.cameraKelvin);
     expect(after).toBeCloseTo(10, 0);
   });
+  it('a mired tolerance trades a few mireds for fewer gels (common practice, no source)', () => {
+    // ~3800 K camera, 5500 K flash: the closest stack in the catalogue mixes CTO with CTB to land
+    // within a mired; accepting 10 mired (what the camera's fine-tune absorbs) gives a shorter,
+    // brighter stack.
+    const exact = solveBalance({ cameraKelvin: 3800 });
+    const loose = solveBalance({ cameraKelvin: 3800, miredTolerance: 10 });
+    expect(Math.abs(exact.residualMired)).toBeLessThan(1);
+    expect(loose.gels.length).toBeLessThan(exact.gels.length);
+    expect(loose.gelLossStops).toBeLessThan(exact.gelLossStops);
+    expect(Math.abs(loose.residualMired)).toBeLessThanOrEqual(10);
+    expect(loose.gels.every((g) => g.miredShift > 0)).toBe(true); // no CTB fighting the CTO
+    // Tolerance 0 is the default: the closest stack.
+    expect(solveBalance({ cameraKelvin: 3800, miredTolerance: 0 }).gels).toEqual(exact.gels);
+    expect(() => solveBalance({ cameraKelvin: 3800, miredTolerance: 60 })).toThrow(
+      /miredTolerance/,
+    );
+  });
   it('camera tint asks for green on the flash', () => {
     const r = solveBalance({ cameraKelvin: 5500, cameraTint: 15 });
     expect(r.gels.map((g) => g.name)).toEqual(['1/2 plus green']);

@@ -161,3 +161,56 @@ describe('gel solver equals brute force on random kits', () => {
     );
   });
 });
+
+describe('gel solver with a mired tolerance equals brute force on random kits', () => {
+  const gel = fc.record({
+    miredShift: fc.integer({ min: -160, max: 160 }),
+    greenShift: fc.constantFrom(0, 0, 0, 7.5, -7.5),
+    lossStops: fc.integer({ min: 0, max: 20 }).map((x) => x / 10),
+  });
+  it('fewest gels (then least loss, then closest) among stacks within the tolerance', () => {
+    fc.assert(
+      fc.property(
+        fc.array(gel, { minLength: 1, maxLength: 8 }),
+        fc.integer({ min: 2000, max: 12000 }),
+        fc.integer({ min: 1, max: 3 }),
+        fc.integer({ min: 0, max: 30 }),
+        (kit, cameraKelvin, maxGels, tolerance) => {
+          const gels = kit.map((g, i) => ({ name: `g${i}`, ...g }));
+          const required = 1e6 / cameraKelvin - 1e6 / 5500;
+          // Every subset (by bitmask) within maxGels, the empty stack included.
+          const stacks = [];
+          for (let mask = 0; mask < 1 << gels.length; mask++) {
+            const idx = gels.map((_, i) => i).filter((i) => mask & (1 << i));
+            if (idx.length > maxGels) continue;
+            const sum = (f: (g: (typeof gels)[number]) => number) =>
+              idx.reduce((s, i) => s + f(gels[i] as (typeof gels)[number]), 0);
+            stacks.push({
+              mired: Math.abs(sum((g) => g.miredShift) - required),
+              green: Math.abs(sum((g) => g.greenShift)),
+              n: idx.length,
+              loss: sum((g) => g.lossStops),
+            });
+          }
+          const within = stacks.filter((s) => s.mired <= tolerance + 1e-9);
+          const order =
+            (keys: (keyof (typeof stacks)[number])[]) =>
+            (a: (typeof stacks)[number], b: (typeof stacks)[number]) => {
+              for (const k of keys) if (Math.abs(a[k] - b[k]) > 1e-9) return a[k] - b[k];
+              return 0;
+            };
+          const best = within.length
+            ? [...within].sort(order(['green', 'n', 'loss', 'mired']))[0]!
+            : [...stacks].sort(order(['mired', 'green', 'n', 'loss']))[0]!;
+          const r = solveBalance({ cameraKelvin, gels, maxGels, miredTolerance: tolerance });
+          expect(Math.abs(r.residualMired)).toBeCloseTo(best.mired, 1);
+          expect(r.gels.length).toBe(best.n);
+          expect(r.gelLossStops).toBeCloseTo(best.loss, 6);
+          if (within.length)
+            expect(Math.abs(r.residualMired)).toBeLessThanOrEqual(tolerance + 0.01);
+        },
+      ),
+      { numRuns: 200 },
+    );
+  });
+});

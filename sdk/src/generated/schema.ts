@@ -1299,6 +1299,11 @@ export interface components {
        */
       maxGels?: number;
       /**
+       * @description Mireds of error accepted to use fewer gels (0..50); default 0 (closest stack). Any stack within this of the required shift is a match; the match with the fewest gels, then the least light loss, is chosen.
+       * @example 10
+       */
+      miredTolerance?: number;
+      /**
        * @description Extra warmth wanted on the subject, mireds (-200..200; + = warmer).
        * @example 10
        */
@@ -2924,6 +2929,11 @@ export interface components {
        * @example 2
        */
       maxGels?: number;
+      /**
+       * @description Mireds of error accepted to use fewer gels (0..50); default 0 (closest stack). Any stack within this of the required shift is a match; the match with the fewest gels, then the least light loss, is chosen.
+       * @example 10
+       */
+      miredTolerance?: number;
       /** @description An optional rim light behind the subject. Name a light and modifier of your gear by id, or give the values. */
       rim?: {
         /**
@@ -3266,6 +3276,11 @@ export interface components {
        * @example 2
        */
       maxGels?: number;
+      /**
+       * @description Mireds of error accepted to use fewer gels (0..50); default 0 (closest stack). Any stack within this of the required shift is a match; the match with the fewest gels, then the least light loss, is chosen.
+       * @example 10
+       */
+      miredTolerance?: number;
       /** @description An optional rim light behind the subject. Name a light and modifier of your gear by id, or give the values. */
       rim?: {
         /**

@@ -46,6 +46,27 @@ describe('compute API', () => {
     expect(typeof res.body.gels[0].name).toBe('string');
   });
 
+  it('accepts a mired tolerance for shorter gel stacks and names the field when it is out of range', async () => {
+    // Mired arithmetic as above; the tolerance rule itself is common practice, no source.
+    const body = { cameraKelvin: 3800, flashKelvin: 5500, maxGels: 3 };
+    const exact = await post(t.url, 'balance', org.test.secret, body).expect(200);
+    const loose = await post(t.url, 'balance', org.test.secret, {
+      ...body,
+      miredTolerance: 10,
+    }).expect(200);
+    expect(loose.body.gels.length).toBeLessThan(exact.body.gels.length);
+    expect(Math.abs(loose.body.residualMired)).toBeLessThanOrEqual(10);
+    const bad = await post(t.url, 'balance', org.test.secret, { ...body, miredTolerance: 80 });
+    expect(bad.status).toBe(422);
+    expect(bad.headers['content-type']).toMatch(/^application\/problem\+json/);
+    expect(bad.body.errors).toEqual([expect.objectContaining({ field: 'miredTolerance' })]);
+    const setup = await post(t.url, 'setup', org.test.secret, {
+      ...(DEMO_BODIES.setup as object),
+      miredTolerance: 10,
+    });
+    expect(setup.status).toBe(200);
+  });
+
   it('solves flash power from the guide number (ISO 1230: GN = distance × f-number)', async () => {
     // GN 32 m at ISO 100 and 4 m needs f/8 at full power; at f/4 it needs a quarter power.
     const res = await post(t.url, 'flash', org.live.secret, {

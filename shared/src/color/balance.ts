@@ -30,6 +30,13 @@ export interface BalanceInput {
   gels?: Array<{ name: string; miredShift: number; greenShift?: number; lossStops: number }>;
   /** Most gels in one stack, 0..4; default 3. */
   maxGels?: number;
+  /**
+   * Mireds of error you accept to use fewer gels, 0..50; default 0 (closest stack wins). Any stack
+   * within this of the required shift is a match, and the match with the fewest gels (then the
+   * least light loss) is chosen; the camera's fine-tune absorbs what is left. About 10 suits most
+   * skin (common practice, no source).
+   */
+  miredTolerance?: number;
 }
 
 export interface BalanceResult {
@@ -80,7 +87,8 @@ function readKit(value: unknown): Gel[] {
 /**
  * Gel the flash so the subject renders as intended under the camera's white balance.
  * Required shift = mired(camera) - mired(flash) + targetMiredOffset. Best stack of at most
- * `maxGels` pieces by residual mired error, then green residual, then fewer gels, then less loss.
+ * `maxGels` pieces by residual mired error, then green residual, then fewer gels, then less loss;
+ * with `miredTolerance`, the fewest gels among the stacks within that many mireds.
  */
 export function solveBalance(input: BalanceInput): BalanceResult {
   const o = requireObject('input', input);
@@ -93,9 +101,10 @@ export function solveBalance(input: BalanceInput): BalanceResult {
   });
   const kit = readKit(o.gels);
   const maxGels = optionalNumber('maxGels', o.maxGels, 3, { min: 0, max: 4, integer: true });
+  const tolerance = optionalNumber('miredTolerance', o.miredTolerance, 0, { min: 0, max: 50 });
   const required = mired(camera) - mired(flash) + offset;
   const search: SearchGel[] = kit.map((gel, index) => ({ index, ...gel }));
-  const best = bestStack(search, maxGels, required, tint);
+  const best = bestStack(search, maxGels, required, tint, tolerance);
   const chosen = best.indices.map((i) => kit[i] as Gel);
   const achieved = chosen.reduce((s, gel) => s + gel.miredShift, 0);
   const green = chosen.reduce((s, gel) => s + gel.greenShift, 0);

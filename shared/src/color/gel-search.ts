@@ -16,29 +16,70 @@ export interface StackScore {
 const EPS = 1e-9;
 
 /**
- * Lexicographic order of stacks: smaller |mired residual|, then |green residual|, then fewer
- * gels, then less light loss. Returns < 0 when `a` is better.
+ * Order of stacks, < 0 when `a` is better. A stack whose |mired residual| is within `tolerance`
+ * counts as a match: matches beat non-matches and are ranked by |green residual|, then fewer
+ * gels, then less light loss, then |mired residual|. Non-matches are ranked by |mired residual|,
+ * then |green residual|, then fewer gels, then less loss. With tolerance 0 this is the plain
+ * lexicographic order (mired, green, count, loss).
  */
-export function compareStacks(a: StackScore, b: StackScore): number {
-  const keys: Array<[number, number]> = [
-    [Math.abs(a.miredResidual), Math.abs(b.miredResidual)],
-    [Math.abs(a.greenResidual), Math.abs(b.greenResidual)],
-    [a.indices.length, b.indices.length],
-    [a.loss, b.loss],
-  ];
-  for (const [x, y] of keys) if (Math.abs(x - y) > EPS) return x - y;
+export function compareStacks(a: StackScore, b: StackScore, tolerance = 0): number {
+  return compareScores(
+    a.miredResidual,
+    a.greenResidual,
+    a.indices.length,
+    a.loss,
+    b.miredResidual,
+    b.greenResidual,
+    b.indices.length,
+    b.loss,
+    tolerance,
+  );
+}
+
+function compareScores(
+  am: number,
+  ag: number,
+  an: number,
+  al: number,
+  bm: number,
+  bg: number,
+  bn: number,
+  bl: number,
+  tolerance: number,
+): number {
+  const amAbs = Math.abs(am);
+  const bmAbs = Math.abs(bm);
+  const aIn = amAbs <= tolerance + EPS;
+  const bIn = bmAbs <= tolerance + EPS;
+  if (aIn !== bIn) return aIn ? -1 : 1;
+  let d: number;
+  if (!aIn) {
+    d = amAbs - bmAbs;
+    if (Math.abs(d) > EPS) return d;
+  }
+  d = Math.abs(ag) - Math.abs(bg);
+  if (Math.abs(d) > EPS) return d;
+  if (an !== bn) return an - bn;
+  d = al - bl;
+  if (Math.abs(d) > EPS) return d;
+  if (aIn) {
+    d = amAbs - bmAbs;
+    if (Math.abs(d) > EPS) return d;
+  }
   return 0;
 }
 
 /**
  * Best stack of at most `maxGels` distinct pieces, by depth-first enumeration of combinations
- * (each piece used at most once). Mired shifts add; so do green shifts and losses.
+ * (each piece used at most once). Mired shifts add; so do green shifts and losses. Candidates are
+ * scored without allocating; only a new best is copied.
  */
 export function bestStack(
   gels: readonly SearchGel[],
   maxGels: number,
   requiredMired: number,
   requiredGreen: number,
+  tolerance = 0,
 ): StackScore {
   let best: StackScore = {
     indices: [],
@@ -55,13 +96,26 @@ export function bestStack(
       const m = mired + gel.miredShift;
       const gr = green + gel.greenShift;
       const l = loss + gel.lossStops;
-      const cand = {
-        indices: [...chosen],
-        miredResidual: m - requiredMired,
-        greenResidual: gr - requiredGreen,
-        loss: l,
-      };
-      if (compareStacks(cand, best) < 0) best = cand;
+      const better =
+        compareScores(
+          m - requiredMired,
+          gr - requiredGreen,
+          chosen.length,
+          l,
+          best.miredResidual,
+          best.greenResidual,
+          best.indices.length,
+          best.loss,
+          tolerance,
+        ) < 0;
+      if (better) {
+        best = {
+          indices: [...chosen],
+          miredResidual: m - requiredMired,
+          greenResidual: gr - requiredGreen,
+          loss: l,
+        };
+      }
       visit(i + 1, m, gr, l);
       chosen.pop();
     }

@@ -146,6 +146,7 @@ export function planDuskSetup(input: DuskSetupInput): DuskSetupPlan {
     targetMiredOffset: o.targetMiredOffset,
     gels: o.gels,
     maxGels: o.maxGels,
+    miredTolerance: o.miredTolerance,
   } as never);
   const win = windowPoints(tw);
   const minutes = win.points.map((p) => minuteAt(s, p, balance.gelLossStops));

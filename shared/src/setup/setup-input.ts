@@ -67,6 +67,7 @@ export interface DuskSetupInput {
   targetMiredOffset?: number;
   gels?: BalanceInput['gels'];
   maxGels?: number;
+  miredTolerance?: BalanceInput['miredTolerance'];
   /** Key-light-to-background distance, in key.distanceUnit. */
   backgroundDistance?: number;
   conditions?: {

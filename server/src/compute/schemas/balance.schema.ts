@@ -42,6 +42,13 @@ export const balanceRequestSchema: ObjectSchema = {
       description: 'Most gels in one stack (0..4); default 3.',
       example: 2,
     },
+    miredTolerance: num(
+      'Mireds of error accepted to use fewer gels (0..50); default 0 (closest stack). Any stack ' +
+        'within this of the required shift is a match; the match with the fewest gels, then the ' +
+        'least light loss, is chosen.',
+      10,
+      { minimum: 0, maximum: 50 },
+    ),
   },
 };
 

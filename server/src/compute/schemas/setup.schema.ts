@@ -80,6 +80,7 @@ export const setupRequestSchema: ObjectSchema = {
     targetMiredOffset: bal.targetMiredOffset!,
     gels: bal.gels!,
     maxGels: bal.maxGels!,
+    miredTolerance: bal.miredTolerance!,
     backgroundDistance: num('Key-light-to-background distance, in key.distanceUnit.', 12),
     conditions: closed('Site conditions; they add safety cautions.', {
       windKmh: num('Wind speed, km/h.', 15),
