@@ -221,7 +221,9 @@ describe('playground', () => {
   it('shows the gel stack and scene swatches solveBalance picks for the camera white balance', async () => {
     const panel = await openCalculation('balance');
     setValue(within(panel).getByLabelText('Camera WB (K)'), '3200');
-    const expected = solveBalance({ cameraKelvin: 3200, flashKelvin: 5500, maxGels: 3 });
+    const stackFor = (miredTolerance: number) =>
+      solveBalance({ cameraKelvin: 3200, flashKelvin: 5500, maxGels: 3, miredTolerance });
+    const expected = stackFor(10); // the playground accepts 10 mired by default
     await waitFor(() =>
       expect(within(panel).getByTestId('gel-stack').textContent).toBe(
         expected.gels.map((gel) => gel.name).join('') || 'No gel needed',
@@ -229,6 +231,15 @@ describe('playground', () => {
     );
     expect(panel.querySelectorAll('[data-swatch]').length).toBe(expected.scene.length);
     expect(panel.querySelector('svg[data-chart="mired"]')).not.toBeNull();
+    // 0 asks for the closest stack, which at 3200 K is a longer one.
+    setValue(within(panel).getByLabelText('Close enough (mired)'), '0');
+    const closest = stackFor(0);
+    expect(closest.gels.length).toBeGreaterThan(expected.gels.length);
+    await waitFor(() =>
+      expect(within(panel).getByTestId('gel-stack').textContent).toBe(
+        closest.gels.map((gel) => gel.name).join(''),
+      ),
+    );
   });
 
   it('draws the rim beam and marks ground spill when the light is aimed down', async () => {

@@ -16,6 +16,7 @@ const schema = z.object({
   flashKelvin: maybe,
   targetMiredOffset: maybe,
   maxGels: maybe,
+  miredTolerance: maybe,
 });
 type BalanceForm = z.infer<typeof schema>;
 
@@ -25,6 +26,7 @@ const labels: Record<string, string> = {
   flashKelvin: 'Bare flash',
   targetMiredOffset: 'Extra warmth',
   maxGels: 'Most gels',
+  miredTolerance: 'Close enough',
 };
 
 export function BalancePanel() {
@@ -37,6 +39,8 @@ export function BalancePanel() {
       flashKelvin: 5500,
       targetMiredOffset: 0,
       maxGels: 3,
+      // Trade up to 10 mired for a shorter stack; the camera's fine-tune takes the rest.
+      miredTolerance: 10,
     },
     toInput: (values) => {
       const input: BalanceInput = { cameraKelvin: values.cameraKelvin };
@@ -45,12 +49,14 @@ export function BalancePanel() {
         flashKelvin: given(values.flashKelvin),
         targetMiredOffset: given(values.targetMiredOffset),
         maxGels: given(values.maxGels),
+        miredTolerance: given(values.miredTolerance),
       };
       for (const [key, value] of Object.entries(optional)) {
         if (
           value !== undefined &&
           !(key === 'cameraTint' && value === 0) &&
-          !(key === 'targetMiredOffset' && value === 0)
+          !(key === 'targetMiredOffset' && value === 0) &&
+          !(key === 'miredTolerance' && value === 0)
         ) {
           (input as unknown as Record<string, number>)[key] = value;
         }
@@ -77,6 +83,11 @@ export function BalancePanel() {
           <TextField label="Bare flash (K)" {...numberField('flashKelvin')} />
           <TextField label="Extra warmth on skin (mired)" {...numberField('targetMiredOffset')} />
           <TextField label="Most gels in a stack" {...numberField('maxGels')} />
+          <TextField
+            label="Close enough (mired)"
+            hint="Fewer gels when within this; 0 = closest"
+            {...numberField('miredTolerance')}
+          />
         </FormGrid>
         <p className="text-caption text-ink-muted">
           Gels come from a generic CTO/CTB and green kit; your own kit arrives with Gear.
