@@ -179,7 +179,7 @@ describe('gel solver with a mired tolerance equals brute force on random kits', 
           const gels = kit.map((g, i) => ({ name: `g${i}`, ...g }));
           const required = 1e6 / cameraKelvin - 1e6 / 5500;
           // Every subset (by bitmask) within maxGels, the empty stack included.
-          const stacks = [];
+          const stacks: { mired: number; green: number; n: number; loss: number }[] = [];
           for (let mask = 0; mask < 1 << gels.length; mask++) {
             const idx = gels.map((_, i) => i).filter((i) => mask & (1 << i));
             if (idx.length > maxGels) continue;

@@ -3,7 +3,7 @@
 import http from 'node:http';
 import type { AddressInfo } from 'node:net';
 import helmet from 'helmet';
-import { helmetHeaders, securityHeaderOptions } from './security-headers';
+import { helmetHeaders, securityHeaderOptions } from './security-headers.js';
 
 async function headersFromRealHelmet(https: boolean): Promise<Record<string, string>> {
   const mw = helmet(securityHeaderOptions(https));

@@ -2,7 +2,7 @@
 // the line format: level numbers 20 debug, 30 info, 40 warn, 50 error — https://getpino.io).
 import { Writable } from 'node:stream';
 import pino from 'pino';
-import { PinoNestLogger, requestLevel } from './logging';
+import { PinoNestLogger, requestLevel } from './logging.js';
 
 function capture() {
   const lines: Record<string, unknown>[] = [];
