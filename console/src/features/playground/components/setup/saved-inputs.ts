@@ -98,6 +98,8 @@ export function fromSetupInput(inputs: SavedSetupInputs, unit: DisplayUnit): Set
     rimOverKeyStops: optional(rim?.rimOverKeyStops),
     rimGelled: rim?.gelled ?? true,
     backgroundDistance: lengthIn(inputs.backgroundDistance, keyUnit, unit),
+    // Saved without one, the plan was made with the closest stack.
+    miredTolerance: inputs.miredTolerance ?? 0,
   };
 }
 

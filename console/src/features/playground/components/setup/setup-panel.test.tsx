@@ -136,6 +136,8 @@ describe('Dusk setup: saved setups', () => {
     // 0.004 s is 1/250 s.
     expect(valueOf(within(camera).getByLabelText('Flash sync (1/x s)'))).toBe('250');
     expect(valueOf(within(camera).getByLabelText('Support'))).toBe('tripod');
+    // Saved without a gel tolerance: it was planned with the closest stack, so 0 (not the new-form 10).
+    expect(valueOf(within(camera).getByLabelText('Gels close enough (mired)'))).toBe('0');
     const rim = within(panel).getByRole('group', { name: 'Rim light' });
     // 1 ft = 0.3048 m exactly (international yard and pound, 1959): 10 ft = 3.048 m, 5 ft = 1.524 m.
     expect(valueOf(within(rim).getByLabelText('Behind subject (m)'))).toBe('3.05');
@@ -249,5 +251,21 @@ describe('Dusk setup: saved setups', () => {
     const panel = await openPlayground(`?setup=${SETUP_ID}&calc=setup`);
     const alert = await within(panel).findByRole('alert');
     expect(alert.textContent).toContain('Your role may not open saved setups');
+  });
+});
+
+describe('Dusk setup: gel tolerance', () => {
+  it('a new plan asks for up to 10 mired off (shorter stacks); 0 sends nothing (closest stack)', async () => {
+    const panel = await openPlayground('?calc=setup');
+    const camera = within(panel).getByRole('group', { name: 'Camera' });
+    const field = within(camera).getByLabelText('Gels close enough (mired)');
+    expect(valueOf(field)).toBe('10');
+    const saved = () => calls.filter((c) => c.method === 'POST' && c.path === '/v1/setup');
+    await waitFor(() => expect(saved().length).toBeGreaterThan(0));
+    expect((saved().at(-1)!.body as { miredTolerance?: number }).miredTolerance).toBe(10);
+    const before = saved().length;
+    fireEvent.change(field, { target: { value: '0' } });
+    await waitFor(() => expect(saved().length).toBeGreaterThan(before));
+    expect(saved().at(-1)!.body).not.toHaveProperty('miredTolerance');
   });
 });

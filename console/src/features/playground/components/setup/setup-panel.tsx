@@ -56,6 +56,7 @@ const schema = z.object({
   rimOverKeyStops: maybe,
   rimGelled: z.boolean(),
   backgroundDistance: maybe,
+  miredTolerance: maybe,
 });
 export type SetupForm = z.infer<typeof schema>;
 
@@ -73,6 +74,7 @@ const labels: Record<string, string> = {
   'rim.lightHeight': 'Rim height',
   'rim.rimOverKeyStops': 'Rim over key',
   backgroundDistance: 'Key to background',
+  miredTolerance: 'Gels close enough',
 };
 
 /** Drop keys whose value is undefined, so the request (and the copied snippet) stays short. */
@@ -125,6 +127,8 @@ export function toSetupInput(
   }
   if (given(form.backgroundDistance) !== undefined)
     input.backgroundDistance = form.backgroundDistance;
+  const tolerance = given(form.miredTolerance);
+  if (tolerance !== undefined && tolerance !== 0) input.miredTolerance = tolerance;
   return input;
 }
 
@@ -183,6 +187,8 @@ export function SetupPanel() {
       rimOverKeyStops: 1,
       rimGelled: true,
       backgroundDistance: 12,
+      // As on the Balance tab: up to 10 mired off for a shorter gel stack.
+      miredTolerance: 10,
     },
     lengthFields: ['keyDistance', 'rimDistanceBehind', 'rimHeight', 'backgroundDistance'],
     toInput: (values, displayUnit) => toSetupInput(values, displayUnit, place, conditions),
@@ -286,6 +292,11 @@ export function SetupPanel() {
               {...numberField('biasStops', 'camera.biasStops')}
             />
             <TextField label="White balance (K)" {...numberField('kelvin', 'camera.kelvin')} />
+            <TextField
+              label="Gels close enough (mired)"
+              hint="Fewer gels when within this; 0 = closest"
+              {...numberField('miredTolerance')}
+            />
           </FormGrid>
           <FormGrid legend="Key light">
             <TextField label="Guide number" {...numberField('keyGuideNumber', 'key.guideNumber')} />
