@@ -88,6 +88,15 @@ async function auditRows(action: string): Promise<string[]> {
   const table = page.getByRole('table', { name: 'Audit events' });
   await table.waitFor();
   await table.locator('tbody tr').first().waitFor();
+  // The previous (unfiltered) page can stay on screen while the filtered one loads: wait until
+  // every row shows the action asked for.
+  await page.waitForFunction((wanted) => {
+    const table = [...document.querySelectorAll('table')].find(
+      (t) => t.querySelector('caption')?.textContent === 'Audit events',
+    );
+    const codes = [...(table?.querySelectorAll('tbody code') ?? [])];
+    return codes.length > 0 && codes.every((c) => c.textContent === wanted);
+  }, action);
   return table.locator('tbody tr').allTextContents();
 }
 
