@@ -8,6 +8,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { cluster, freePort } from './lib/pg.mjs';
+import { ensureRedisBin } from './lib/redis.mjs';
 import { buildAll } from './lib/build.mjs';
 import { ensureInstalled, run, service, stopAll, waitForHttp } from './lib/proc.mjs';
 import { startFakes } from './lib/fakes.mjs';
@@ -83,6 +84,14 @@ async function main() {
   if (want('shared')) await step('shared (vitest)', () => vitest('shared'));
   if (want('server'))
     await step('server (jest)', async () => {
+      // The Redis suites start redis-server themselves; install it up front (as root, when
+      // missing) so that is not counted against a test's timeout. If it can't be had, those
+      // suites fail with this message and the others still run.
+      try {
+        ensureRedisBin();
+      } catch (e) {
+        console.error(e.message);
+      }
       const out = path.join(artifacts, 'server-jest.json');
       const code = await run('npx', ['jest', '--runInBand', '--json', `--outputFile=${out}`], {
         cwd: path.join(root, 'server'),

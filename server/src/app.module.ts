@@ -7,6 +7,7 @@ import { AppConfig } from './config/config.js';
 import { ConfigModule } from './config/config.module.js';
 import { typeormOptions } from './database/typeorm.options.js';
 import { HealthModule } from './health/health.module.js';
+import { RedisModule } from './redis/redis.module.js';
 import { FEATURE_MODULES } from './features.js';
 
 @Module({})
@@ -17,6 +18,7 @@ export class AppModule {
       imports: [
         ConfigModule.forRoot(config),
         TypeOrmModule.forRoot({ ...typeormOptions(config.databaseUrl), autoLoadEntities: false }),
+        RedisModule,
         HealthModule,
         ...FEATURE_MODULES,
       ],

@@ -14,11 +14,12 @@ export interface AppConfig {
   bodyLimitBytes: number;
   smtpUrl: string | null;
   mailFrom: string;
+  /** The Redis behind RATE_LIMIT_STORE=redis (required then, unused otherwise). */
   redisUrl: string | null;
   /** Sign-ups accepted from one IP address per hour (abuse of account creation). */
   signUpsPerIpPerHour: number;
   /** Metering and limits (compute API): see the usage and plans features. */
-  rateLimitStore: 'memory' | 'postgres';
+  rateLimitStore: 'memory' | 'postgres' | 'redis';
   usageFlushMs: number;
   usageBatchSize: number;
   usageMaxBuffer: number;
@@ -77,6 +78,16 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
   }
   const smtpUrl = env.SMTP_URL ?? null;
   if (smtpUrl && !/^smtps?:\/\//.test(smtpUrl)) throw new ConfigError('SMTP_URL must be smtp://');
+  const redisUrl = env.REDIS_URL || null;
+  if (redisUrl && !/^rediss?:\/\/[^/?#]+/.test(redisUrl)) {
+    throw new ConfigError('REDIS_URL must be a redis:// (or rediss://) URL');
+  }
+  const store = rateLimitStore(env.RATE_LIMIT_STORE);
+  if (store === 'redis' && !redisUrl) {
+    throw new ConfigError(
+      'RATE_LIMIT_STORE=redis needs REDIS_URL (e.g. redis://127.0.0.1:6379): the Redis that holds the shared rate-limit buckets',
+    );
+  }
   return {
     nodeEnv,
     host,
@@ -90,7 +101,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     bodyLimitBytes: int(env, 'BODY_LIMIT_BYTES', 100 * 1024, 1024, 50 * 1024 * 1024),
     smtpUrl,
     mailFrom: env.MAIL_FROM ?? 'Lumenwright <no-reply@lumenwright.test>',
-    redisUrl: env.REDIS_URL ?? null,
+    redisUrl,
     signUpsPerIpPerHour: int(
       env,
       'SIGNUPS_PER_IP_PER_HOUR',
@@ -98,7 +109,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
       1,
       1_000_000,
     ),
-    rateLimitStore: rateLimitStore(env.RATE_LIMIT_STORE),
+    rateLimitStore: store,
     usageFlushMs: int(env, 'USAGE_FLUSH_MS', 200, 10, 60_000),
     usageBatchSize: int(env, 'USAGE_BATCH_SIZE', 1000, 1, 10_000),
     usageMaxBuffer: int(env, 'USAGE_MAX_BUFFER', 50_000, 100, 1_000_000),
@@ -119,8 +130,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
 
 function rateLimitStore(raw: string | undefined): AppConfig['rateLimitStore'] {
   if (raw === undefined || raw === '' || raw === 'memory') return 'memory';
-  if (raw === 'postgres') return 'postgres';
-  throw new ConfigError(`RATE_LIMIT_STORE must be memory or postgres (got "${raw}")`);
+  if (raw === 'postgres' || raw === 'redis') return raw;
+  throw new ConfigError(`RATE_LIMIT_STORE must be memory, postgres or redis (got "${raw}")`);
 }
 
 /** An optional service URL: https anywhere, or plain http on loopback (local fakes). */

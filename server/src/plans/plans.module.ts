@@ -1,6 +1,8 @@
 import { Module } from '@nestjs/common';
+import type { Redis } from 'ioredis';
 import type pg from 'pg';
 import { APP_CONFIG, AppConfig } from '../config/config.js';
+import { REDIS } from '../redis/redis.module.js';
 import { UsageModule } from '../usage/usage.module.js';
 import { USAGE_POOL } from '../usage/usage-writer.service.js';
 import { ComputeLimitsGuard } from './compute-limits.guard.js';
@@ -11,6 +13,7 @@ import {
   MemoryRateLimitStorage,
   PostgresRateLimitStorage,
   RATE_LIMIT_STORAGE,
+  RedisRateLimitStorage,
 } from './rate-limit.storage.js';
 
 @Module({
@@ -22,11 +25,12 @@ import {
     ComputeLimitsGuard,
     {
       provide: RATE_LIMIT_STORAGE,
-      inject: [APP_CONFIG, USAGE_POOL],
-      useFactory: (config: AppConfig, pool: pg.Pool) =>
-        config.rateLimitStore === 'postgres'
-          ? new PostgresRateLimitStorage(pool)
-          : new MemoryRateLimitStorage(),
+      inject: [APP_CONFIG, USAGE_POOL, REDIS],
+      useFactory: (config: AppConfig, pool: pg.Pool, redis: Redis | null) => {
+        if (config.rateLimitStore === 'redis' && redis) return new RedisRateLimitStorage(redis);
+        if (config.rateLimitStore === 'postgres') return new PostgresRateLimitStorage(pool);
+        return new MemoryRateLimitStorage();
+      },
     },
   ],
   exports: [PlansService, QuotaService, ComputeLimitsGuard, RATE_LIMIT_STORAGE, UsageModule],

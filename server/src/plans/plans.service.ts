@@ -6,13 +6,15 @@ import { DataSource } from 'typeorm';
 import { DomainError } from '../common/errors/domain-error.js';
 import { PlanEntity } from './plan.entity.js';
 
-/** The database could not be reached: a 503 the client may retry, never a 500. */
-export const databaseUnavailable = (err?: unknown) => {
+/** A dependency could not be reached: a 503 the client may retry, never a 500. */
+export const dependencyUnavailable = (what: string) => (err?: unknown) => {
   if (err instanceof DomainError) return err;
-  return new DomainError('unavailable', 'The database is unavailable; try again shortly.', [], {
+  return new DomainError('unavailable', `${what} is unavailable; try again shortly.`, [], {
     'Retry-After': '2',
   });
 };
+
+export const databaseUnavailable = dependencyUnavailable('The database');
 
 const PLAN_CACHE_MS = 30_000;
 

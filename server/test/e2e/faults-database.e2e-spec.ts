@@ -9,10 +9,12 @@ import { signUp } from '../factories/accounts.js';
 import { createKey, DEMO_BODIES } from '../factories/compute.js';
 import {
   call,
+  health,
   load,
   migrateBuilt,
   sleep,
   startServer,
+  tally,
   throwawayCluster,
   until,
   type CallResult,
@@ -48,10 +50,6 @@ describe('faults: PostgreSQL stopped under load', () => {
     cluster?.remove();
   });
 
-  const health = async () => {
-    const r = await fetch(`${server.url}/v1/health`);
-    return { status: r.status, type: r.headers.get('content-type') ?? '', body: await r.text() };
-  };
   const rowsFor2xx = async () => {
     const c = new pg.Client({ connectionString: dbUrl });
     await c.connect();
@@ -65,8 +63,6 @@ describe('faults: PostgreSQL stopped under load', () => {
       await c.end();
     }
   };
-  const tally = (rs: CallResult[]) =>
-    rs.reduce<Record<number, number>>((a, r) => ({ ...a, [r.status]: (a[r.status] ?? 0) + 1 }), {});
 
   it('stays up, answers 503 problem+json, reports the database down, recovers within 5 s, loses no usage event', async () => {
     const extra: CallResult[] = [];
@@ -77,7 +73,7 @@ describe('faults: PostgreSQL stopped under load', () => {
     const downAt = Date.now();
     cluster.stop();
     await sleep(1500);
-    const h = await health();
+    const h = await health(server.url);
     const aliveWhileDown = server.alive();
     // A fresh call made while the database is certainly down.
     const during = await call(server.url, key.secret, 'balance', DEMO_BODIES.balance);
@@ -98,7 +94,7 @@ describe('faults: PostgreSQL stopped under load', () => {
     );
     await sleep(300);
     const results = await traffic.stop();
-    const healthAfter = await health();
+    const healthAfter = await health(server.url);
 
     const outage = results.filter((r) => r.at >= downAt + 300 && r.at < upAt);
     console.log(

@@ -12,6 +12,7 @@ import { createInterface } from 'node:readline';
 
 export const ROOT = path.resolve(__dirname, '../../..');
 const PG_LIB = path.join(ROOT, 'scripts/lib/pg.mjs');
+const REDIS_LIB = path.join(ROOT, 'scripts/lib/redis.mjs');
 export const SERVER_MAIN = path.join(ROOT, 'server/dist/main.js');
 const MIGRATE_BIN = path.join(ROOT, 'server/dist/bin/migrate.js');
 
@@ -76,6 +77,53 @@ export async function throwawayCluster(): Promise<ThrowawayCluster> {
     stop: () => void call('stop'),
     createDatabase: (name) => call('createDatabase', name) as string,
     psql: (sql, db = 'postgres') => call('psql', sql, db) as string,
+    remove: () => {
+      try {
+        call('stop');
+      } finally {
+        fs.rmSync(dir, { recursive: true, force: true });
+      }
+    },
+  };
+}
+
+// ---------------------------------------------------------------- a throwaway Redis
+
+export interface ThrowawayRedis {
+  port: number;
+  url: string;
+  /** Starts redis-server (again, on the same port) and waits until it accepts connections. */
+  start(): void;
+  /** SIGTERM to its PID: every connection is cut, as in a crash or failover. */
+  stop(): void;
+  /** Stops it and deletes its directory. */
+  remove(): void;
+}
+
+/**
+ * A redis-server of our own on a free loopback port (scripts/lib/redis.mjs, which installs
+ * Debian's redis-server when running as root and none is found). Fails with the installer's
+ * message when it can't be had: the suites that need Redis fail rather than skip.
+ */
+export async function throwawayRedis(): Promise<ThrowawayRedis> {
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'lumenwright-redis-'));
+  const port = await freePort();
+  const call = (op: 'start' | 'stop') => {
+    const script = `
+      const m = await import(${JSON.stringify(REDIS_LIB)});
+      await m.redis({ dir: ${JSON.stringify(dir)}, port: ${port}, log: (s) => console.error(s) })[${JSON.stringify(op)}]();`;
+    const r = spawnSync(process.execPath, ['--input-type=module', '-e', script], {
+      encoding: 'utf8',
+      timeout: 300_000, // a first run may install the package
+      maxBuffer: 16 * 1024 * 1024,
+    });
+    if (r.status !== 0) throw new Error(`redis ${op} failed: ${r.stderr || r.error?.message}`);
+  };
+  return {
+    port,
+    url: `redis://127.0.0.1:${port}`,
+    start: () => call('start'),
+    stop: () => call('stop'),
     remove: () => {
       try {
         call('stop');
@@ -255,6 +303,16 @@ export async function call(
   } catch (e) {
     return { at, status: 0, contentType: '', body: String(e), retryAfter: null };
   }
+}
+
+/** Counts results by HTTP status (0 = connection refused), for the logs of load tests. */
+export const tally = (rs: CallResult[]) =>
+  rs.reduce<Record<number, number>>((a, r) => ({ ...a, [r.status]: (a[r.status] ?? 0) + 1 }), {});
+
+/** GET /v1/health: its status, content type and raw body. */
+export async function health(url: string) {
+  const r = await fetch(`${url}/v1/health`);
+  return { status: r.status, type: r.headers.get('content-type') ?? '', body: await r.text() };
 }
 
 /** `concurrency` loops calling until stop() resolves; every result is kept in order of start. */
