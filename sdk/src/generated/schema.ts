@@ -515,7 +515,7 @@ export interface paths {
       path?: never;
       cookie?: never;
     };
-    /** Service health: the API and its database. */
+    /** Service health: the API, its database and, when it is the rate-limit store, Redis. */
     get: operations['getHealth'];
     put?: never;
     post?: never;

@@ -29,7 +29,9 @@ export class HealthController {
   @Get()
   @Public()
   @HealthCheck()
-  @ApiOperation({ summary: 'Service health: the API and its database.' })
+  @ApiOperation({
+    summary: 'Service health: the API, its database and, when it is the rate-limit store, Redis.',
+  })
   @ApiOkResponse({ description: 'Everything is up.' })
   @ApiServiceUnavailableResponse({ description: 'A dependency (the database) is down.' })
   getHealth() {
