@@ -16,6 +16,7 @@ export type AuditAction =
   | 'auth.password_changed'
   | 'auth.email_change_requested'
   | 'auth.email_changed'
+  | 'auth.name_changed'
   | 'key.created'
   | 'key.revoked'
   | 'key.rotated'

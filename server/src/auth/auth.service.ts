@@ -148,6 +148,7 @@ export class AuthService {
   async updateProfile(
     userId: string,
     change: { name?: string; lengthUnit?: LengthUnit },
+    meta: RequestMeta,
   ): Promise<void> {
     const { name, lengthUnit } = change;
     if (name === undefined && lengthUnit === undefined) {
@@ -157,10 +158,16 @@ export class AuthService {
         { field: 'preferences', reason },
       ]);
     }
+    const before = name === undefined ? null : await this.users.findOneBy({ id: userId });
     await this.users.update(
       { id: userId },
       { ...(name !== undefined && { name }), ...(lengthUnit !== undefined && { lengthUnit }) },
     );
+    // A new name is what teammates see on keys, invites and the audit log: record it. (A display
+    // unit is a personal preference and is not audited.)
+    if (before && name !== undefined && before.name !== name) {
+      await this.auditAllOrgs(userId, 'auth.name_changed', meta, { from: before.name, to: name });
+    }
   }
 
   async listMemberships(userId: string) {
@@ -318,7 +325,8 @@ export class AuthService {
       | 'auth.password_reset'
       | 'auth.password_changed'
       | 'auth.email_change_requested'
-      | 'auth.email_changed',
+      | 'auth.email_changed'
+      | 'auth.name_changed',
     meta: RequestMeta,
     metadata?: Record<string, unknown>,
   ) {

@@ -52,11 +52,13 @@ export class MeController {
   async updateMe(
     @CurrentPrincipal() p: SessionPrincipal,
     @Body() body: UpdateProfileRequestDto,
+    @Meta() meta: RequestMeta,
   ): Promise<MeResponseDto> {
-    await this.auth.updateProfile(p.userId, {
-      name: body.name,
-      lengthUnit: body.preferences?.lengthUnit,
-    });
+    await this.auth.updateProfile(
+      p.userId,
+      { name: body.name, lengthUnit: body.preferences?.lengthUnit },
+      meta,
+    );
     const s = await this.auth.me(p.userId, p.organizationId);
     return toMeDto(s.user, s.organization, s.role);
   }

@@ -71,6 +71,15 @@ describe('accounts: profile and preferences', () => {
       .expect(200);
     expect(both.body.user.name).toBe('Tove L.');
     expect(both.body.preferences.lengthUnit).toBe('m');
+    // Renames are audited (from → to); unit changes and same-name saves are not.
+    await a.agent.patch('/v1/me').send({ name: 'Tove L.' }).expect(200);
+    const rows: { metadata: { from: string; to: string } }[] = await db.query(
+      `SELECT metadata FROM audit_events WHERE action = 'auth.name_changed' AND target_id = $1
+        ORDER BY created_at`,
+      [a.userId],
+    );
+    expect(rows.map((r) => r.metadata.to)).toEqual(['Tove Lanternby', 'Tove L.']);
+    expect(rows[1]!.metadata.from).toBe('Tove Lanternby');
   });
 
   it('refuses bad input with 422 problem+json naming the field, and changes nothing', async () => {
