@@ -11,7 +11,7 @@ import { AccountsAuthenticator } from './authenticator.service.js';
 import { MeController } from './me.controller.js';
 import { WhoAmIController } from './whoami.controller.js';
 import { SessionManager } from './session-manager.js';
-import { SignInThrottle } from './sign-in-throttle.service.js';
+import { AttemptThrottle } from './attempt-throttle.service.js';
 import { UserTokenEntity } from './user-token.entity.js';
 
 /** Global so the app-level AccessGuard can inject the AUTHENTICATOR. */
@@ -25,10 +25,10 @@ import { UserTokenEntity } from './user-token.entity.js';
   providers: [
     AuthService,
     SessionManager,
-    SignInThrottle,
+    AttemptThrottle,
     AccountsAuthenticator,
     { provide: AUTHENTICATOR, useExisting: AccountsAuthenticator },
   ],
-  exports: [AUTHENTICATOR, AuthService, SessionManager, SignInThrottle],
+  exports: [AUTHENTICATOR, AuthService, SessionManager, AttemptThrottle],
 })
 export class AuthModule {}

@@ -13,7 +13,7 @@ import { UserEntity } from '../users/user.entity.js';
 import { hashPassword, passwordProblems, verifyAgainstDummy, verifyPassword } from './passwords.js';
 import type { RequestMeta } from './request-context.js';
 import { SessionManager } from './session-manager.js';
-import { SignInThrottle, signInRules, WINDOW_SECONDS } from './sign-in-throttle.service.js';
+import { AttemptThrottle, signInRules, WINDOW_SECONDS } from './attempt-throttle.service.js';
 import { newLinkToken, sha256Hex } from './tokens.js';
 import { UserTokenEntity } from './user-token.entity.js';
 
@@ -36,7 +36,7 @@ export class AuthService {
     @InjectRepository(MembershipEntity) private readonly memberships: Repository<MembershipEntity>,
     @InjectRepository(UserTokenEntity) private readonly tokens: Repository<UserTokenEntity>,
     @Inject(APP_CONFIG) private readonly config: AppConfig,
-    private readonly throttle: SignInThrottle,
+    private readonly throttle: AttemptThrottle,
     private readonly audit: AuditService,
     private readonly mail: MailService,
     private readonly sessions: SessionManager,
@@ -72,7 +72,7 @@ export class AuthService {
       });
       return { user, organization, role: 'owner' as const };
     });
-    await this.throttle.fail([rule]);
+    await this.throttle.count([rule]);
     await this.audit.record({
       organizationId: result.organization.id,
       action: 'auth.sign_up',
@@ -94,7 +94,7 @@ export class AuthService {
       ? await verifyPassword(user.passwordHash, password)
       : (await verifyAgainstDummy(password), false);
     if (!user || !ok) {
-      await this.throttle.fail(rules);
+      await this.throttle.count(rules);
       await this.recordFailure(user, meta);
       throw new DomainError('unauthenticated', 'The e-mail address or the password is wrong.');
     }
@@ -182,7 +182,7 @@ export class AuthService {
   async requestPasswordReset(email: string, meta: RequestMeta): Promise<void> {
     const rule = { key: 'reset:' + sha256Hex(email), limit: 3, windowSeconds: WINDOW_SECONDS };
     if ((await this.throttle.retryAfter([rule])) > 0) return; // silently: no mail-bombing
-    await this.throttle.fail([rule]);
+    await this.throttle.count([rule]);
     const user = await this.users.findOneBy({ email });
     if (!user) return;
     const token = newLinkToken();

@@ -7,7 +7,7 @@ import { assertPassword } from '../auth/auth.service.js';
 import { hashPassword, verifyPassword } from '../auth/passwords.js';
 import type { RequestMeta, SessionPrincipal } from '../auth/request-context.js';
 import { SessionManager } from '../auth/session-manager.js';
-import { SignInThrottle, signInRules } from '../auth/sign-in-throttle.service.js';
+import { AttemptThrottle, signInRules } from '../auth/attempt-throttle.service.js';
 import { newLinkToken, sha256Hex } from '../auth/tokens.js';
 import type { Role } from '../common/decorators/access.decorator.js';
 import { DomainError } from '../common/errors/domain-error.js';
@@ -33,7 +33,7 @@ export class InvitesService {
     private readonly audit: AuditService,
     private readonly mail: MailService,
     private readonly sessions: SessionManager,
-    private readonly throttle: SignInThrottle,
+    private readonly throttle: AttemptThrottle,
   ) {}
 
   list(organizationId: string) {
@@ -172,7 +172,7 @@ export class InvitesService {
         );
       }
       if (!input.password || !(await verifyPassword(user.passwordHash, input.password))) {
-        await this.throttle.fail(rules);
+        await this.throttle.count(rules);
         throw new DomainError('invalid_input', 'Enter the password of the invited account.', [
           {
             field: 'password',

@@ -1,4 +1,5 @@
-// Fixed-window failure counters in PostgreSQL (shared by every instance). Keys are hashed so the
+// Fixed-window attempt counters in PostgreSQL (shared by every instance): failed sign-ins per
+// address and per e-mail, sign-ups per address, reset requests per e-mail. Keys are hashed so the
 // table holds no e-mail addresses; the same limits apply to addresses that exist and that don't.
 import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
@@ -31,7 +32,7 @@ export function signInRules(email: string, ip: string | null): ThrottleRule[] {
 }
 
 @Injectable()
-export class SignInThrottle {
+export class AttemptThrottle {
   constructor(@InjectDataSource() private readonly ds: DataSource) {}
 
   /** Seconds to wait when any rule is exhausted, else 0. */
@@ -52,8 +53,11 @@ export class SignInThrottle {
     return wait;
   }
 
-  /** Counts one failure against every rule (a new window starts once the old one is over). */
-  async fail(rules: ThrottleRule[]): Promise<void> {
+  /**
+   * Counts one attempt against every rule (a new window starts once the old one is over): the
+   * caller decides what counts — a failed sign-in, any sign-up, any reset request.
+   */
+  async count(rules: ThrottleRule[]): Promise<void> {
     for (const r of rules) {
       await this.ds.query(
         `INSERT INTO auth_throttle (key, window_started_at, failures) VALUES ($1, now(), 1)
