@@ -32,6 +32,10 @@ export interface AppConfig {
   s3SecretAccessKey: string;
   framesMaxBytes: number;
   framesMaxPixels: number;
+  /** Objects under frames/ with no row, older than this, are deleted by the sweeper. */
+  framesOrphanMinAgeMinutes: number;
+  /** How often each instance sweeps orphaned frame objects; 0 = never. */
+  framesSweepIntervalMinutes: number;
   /** Billing (src/billing): the payments API (a local fake in development); null URL = off. */
   paymentsApiUrl: string | null;
   paymentsSecretKey: string;
@@ -121,6 +125,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     s3SecretAccessKey: env.S3_SECRET_ACCESS_KEY ?? '',
     framesMaxBytes: int(env, 'FRAMES_MAX_BYTES', 25 * 1024 * 1024, 1024, 200 * 1024 * 1024),
     framesMaxPixels: int(env, 'FRAMES_MAX_PIXELS', 100_000_000, 1, 1_000_000_000),
+    framesOrphanMinAgeMinutes: int(env, 'FRAMES_ORPHAN_MIN_AGE_MINUTES', 60, 10, 7 * 24 * 60),
+    framesSweepIntervalMinutes: int(env, 'FRAMES_SWEEP_INTERVAL_MINUTES', 60, 0, 7 * 24 * 60),
     paymentsApiUrl: loopbackOrHttps(env, 'PAYMENTS_API_URL'),
     paymentsSecretKey: env.PAYMENTS_SECRET_KEY ?? '',
     paymentsWebhookSecret: env.PAYMENTS_WEBHOOK_SECRET ?? '',

@@ -3,10 +3,11 @@ import { PlansModule } from '../plans/plans.module.js';
 import { FramesController } from './frames.controller.js';
 import { FramesService } from './frames.service.js';
 import { ObjectStore } from './object-store.service.js';
+import { FrameOrphanSweeper } from './orphan-sweeper.service.js';
 
 @Module({
   imports: [PlansModule],
   controllers: [FramesController],
-  providers: [FramesService, ObjectStore],
+  providers: [FramesService, ObjectStore, FrameOrphanSweeper],
 })
 export class FramesModule {}

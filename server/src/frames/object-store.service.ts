@@ -6,6 +6,7 @@ import {
   DeleteObjectCommand,
   GetObjectCommand,
   HeadBucketCommand,
+  ListObjectsV2Command,
   PutObjectCommand,
   S3Client,
 } from '@aws-sdk/client-s3';
@@ -83,6 +84,26 @@ export class ObjectStore implements OnApplicationShutdown {
       contentType: out.ContentType ?? 'application/octet-stream',
       length: out.ContentLength,
     };
+  }
+
+  /** Keys under `prefix` last modified before `before`, a page (≤ 1,000) at a time. */
+  async *listOlderThan(prefix: string, before: Date): AsyncGenerator<string[]> {
+    await this.ensureBucket();
+    let token: string | undefined;
+    do {
+      const page = await this.s3().send(
+        new ListObjectsV2Command({
+          Bucket: this.config.s3Bucket,
+          Prefix: prefix,
+          ContinuationToken: token,
+        }),
+      );
+      const keys = (page.Contents ?? [])
+        .filter((o) => o.Key && o.LastModified && o.LastModified < before)
+        .map((o) => o.Key!);
+      if (keys.length) yield keys;
+      token = page.IsTruncated ? page.NextContinuationToken : undefined;
+    } while (token);
   }
 
   /** Best effort: a failure is logged, never thrown (used to undo a half-finished upload). */

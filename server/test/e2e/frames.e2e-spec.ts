@@ -1,11 +1,12 @@
 // Test-frame uploads end to end: real PostgreSQL, the local S3 fake (scripts/lib/s3-fake.mjs),
 // images rendered here from known CIE chromaticities with known EXIF.
-import { ListObjectsV2Command, S3Client } from '@aws-sdk/client-s3';
+import { ListObjectsV2Command, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
 import sharp from 'sharp';
 import request from 'supertest';
 import type { DataSource } from 'typeorm';
 import { signUp, type SignedInAgent } from '../factories/accounts.js';
 import { renderFrame, startFake, type RunningFake } from '../factories/frames.js';
+import { FrameOrphanSweeper } from '../../src/frames/orphan-sweeper.service.js';
 import { bootApp, type TestApp } from '../setup/app.js';
 import { openDataSource } from '../setup/db.js';
 
@@ -176,6 +177,37 @@ describe('frames', () => {
     expect(await objectsOf(studio.organizationId)).toHaveLength(
       2 * (await rowsOf(studio.organizationId)),
     );
+  });
+
+  it('sweeps objects no row refers to once they are old enough, and keeps every frame', async () => {
+    const framed = await objectsOf(studio.organizationId);
+    expect(framed.length).toBeGreaterThan(0);
+    // What a crash between the object writes and the row insert leaves behind.
+    const orphan = `frames/${studio.organizationId}/00000000-0000-4000-8000-000000000001/original.png`;
+    await s3.send(
+      new PutObjectCommand({
+        Bucket: s3fake.env.S3_BUCKET,
+        Key: orphan,
+        Body: Buffer.from('left over'),
+        ContentType: 'image/png',
+      }),
+    );
+    const sweeper = t.app.get(FrameOrphanSweeper);
+    // Young objects are left alone (an upload may still be writing its row).
+    const young = await sweeper.sweep(60 * 60_000);
+    expect(young.deleted).toBe(0);
+    expect(await objectsOf(studio.organizationId)).toContain(orphan);
+    // S3 times have one-second resolution: wait until the orphan is strictly older than "now - 0".
+    await new Promise((r) => setTimeout(r, 1100));
+    const swept = await sweeper.sweep(0);
+    expect(swept.deleted).toBe(1);
+    expect(swept.scanned).toBeGreaterThanOrEqual(framed.length + 1);
+    const after = await objectsOf(studio.organizationId);
+    expect(after).not.toContain(orphan);
+    expect(after.sort()).toEqual([...framed].sort());
+    // Frames still open, with their thumbnails.
+    const list = await studio.agent.get('/v1/frames?limit=1').expect(200);
+    await studio.agent.get(list.body.data[0].thumbnailUrl).expect(200);
   });
 
   it('refuses a file over 25 MB with 413 while streaming, storing nothing', async () => {
