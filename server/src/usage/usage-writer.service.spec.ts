@@ -1,19 +1,35 @@
+import { Writable } from 'node:stream';
 import type pg from 'pg';
 import type { AppConfig } from '../config/config.js';
 import type { UsageEvent } from './usage-event.js';
 import { UsageWriter } from './usage-writer.service.js';
 
-/** A pool whose INSERTs fail while `down` is true and record rows otherwise. */
+/**
+ * A pool whose writes fail while `down` is true and that counts the rows of each COPY otherwise
+ * (a unit test of the batching; test/e2e/usage*.ts write to the real database).
+ */
 function fakePool() {
   const state = { down: false, rows: 0, statements: 0 };
   const client = {
-    query: async (sql: string, params?: unknown[][]) => {
-      if (state.down && sql !== 'ROLLBACK') throw new Error('connection refused');
-      if (sql.includes('INSERT INTO usage_events')) {
-        state.statements++;
-        state.rows += params![0]!.length;
+    query: (sql: unknown) => {
+      if (typeof sql !== 'string') {
+        // pg-copy-streams: the driver returns the COPY as a writable stream.
+        let text = '';
+        return new Writable({
+          write(chunk: Buffer, _enc, cb) {
+            if (state.down) return cb(new Error('connection refused'));
+            text += chunk.toString();
+            cb();
+          },
+          final(cb) {
+            state.statements++;
+            state.rows += text.split('\n').filter(Boolean).length;
+            cb();
+          },
+        });
       }
-      return { rows: [] };
+      if (state.down && sql !== 'ROLLBACK') return Promise.reject(new Error('connection refused'));
+      return Promise.resolve({ rows: [] });
     },
     release: () => undefined,
   };

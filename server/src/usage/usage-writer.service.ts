@@ -1,21 +1,61 @@
-// Buffers usage events in process and writes them in batches: one multi-row INSERT (unnest of
-// column arrays) plus the daily roll-up UPSERT, in one transaction on its own small pool. Flushes
-// by size and by time, and on shutdown after the HTTP server has drained. When the buffer is full
-// (the database is slow or down) new compute calls wait for room (back-pressure) and give up with
-// a 503 after a while; events already accepted are kept and retried, never dropped.
+// Buffers usage events in process and writes them in batches: one COPY of the events plus the
+// daily roll-up UPSERT, in one transaction on its own small pool. (COPY rather than a multi-row
+// INSERT of column arrays: one text block is cheaper to build here than the driver's array
+// encoding, and cheaper for PostgreSQL to load.) Flushes by size and by time, and on shutdown after
+// the HTTP server has drained. When the buffer is full (the database is slow or down) new compute
+// calls wait for room (back-pressure) and give up with a 503 after a while; events already
+// accepted are kept and retried, never dropped.
+import { Readable } from 'node:stream';
+import { pipeline } from 'node:stream/promises';
 import { Inject, Injectable, Logger, OnApplicationShutdown, OnModuleInit } from '@nestjs/common';
 import pg from 'pg';
+import { from as copyFrom } from 'pg-copy-streams';
 import { DomainError } from '../common/errors/domain-error.js';
 import { APP_CONFIG, AppConfig } from '../config/config.js';
 import { UsageEvent, utcDay } from './usage-event.js';
 
 export const USAGE_POOL = Symbol('USAGE_POOL');
 
-const INSERT_EVENTS = `
-  INSERT INTO usage_events (occurred_at, organization_id, key_id, user_id, source, endpoint,
-    status, latency_ms, billable_units, request_id)
-  SELECT * FROM unnest($1::timestamptz[], $2::uuid[], $3::uuid[], $4::uuid[], $5::text[],
-    $6::text[], $7::smallint[], $8::real[], $9::integer[], $10::text[])`;
+const COPY_EVENTS = `COPY usage_events (occurred_at, organization_id, key_id, user_id, source,
+  endpoint, status, latency_ms, billable_units, request_id) FROM STDIN`;
+
+/** A value in COPY's text format: \N for null; backslash, tab, newline and CR escaped. */
+export function copyText(v: string | number | null): string {
+  if (v === null) return '\\N';
+  const s = String(v);
+  return /[\\\t\n\r]/.test(s)
+    ? s.replace(/[\\\t\n\r]/g, (c) => ({ '\\': '\\\\', '\t': '\\t', '\n': '\\n', '\r': '\\r' })[c]!)
+    : s;
+}
+
+/** The batch as COPY text rows, in COPY_EVENTS' column order. */
+export function copyRows(batch: readonly UsageEvent[]): string {
+  let out = '';
+  for (const e of batch) {
+    out +=
+      e.occurredAt.toISOString() +
+      '\t' +
+      copyText(e.organizationId) +
+      '\t' +
+      copyText(e.keyId) +
+      '\t' +
+      copyText(e.userId) +
+      '\t' +
+      copyText(e.source) +
+      '\t' +
+      copyText(e.endpoint) +
+      '\t' +
+      e.status +
+      '\t' +
+      e.latencyMs +
+      '\t' +
+      e.billableUnits +
+      '\t' +
+      copyText(e.requestId) +
+      '\n';
+  }
+  return out;
+}
 
 const UPSERT_DAILY = `
   INSERT INTO usage_daily AS d (organization_id, day, key_id, source, endpoint, status, calls,
@@ -117,22 +157,8 @@ export class UsageWriter implements OnModuleInit, OnApplicationShutdown {
   }
 
   private async write(batch: UsageEvent[]): Promise<void> {
-    const cols: unknown[][] = Array.from({ length: 10 }, () => []);
     const daily = new Map<string, { row: unknown[]; calls: number; units: number; ms: number }>();
     for (const e of batch) {
-      const row = [
-        e.occurredAt,
-        e.organizationId,
-        e.keyId,
-        e.userId,
-        e.source,
-        e.endpoint,
-        e.status,
-        e.latencyMs,
-        e.billableUnits,
-        e.requestId,
-      ];
-      row.forEach((v, i) => cols[i]!.push(v));
       const day = utcDay(e.occurredAt);
       const k = `${e.organizationId}|${day}|${e.keyId}|${e.source}|${e.endpoint}|${e.status}`;
       const agg = daily.get(k);
@@ -156,7 +182,7 @@ export class UsageWriter implements OnModuleInit, OnApplicationShutdown {
     const client = await this.pool.connect();
     try {
       await client.query('BEGIN');
-      await client.query(INSERT_EVENTS, cols);
+      await pipeline(Readable.from([copyRows(batch)]), client.query(copyFrom(COPY_EVENTS)));
       await client.query(UPSERT_DAILY, dcols);
       await client.query('COMMIT');
     } catch (err) {

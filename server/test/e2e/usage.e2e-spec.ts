@@ -1,10 +1,15 @@
 // The usage API: summaries from the roll-ups, filtered event pages, CSV, role and tenant checks.
+import { Readable } from 'node:stream';
+import { pipeline } from 'node:stream/promises';
+import pg from 'pg';
+import { from as copyFrom } from 'pg-copy-streams';
 import request from 'supertest';
 import { DataSource } from 'typeorm';
 import { bootApp, TestApp } from '../setup/app.js';
-import { openDataSource } from '../setup/db.js';
+import { openDataSource, testDatabaseUrl } from '../setup/db.js';
 import { DEMO_BODIES, keyedOrg, KeyedOrg, post } from '../factories/compute.js';
 import { monthPartitions } from '../../src/usage/usage-partitions.service.js';
+import { copyText } from '../../src/usage/usage-writer.service.js';
 
 describe('usage API', () => {
   let t: TestApp;
@@ -152,5 +157,32 @@ describe('usage API', () => {
         ...monthPartitions(new Date()).map((m) => m.name),
       ]),
     );
+  });
+});
+
+describe('usage events as COPY text', () => {
+  // PostgreSQL 15 documentation, COPY, "Text Format": \N is null; backslash, tab, newline and
+  // carriage return are written as \\, \t, \n and \r. The real server is the reference here.
+  it('round-trips awkward text and nulls through PostgreSQL COPY exactly', async () => {
+    const client = new pg.Client({ connectionString: testDatabaseUrl() });
+    await client.connect();
+    try {
+      await client.query(`CREATE TEMP TABLE copy_check (a text, b text, n int, x real)`);
+      const values: [string | null, string | null, number, number][] = [
+        ['plain', null, 1, 0.25],
+        ['tab\there', 'back\\slash', 2, 12.5],
+        ['new\nline', 'carriage\rreturn', 3, 1e-3],
+        ['\\N', '', 4, 0],
+      ];
+      const text = values.map((v) => v.map((c) => copyText(c)).join('\t') + '\n').join('');
+      await pipeline(
+        Readable.from([text]),
+        client.query(copyFrom('COPY copy_check (a, b, n, x) FROM STDIN')),
+      );
+      const { rows } = await client.query(`SELECT a, b, n, x FROM copy_check ORDER BY n`);
+      expect(rows.map((r) => [r.a, r.b, r.n, r.x])).toEqual(values);
+    } finally {
+      await client.end();
+    }
   });
 });
