@@ -1,9 +1,8 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
-import { Button } from '@/components/ui/button';
 import { Dialog } from '@/components/ui/dialog';
-import { Notice } from '@/components/ui/notice';
+import { FormActions } from '@/components/ui/form-actions';
 import { TextField } from '@/components/ui/text-field';
 import { applyServerErrors } from '@/lib/form-errors';
 import { useSaveGelPiece, type GelPiece } from '../api/gear';
@@ -98,19 +97,12 @@ function GelPieceForm({ target, onDone }: { target: GelPieceTarget; onDone: () =
         error={errors.lossStops?.message}
         {...register('lossStops', num)}
       />
-      {formError ? (
-        <Notice tone="fault" className="sm:col-span-2">
-          {formError}
-        </Notice>
-      ) : null}
-      <div className="flex justify-end gap-2 sm:col-span-2">
-        <Button variant="secondary" onClick={onDone}>
-          Cancel
-        </Button>
-        <Button type="submit" disabled={isSubmitting}>
-          Save gel
-        </Button>
-      </div>
+      <FormActions
+        error={formError}
+        submitLabel="Save gel"
+        submitting={isSubmitting}
+        onCancel={onDone}
+      />
     </form>
   );
 }

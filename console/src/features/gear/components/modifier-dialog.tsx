@@ -1,9 +1,8 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
-import { Button } from '@/components/ui/button';
 import { Dialog } from '@/components/ui/dialog';
-import { Notice } from '@/components/ui/notice';
+import { FormActions } from '@/components/ui/form-actions';
 import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
 import { applyServerErrors } from '@/lib/form-errors';
@@ -131,19 +130,12 @@ function ModifierForm({ modifier, onDone }: { modifier: Modifier | 'new'; onDone
         error={errors.notes?.message}
         {...register('notes')}
       />
-      {formError ? (
-        <Notice tone="fault" className="sm:col-span-2">
-          {formError}
-        </Notice>
-      ) : null}
-      <div className="flex justify-end gap-2 sm:col-span-2">
-        <Button variant="secondary" onClick={onDone}>
-          Cancel
-        </Button>
-        <Button type="submit" disabled={isSubmitting}>
-          Save modifier
-        </Button>
-      </div>
+      <FormActions
+        error={formError}
+        submitLabel="Save modifier"
+        submitting={isSubmitting}
+        onCancel={onDone}
+      />
     </form>
   );
 }

@@ -1,9 +1,8 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
-import { Button } from '@/components/ui/button';
 import { Dialog } from '@/components/ui/dialog';
-import { Notice } from '@/components/ui/notice';
+import { FormActions } from '@/components/ui/form-actions';
 import { TextField } from '@/components/ui/text-field';
 import { applyServerErrors } from '@/lib/form-errors';
 import { todayIso } from '@/lib/format';
@@ -123,19 +122,12 @@ export function SaveSetupDialog({ open, onClose }: { open: boolean; onClose: () 
           error={errors.notes?.message}
           {...register('notes')}
         />
-        {formError ? (
-          <Notice tone="fault" className="sm:col-span-2">
-            {formError}
-          </Notice>
-        ) : null}
-        <div className="flex justify-end gap-2 sm:col-span-2">
-          <Button variant="secondary" onClick={close}>
-            Cancel
-          </Button>
-          <Button type="submit" disabled={isSubmitting}>
-            Save setup
-          </Button>
-        </div>
+        <FormActions
+          error={formError}
+          submitLabel="Save setup"
+          submitting={isSubmitting}
+          onCancel={close}
+        />
       </form>
     </Dialog>
   );

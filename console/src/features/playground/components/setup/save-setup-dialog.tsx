@@ -3,9 +3,8 @@ import type { DuskSetupInput } from '@lumenwright/shared';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
-import { Button } from '@/components/ui/button';
 import { Dialog } from '@/components/ui/dialog';
-import { Notice } from '@/components/ui/notice';
+import { FormActions } from '@/components/ui/form-actions';
 import { TextField } from '@/components/ui/text-field';
 import { applyServerErrors } from '@/lib/form-errors';
 import { useSaveSetup, type NewSavedSetup, type OpenedSetup } from '../../api/saved-setups';
@@ -102,19 +101,12 @@ function SaveSetupForm({ onClose, input, initial, onSaved }: SaveSetupDialogProp
         error={errors.notes?.message}
         {...register('notes')}
       />
-      {formError ? (
-        <Notice tone="fault" className="sm:col-span-2">
-          {formError}
-        </Notice>
-      ) : null}
-      <div className="flex justify-end gap-2 sm:col-span-2">
-        <Button variant="secondary" onClick={onClose}>
-          Cancel
-        </Button>
-        <Button type="submit" disabled={isSubmitting}>
-          Save setup
-        </Button>
-      </div>
+      <FormActions
+        error={formError}
+        submitLabel="Save setup"
+        submitting={isSubmitting}
+        onCancel={onClose}
+      />
     </form>
   );
 }
