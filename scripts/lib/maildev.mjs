@@ -51,7 +51,7 @@ export async function start(opts = {}) {
   if (typeof out === 'number') fs.closeSync(out);
   const webUrl = `http://127.0.0.1:${webPort}`;
   try {
-    await waitForHttp(`${webUrl}/api/email`, opts.timeoutMs ?? 20000, child);
+    await waitForHttp(`${webUrl}/api/email`, opts.timeoutMs ?? 60000, child);
   } catch (e) {
     if (child.exitCode === null) child.kill('SIGTERM');
     throw e;
