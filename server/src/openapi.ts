@@ -1,6 +1,7 @@
 // The OpenAPI document: deterministic (sorted keys, operationId = handler name).
 import type { INestApplication } from '@nestjs/common';
 import { DocumentBuilder, OpenAPIObject, SwaggerModule } from '@nestjs/swagger';
+import { SCHEMA_DTOS } from './compute/validation/schema-dto.js';
 
 const PROBLEM_SCHEMA = {
   type: 'object',
@@ -45,6 +46,24 @@ function sortDeep(value: unknown, key = ''): unknown {
   return value;
 }
 
+/**
+ * A property's `required` in @ApiProperty is a boolean about the property itself, so an object
+ * property's own list of required fields is lost on the way; put it back from the JSON schema.
+ */
+function restoreNestedRequired(doc: OpenAPIObject): void {
+  for (const [name, schema] of SCHEMA_DTOS) {
+    const target = doc.components?.schemas?.[name] as
+      { properties?: Record<string, { required?: unknown }> } | undefined;
+    if (!target?.properties) continue;
+    for (const [key, prop] of Object.entries(schema.properties)) {
+      const out = target.properties[key];
+      if (out && Array.isArray(prop.required) && prop.required.length) {
+        out.required = [...prop.required];
+      }
+    }
+  }
+}
+
 export function buildOpenApiDocument(app: INestApplication): OpenAPIObject {
   const config = new DocumentBuilder()
     .setOpenAPIVersion('3.1.0')
@@ -67,5 +86,6 @@ export function buildOpenApiDocument(app: INestApplication): OpenAPIObject {
   });
   doc.components = doc.components ?? {};
   doc.components.schemas = { ...(doc.components.schemas ?? {}), Problem: PROBLEM_SCHEMA };
+  restoreNestedRequired(doc);
   return sortDeep(doc) as OpenAPIObject;
 }

@@ -1333,12 +1333,17 @@ export interface components {
       /** @description The chosen gels (empty when none is needed). */
       gels: {
         /**
+         * @description Green shift, CC units (+ = plus-green).
+         * @example 0
+         */
+        greenShift: number;
+        /**
          * @description Light loss, stops.
          * @example 0.33
          */
         lossStops: number;
         /**
-         * @description Mired shift, mireds.
+         * @description Mired shift, mireds (+ = warmer).
          * @example 81
          */
         miredShift: number;
@@ -1380,33 +1385,48 @@ export interface components {
       resultingFlashKelvin?: number;
       /** @description How light sources in the scene render at this white balance. */
       scene?: {
-        /** @description Display colour, sRGB hex. */
-        hex?: string;
-        /** @description Swatch id. */
-        id?: string;
-        /** @description Source colour temperature, kelvin. */
-        kelvin?: number;
-        /** @description Swatch label. */
-        label?: string;
-        /** @description mired(source) − mired(camera WB); + = warmer than neutral. */
-        miredOffset?: number;
+        /**
+         * @description Display colour, sRGB hex.
+         * @example #9cbdff
+         */
+        hex: string;
+        /**
+         * @description Swatch id.
+         * @example sky-blue-hour
+         */
+        id: string;
+        /**
+         * @description Source colour temperature, kelvin.
+         * @example 12000
+         */
+        kelvin: number;
+        /**
+         * @description Swatch label.
+         * @example Sky at blue hour
+         */
+        label: string;
+        /**
+         * @description mired(source) − mired(camera WB); + = warmer than neutral.
+         * @example -229.2
+         */
+        miredOffset: number;
         /**
          * @description How it renders.
-         * @example warmer
+         * @example much cooler
          * @enum {string}
          */
-        rendersAs?: 'much warmer' | 'warmer' | 'neutral' | 'cooler' | 'much cooler';
+        rendersAs: 'much warmer' | 'warmer' | 'neutral' | 'cooler' | 'much cooler';
       }[];
       /** @description Camera white-balance change that cancels the residual on the subject. */
       whiteBalanceFineTune?: {
         /** @description Steps on an amber(+)/blue(−) fine-tune axis, about 5 mireds each. */
-        amberBlueSteps?: number;
+        amberBlueSteps: number;
         /** @description Camera white balance that would cancel it, kelvin. */
-        cameraKelvin?: number;
+        cameraKelvin: number;
         /** @description Mireds. */
-        miredShift?: number;
+        miredShift: number;
         /** @description Camera tint change, CC units. */
-        tintCC?: number;
+        tintCC: number;
       };
     };
     CancelResponseDto: {
@@ -1576,17 +1596,17 @@ export interface components {
          * @description Calls a key may make at once before the rate applies.
          * @example 100
          */
-        burst?: number;
+        burst: number;
         /**
          * @description Plan code.
          * @example studio
          * @enum {string}
          */
-        code?: 'free' | 'studio' | 'platform';
+        code: 'free' | 'studio' | 'platform';
         /** @description One line about the plan. */
-        description?: string;
+        description: string;
         /** @description What the plan includes. */
-        features?: {
+        features: {
           /**
            * @description Saved setups; null = unlimited.
            * @example 500
@@ -1607,32 +1627,32 @@ export interface components {
          * @description Live calls included per calendar month (UTC).
          * @example 100000
          */
-        includedCallsPerMonth?: number;
+        includedCallsPerMonth: number;
         /**
          * @description Monthly price, cents.
          * @example 2900
          */
-        monthlyPriceCents?: number;
+        monthlyPriceCents: number;
         /**
          * @description Display name.
          * @example Studio
          */
-        name?: string;
+        name: string;
         /**
          * @description Price per 1,000 live calls over the included amount, cents; null = hard cap.
          * @example 40
          */
-        overagePricePer1000Cents?: number | null;
+        overagePricePer1000Cents: number | null;
         /**
          * @description Sustained calls per second per API key.
          * @example 50
          */
-        ratePerSecond?: number;
+        ratePerSecond: number;
         /**
          * @description Test-key calls allowed per month (test keys are free).
          * @example 20000
          */
-        testCallsPerMonth?: number;
+        testCallsPerMonth: number;
       };
       /**
        * @description When the monthly quota resets (ISO 8601).
@@ -1644,22 +1664,22 @@ export interface components {
          * @description Billable units this month (successful live calls).
          * @example 1498
          */
-        billableUnits?: number;
+        billableUnits: number;
         /**
          * @description Calls from the console this month (not billed).
          * @example 42
          */
-        consoleCalls?: number;
+        consoleCalls: number;
         /**
          * @description Calls with live keys this month.
          * @example 1520
          */
-        liveCalls?: number;
+        liveCalls: number;
         /**
          * @description Calls with test keys this month.
          * @example 310
          */
-        testCalls?: number;
+        testCalls: number;
       };
     };
     DeleteOrganizationRequestDto: {
@@ -1725,12 +1745,12 @@ export interface components {
          * @description Degrees, -90..90.
          * @example 51.5
          */
-        latitude?: number;
+        latitude: number;
         /**
          * @description Degrees, -180..180.
          * @example -0.1
          */
-        longitude?: number;
+        longitude: number;
         /**
          * @description Sky condition.
          * @example clear
@@ -1741,7 +1761,7 @@ export interface components {
          * @description ISO 8601 instant with offset.
          * @example 2026-06-21T21:40:00+01:00
          */
-        time?: string;
+        time: string;
       };
       /**
        * @description Shutter time, seconds (1/64000..3600); plain mode only.
@@ -1809,13 +1829,13 @@ export interface components {
       /** @description Nearest third-stop settings and the exposure error they leave. */
       nominal?: {
         /** @description Nominal f-number. */
-        aperture?: number;
+        aperture: number;
         /** @description Exposure error of the nominal settings, stops (+ = brighter). */
-        errorStops?: number;
+        errorStops: number;
         /** @description Nominal ISO. */
-        iso?: number;
+        iso: number;
         /** @description Nominal shutter time, seconds. */
-        shutterSeconds?: number;
+        shutterSeconds: number;
       };
       /** @description Background mode: exposure the limits could not reach, stops. */
       shortfallStops?: number;
@@ -2195,27 +2215,27 @@ export interface components {
       /** @description Colour of the patch and the correction. */
       colour: {
         /** @description The shot white balance, kelvin (given, or assumed). */
-        cameraKelvin?: number;
+        cameraKelvin: number;
         /**
          * @description Where cameraKelvin came from.
          * @enum {string}
          */
-        cameraKelvinSource?: 'caller' | 'assumed';
+        cameraKelvinSource: 'caller' | 'assumed';
         /** @description Correlated colour temperature, kelvin (Robertson 1968). */
-        cctKelvin?: number | null;
+        cctKelvin: number | null;
         /** @description False when |Duv| > 0.05. */
-        cctMeaningful?: boolean;
+        cctMeaningful: boolean;
         /** @description CIE 1931 xy of the patch (sRGB decoded, linear average). */
-        chromaticity?: {
+        chromaticity: {
           /** @description x */
           x: number;
           /** @description y */
           y: number;
         };
         /** @description Distance from the Planckian locus in CIE 1960 uv (+ greenish). */
-        duv?: number | null;
+        duv: number | null;
         /** @description Gel for the light that neutralises the patch at the shot white balance (shared balance solver). */
-        gel?: {
+        gel: {
           gels: {
             /** @description Its light loss, stops. */
             lossStops: number;
@@ -2232,13 +2252,13 @@ export interface components {
           residualMired: number;
         } | null;
         /** @description The light on the patch implied at that white balance, kelvin. */
-        lightKelvin?: number | null;
+        lightKelvin: number | null;
         /** @description CCT method. */
-        method?: string;
+        method: string;
         /** @description mired(patch) - mired(neutral): + = renders warmer than neutral. */
-        miredOffset?: number | null;
+        miredOffset: number | null;
         /** @description The neutral reference: sRGB white (CIE D65). */
-        neutral?: {
+        neutral: {
           /** @description Its CCT, kelvin. */
           cctKelvin: number;
           /** @description x */
@@ -2246,14 +2266,14 @@ export interface components {
           /** @description y */
           y: number;
         };
-        notes?: string[];
+        notes: string[];
         /**
          * @description Green-magenta lean of the patch.
          * @enum {string}
          */
-        tint?: 'green' | 'magenta' | 'none';
+        tint: 'green' | 'magenta' | 'none';
         /** @description Camera white balance that renders the patch neutral. */
-        whiteBalance?: {
+        whiteBalance: {
           /** @description Same change in fine-tune steps (+ amber, - blue), ~5 mired each. */
           amberBlueSteps: number;
           /** @description Set the camera to this, kelvin. */
@@ -2273,28 +2293,28 @@ export interface components {
       /** @description EXIF exposure settings (null when absent). */
       exif: {
         /** @description Shutter time, seconds. */
-        exposureTime?: number | null;
+        exposureTime: number | null;
         /** @description Aperture f-number. */
-        fNumber?: number | null;
+        fNumber: number | null;
         /** @description Whether the flash fired. */
-        flashFired?: boolean | null;
+        flashFired: boolean | null;
         /** @description Focal length, mm. */
-        focalLengthMm?: number | null;
+        focalLengthMm: number | null;
         /** @description ISO speed. */
-        iso?: number | null;
+        iso: number | null;
         /** @description EXIF white-balance mode. One of auto, manual, or null. */
-        whiteBalance?: string | null;
+        whiteBalance: string | null;
       };
       /** @description Exposure estimate. */
       exposure: {
         /** @description What the estimate assumes. */
-        basis?: string;
+        basis: string;
         /** @description Mean linear Y of the patch. */
-        patchLuminance?: number;
+        patchLuminance: number;
         /** @description Scene EV100, taking the patch as an 18 % grey card. */
-        sceneEv100?: number | null;
+        sceneEv100: number | null;
         /** @description EV100 of the EXIF settings (APEX). */
-        settingsEv100?: number | null;
+        settingsEv100: number | null;
       };
       /** @description The uploaded file name, if any. */
       fileName: string | null;
@@ -2308,11 +2328,11 @@ export interface components {
       /** @description The measured patch (upright pixel coordinates). */
       patch: {
         /** @description Share of nearly clipped pixels. */
-        clippedFraction?: number;
+        clippedFraction: number;
         /** @description Height, pixels. */
-        height?: number;
+        height: number;
         /** @description Mean linear RGB, 0..1. */
-        linearRgb?: {
+        linearRgb: {
           /** @description b */
           b: number;
           /** @description g */
@@ -2321,20 +2341,20 @@ export interface components {
           r: number;
         };
         /** @description Mean relative luminance Y (white = 1). */
-        luminance?: number;
+        luminance: number;
         /** @description Unevenness: coefficient of variation of Y. */
-        luminanceCv?: number;
+        luminanceCv: number;
         /**
          * @description Given by the caller or found automatically.
          * @enum {string}
          */
-        source?: 'caller' | 'auto';
+        source: 'caller' | 'auto';
         /** @description Width, pixels. */
-        width?: number;
+        width: number;
         /** @description Left, pixels. */
-        x?: number;
+        x: number;
         /** @description Top, pixels. */
-        y?: number;
+        y: number;
       };
       /** @description SHA-256 of the original, hex. */
       sha256: string;
@@ -2873,7 +2893,7 @@ export interface components {
          * @description Light-to-subject distance in distanceUnit.
          * @example 2.5
          */
-        distance?: number;
+        distance: number;
         /**
          * @description Unit of the distances. Metres ("m", default) or feet ("ft").
          * @example m
@@ -2945,7 +2965,7 @@ export interface components {
          * @description Horizontal distance behind the subject.
          * @example 3
          */
-        distanceBehind?: number;
+        distanceBehind: number;
         /**
          * @description Unit of the distances. Metres ("m", default) or feet ("ft").
          * @example m
@@ -2972,7 +2992,7 @@ export interface components {
          * @description Height of the light above the ground.
          * @example 2
          */
-        lightHeight?: number;
+        lightHeight: number;
         /**
          * @description Id of one of your lights (GET /v1/gear/lights): its guide number and unit. Send this or rim.guideNumber.
          * @example 0b7c6a52-3d0e-4c55-9f59-2b1f4e0d8a11
@@ -3220,7 +3240,7 @@ export interface components {
          * @description Light-to-subject distance in distanceUnit.
          * @example 2.5
          */
-        distance?: number;
+        distance: number;
         /**
          * @description Unit of the distances. Metres ("m", default) or feet ("ft").
          * @example m
@@ -3292,7 +3312,7 @@ export interface components {
          * @description Horizontal distance behind the subject.
          * @example 3
          */
-        distanceBehind?: number;
+        distanceBehind: number;
         /**
          * @description Unit of the distances. Metres ("m", default) or feet ("ft").
          * @example m
@@ -3319,7 +3339,7 @@ export interface components {
          * @description Height of the light above the ground.
          * @example 2
          */
-        lightHeight?: number;
+        lightHeight: number;
         /**
          * @description Id of one of your lights (GET /v1/gear/lights): its guide number and unit. Send this or rim.guideNumber.
          * @example 0b7c6a52-3d0e-4c55-9f59-2b1f4e0d8a11
@@ -3369,56 +3389,625 @@ export interface components {
       timeZone: string;
     };
     SetupResponseDto: {
-      /** @description Key falloff from subject to background, stops. */
-      backgroundFalloffStops?: number | null;
-      /** @description Rim-light geometry, as /v1/backlight returns it. */
-      backlight?: Record<string, never> | null;
-      /** @description Safety cautions for the conditions (defer to local codes and venue rules). */
-      cautions: Record<string, never>[];
-      /** @description Chosen gels, their loss and the power compensation. */
-      gels: Record<string, never>;
-      /** @description Key-light geometry and modifier. */
-      key: Record<string, never>;
-      /** @description How the scene’s sources render. */
-      look?: Record<string, never>[];
+      /**
+       * @description Key falloff from subject to background, stops (null without backgroundDistance).
+       * @example 2.3
+       */
+      backgroundFalloffStops: number | null;
+      /** @description Rim-light geometry, as /v1/backlight returns it, or null without a rim light. */
+      backlight: {
+        /**
+         * @description Beam axis elevation used, degrees.
+         * @example -5.7
+         */
+        aimDeg: number;
+        /**
+         * @description Full beam angle used, degrees.
+         * @example 40
+         */
+        beamAngleDeg: number;
+        /**
+         * @description Light-to-head distance.
+         * @example 3.02
+         */
+        distanceToHead: number;
+        /**
+         * @description Unit of every distance.
+         * @example m
+         * @enum {string}
+         */
+        distanceUnit: 'm' | 'ft';
+        /** @description Where the beam reaches the ground, measured from the subject toward the light. */
+        groundSpill: {
+          /** @description Near edge. */
+          from?: number;
+          /** @description Far edge (null: beyond). */
+          to?: number | null;
+        } | null;
+        /** @description Peak ground illuminance relative to the rim, stops (+ = ground brighter). */
+        groundVsRimStops?: number | null;
+        /** @description Direction from the light to the head, degrees of elevation. */
+        headDirectionDeg?: number;
+        /**
+         * @description Whether the head is inside the beam.
+         * @example true
+         */
+        headInBeam: boolean;
+        /** @description Things to look at: a stable code and a sentence for people. */
+        warnings?: {
+          /** @description Stable warning code. */
+          code: string;
+          /** @description Explanation. */
+          message: string;
+        }[];
+      } | null;
+      /** @description Safety cautions for the conditions. General good practice only: defer to local codes, venue rules, permits and licensed practice. */
+      cautions: {
+        /**
+         * @description Stable caution id.
+         * @example stands-wind
+         */
+        id: string;
+        /** @description What to do. */
+        text: string;
+        /** @description Short title. */
+        title: string;
+      }[];
+      /** @description Chosen gels for the key (and a gelled rim), their loss and the compensation. */
+      gels: {
+        /**
+         * @description Total light lost in the chosen gels, stops.
+         * @example 0.33
+         */
+        gelLossStops: number;
+        /** @description The chosen gels (empty when none is needed). */
+        gels: {
+          /**
+           * @description Green shift, CC units (+ = plus-green).
+           * @example 0
+           */
+          greenShift: number;
+          /**
+           * @description Light loss, stops.
+           * @example 0.33
+           */
+          lossStops: number;
+          /**
+           * @description Mired shift, mireds (+ = warmer).
+           * @example 81
+           */
+          miredShift: number;
+          /**
+           * @description Gel name.
+           * @example Half warming
+           */
+          name: string;
+        }[];
+        /**
+         * @description Raise flash power by this much to make up for the gels.
+         * @example 0.33
+         */
+        powerCompensationStops: number;
+        /**
+         * @description achieved − required, mireds (+ = flash warmer than intended).
+         * @example -3.6
+         */
+        residualMired: number;
+        /**
+         * @description Flash colour temperature through the gels, kelvin.
+         * @example 3850
+         */
+        resultingFlashKelvin: number;
+      };
+      /** @description Key-light placement, modifier and character. */
+      key: {
+        /**
+         * @description Apparent size of the modifier from the subject, degrees.
+         * @example 20.4
+         */
+        apparentSizeDeg: number;
+        /**
+         * @description Unit of the position.
+         * @example m
+         * @enum {string}
+         */
+        distanceUnit: 'm' | 'ft';
+        /**
+         * @description (key + fill) : fill, e.g. 3 for 3:1.
+         * @example 3
+         */
+        lightingRatio: number;
+        /**
+         * @description The ratio as written, e.g. "3:1".
+         * @example 3:1
+         */
+        lightingRatioLabel: string;
+        /**
+         * @description Modifier kind used.
+         * @example softbox
+         */
+        modifier: string;
+        /**
+         * @description Light lost in the modifier, stops.
+         * @example 1.3
+         */
+        modifierLossStops: number;
+        /** @description Light position relative to the subject, in distanceUnit. */
+        position: {
+          /**
+           * @description Above the subject’s eyes.
+           * @example 0.6
+           */
+          aboveEyes: number;
+          /**
+           * @description To the side of the camera axis.
+           * @example 2.17
+           */
+          sideways: number;
+          /**
+           * @description Toward the camera (+) or behind the subject (−).
+           * @example 1.25
+           */
+          towardCamera: number;
+        };
+        /**
+         * @description Light quality from the size-to-distance ratio.
+         * @example medium
+         * @enum {string}
+         */
+        quality: 'hard' | 'medium' | 'soft';
+        /**
+         * @description Lit side minus shadow side, stops.
+         * @example 1.58
+         */
+        shadowDepthStops: number;
+        /**
+         * @description Where the shadow side falls for this angle.
+         * @example dramatic
+         * @enum {string}
+         */
+        shadowSide: 'frontal' | 'modelled' | 'dramatic' | 'side' | 'behind';
+        /**
+         * @description Modifier size ÷ distance.
+         * @example 0.36
+         */
+        sizeToDistance: number;
+      };
+      /** @description How the scene’s sources render at the camera white balance. */
+      look: {
+        /**
+         * @description Display colour, sRGB hex.
+         * @example #9cbdff
+         */
+        hex: string;
+        /**
+         * @description Swatch id.
+         * @example sky-blue-hour
+         */
+        id: string;
+        /**
+         * @description Source colour temperature, kelvin.
+         * @example 12000
+         */
+        kelvin: number;
+        /**
+         * @description Swatch label.
+         * @example Sky at blue hour
+         */
+        label: string;
+        /**
+         * @description mired(source) − mired(camera WB); + = warmer than neutral.
+         * @example -229.2
+         */
+        miredOffset: number;
+        /**
+         * @description How it renders.
+         * @example much cooler
+         * @enum {string}
+         */
+        rendersAs: 'much warmer' | 'warmer' | 'neutral' | 'cooler' | 'much cooler';
+      }[];
       /** @description Suggested minutes with background exposure and key/rim flash power for each. */
       suggestedMinutes: {
-        /** @description Ambient EV at ISO 100. */
-        ambientEv100?: number;
-        /** @description Background exposure (shutter, aperture, ISO). */
-        background?: Record<string, never>;
+        /**
+         * @description Ambient EV at ISO 100.
+         * @example 6.2
+         */
+        ambientEv100: number;
+        /** @description Background exposure for that minute, as /v1/exposure returns it in background mode. */
+        background: {
+          /**
+           * @description Background mode: where ev100 came from.
+           * @example place
+           * @enum {string}
+           */
+          ambientSource?: 'ev100' | 'place';
+          /**
+           * @description Exact f-number.
+           * @example 4
+           */
+          aperture: number;
+          /**
+           * @description f-number label, e.g. "f/4".
+           * @example f/4
+           */
+          apertureLabel?: string;
+          /** @description Background mode: the bias applied, stops. */
+          biasStops?: number;
+          /**
+           * @description Settings EV at the chosen ISO, log2(N²/t).
+           * @example 11
+           */
+          ev: number;
+          /**
+           * @description The scene EV at ISO 100 used, EV.
+           * @example 9
+           */
+          ev100: number;
+          /** @description Background mode: the shutter is faster than the flash sync speed. */
+          exceedsSync?: boolean;
+          /** @description Background mode: flash power lost to high-speed sync, stops. */
+          hssLossStops?: number | null;
+          /**
+           * @description ISO speed.
+           * @example 400
+           */
+          iso: number;
+          /**
+           * @description ISO label.
+           * @example 400
+           */
+          isoLabel?: string;
+          /** @description Background mode: ND strength that brings the shutter to sync. */
+          ndStopsForSync?: number | null;
+          /** @description Background mode: the shutter is slower than the hand-held limit. */
+          needsTripod?: boolean;
+          /** @description Nearest third-stop settings and the exposure error they leave. */
+          nominal?: {
+            /** @description Nominal f-number. */
+            aperture: number;
+            /** @description Exposure error of the nominal settings, stops (+ = brighter). */
+            errorStops: number;
+            /** @description Nominal ISO. */
+            iso: number;
+            /** @description Nominal shutter time, seconds. */
+            shutterSeconds: number;
+          };
+          /** @description Background mode: exposure the limits could not reach, stops. */
+          shortfallStops?: number;
+          /**
+           * @description Shutter time as printed on a camera, e.g. "1/80".
+           * @example 1/80
+           */
+          shutterLabel: string;
+          /**
+           * @description Exact shutter time, seconds.
+           * @example 0.0125
+           */
+          shutterSeconds: number;
+          /**
+           * @description Which setting was solved for.
+           * @example shutterSeconds
+           * @enum {string}
+           */
+          solvedFor: 'shutterSeconds' | 'aperture' | 'iso' | 'none';
+          /** @description Background mode: the EV100 the settings expose for (ev100 - biasStops). */
+          targetEv100?: number;
+          /** @description Things to look at: a stable code and a sentence for people. */
+          warnings?: {
+            /** @description Stable warning code. */
+            code: string;
+            /** @description Explanation. */
+            message: string;
+          }[];
+        };
         /** @description Key flash power, as /v1/flash returns it. */
-        keyFlash?: Record<string, never>;
-        /** @description Rim flash power, or null. */
-        rimFlash?: Record<string, never> | null;
-        /** @description Sun altitude, degrees. */
-        sunAltitudeDeg?: number;
-        /** @description ISO 8601 local time with offset. */
-        time?: string;
+        keyFlash: {
+          /**
+           * @description Power on a decimal ten-stop scale (10 = full).
+           * @example 7
+           */
+          decimalPower?: number;
+          /** @description Guide number after ISO and losses, in guideNumberUnit. */
+          effectiveGuideNumber?: number;
+          /**
+           * @description Whether the light can deliver this at or below full power.
+           * @example true
+           */
+          feasible: boolean;
+          /** @description When not feasible: each single change that would fix it (distances in distanceUnit). */
+          fixes?: {
+            /** @description Distance to move back to (below minimum power). */
+            moveBackTo?: number;
+            /** @description Distance to move the light to. */
+            moveCloserTo?: number;
+            /** @description Stops to open up. */
+            openUpByStops?: number;
+            /** @description f-number that would work. */
+            openUpTo?: number;
+            /** @description Stops of ISO to add. */
+            raiseIsoByStops?: number;
+            /** @description ISO that would work. */
+            raiseIsoTo?: number;
+            /** @description f-number to stop down to (below minimum power). */
+            stopDownTo?: number;
+          } | null;
+          /**
+           * @description Fraction of full power needed (above 1 when not feasible).
+           * @example 0.125
+           */
+          powerFraction: number;
+          /**
+           * @description Power on the 1/1..1/256 third-stop scale, e.g. "1/8 +0.3".
+           * @example 1/8
+           */
+          powerLabel?: string;
+          /** @description Guide number the shot needs at full power, ISO 100, no losses. */
+          requiredGuideNumber?: number;
+          /**
+           * @description Stops below full power (negative = more than full needed).
+           * @example 3
+           */
+          stopsBelowFull: number;
+          /**
+           * @description Modifier plus gel losses, stops.
+           * @example 2.17
+           */
+          totalLossStops?: number;
+          /** @description Things to look at: a stable code and a sentence for people. */
+          warnings?: {
+            /** @description Stable warning code. */
+            code: string;
+            /** @description Explanation. */
+            message: string;
+          }[];
+        };
+        /** @description Rim flash power, or null without a rim light. */
+        rimFlash: {
+          /**
+           * @description Power on a decimal ten-stop scale (10 = full).
+           * @example 7
+           */
+          decimalPower?: number;
+          /** @description Guide number after ISO and losses, in guideNumberUnit. */
+          effectiveGuideNumber?: number;
+          /**
+           * @description Whether the light can deliver this at or below full power.
+           * @example true
+           */
+          feasible: boolean;
+          /** @description When not feasible: each single change that would fix it (distances in distanceUnit). */
+          fixes?: {
+            /** @description Distance to move back to (below minimum power). */
+            moveBackTo?: number;
+            /** @description Distance to move the light to. */
+            moveCloserTo?: number;
+            /** @description Stops to open up. */
+            openUpByStops?: number;
+            /** @description f-number that would work. */
+            openUpTo?: number;
+            /** @description Stops of ISO to add. */
+            raiseIsoByStops?: number;
+            /** @description ISO that would work. */
+            raiseIsoTo?: number;
+            /** @description f-number to stop down to (below minimum power). */
+            stopDownTo?: number;
+          } | null;
+          /**
+           * @description Fraction of full power needed (above 1 when not feasible).
+           * @example 0.125
+           */
+          powerFraction: number;
+          /**
+           * @description Power on the 1/1..1/256 third-stop scale, e.g. "1/8 +0.3".
+           * @example 1/8
+           */
+          powerLabel?: string;
+          /** @description Guide number the shot needs at full power, ISO 100, no losses. */
+          requiredGuideNumber?: number;
+          /**
+           * @description Stops below full power (negative = more than full needed).
+           * @example 3
+           */
+          stopsBelowFull: number;
+          /**
+           * @description Modifier plus gel losses, stops.
+           * @example 2.17
+           */
+          totalLossStops?: number;
+          /** @description Things to look at: a stable code and a sentence for people. */
+          warnings?: {
+            /** @description Stable warning code. */
+            code: string;
+            /** @description Explanation. */
+            message: string;
+          }[];
+        } | null;
+        /**
+         * @description Sun altitude, degrees.
+         * @example -3.1
+         */
+        sunAltitudeDeg: number;
+        /**
+         * @description ISO 8601 local time with offset.
+         * @example 2026-06-20T21:40:00+01:00
+         */
+        time: string;
         /** @description Settings stay inside every limit and the flashes are feasible. */
-        usable?: boolean;
+        usable: boolean;
       }[];
-      /** @description Sun events and evening windows, as /v1/twilight returns them (without the ambient timeline). */
-      twilight: Record<string, never>;
+      /** @description Sun events and evening windows, as /v1/twilight returns them (without the ambient timeline), with the ambient model’s uncertainty. */
+      twilight: {
+        /**
+         * @description Typical uncertainty of the ambient model, stops.
+         * @example 1
+         */
+        ambientUncertaintyStops?: number;
+        /**
+         * Format: date-time
+         * @description Astronomical dawn (18° below). ISO 8601 local time with offset, or null (see reasons).
+         * @example null
+         */
+        astronomicalDawn: string | null;
+        /**
+         * Format: date-time
+         * @description Astronomical dusk (18° below). ISO 8601 local time with offset, or null (see reasons).
+         * @example null
+         */
+        astronomicalDusk: string | null;
+        /** @description Evening blue hour. */
+        blueHour: {
+          /**
+           * Format: date-time
+           * @description End. ISO 8601 local time with offset, or null (see reasons).
+           * @example 2026-06-20T21:48:00+01:00
+           */
+          end: string | null;
+          /**
+           * Format: date-time
+           * @description Start. ISO 8601 local time with offset, or null (see reasons).
+           * @example 2026-06-20T20:49:00+01:00
+           */
+          start: string | null;
+        };
+        /**
+         * Format: date-time
+         * @description Civil dawn (sun 6° below the horizon). ISO 8601 local time with offset, or null (see reasons).
+         * @example 2026-06-20T03:57:00+01:00
+         */
+        civilDawn: string | null;
+        /**
+         * Format: date-time
+         * @description Civil dusk (sun 6° below the horizon). ISO 8601 local time with offset, or null (see reasons).
+         * @example 2026-06-20T22:08:00+01:00
+         */
+        civilDusk: string | null;
+        /**
+         * @description The local date.
+         * @example 2026-06-20
+         */
+        date?: string;
+        /** @description Evening golden hour (sun descending through the golden band). */
+        goldenHour: {
+          /**
+           * Format: date-time
+           * @description End. ISO 8601 local time with offset, or null (see reasons).
+           * @example 2026-06-20T21:48:00+01:00
+           */
+          end: string | null;
+          /**
+           * Format: date-time
+           * @description Start. ISO 8601 local time with offset, or null (see reasons).
+           * @example 2026-06-20T20:49:00+01:00
+           */
+          start: string | null;
+        };
+        /**
+         * Format: date-time
+         * @description Nautical dawn (12° below). ISO 8601 local time with offset, or null (see reasons).
+         * @example null
+         */
+        nauticalDawn: string | null;
+        /**
+         * Format: date-time
+         * @description Nautical dusk (12° below). ISO 8601 local time with offset, or null (see reasons).
+         * @example 2026-06-20T23:18:00+01:00
+         */
+        nauticalDusk: string | null;
+        /** @description Notes, e.g. an event after local midnight. */
+        notes?: string[];
+        /**
+         * @description For each null event (keys like "astronomicalDusk" or "goldenHour.start"), why it is missing.
+         * @example {
+         *       "astronomicalDusk": "twilight-never-ends"
+         *     }
+         */
+        reasons: {
+          [key: string]:
+            | 'sun-never-sets'
+            | 'sun-never-rises'
+            | 'twilight-never-ends'
+            | 'twilight-never-begins'
+            | 'sun-always-above'
+            | 'sun-always-below';
+        };
+        /**
+         * Format: date-time
+         * @description Solar noon. ISO 8601 local time with offset, or null (see reasons).
+         * @example 2026-06-20T13:02:00+01:00
+         */
+        solarNoon?: string | null;
+        /**
+         * Format: date-time
+         * @description Sunrise. ISO 8601 local time with offset, or null (see reasons).
+         * @example 2026-06-20T04:43:00+01:00
+         */
+        sunrise: string | null;
+        /**
+         * Format: date-time
+         * @description Sunset. ISO 8601 local time with offset, or null (see reasons).
+         * @example 2026-06-20T21:21:00+01:00
+         */
+        sunset: string | null;
+        /**
+         * @description Sun azimuth at sunset, degrees clockwise from north.
+         * @example 310.9
+         */
+        sunsetAzimuthDeg?: number | null;
+        /**
+         * @description The IANA time zone.
+         * @example Europe/London
+         */
+        timeZone?: string;
+      };
       /** @description Things to look at: a stable code and a sentence for people. */
-      warnings?: {
+      warnings: {
         /** @description Stable warning code. */
         code: string;
         /** @description Explanation. */
         message: string;
       }[];
-      /** @description Camera white balance and fine-tune. */
-      whiteBalance: Record<string, never>;
+      /** @description Camera white balance and the fine-tune that cancels the residual. */
+      whiteBalance: {
+        /**
+         * @description Camera white balance, kelvin.
+         * @example 3800
+         */
+        cameraKelvin: number;
+        /** @description Camera white-balance change that cancels the residual on the subject. */
+        fineTune: {
+          /** @description Steps on an amber(+)/blue(−) fine-tune axis, about 5 mireds each. */
+          amberBlueSteps: number;
+          /** @description Camera white balance that would cancel it, kelvin. */
+          cameraKelvin: number;
+          /** @description Mireds. */
+          miredShift: number;
+          /** @description Camera tint change, CC units. */
+          tintCC: number;
+        };
+      };
       /** @description The shooting window (blue hour, else sunset to civil dusk) and its usable part. */
       window: {
-        /** @description ISO 8601 with offset. */
-        end?: string | null;
-        /** @description ISO 8601 with offset. */
-        start?: string | null;
-        /** @description ISO 8601 with offset. */
-        usableEnd?: string | null;
-        /** @description ISO 8601 with offset. */
-        usableStart?: string | null;
+        /**
+         * Format: date-time
+         * @description End of the window. ISO 8601 local time with offset, or null.
+         */
+        end: string | null;
+        /**
+         * Format: date-time
+         * @description Start of the window. ISO 8601 local time with offset, or null.
+         */
+        start: string | null;
+        /**
+         * Format: date-time
+         * @description Last such minute. ISO 8601 local time with offset, or null.
+         */
+        usableEnd: string | null;
+        /**
+         * Format: date-time
+         * @description First minute where every setting stays inside its limits. ISO 8601 local time with offset, or null.
+         */
+        usableStart: string | null;
       };
     };
     SignInRequestDto: {
@@ -3462,12 +4051,12 @@ export interface components {
          * @description Lower sun altitude, degrees (-18..20), below upperDeg.
          * @example -4
          */
-        lowerDeg?: number;
+        lowerDeg: number;
         /**
          * @description Upper sun altitude, degrees (-18..20).
          * @example 6
          */
-        upperDeg?: number;
+        upperDeg: number;
       };
       /**
        * Format: date
@@ -3486,12 +4075,12 @@ export interface components {
          * @description Lower sun altitude, degrees (-18..20), below upperDeg.
          * @example -4
          */
-        lowerDeg?: number;
+        lowerDeg: number;
         /**
          * @description Upper sun altitude, degrees (-18..20).
          * @example 6
          */
-        upperDeg?: number;
+        upperDeg: number;
       };
       /**
        * @description Degrees, north positive (-90..90).
@@ -3527,9 +4116,9 @@ export interface components {
          * @description Model name.
          * @example USNO Circular 171
          */
-        model?: string;
+        model: string;
         /** @description The ambient timeline. */
-        points?: {
+        points: {
           /**
            * @description Incident EV at ISO 100.
            * @example 7.1
@@ -3560,17 +4149,17 @@ export interface components {
          * @description Sky condition used.
          * @example clear
          */
-        sky?: string;
+        sky: string;
         /**
          * @description Timeline step, minutes.
          * @example 5
          */
-        stepMinutes?: number;
+        stepMinutes: number;
         /**
          * @description Typical model uncertainty, stops.
          * @example 1
          */
-        uncertaintyStops?: number;
+        uncertaintyStops: number;
       };
       /**
        * Format: date-time
@@ -3591,13 +4180,13 @@ export interface components {
          * @description End. ISO 8601 local time with offset, or null (see reasons).
          * @example 2026-06-20T21:48:00+01:00
          */
-        end?: string | null;
+        end: string | null;
         /**
          * Format: date-time
          * @description Start. ISO 8601 local time with offset, or null (see reasons).
          * @example 2026-06-20T20:49:00+01:00
          */
-        start?: string | null;
+        start: string | null;
       };
       /**
        * Format: date-time
@@ -3623,13 +4212,13 @@ export interface components {
          * @description End. ISO 8601 local time with offset, or null (see reasons).
          * @example 2026-06-20T21:48:00+01:00
          */
-        end?: string | null;
+        end: string | null;
         /**
          * Format: date-time
          * @description Start. ISO 8601 local time with offset, or null (see reasons).
          * @example 2026-06-20T20:49:00+01:00
          */
-        start?: string | null;
+        start: string | null;
       };
       /**
        * Format: date-time
@@ -3651,7 +4240,15 @@ export interface components {
        *       "astronomicalDusk": "twilight-never-ends"
        *     }
        */
-      reasons: Record<string, never>;
+      reasons: {
+        [key: string]:
+          | 'sun-never-sets'
+          | 'sun-never-rises'
+          | 'twilight-never-ends'
+          | 'twilight-never-begins'
+          | 'sun-always-above'
+          | 'sun-always-below';
+      };
       /**
        * Format: date-time
        * @description Solar noon. ISO 8601 local time with offset, or null (see reasons).
@@ -3966,19 +4563,19 @@ export interface components {
          * @description Billable units.
          * @example 1498
          */
-        billableUnits?: number;
+        billableUnits: number;
         /**
          * @description Calls.
          * @example 1830
          */
-        calls?: number;
+        calls: number;
         /**
          * @description Calls that got a 4xx or 5xx.
          * @example 12
          */
-        errors?: number;
+        errors: number;
         /** @description Mean server time, ms. */
-        meanLatencyMs?: number | null;
+        meanLatencyMs: number | null;
       };
     };
     UserPreferencesDto: {

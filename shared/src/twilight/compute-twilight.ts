@@ -35,13 +35,15 @@ export interface TwilightInput {
 }
 
 /** Why an event is null. */
-export type MissingReason =
-  | 'sun-never-sets'
-  | 'sun-never-rises'
-  | 'twilight-never-ends'
-  | 'twilight-never-begins'
-  | 'sun-always-above'
-  | 'sun-always-below';
+export const MISSING_REASONS = [
+  'sun-never-sets',
+  'sun-never-rises',
+  'twilight-never-ends',
+  'twilight-never-begins',
+  'sun-always-above',
+  'sun-always-below',
+] as const;
+export type MissingReason = (typeof MISSING_REASONS)[number];
 
 export interface TimeWindow {
   start: string | null;

@@ -1,3 +1,4 @@
+import type { JsonSchema } from '../validation/json-schema.js';
 import { schemaDto, type ObjectSchema } from '../validation/schema-dto.js';
 import { num, outNum, str } from './common.js';
 
@@ -52,6 +53,51 @@ export const balanceRequestSchema: ObjectSchema = {
   },
 };
 
+/** One chosen gel, as /v1/balance and /v1/setup return it. */
+export const CHOSEN_GELS: JsonSchema = {
+  type: 'array',
+  description: 'The chosen gels (empty when none is needed).',
+  items: {
+    type: 'object',
+    required: ['name', 'miredShift', 'greenShift', 'lossStops'],
+    properties: {
+      name: str('Gel name.', 'Half warming'),
+      miredShift: outNum('Mired shift, mireds (+ = warmer).', 81),
+      greenShift: outNum('Green shift, CC units (+ = plus-green).', 0),
+      lossStops: outNum('Light loss, stops.', 0.33),
+    },
+  },
+};
+
+/** The camera white-balance change that cancels a residual. */
+export const WB_FINE_TUNE: JsonSchema = {
+  type: 'object',
+  description: 'Camera white-balance change that cancels the residual on the subject.',
+  required: ['miredShift', 'cameraKelvin', 'amberBlueSteps', 'tintCC'],
+  properties: {
+    miredShift: outNum('Mireds.'),
+    cameraKelvin: outNum('Camera white balance that would cancel it, kelvin.'),
+    amberBlueSteps: outNum('Steps on an amber(+)/blue(−) fine-tune axis, about 5 mireds each.'),
+    tintCC: outNum('Camera tint change, CC units.'),
+  },
+};
+
+/** How one light source in the scene renders at the camera white balance. */
+export const SCENE_SWATCH: JsonSchema = {
+  type: 'object',
+  required: ['id', 'label', 'kelvin', 'miredOffset', 'hex', 'rendersAs'],
+  properties: {
+    id: str('Swatch id.', 'sky-blue-hour'),
+    label: str('Swatch label.', 'Sky at blue hour'),
+    kelvin: outNum('Source colour temperature, kelvin.', 12000),
+    miredOffset: outNum('mired(source) − mired(camera WB); + = warmer than neutral.', -229.2),
+    hex: str('Display colour, sRGB hex.', '#9cbdff'),
+    rendersAs: str('How it renders.', 'much cooler', {
+      enum: ['much warmer', 'warmer', 'neutral', 'cooler', 'much cooler'],
+    }),
+  },
+};
+
 export const balanceResponseSchema: ObjectSchema = {
   type: 'object',
   required: ['requiredMiredShift', 'achievedMiredShift', 'residualMired', 'gels', 'gelLossStops'],
@@ -59,52 +105,19 @@ export const balanceResponseSchema: ObjectSchema = {
     requiredMiredShift: outNum('Shift the flash needs, mireds (+ = warmer).', 84.6),
     achievedMiredShift: outNum('Shift of the chosen gels, mireds.', 81),
     residualMired: outNum('achieved − required, mireds (+ = flash warmer than intended).', -3.6),
-    gels: {
-      type: 'array',
-      description: 'The chosen gels (empty when none is needed).',
-      items: {
-        type: 'object',
-        required: ['name', 'miredShift', 'lossStops'],
-        properties: {
-          name: str('Gel name.', 'Half warming'),
-          miredShift: outNum('Mired shift, mireds.', 81),
-          lossStops: outNum('Light loss, stops.', 0.33),
-        },
-      },
-    },
+    gels: CHOSEN_GELS,
     gelLossStops: outNum('Total light lost in the chosen gels, stops.', 0.33),
     requiredGreenShift: outNum('Green shift needed, CC units.', 0),
     achievedGreenShift: outNum('Green shift of the chosen gels, CC units.', 0),
     residualGreen: outNum('Green left after gelling, CC units.', 0),
     powerCompensationStops: outNum('Raise flash power by this much to make up for the gels.', 0.33),
-    whiteBalanceFineTune: {
-      type: 'object',
-      description: 'Camera white-balance change that cancels the residual on the subject.',
-      properties: {
-        miredShift: outNum('Mireds.'),
-        cameraKelvin: outNum('Camera white balance that would cancel it, kelvin.'),
-        amberBlueSteps: outNum('Steps on an amber(+)/blue(−) fine-tune axis, about 5 mireds each.'),
-        tintCC: outNum('Camera tint change, CC units.'),
-      },
-    },
+    whiteBalanceFineTune: WB_FINE_TUNE,
     flashKelvin: outNum('Bare flash colour temperature used, kelvin.', 5600),
     resultingFlashKelvin: outNum('Flash colour temperature through the gels, kelvin.', 3850),
     scene: {
       type: 'array',
       description: 'How light sources in the scene render at this white balance.',
-      items: {
-        type: 'object',
-        properties: {
-          id: str('Swatch id.'),
-          label: str('Swatch label.'),
-          kelvin: outNum('Source colour temperature, kelvin.'),
-          miredOffset: outNum('mired(source) − mired(camera WB); + = warmer than neutral.'),
-          hex: str('Display colour, sRGB hex.'),
-          rendersAs: str('How it renders.', 'warmer', {
-            enum: ['much warmer', 'warmer', 'neutral', 'cooler', 'much cooler'],
-          }),
-        },
-      },
+      items: SCENE_SWATCH,
     },
   },
 };

@@ -1,8 +1,11 @@
 import type { JsonSchema } from '../validation/json-schema.js';
 import { schemaDto, type ObjectSchema } from '../validation/schema-dto.js';
-import { balanceRequestSchema } from './balance.schema.js';
-import { bool, lengthUnit, num, str, WARNINGS } from './common.js';
-import { twilightRequestSchema } from './twilight.schema.js';
+import { backlightResponseSchema } from './backlight.schema.js';
+import { balanceRequestSchema, balanceResponseSchema, SCENE_SWATCH } from './balance.schema.js';
+import { exposureResponseSchema } from './exposure.schema.js';
+import { flashResponseSchema } from './flash.schema.js';
+import { bool, lengthUnit, num, object, outNum, str, WARNINGS } from './common.js';
+import { twilightRequestSchema, twilightResponseSchema } from './twilight.schema.js';
 
 const closed = (
   description: string,
@@ -99,24 +102,64 @@ export const setupRequestSchema: ObjectSchema = {
   },
 };
 
-const loose = (description: string): JsonSchema => ({ type: 'object', description });
+/** A documented schema with its own description (and null allowed when `nullable`). */
+const as = (schema: JsonSchema, description: string, nullable = false): JsonSchema => {
+  const types = Array.isArray(schema.type) ? schema.type : schema.type ? [schema.type] : [];
+  return {
+    ...schema,
+    description,
+    ...(nullable && !types.includes('null') ? { type: [...types, 'null'] } : {}),
+  };
+};
+
+const balanceOut = balanceResponseSchema.properties;
+const twilightOut = twilightResponseSchema.properties;
+const { ambient: _ambient, ...twilightWithoutAmbient } = twilightOut;
+void _ambient;
+
+const ISO = (description: string): JsonSchema => ({
+  type: ['string', 'null'],
+  format: 'date-time',
+  description: `${description} ISO 8601 local time with offset, or null.`,
+});
 
 export const setupResponseSchema: ObjectSchema = {
   type: 'object',
-  required: ['twilight', 'window', 'suggestedMinutes', 'whiteBalance', 'gels', 'key', 'cautions'],
+  required: [
+    'twilight',
+    'window',
+    'suggestedMinutes',
+    'whiteBalance',
+    'gels',
+    'key',
+    'backlight',
+    'backgroundFalloffStops',
+    'look',
+    'cautions',
+    'warnings',
+  ],
   properties: {
-    twilight: loose(
-      'Sun events and evening windows, as /v1/twilight returns them (without the ambient timeline).',
-    ),
+    twilight: {
+      type: 'object',
+      description:
+        'Sun events and evening windows, as /v1/twilight returns them (without the ambient ' +
+        'timeline), with the ambient model’s uncertainty.',
+      required: [...(twilightResponseSchema.required ?? []).filter((r) => r !== 'ambient')],
+      properties: {
+        ...twilightWithoutAmbient,
+        ambientUncertaintyStops: outNum('Typical uncertainty of the ambient model, stops.', 1),
+      },
+    },
     window: {
       type: 'object',
       description:
         'The shooting window (blue hour, else sunset to civil dusk) and its usable part.',
+      required: ['start', 'end', 'usableStart', 'usableEnd'],
       properties: {
-        start: { type: ['string', 'null'], description: 'ISO 8601 with offset.' },
-        end: { type: ['string', 'null'], description: 'ISO 8601 with offset.' },
-        usableStart: { type: ['string', 'null'], description: 'ISO 8601 with offset.' },
-        usableEnd: { type: ['string', 'null'], description: 'ISO 8601 with offset.' },
+        start: ISO('Start of the window.'),
+        end: ISO('End of the window.'),
+        usableStart: ISO('First minute where every setting stays inside its limits.'),
+        usableEnd: ISO('Last such minute.'),
       },
     },
     suggestedMinutes: {
@@ -124,37 +167,87 @@ export const setupResponseSchema: ObjectSchema = {
       description: 'Suggested minutes with background exposure and key/rim flash power for each.',
       items: {
         type: 'object',
+        required: [
+          'time',
+          'sunAltitudeDeg',
+          'ambientEv100',
+          'background',
+          'keyFlash',
+          'rimFlash',
+          'usable',
+        ],
         properties: {
-          time: str('ISO 8601 local time with offset.'),
-          sunAltitudeDeg: num('Sun altitude, degrees.'),
-          ambientEv100: num('Ambient EV at ISO 100.'),
-          background: loose('Background exposure (shutter, aperture, ISO).'),
-          keyFlash: loose('Key flash power, as /v1/flash returns it.'),
-          rimFlash: { type: ['object', 'null'], description: 'Rim flash power, or null.' },
+          time: str('ISO 8601 local time with offset.', '2026-06-20T21:40:00+01:00'),
+          sunAltitudeDeg: outNum('Sun altitude, degrees.', -3.1),
+          ambientEv100: outNum('Ambient EV at ISO 100.', 6.2),
+          background: as(
+            exposureResponseSchema,
+            'Background exposure for that minute, as /v1/exposure returns it in background mode.',
+          ),
+          keyFlash: as(flashResponseSchema, 'Key flash power, as /v1/flash returns it.'),
+          rimFlash: as(flashResponseSchema, 'Rim flash power, or null without a rim light.', true),
           usable: bool('Settings stay inside every limit and the flashes are feasible.'),
         },
       },
     },
-    whiteBalance: loose('Camera white balance and fine-tune.'),
-    gels: loose('Chosen gels, their loss and the power compensation.'),
-    key: loose('Key-light geometry and modifier.'),
-    backlight: {
-      type: ['object', 'null'],
-      description: 'Rim-light geometry, as /v1/backlight returns it.',
-    },
+    whiteBalance: object('Camera white balance and the fine-tune that cancels the residual.', {
+      cameraKelvin: outNum('Camera white balance, kelvin.', 3800),
+      fineTune: balanceOut.whiteBalanceFineTune!,
+    }),
+    gels: object('Chosen gels for the key (and a gelled rim), their loss and the compensation.', {
+      gels: balanceOut.gels!,
+      gelLossStops: balanceOut.gelLossStops!,
+      powerCompensationStops: balanceOut.powerCompensationStops!,
+      residualMired: balanceOut.residualMired!,
+      resultingFlashKelvin: balanceOut.resultingFlashKelvin!,
+    }),
+    key: object('Key-light placement, modifier and character.', {
+      distanceUnit: str('Unit of the position.', 'm', { enum: ['m', 'ft'] }),
+      position: object('Light position relative to the subject, in distanceUnit.', {
+        towardCamera: outNum('Toward the camera (+) or behind the subject (−).', 1.25),
+        sideways: outNum('To the side of the camera axis.', 2.17),
+        aboveEyes: outNum('Above the subject’s eyes.', 0.6),
+      }),
+      apparentSizeDeg: outNum('Apparent size of the modifier from the subject, degrees.', 20.4),
+      sizeToDistance: outNum('Modifier size ÷ distance.', 0.36),
+      quality: str('Light quality from the size-to-distance ratio.', 'medium', {
+        enum: ['hard', 'medium', 'soft'],
+      }),
+      shadowSide: str('Where the shadow side falls for this angle.', 'dramatic', {
+        enum: ['frontal', 'modelled', 'dramatic', 'side', 'behind'],
+      }),
+      lightingRatio: outNum('(key + fill) : fill, e.g. 3 for 3:1.', 3),
+      lightingRatioLabel: str('The ratio as written, e.g. "3:1".', '3:1'),
+      shadowDepthStops: outNum('Lit side minus shadow side, stops.', 1.58),
+      modifier: str('Modifier kind used.', 'softbox'),
+      modifierLossStops: outNum('Light lost in the modifier, stops.', 1.3),
+    }),
+    backlight: as(
+      backlightResponseSchema,
+      'Rim-light geometry, as /v1/backlight returns it, or null without a rim light.',
+      true,
+    ),
     backgroundFalloffStops: {
       type: ['number', 'null'],
-      description: 'Key falloff from subject to background, stops.',
+      description:
+        'Key falloff from subject to background, stops (null without backgroundDistance).',
+      example: 2.3,
     },
     look: {
       type: 'array',
-      description: 'How the scene’s sources render.',
-      items: { type: 'object' },
+      description: 'How the scene’s sources render at the camera white balance.',
+      items: SCENE_SWATCH,
     },
     cautions: {
       type: 'array',
-      description: 'Safety cautions for the conditions (defer to local codes and venue rules).',
-      items: { type: 'object' },
+      description:
+        'Safety cautions for the conditions. General good practice only: defer to local codes, ' +
+        'venue rules, permits and licensed practice.',
+      items: object('One caution.', {
+        id: str('Stable caution id.', 'stands-wind'),
+        title: str('Short title.'),
+        text: str('What to do.'),
+      }),
     },
     warnings: WARNINGS,
   },

@@ -1,3 +1,4 @@
+import { MISSING_REASONS } from '@lumenwright/shared';
 import type { JsonSchema } from '../validation/json-schema.js';
 import { schemaDto, type ObjectSchema } from '../validation/schema-dto.js';
 import { num, object, outNum, str } from './common.js';
@@ -85,6 +86,11 @@ export const twilightResponseSchema: ObjectSchema = {
       type: 'object',
       description:
         'For each null event (keys like "astronomicalDusk" or "goldenHour.start"), why it is missing.',
+      additionalProperties: {
+        type: 'string',
+        enum: [...MISSING_REASONS],
+        description: 'Why the event is missing.',
+      },
       example: { astronomicalDusk: 'twilight-never-ends' },
     },
     notes: {

@@ -24,7 +24,8 @@ export interface JsonSchema {
   format?: string;
   properties?: Record<string, JsonSchema>;
   required?: readonly string[];
-  additionalProperties?: boolean;
+  /** `false` closes an object (the validator enforces it); a schema documents a map's values. */
+  additionalProperties?: boolean | JsonSchema;
   items?: JsonSchema;
   minItems?: number;
   maxItems?: number;

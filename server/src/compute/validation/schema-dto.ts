@@ -8,9 +8,13 @@ import { compileSchema, JsonSchema, Validator } from './json-schema.js';
 
 export type ObjectSchema = JsonSchema & { type: 'object'; properties: Record<string, JsonSchema> };
 
+/** Every schema DTO by name (the OpenAPI builder restores what the decorators cannot carry). */
+export const SCHEMA_DTOS = new Map<string, ObjectSchema>();
+
 /** A class named `name` whose Swagger metadata mirrors `schema` (properties, required, examples). */
 export function schemaDto(name: string, schema: ObjectSchema): new () => object {
   const Dto = { [name]: class {} }[name]!;
+  SCHEMA_DTOS.set(name, schema);
   const required = new Set(schema.required ?? []);
   for (const [key, prop] of Object.entries(schema.properties)) {
     const { nullable: _nullable, ...rest } = prop;
