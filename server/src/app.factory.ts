@@ -13,6 +13,7 @@ import type { FastifyReply, FastifyRequest } from 'fastify';
 import { AppModule } from './app.module.js';
 import { registerSessions } from './auth/session.plugin.js';
 import { DomainError } from './common/errors/domain-error.js';
+import { isMultipart, scopedHooks } from './common/http/scoped-hooks.js';
 import { registerSecurityHeaders, securityHeaderOptions } from './common/http/security-headers.js';
 import { createLogger, PinoNestLogger, registerRequestLogging } from './common/logging/logging.js';
 import { toProblem } from './common/filters/problem.filter.js';
@@ -79,9 +80,12 @@ export async function createApp(
 
   // Frames: multipart uploads. fileSize is enforced while streaming (past it the part is cut
   // off and the route answers 413); the global JSON body limit does not apply to multipart.
-  await app.register(fastifyMultipart, {
-    limits: { fileSize: config.framesMaxBytes, files: 1, fields: 10, fieldSize: 1024, parts: 12 },
-  });
+  // Its temp-file cleanup hooks run only for multipart requests (src/common/http/scoped-hooks.ts).
+  await scopedHooks(fastify, isMultipart, () =>
+    app.register(fastifyMultipart, {
+      limits: { fileSize: config.framesMaxBytes, files: 1, fields: 10, fieldSize: 1024, parts: 12 },
+    }),
+  );
 
   // Accounts: cookie + PostgreSQL-backed sessions + Origin-based CSRF refusal (src/auth/session.plugin.ts).
   await registerSessions(app, config, { preview: opts.preview ?? false });

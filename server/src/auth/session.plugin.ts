@@ -7,6 +7,7 @@ import connectPgSimple from 'connect-pg-simple';
 import type pg from 'pg';
 import { DataSource } from 'typeorm';
 import type { AppConfig } from '../config/config.js';
+import { isBearerOnly, scopedHooks } from '../common/http/scoped-hooks.js';
 
 declare module 'fastify' {
   interface Session {
@@ -39,17 +40,14 @@ export async function registerSessions(
     pruneSessionInterval: 15 * 60,
   });
   // Bearer-key callers (the metered hot path) never use a session: creating, signing and
-  // checking one for every such request cost ~18% of CPU in profiles. Wrap the session plugin's
-  // hooks so a request with a Bearer token and no cookie skips them (req.session stays empty).
+  // checking one for every such request cost ~18% of CPU in profiles, so the session plugin's
+  // hooks skip a request with a Bearer token and no cookie (req.session stays empty).
   const fastify = app.getHttpAdapter().getInstance();
-  const addHook = fastify.addHook.bind(fastify) as (name: string, fn: unknown) => unknown;
-  (fastify as unknown as { addHook: unknown }).addHook = (name: string, fn: unknown) =>
-    addHook(name, typeof fn === 'function' ? skipForBearer(fn as HookFn) : fn);
-  try {
-    await registerSessionPlugin(app, config, store);
-  } finally {
-    (fastify as unknown as { addHook: unknown }).addHook = addHook;
-  }
+  await scopedHooks(
+    fastify,
+    (req) => !isBearerOnly(req),
+    () => registerSessionPlugin(app, config, store),
+  );
   app
     .getHttpAdapter()
     .getInstance()
@@ -60,29 +58,6 @@ export async function registerSessions(
     trustedOrigins: config.corsOrigins,
     exclude: (req: { headers: Record<string, unknown> }) => !req.headers.cookie,
   });
-}
-
-type HookFn = (
-  req: { headers: Record<string, unknown>; session?: unknown },
-  ...rest: unknown[]
-) => unknown;
-
-/** True for a request that authenticates with a bearer key and carries no cookie. */
-export function isBearerOnly(headers: Record<string, unknown>): boolean {
-  const auth = headers.authorization;
-  return typeof auth === 'string' && /^Bearer\s/i.test(auth) && !headers.cookie;
-}
-
-function skipForBearer(fn: HookFn): HookFn {
-  return function (this: unknown, req, ...rest) {
-    if (isBearerOnly(req.headers)) {
-      // Fastify hooks finish through their last argument (done) when not async.
-      const done = rest[rest.length - 1];
-      if (typeof done === 'function') return (done as () => void)();
-      return undefined;
-    }
-    return fn.call(this, req, ...rest);
-  };
 }
 
 async function registerSessionPlugin(

@@ -1,10 +1,17 @@
 // Meters every compute call, whatever its outcome (including bodies Fastify refuses before Nest
-// sees them: too large, not JSON): a Fastify onResponse hook on routes marked with
-// `@RouteConfig({ meter: '<endpoint>' })`. It runs after the response is sent, so it costs the
-// caller nothing; the event goes to the batch writer.
-import { Inject, Injectable, OnModuleInit, Optional } from '@nestjs/common';
+// sees them: too large, not JSON): a route-level Fastify onResponse hook, attached as each route
+// marked with `@RouteConfig({ meter: '<endpoint>' })` is added. It runs after the response is
+// sent, so it costs the caller nothing; the event goes to the batch writer. Other routes carry no
+// metering hook at all.
+import { Inject, Injectable, Optional } from '@nestjs/common';
 import { HttpAdapterHost } from '@nestjs/core';
-import type { FastifyInstance, FastifyReply, FastifyRequest } from 'fastify';
+import type {
+  FastifyInstance,
+  FastifyReply,
+  FastifyRequest,
+  onResponseHookHandler,
+  RouteOptions,
+} from 'fastify';
 import {
   AUTHENTICATOR,
   type Authenticator,
@@ -29,21 +36,28 @@ export function billableUnits(p: Principal, status: number): number {
 }
 
 @Injectable()
-export class MeteringHook implements OnModuleInit {
+export class MeteringHook {
   constructor(
-    private readonly host: HttpAdapterHost,
+    host: HttpAdapterHost,
     private readonly writer: UsageWriter,
     @Optional() @Inject(AUTHENTICATOR) private readonly auth?: Authenticator,
-  ) {}
+  ) {
+    // Providers are built before Nest adds the routes (at init), so the onRoute hook sees them all.
+    host.httpAdapter
+      ?.getInstance<FastifyInstance>()
+      .addHook('onRoute', (route) => this.attach(route));
+  }
 
-  onModuleInit(): void {
-    const fastify = this.host.httpAdapter?.getInstance<FastifyInstance>();
-    if (!fastify) return;
-    fastify.addHook('onResponse', (req, reply, done) => {
-      const endpoint = (req.routeOptions?.config as MeterRouteConfig | undefined)?.meter;
-      if (endpoint) this.meter(endpoint, req as RequestWithPrincipal, reply);
+  /** Adds the metering hook to a metered route's own onResponse hooks. */
+  attach(route: RouteOptions): void {
+    const endpoint = (route.config as MeterRouteConfig | undefined)?.meter;
+    if (!endpoint) return;
+    const hook: onResponseHookHandler = (req, reply, done) => {
+      this.meter(endpoint, req as RequestWithPrincipal, reply);
       done();
-    });
+    };
+    const own = route.onResponse;
+    route.onResponse = own ? [...(Array.isArray(own) ? own : [own]), hook] : [hook];
   }
 
   private meter(endpoint: string, req: RequestWithPrincipal, reply: FastifyReply) {

@@ -1,0 +1,53 @@
+// Some plugins add global hooks that only a few requests need: the console session's hooks (never
+// needed by bearer-key callers, the metered hot path) and the multipart plugin's temp-file
+// cleanup (only multipart uploads have files). Registering such a plugin through `scopedHooks`
+// wraps every hook it adds so the hook runs only for requests `applies` accepts; for the rest the
+// hook finishes at once.
+import type { FastifyInstance } from 'fastify';
+
+export interface HookRequest {
+  headers: Record<string, string | string[] | undefined>;
+}
+
+type HookFn = (req: HookRequest, ...rest: unknown[]) => unknown;
+
+/** Wraps a hook so it runs only when `applies(req)`; otherwise it calls its `done` at once. */
+export function onlyWhen(applies: (req: HookRequest) => boolean, fn: HookFn): HookFn {
+  const wrapped = function (this: unknown, req: HookRequest, ...rest: unknown[]) {
+    if (applies(req)) return fn.call(this, req, ...rest);
+    // Fastify passes `done` last, also to async hooks (which resolve instead of calling it).
+    const done = rest[rest.length - 1];
+    if (typeof done === 'function') return (done as () => void)();
+    return undefined;
+  };
+  Object.defineProperty(wrapped, 'name', { value: `onlyWhen(${fn.name || 'hook'})` });
+  return wrapped;
+}
+
+/** Runs `register` with every hook it adds to `fastify` wrapped by `onlyWhen(applies, …)`. */
+export async function scopedHooks(
+  fastify: FastifyInstance,
+  applies: (req: HookRequest) => boolean,
+  register: () => PromiseLike<unknown>,
+): Promise<void> {
+  const addHook = fastify.addHook.bind(fastify) as (name: string, fn: unknown) => unknown;
+  (fastify as unknown as { addHook: unknown }).addHook = (name: string, fn: unknown) =>
+    addHook(name, typeof fn === 'function' ? onlyWhen(applies, fn as HookFn) : fn);
+  try {
+    await register();
+  } finally {
+    (fastify as unknown as { addHook: unknown }).addHook = addHook;
+  }
+}
+
+/** True for a request that authenticates with a bearer key and carries no cookie. */
+export function isBearerOnly(req: HookRequest): boolean {
+  const auth = req.headers.authorization;
+  return typeof auth === 'string' && /^Bearer\s/i.test(auth) && !req.headers.cookie;
+}
+
+/** True for a multipart/form-data request (a frame upload). */
+export function isMultipart(req: HookRequest): boolean {
+  const type = req.headers['content-type'];
+  return typeof type === 'string' && /^multipart\/form-data/i.test(type);
+}
