@@ -1,7 +1,9 @@
 #!/usr/bin/env node
 // `npm run bench`: POST /v1/balance on a production server (authentication, limits and metering on)
 // against a bare node:http baseline doing the same computation, measured with autocannon on
-// loopback. Last line: `bench: <r> req/s, p99 <ms> ms, <ratio> of bare node, <n> usage events lost`.
+// loopback; a plain-Fastify baseline (same computation) shows how much of the gap is the HTTP
+// framework's floor. Last line:
+// `bench: <r> req/s, p99 <ms> ms, <ratio> of bare node, <n> usage events lost`.
 import { fork } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
@@ -128,25 +130,30 @@ async function main() {
     keys.push(json.secret);
   }
 
-  const barePort = await freePort();
-  const bare = fork(path.join(root, 'server/bench/bare.mjs'), [String(barePort)], {
-    env: { ...process.env, BENCH_KEYS: keys.join(',') },
-    stdio: 'ignore',
-  });
-  cleanups.push(
-    () =>
-      new Promise((r) =>
-        bare.exitCode !== null ? r() : (bare.once('exit', r), bare.kill('SIGTERM')),
-      ),
-  );
-  await new Promise((r) => bare.once('message', r));
+  const baseline = async (script) => {
+    const child = fork(path.join(root, 'server/bench', script), [String(await freePort())], {
+      env: { ...process.env, BENCH_KEYS: keys.join(',') },
+      stdio: 'ignore',
+    });
+    cleanups.push(
+      () =>
+        new Promise((r) =>
+          child.exitCode !== null ? r() : (child.once('exit', r), child.kill('SIGTERM')),
+        ),
+    );
+    const { port: p } = await new Promise((r) => child.once('message', r));
+    return `http://127.0.0.1:${p}`;
+  };
+  const bareUrl = await baseline('bare.mjs');
+  const fastifyUrl = await baseline('fastify.mjs');
 
   console.log(
     `\n${os.cpus().length} cores (${os.cpus()[0]?.model ?? 'unknown'}), Node ${process.version}, ${CONNECTIONS} connections, ${DURATION} s each\n`,
   );
   const warm = await cannon(base, keys); // warm-up: not in the figures, but its usage rows count
   const lw = summary('Lumenwright /v1/balance', await cannon(base, keys));
-  const bareR = summary('bare node:http', await cannon(`http://127.0.0.1:${barePort}`, keys));
+  const bareR = summary('bare node:http', await cannon(bareUrl, keys));
+  const fastifyR = summary('plain Fastify', await cannon(fastifyUrl, keys));
 
   // Metering is batched: give the writer time to flush, then compare rows with 2xx answers.
   await new Promise((r) => setTimeout(r, 2000));
@@ -169,7 +176,9 @@ async function main() {
     seconds: DURATION,
     lumenwright: lw,
     bare: bareR,
+    fastify: fastifyR,
     ratio,
+    fastifyRatio: fastifyR.rps / bareR.rps,
     usageRows: rows,
     answered,
     lost,
@@ -177,7 +186,10 @@ async function main() {
   if (process.env.BENCH_OUTPUT)
     fs.writeFileSync(process.env.BENCH_OUTPUT, JSON.stringify(result, null, 2));
   // Speed is reported, not enforced; lost usage or refused calls are failures.
-  if (lost > 0 || lw.non2xx > 0 || bareR.non2xx > 0) process.exitCode = 1;
+  console.log(
+    `plain Fastify: ${(fastifyR.rps / bareR.rps).toFixed(2)} of bare node (the framework's floor)`,
+  );
+  if (lost > 0 || lw.non2xx > 0 || bareR.non2xx > 0 || fastifyR.non2xx > 0) process.exitCode = 1;
   console.log(
     `bench: ${lw.rps.toFixed(0)} req/s, p99 ${lw.p99} ms, ${ratio.toFixed(2)} of bare node, ${lost} usage events lost`,
   );

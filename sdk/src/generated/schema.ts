@@ -4381,7 +4381,15 @@ export interface components {
          * @example balance
          * @enum {string}
          */
-        endpoint: 'twilight' | 'exposure' | 'flash' | 'falloff' | 'backlight' | 'balance' | 'setup';
+        endpoint:
+          | 'twilight'
+          | 'exposure'
+          | 'flash'
+          | 'falloff'
+          | 'backlight'
+          | 'balance'
+          | 'setup'
+          | 'frames';
         /** @description Event id. */
         id: string;
         /** @description API key id; null for console calls. */
@@ -5391,6 +5399,15 @@ export interface operations {
       };
       /** @description A field is invalid, the patch is outside the image, or the file is corrupt. */
       422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt). */
+      429: {
         headers: {
           [name: string]: unknown;
         };
@@ -7727,7 +7744,14 @@ export interface operations {
         keyId?: string;
         /** @description Only this endpoint. */
         endpoint?:
-          'twilight' | 'exposure' | 'flash' | 'falloff' | 'backlight' | 'balance' | 'setup';
+          | 'twilight'
+          | 'exposure'
+          | 'flash'
+          | 'falloff'
+          | 'backlight'
+          | 'balance'
+          | 'setup'
+          | 'frames';
         /** @description Only this HTTP status. */
         status?: string;
         /** @description From this instant (inclusive), ISO 8601 or YYYY-MM-DD (UTC). */
@@ -7762,7 +7786,14 @@ export interface operations {
         keyId?: string;
         /** @description Only this endpoint. */
         endpoint?:
-          'twilight' | 'exposure' | 'flash' | 'falloff' | 'backlight' | 'balance' | 'setup';
+          | 'twilight'
+          | 'exposure'
+          | 'flash'
+          | 'falloff'
+          | 'backlight'
+          | 'balance'
+          | 'setup'
+          | 'frames';
         /** @description Only this HTTP status. */
         status?: string;
         /** @description From this instant (inclusive), ISO 8601 or YYYY-MM-DD (UTC). */

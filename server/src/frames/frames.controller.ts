@@ -1,4 +1,5 @@
-import { Controller, Get, HttpCode, Param, Post, Query, Req, Res } from '@nestjs/common';
+import { Controller, Get, HttpCode, Param, Post, Query, Req, Res, UseGuards } from '@nestjs/common';
+import { RouteConfig } from '@nestjs/platform-fastify';
 import {
   ApiBody,
   ApiConsumes,
@@ -12,6 +13,8 @@ import type { FastifyReply } from 'fastify';
 import { ApiKeyAuth } from '../common/decorators/access.decorator.js';
 import type { RequestWithPrincipal } from '../common/guards/access.guard.js';
 import { ApiQueryFromSchema, SchemaPipe } from '../compute/validation/schema-dto.js';
+import { ComputeLimitsGuard } from '../plans/compute-limits.guard.js';
+import type { MeterRouteConfig } from '../usage/metering.hook.js';
 import { FrameListResponseDto, FrameResponseDto } from './dto/frame.dto.js';
 import { toFrameDto } from './frame.mapper.js';
 import { FramesService } from './frames.service.js';
@@ -48,6 +51,10 @@ export class FramesController {
 
   @Post()
   @ApiKeyAuth()
+  // An upload is a metered call like a computation: rate limit, monthly quota, usage event, and
+  // one billable unit for a stored frame on a live key.
+  @UseGuards(ComputeLimitsGuard)
+  @RouteConfig({ meter: 'frames' } satisfies MeterRouteConfig)
   @HttpCode(201)
   @ApiOperation({
     summary:
@@ -84,6 +91,11 @@ export class FramesController {
     'The plan does not include uploads (type …/plan-feature-missing), or the role may not.',
   )
   @problem(413, 'The file is larger than 25 MB.')
+  @problem(
+    429,
+    'Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the ' +
+      'monthly quota is used up (type …/quota-exceeded, with resetAt).',
+  )
   @problem(415, 'Not multipart, or the file is not JPEG or PNG (HEIC is not accepted).')
   @problem(422, 'A field is invalid, the patch is outside the image, or the file is corrupt.')
   async uploadFrame(@Req() req: RequestWithPrincipal) {

@@ -5,6 +5,7 @@ import sharp from 'sharp';
 import request from 'supertest';
 import type { DataSource } from 'typeorm';
 import { signUp, type SignedInAgent } from '../factories/accounts.js';
+import { createKey } from '../factories/compute.js';
 import { renderFrame, startFake, type RunningFake } from '../factories/frames.js';
 import { FrameOrphanSweeper } from '../../src/frames/orphan-sweeper.service.js';
 import { bootApp, type TestApp } from '../setup/app.js';
@@ -284,6 +285,40 @@ describe('frames', () => {
     expect(nothing.body.errors).toEqual([
       { field: 'cameraKelvin', reason: 'must be an integer from 1500 to 20000' },
     ]);
+  });
+
+  it('meters uploads like computations: rate-limit headers, a usage event each, live stored frames billed', async () => {
+    const live = await createKey(studio, 'live');
+    const img = await renderFrame({ patch: { ...PATCH, ...D65, Y: 0.3 } });
+    const stored = await request(t.url)
+      .post('/v1/frames')
+      .set('Authorization', `Bearer ${live.secret}`)
+      .attach('file', img, { filename: 'terrace.jpg', contentType: 'image/jpeg' });
+    expect(stored.status).toBe(201);
+    expect(stored.headers['ratelimit-policy']).toMatch(/^"key";q=\d+;w=\d+$/);
+    const refused = await request(t.url)
+      .post('/v1/frames')
+      .set('Authorization', `Bearer ${live.secret}`)
+      .attach('file', Buffer.from('just words'), 'a.png');
+    expect(refused.status).toBe(415);
+    let rows: { status: number; billable_units: number; source: string }[] = [];
+    for (let i = 0; i < 100 && rows.length < 2; i++) {
+      rows = await ds.query(
+        `SELECT status, billable_units, source FROM usage_events
+          WHERE key_id = $1 AND endpoint = 'frames' ORDER BY status`,
+        [live.id],
+      );
+      if (rows.length < 2) await new Promise((r) => setTimeout(r, 50));
+    }
+    expect(rows).toEqual([
+      { status: 201, billable_units: 1, source: 'live' },
+      { status: 415, billable_units: 0, source: 'live' },
+    ]);
+    const summary = await studio.agent
+      .get('/v1/usage/events')
+      .query({ endpoint: 'frames', keyId: live.id })
+      .expect(200);
+    expect(summary.body.data).toHaveLength(2);
   });
 
   it('refuses uploads on a plan without them (403 naming the feature) and without a session', async () => {

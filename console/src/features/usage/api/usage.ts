@@ -19,6 +19,7 @@ export const ENDPOINTS: readonly Endpoint[] = [
   'backlight',
   'balance',
   'setup',
+  'frames',
 ];
 
 export const usageKeys = {
