@@ -2,14 +2,10 @@
 // parsing, a bearer-token check in a Map, solveBalance from shared/, JSON out. No framework.
 import http from 'node:http';
 import { solveBalance } from '@lumenwright/shared';
+import { benchKeys } from './keys.mjs';
 
 const port = Number(process.argv[2] ?? 0);
-const keys = new Map(
-  (process.env.BENCH_KEYS ?? '')
-    .split(',')
-    .filter(Boolean)
-    .map((k) => [k, true]),
-);
+const keys = benchKeys();
 
 const server = http.createServer((req, res) => {
   if (req.method !== 'POST' || req.url !== '/v1/balance') {

@@ -5,14 +5,10 @@
 // Lumenwright is ours.
 import Fastify from 'fastify';
 import { solveBalance } from '@lumenwright/shared';
+import { benchKeys } from './keys.mjs';
 
 const port = Number(process.argv[2] ?? 0);
-const keys = new Map(
-  (process.env.BENCH_KEYS ?? '')
-    .split(',')
-    .filter(Boolean)
-    .map((k) => [k, true]),
-);
+const keys = benchKeys();
 
 const app = Fastify({ logger: false });
 app.post('/v1/balance', async (req, reply) => {
