@@ -1,5 +1,4 @@
 import 'reflect-metadata';
-import { createApp } from './app.factory.js';
 import { ConfigError, loadConfig } from './config/config.js';
 
 async function main() {
@@ -13,6 +12,9 @@ async function main() {
     }
     throw e;
   }
+  // Loaded after the configuration is read: a bad setting is reported at once, not after the
+  // whole application (every module, TypeORM, the SDKs) has been imported.
+  const { createApp } = await import('./app.factory.js');
   const app = await createApp(config, { bufferLogs: true });
   await app.listen({ port: config.port, host: config.host });
   console.log(`Lumenwright API listening on http://${config.host}:${config.port}`);
