@@ -151,11 +151,16 @@ async function registerConsole(app: NestFastifyApplication, config: AppConfig) {
   });
 }
 
-/** class-validator DTOs; errors are flattened to `[{field, reason}]` with dotted paths. */
+/** class-validator DTOs; errors are flattened to `[{field, reason}]` with paths like `a[1].b`. */
 function validationPipe(): ValidationPipe {
   const flatten = (errs: ValidationError[], parent = ''): { field: string; reason: string }[] =>
     errs.flatMap((e) => {
-      const field = parent ? `${parent}.${e.property}` : e.property;
+      // Array items as `pieces[1].lossStops`, the same style as the compute validator's paths.
+      const field = !parent
+        ? e.property
+        : /^\d+$/.test(e.property)
+          ? `${parent}[${e.property}]`
+          : `${parent}.${e.property}`;
       const own = Object.values(e.constraints ?? {}).map((msg) => ({
         field,
         // class-validator prefixes messages with the property name; keep only the reason.

@@ -49,6 +49,20 @@ describe('applyServerErrors', () => {
     expect(result.formMessage).toBe('Inputs.sky must be clear, partly-cloudy or overcast');
   });
 
+  it('places array-item errors written as a[1].b on the form path a.1.b', () => {
+    const setError = vi.fn();
+    const result = applyServerErrors(
+      invalid([{ field: 'pieces[1].lossStops', reason: 'must not be less than 0' }]),
+      ['pieces.1.lossStops'],
+      setError,
+    );
+    expect(setError).toHaveBeenCalledWith('pieces.1.lossStops', {
+      type: 'server',
+      message: 'Must not be less than 0',
+    });
+    expect(result).toEqual({ placed: ['pieces.1.lossStops'], formMessage: null });
+  });
+
   it('falls back to the problem detail when there are no field errors', () => {
     const setError = vi.fn();
     const problem = new ApiProblem(401, {

@@ -44,7 +44,9 @@ export function applyServerErrors<T extends FieldValues>(
   for (const entry of entries) {
     const serverField = entry.field ?? entry.path ?? '';
     const reason = entry.reason ?? entry.message ?? 'is not valid';
-    const target = fieldMap[serverField] ?? (serverField as Path<T>);
+    // The API writes array items as `pieces[1].lossStops`; react-hook-form paths are `pieces.1.lossStops`.
+    const formPath = serverField.replace(/\[(\d+)\]/g, '.$1');
+    const target = fieldMap[serverField] ?? fieldMap[formPath] ?? (formPath as Path<T>);
     if (fields.includes(target)) {
       if (!placed.includes(target)) {
         setError(target, { type: 'server', message: sentence(reason) });

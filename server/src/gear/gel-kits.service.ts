@@ -54,10 +54,10 @@ export class GelKitsService {
   }
 
   async create(organizationId: string, body: CreateGelKitRequestDto): Promise<GelKitEntity> {
-    const pieces = (body.pieces ?? []).map((p, i) => pieceValues(p, `pieces.${i}`));
+    const pieces = (body.pieces ?? []).map((p, i) => pieceValues(p, `pieces[${i}]`));
     const seen = new Set<string>();
     pieces.forEach((p, i) => {
-      if (seen.has(p.name)) throw duplicateName('gel in this kit', `pieces.${i}.name`);
+      if (seen.has(p.name)) throw duplicateName('gel in this kit', `pieces[${i}].name`);
       seen.add(p.name);
     });
     const id = await this.write(async (em) => {

@@ -232,12 +232,12 @@ describe('gear', () => {
           ],
         })
         .expect(422);
-      expect(fields(res.body)).toContain('pieces.1.lossStops');
+      expect(fields(res.body)).toContain('pieces[1].lossStops');
       res = await owner.agent
         .post('/v1/gear/gel-kits')
         .send({ name: 'k', pieces: [{ name: 'a', lossStops: 0.1 }] })
         .expect(422);
-      expect(fields(res.body)).toContain('pieces.0.miredShift');
+      expect(fields(res.body)).toContain('pieces[0].miredShift');
       res = await owner.agent
         .post('/v1/gear/gel-kits')
         .send({
@@ -248,7 +248,7 @@ describe('gear', () => {
           ],
         })
         .expect(409);
-      expect(fields(res.body)).toEqual(['pieces.1.name']);
+      expect(fields(res.body)).toEqual(['pieces[1].name']);
       const kit = await createGelKit(owner, {
         pieces: Array.from({ length: 30 }, (_, i) => ({
           name: `cut ${i}`,
