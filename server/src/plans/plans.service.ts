@@ -4,11 +4,16 @@ import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource } from 'typeorm';
 import { DomainError } from '../common/errors/domain-error.js';
+import { isTransientDependencyError } from '../common/errors/transient.js';
 import { PlanEntity } from './plan.entity.js';
 
-/** A dependency could not be reached: a 503 the client may retry, never a 500. */
+/**
+ * A dependency could not answer now: a 503 the client may retry. An answer that says our own
+ * request was wrong (an SQL or script error) is a bug and stays itself: a logged 500.
+ */
 export const dependencyUnavailable = (what: string) => (err?: unknown) => {
   if (err instanceof DomainError) return err;
+  if (err !== undefined && !isTransientDependencyError(err)) return err;
   return new DomainError('unavailable', `${what} is unavailable; try again shortly.`, [], {
     'Retry-After': '2',
   });

@@ -8,6 +8,7 @@ import {
   Logger,
 } from '@nestjs/common';
 import type { FastifyReply, FastifyRequest } from 'fastify';
+import { isDatabaseUnavailable } from '../errors/transient.js';
 import { DomainError, FieldProblem, STATUS_BY_CODE } from '../errors/domain-error.js';
 
 export const PROBLEM_BASE = 'https://lumenwright.test/problems/';
@@ -52,30 +53,6 @@ const SLUG: Record<number, string> = {
   500: 'internal',
   503: 'unavailable',
 };
-
-const DB_DOWN_CODES = new Set([
-  'ECONNREFUSED',
-  'ECONNRESET',
-  'EPIPE',
-  '57P01',
-  '57P02',
-  '57P03',
-  '53300',
-]);
-const DB_DOWN_MESSAGE =
-  /Connection terminated|connect ECONNREFUSED|timeout exceeded when trying to connect|Connection is not established|terminating connection|Client has encountered a connection error/i;
-
-/** True when the error means PostgreSQL can't be reached right now (not a bad query). */
-export function isDatabaseUnavailable(err: unknown, depth = 0): boolean {
-  if (!err || typeof err !== 'object' || depth > 3) return false;
-  const e = err as { code?: unknown; message?: unknown; driverError?: unknown; cause?: unknown };
-  const code = typeof e.code === 'string' ? e.code : '';
-  if (DB_DOWN_CODES.has(code) || /^08/.test(code)) return true;
-  if (typeof e.message === 'string' && DB_DOWN_MESSAGE.test(e.message)) return true;
-  return (
-    isDatabaseUnavailable(e.driverError, depth + 1) || isDatabaseUnavailable(e.cause, depth + 1)
-  );
-}
 
 function unavailable(detail: string): { problem: Problem; headers: Record<string, string> } {
   return {
