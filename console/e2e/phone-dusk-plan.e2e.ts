@@ -211,6 +211,18 @@ describe('a dusk portrait planned on a phone', () => {
     await page.goto(`${baseUrl}${href}`);
     await page.getByRole('heading', { level: 1, name: plan.name }).waitFor();
     await expectNoSidewaysScroll(page, 'shot sheet');
+    // The suggested minutes are cards on a phone: nothing to scroll inside their box either.
+    const minutesBox = await page
+      .locator('.table-scroll:has(table.minutes)')
+      .evaluate((el) => ({ scroll: el.scrollWidth, client: el.clientWidth }));
+    expect(minutesBox.scroll).toBeLessThanOrEqual(minutesBox.client);
+    const firstMinute = page.locator('table.minutes tbody tr').first();
+    await expect(
+      firstMinute
+        .locator('td')
+        .nth(4)
+        .evaluate((el) => getComputedStyle(el, '::before').content),
+    ).resolves.toBe('"Key power"');
 
     const html = await page.content();
     expect(html).toContain(plan.venue);

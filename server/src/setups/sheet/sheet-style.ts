@@ -40,6 +40,12 @@ footer { margin-top: 26px; color: var(--muted); font-size: 12px; border-top: 1px
   .grid { grid-template-columns: 1fr; }
   main { padding: 16px; }
   th, td { padding: 4px 5px; }
+  /* Seven columns do not fit a phone: each suggested minute becomes a card of labelled lines. */
+  .minutes thead { display: none; }
+  .minutes tr { display: block; padding: 6px 0; border-bottom: 1px solid var(--rule); }
+  .minutes td { display: flex; gap: 12px; border: 0; padding: 2px 0; }
+  .minutes td::before { content: attr(data-label); color: var(--muted); min-width: 10.5em; }
+  .minutes td:first-child { font-weight: 600; }
 }
 @media print {
   @page { margin: 14mm; }

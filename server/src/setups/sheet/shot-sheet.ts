@@ -63,21 +63,35 @@ function timing(p: DuskSetupPlan): string {
   </dl></section>`;
 }
 
+const MINUTE_COLUMNS = [
+  'Time',
+  'Sun',
+  'EV₁₀₀',
+  'Camera (background)',
+  'Key power',
+  'Rim power',
+  'Usable',
+] as const;
+
 function minutes(p: DuskSetupPlan): string {
+  const notEnough = ' <span class="no">(not enough power)</span>';
   const rows = p.suggestedMinutes
-    .map(
-      (
-        m,
-      ) => `<tr><td>${clock(m.time)}</td><td>${fmt(m.sunAltitudeDeg)}°</td><td>${fmt(m.ambientEv100)}</td>
-      <td>${esc(m.background.shutterLabel)} · ${esc(m.background.apertureLabel)} · ${esc(m.background.isoLabel)}</td>
-      <td>${esc(m.keyFlash.powerLabel)}${m.keyFlash.feasible ? '' : ' <span class="no">(not enough power)</span>'}</td>
-      <td>${m.rimFlash ? esc(m.rimFlash.powerLabel) + (m.rimFlash.feasible ? '' : ' <span class="no">(not enough power)</span>') : '—'}</td>
-      <td>${m.usable ? 'yes' : '<span class="no">no</span>'}</td></tr>`,
-    )
-    .join('');
-  // Seven columns: on a phone the table scrolls inside its box instead of widening the page.
-  return `<section><h2>Suggested minutes</h2><div class="table-scroll"><table>
-    <thead><tr><th>Time</th><th>Sun</th><th>EV₁₀₀</th><th>Camera (background)</th><th>Key power</th><th>Rim power</th><th>Usable</th></tr></thead>
+    .map((m) => {
+      const cells = [
+        clock(m.time),
+        `${fmt(m.sunAltitudeDeg)}°`,
+        fmt(m.ambientEv100),
+        `${esc(m.background.shutterLabel)} · ${esc(m.background.apertureLabel)} · ${esc(m.background.isoLabel)}`,
+        esc(m.keyFlash.powerLabel) + (m.keyFlash.feasible ? '' : notEnough),
+        m.rimFlash ? esc(m.rimFlash.powerLabel) + (m.rimFlash.feasible ? '' : notEnough) : '—',
+        m.usable ? 'yes' : '<span class="no">no</span>',
+      ];
+      // data-label: on a phone each minute becomes a card of label/value lines (sheet-style.ts).
+      return `<tr>${cells.map((c, i) => `<td data-label="${MINUTE_COLUMNS[i]}">${c}</td>`).join('')}</tr>`;
+    })
+    .join('\n');
+  return `<section><h2>Suggested minutes</h2><div class="table-scroll"><table class="minutes">
+    <thead><tr>${MINUTE_COLUMNS.map((h) => `<th>${h}</th>`).join('')}</tr></thead>
     <tbody>${rows || '<tr><td colspan="7">No minute in the window.</td></tr>'}</tbody></table></div></section>`;
 }
 
