@@ -1,7 +1,8 @@
 // The OpenAPI document: deterministic (sorted keys, operationId = handler name).
 import type { INestApplication } from '@nestjs/common';
 import { DocumentBuilder, OpenAPIObject, SwaggerModule } from '@nestjs/swagger';
-import { SCHEMA_DTOS } from './compute/validation/schema-dto.js';
+import type { JsonSchema } from './compute/validation/json-schema.js';
+import { SCHEMA_DTOS, SCHEMA_REFS } from './compute/validation/schema-dto.js';
 
 const PROBLEM_SCHEMA = {
   type: 'object',
@@ -64,6 +65,34 @@ function restoreNestedRequired(doc: OpenAPIObject): void {
   }
 }
 
+type DocSchema = {
+  properties?: Record<string, DocSchema>;
+  items?: DocSchema;
+  [k: string]: unknown;
+};
+
+/** Replaces inline copies of another DTO's schema (made with `refTo`) by a `$ref` to it. */
+function referToDtos(src: JsonSchema, out: DocSchema | undefined): void {
+  if (!out) return;
+  for (const [key, sub] of Object.entries(src.properties ?? {})) {
+    const ref = SCHEMA_REFS.get(sub);
+    if (ref && out.properties?.[key]) {
+      const $ref = `#/components/schemas/${ref.name}`;
+      out.properties[key] = ref.nullable
+        ? { description: sub.description, anyOf: [{ $ref }, { type: 'null' }] }
+        : { description: sub.description, $ref };
+      continue;
+    }
+    referToDtos(sub, out.properties?.[key]);
+  }
+  if (src.items) {
+    const ref = SCHEMA_REFS.get(src.items);
+    if (ref && out.items) {
+      out.items = { $ref: `#/components/schemas/${ref.name}` };
+    } else referToDtos(src.items, out.items);
+  }
+}
+
 export function buildOpenApiDocument(app: INestApplication): OpenAPIObject {
   const config = new DocumentBuilder()
     .setOpenAPIVersion('3.1.0')
@@ -87,5 +116,8 @@ export function buildOpenApiDocument(app: INestApplication): OpenAPIObject {
   doc.components = doc.components ?? {};
   doc.components.schemas = { ...(doc.components.schemas ?? {}), Problem: PROBLEM_SCHEMA };
   restoreNestedRequired(doc);
+  for (const [name, schema] of SCHEMA_DTOS) {
+    referToDtos(schema, doc.components.schemas[name] as DocSchema | undefined);
+  }
   return sortDeep(doc) as OpenAPIObject;
 }

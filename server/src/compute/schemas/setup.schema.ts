@@ -1,5 +1,5 @@
 import type { JsonSchema } from '../validation/json-schema.js';
-import { schemaDto, type ObjectSchema } from '../validation/schema-dto.js';
+import { refTo, schemaDto, type ObjectSchema } from '../validation/schema-dto.js';
 import { backlightResponseSchema } from './backlight.schema.js';
 import { balanceRequestSchema, balanceResponseSchema, SCENE_SWATCH } from './balance.schema.js';
 import { exposureResponseSchema } from './exposure.schema.js';
@@ -102,16 +102,6 @@ export const setupRequestSchema: ObjectSchema = {
   },
 };
 
-/** A documented schema with its own description (and null allowed when `nullable`). */
-const as = (schema: JsonSchema, description: string, nullable = false): JsonSchema => {
-  const types = Array.isArray(schema.type) ? schema.type : schema.type ? [schema.type] : [];
-  return {
-    ...schema,
-    description,
-    ...(nullable && !types.includes('null') ? { type: [...types, 'null'] } : {}),
-  };
-};
-
 const balanceOut = balanceResponseSchema.properties;
 const twilightOut = twilightResponseSchema.properties;
 const { ambient: _ambient, ...twilightWithoutAmbient } = twilightOut;
@@ -180,12 +170,22 @@ export const setupResponseSchema: ObjectSchema = {
           time: str('ISO 8601 local time with offset.', '2026-06-20T21:40:00+01:00'),
           sunAltitudeDeg: outNum('Sun altitude, degrees.', -3.1),
           ambientEv100: outNum('Ambient EV at ISO 100.', 6.2),
-          background: as(
+          background: refTo(
+            'ExposureResponseDto',
             exposureResponseSchema,
             'Background exposure for that minute, as /v1/exposure returns it in background mode.',
           ),
-          keyFlash: as(flashResponseSchema, 'Key flash power, as /v1/flash returns it.'),
-          rimFlash: as(flashResponseSchema, 'Rim flash power, or null without a rim light.', true),
+          keyFlash: refTo(
+            'FlashResponseDto',
+            flashResponseSchema,
+            'Key flash power, as /v1/flash returns it.',
+          ),
+          rimFlash: refTo(
+            'FlashResponseDto',
+            flashResponseSchema,
+            'Rim flash power, or null without a rim light.',
+            true,
+          ),
           usable: bool('Settings stay inside every limit and the flashes are feasible.'),
         },
       },
@@ -222,7 +222,8 @@ export const setupResponseSchema: ObjectSchema = {
       modifier: str('Modifier kind used.', 'softbox'),
       modifierLossStops: outNum('Light lost in the modifier, stops.', 1.3),
     }),
-    backlight: as(
+    backlight: refTo(
+      'BacklightResponseDto',
       backlightResponseSchema,
       'Rim-light geometry, as /v1/backlight returns it, or null without a rim light.',
       true,

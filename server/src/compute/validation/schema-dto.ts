@@ -11,6 +11,28 @@ export type ObjectSchema = JsonSchema & { type: 'object'; properties: Record<str
 /** Every schema DTO by name (the OpenAPI builder restores what the decorators cannot carry). */
 export const SCHEMA_DTOS = new Map<string, ObjectSchema>();
 
+/** Sub-schemas that are another DTO's whole schema: the document refers to that DTO by name. */
+export const SCHEMA_REFS = new WeakMap<JsonSchema, { name: string; nullable: boolean }>();
+
+/**
+ * `schema` (the schema of DTO `name`) used inside another schema, with its own description: the
+ * validator and tests see the schema itself, the OpenAPI document a `$ref` to the DTO.
+ */
+export function refTo(
+  name: string,
+  schema: ObjectSchema,
+  description: string,
+  nullable = false,
+): JsonSchema {
+  const out: JsonSchema = {
+    ...schema,
+    description,
+    ...(nullable ? { type: ['object', 'null'] } : {}),
+  };
+  SCHEMA_REFS.set(out, { name, nullable });
+  return out;
+}
+
 /** A class named `name` whose Swagger metadata mirrors `schema` (properties, required, examples). */
 export function schemaDto(name: string, schema: ObjectSchema): new () => object {
   const Dto = { [name]: class {} }[name]!;
