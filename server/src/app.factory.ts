@@ -14,7 +14,7 @@ import { AppModule } from './app.module.js';
 import { registerSessions } from './auth/session.plugin.js';
 import { DomainError } from './common/errors/domain-error.js';
 import { isMultipart, scopedHooks } from './common/http/scoped-hooks.js';
-import { registerSecurityHeaders, securityHeaderOptions } from './common/http/security-headers.js';
+import { registerSecurityHeaders } from './common/http/security-headers.js';
 import { createLogger, PinoNestLogger, registerRequestLogging } from './common/logging/logging.js';
 import { toProblem } from './common/filters/problem.filter.js';
 import { AppConfig } from './config/config.js';
@@ -67,8 +67,9 @@ export async function createApp(
   // Errors Fastify raises itself (body limits, bad JSON) reach the error handler Nest installs at
   // init, and from there the global ProblemFilter: every refusal is problem+json.
 
-  // Helmet's headers, computed once (src/common/http/security-headers.ts).
-  registerSecurityHeaders(fastify, securityHeaderOptions(config.publicUrl.startsWith('https://')));
+  // Security headers: helmet's set for pages, the OWASP API set for /v1 answers, computed once
+  // (src/common/http/security-headers.ts).
+  registerSecurityHeaders(fastify, config.publicUrl.startsWith('https://'));
   await app.register(fastifyCors, {
     origin: config.corsOrigins.length ? config.corsOrigins : false,
     credentials: false,

@@ -18,8 +18,10 @@ import {
   ApiProduces,
   ApiTags,
 } from '@nestjs/swagger';
+import { RouteConfig } from '@nestjs/platform-fastify';
 import { CurrentPrincipal, type SessionPrincipal } from '../auth/request-context.js';
 import { SessionAuth } from '../common/decorators/access.decorator.js';
+import type { PageRouteConfig } from '../common/http/security-headers.js';
 import { can } from '../auth/permissions.js';
 import type { Principal } from '../common/guards/access.guard.js';
 import { GearProblems, problem } from '../gear/gear-docs.js';
@@ -117,6 +119,7 @@ export class SetupsController {
 
   @Get(':id/sheet')
   @SessionAuth(...READERS)
+  @RouteConfig({ page: true } satisfies PageRouteConfig)
   @Header('Content-Type', 'text/html; charset=utf-8')
   @Header('Cache-Control', 'private, no-store')
   @ApiOperation({ summary: 'A print-ready HTML shot sheet: plan, diagram, gels, cautions.' })

@@ -264,6 +264,11 @@ describe('saved setups', () => {
     });
     const res = await owner.agent.get(`/v1/setups/${s.id}/sheet`).expect(200);
     expect(res.headers['content-type']).toMatch(/^text\/html/);
+    // A page under /v1: the page set of security headers (its inline styles are allowed), and
+    // still not cached.
+    expect(res.headers['content-security-policy']).toContain("style-src 'self' 'unsafe-inline'");
+    expect(res.headers['content-security-policy']).toContain("frame-ancestors 'none'");
+    expect(res.headers['cache-control']).toBe('private, no-store');
     const html = res.text;
     expect(html).toMatch(/^<!doctype html>/);
     expect(html).not.toContain('<script>alert(1)</script>');
