@@ -16,6 +16,9 @@ import { ensureInstalled, must, service, stopAll, waitForHttp } from './lib/proc
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 const CONNECTIONS = Number(process.env.BENCH_CONNECTIONS ?? 50);
 const DURATION = Number(process.env.BENCH_SECONDS ?? 15);
+// Each server's measurement is split into rounds taken in turn (rotating the order), so a change
+// in the machine's load during the run falls on all three alike instead of on one.
+const ROUNDS = Math.max(1, Number(process.env.BENCH_ROUNDS ?? 3));
 const KEYS = Number(process.env.BENCH_KEYS_COUNT ?? 4);
 const BODY = JSON.stringify({ cameraKelvin: 3200, flashKelvin: 5500, maxGels: 3 });
 
@@ -36,7 +39,7 @@ async function api(base, method, p, body, headers = {}) {
   return { res, json: text ? JSON.parse(text) : null };
 }
 
-async function cannon(url, keys) {
+async function cannon(url, keys, duration = DURATION) {
   const { default: autocannon } = await import('autocannon');
   let i = 0;
   return new Promise((resolve, reject) => {
@@ -44,7 +47,7 @@ async function cannon(url, keys) {
       {
         url,
         connections: CONNECTIONS,
-        duration: DURATION,
+        duration,
         requests: [
           {
             method: 'POST',
@@ -66,11 +69,21 @@ async function cannon(url, keys) {
   });
 }
 
-function summary(name, r) {
-  const ok = r['2xx'];
-  const line = `${name.padEnd(22)} ${r.requests.average.toFixed(0).padStart(7)} req/s  p50 ${String(r.latency.p50).padStart(4)} ms  p99 ${String(r.latency.p99).padStart(4)} ms  2xx ${ok}  non-2xx ${r.non2xx}  errors ${r.errors}`;
-  console.log(line);
-  return { rps: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, ok, non2xx: r.non2xx };
+/** Rounds of one server, combined: req/s over all rounds, median p50, worst round's p99. */
+function summary(name, rounds) {
+  const seconds = rounds.reduce((a, r) => a + r.duration, 0);
+  const rps = rounds.reduce((a, r) => a + r.requests.total, 0) / seconds;
+  const ok = rounds.reduce((a, r) => a + r['2xx'], 0);
+  const non2xx = rounds.reduce((a, r) => a + r.non2xx, 0);
+  const errors = rounds.reduce((a, r) => a + r.errors, 0);
+  const p50s = rounds.map((r) => r.latency.p50).sort((a, b) => a - b);
+  const p50 = p50s[Math.floor(p50s.length / 2)];
+  const p99 = Math.max(...rounds.map((r) => r.latency.p99));
+  const perRound = rounds.map((r) => r.requests.average.toFixed(0)).join(' / ');
+  console.log(
+    `${name.padEnd(22)} ${rps.toFixed(0).padStart(7)} req/s  p50 ${String(p50).padStart(4)} ms  p99 ${String(p99).padStart(4)} ms  2xx ${ok}  non-2xx ${non2xx}  errors ${errors}  (rounds: ${perRound} req/s)`,
+  );
+  return { rps, p50, p99, ok, non2xx, rounds: rounds.map((r) => r.requests.average) };
 }
 
 async function main() {
@@ -148,12 +161,23 @@ async function main() {
   const fastifyUrl = await baseline('fastify.mjs');
 
   console.log(
-    `\n${os.cpus().length} cores (${os.cpus()[0]?.model ?? 'unknown'}), Node ${process.version}, ${CONNECTIONS} connections, ${DURATION} s each\n`,
+    `\n${os.cpus().length} cores (${os.cpus()[0]?.model ?? 'unknown'}), Node ${process.version}, ${CONNECTIONS} connections, ${DURATION} s each in ${ROUNDS} rounds taken in turn\n`,
   );
   const warm = await cannon(base, keys); // warm-up: not in the figures, but its usage rows count
-  const lw = summary('Lumenwright /v1/balance', await cannon(base, keys));
-  const bareR = summary('bare node:http', await cannon(bareUrl, keys));
-  const fastifyR = summary('plain Fastify', await cannon(fastifyUrl, keys));
+  await cannon(bareUrl, keys, Math.min(DURATION, 3)); // the baselines get a short warm-up too
+  await cannon(fastifyUrl, keys, Math.min(DURATION, 3));
+  const targets = [base, bareUrl, fastifyUrl];
+  const results = targets.map(() => []);
+  const slice = Math.max(1, Math.round(DURATION / ROUNDS));
+  for (let round = 0; round < ROUNDS; round++) {
+    for (let k = 0; k < targets.length; k++) {
+      const t = (round + k) % targets.length; // rotate who goes first
+      results[t].push(await cannon(targets[t], keys, slice));
+    }
+  }
+  const lw = summary('Lumenwright /v1/balance', results[0]);
+  const bareR = summary('bare node:http', results[1]);
+  const fastifyR = summary('plain Fastify', results[2]);
 
   // Metering is batched: give the writer time to flush, then compare rows with 2xx answers.
   await new Promise((r) => setTimeout(r, 2000));
@@ -174,6 +198,7 @@ async function main() {
     machine: `${os.cpus().length} × ${os.cpus()[0]?.model ?? 'unknown'}, Node ${process.version}`,
     connections: CONNECTIONS,
     seconds: DURATION,
+    rounds: ROUNDS,
     lumenwright: lw,
     bare: bareR,
     fastify: fastifyR,
