@@ -20,6 +20,7 @@ import {
 } from '../common/guards/access.guard.js';
 import type { MeteredRequestExtras, UsageEvent, UsageSource } from './usage-event.js';
 import { UsageWriter } from './usage-writer.service.js';
+import { appendRouteHook } from '../common/http/scoped-hooks.js';
 
 export interface MeterRouteConfig {
   meter?: string;
@@ -56,8 +57,7 @@ export class MeteringHook {
       this.meter(endpoint, req as RequestWithPrincipal, reply);
       done();
     };
-    const own = route.onResponse;
-    route.onResponse = own ? [...(Array.isArray(own) ? own : [own]), hook] : [hook];
+    appendRouteHook(route, 'onResponse', hook);
   }
 
   private meter(endpoint: string, req: RequestWithPrincipal, reply: FastifyReply) {

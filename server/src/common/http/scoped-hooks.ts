@@ -3,7 +3,12 @@
 // cleanup (only multipart uploads have files). Registering such a plugin through `scopedHooks`
 // wraps every hook it adds so the hook runs only for requests `applies` accepts; for the rest the
 // hook finishes at once.
-import type { FastifyInstance } from 'fastify';
+import type {
+  FastifyInstance,
+  onRequestHookHandler,
+  onResponseHookHandler,
+  RouteOptions,
+} from 'fastify';
 
 export interface HookRequest {
   headers: Record<string, string | string[] | undefined>;
@@ -50,4 +55,25 @@ export function isBearerOnly(req: HookRequest): boolean {
 export function isMultipart(req: HookRequest): boolean {
   const type = req.headers['content-type'];
   return typeof type === 'string' && /^multipart\/form-data/i.test(type);
+}
+
+/** Adds `hook` after a route's own hooks of that kind (from an `onRoute` hook, as routes are added). */
+export function appendRouteHook(
+  route: RouteOptions,
+  kind: 'onRequest',
+  hook: onRequestHookHandler,
+): void;
+export function appendRouteHook(
+  route: RouteOptions,
+  kind: 'onResponse',
+  hook: onResponseHookHandler,
+): void;
+export function appendRouteHook(
+  route: RouteOptions,
+  kind: 'onRequest' | 'onResponse',
+  hook: unknown,
+): void {
+  const own: unknown = route[kind];
+  const list = own === undefined ? [] : Array.isArray(own) ? [...(own as unknown[])] : [own];
+  (route as unknown as Record<string, unknown[]>)[kind] = [...list, hook];
 }

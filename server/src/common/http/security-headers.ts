@@ -14,6 +14,7 @@
 import type { IncomingMessage, ServerResponse } from 'node:http';
 import type { FastifyInstance, onRequestHookHandler, RouteOptions } from 'fastify';
 import helmet, { type HelmetOptions } from 'helmet';
+import { appendRouteHook } from './scoped-hooks.js';
 
 export function helmetHeaders(options: HelmetOptions): Record<string, string> {
   const headers: Record<string, string> = {};
@@ -75,8 +76,7 @@ export function registerSecurityHeaders(fastify: FastifyInstance, https: boolean
   };
   fastify.addHook('onRoute', (route: RouteOptions) => {
     if (!(route.config as PageRouteConfig | undefined)?.page) return;
-    const own = route.onRequest;
-    route.onRequest = own ? [...(Array.isArray(own) ? own : [own]), asPage] : [asPage];
+    appendRouteHook(route, 'onRequest', asPage);
   });
 }
 
