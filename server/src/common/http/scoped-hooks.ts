@@ -14,14 +14,21 @@ export interface HookRequest {
   headers: Record<string, string | string[] | undefined>;
 }
 
-type HookFn = (req: HookRequest, ...rest: unknown[]) => unknown;
+type HookFn = (req: HookRequest, reply: unknown, a?: unknown, b?: unknown) => unknown;
 
 /** Wraps a hook so it runs only when `applies(req)`; otherwise it calls its `done` at once. */
 export function onlyWhen(applies: (req: HookRequest) => boolean, fn: HookFn): HookFn {
-  const wrapped = function (this: unknown, req: HookRequest, ...rest: unknown[]) {
-    if (applies(req)) return fn.call(this, req, ...rest);
-    // Fastify passes `done` last, also to async hooks (which resolve instead of calling it).
-    const done = rest[rest.length - 1];
+  // Fixed arity (no rest array on the hot path): Fastify calls hooks with (req, reply, done), or
+  // (req, reply, payload, done) for onSend and the like — `done` last, also for async hooks.
+  const wrapped = function (
+    this: unknown,
+    req: HookRequest,
+    reply: unknown,
+    a?: unknown,
+    b?: unknown,
+  ) {
+    if (applies(req)) return fn.call(this, req, reply, a, b);
+    const done = typeof b === 'function' ? b : a;
     if (typeof done === 'function') return (done as () => void)();
     return undefined;
   };

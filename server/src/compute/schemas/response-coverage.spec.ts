@@ -10,6 +10,7 @@ import { ComputeService } from '../compute.service.js';
 import type { JsonSchema } from '../validation/json-schema.js';
 import { compileSchema } from '../validation/json-schema.js';
 import { REQUEST_SCHEMAS, RESPONSE_SCHEMAS } from './index.js';
+import { DEMO_BODIES } from '../../../test/factories/compute.js';
 
 /** Paths in `value` that `schema` does not describe (or describes with another type). */
 export function undocumented(value: unknown, schema: JsonSchema | undefined, path = '$'): string[] {
@@ -57,16 +58,15 @@ export function undocumented(value: unknown, schema: JsonSchema | undefined, pat
 const PLACE = { latitude: 51.507, longitude: -0.1, timeZone: 'Europe/London' };
 const NORTH = { latitude: 78.22, longitude: 15.65, timeZone: 'Arctic/Longyearbyen' };
 
-// Inputs: the invented demo scenario (a riverside terrace at 51.5 N) plus edge cases.
-const INPUTS: Record<string, Record<string, unknown>[]> = {
+// Inputs: each endpoint's demo body (the invented riverside-terrace scenario, shared with the e2e
+// tests) plus edge cases.
+const EDGE_CASES: Record<string, Record<string, unknown>[]> = {
   twilight: [
-    { ...PLACE, date: '2026-06-20' },
     { ...PLACE, date: '2026-12-21', elevation: 40, sky: 'overcast', stepMinutes: 5 },
     { ...NORTH, date: '2026-06-21' }, // midnight sun: no sunset
     { ...NORTH, date: '2026-12-21' }, // polar night: no sunrise
   ],
   exposure: [
-    { ev100: 9, aperture: 4, iso: 400 },
     { ev100: 12, shutterSeconds: 0.004, iso: 100 },
     { ev100: 3, aperture: 2.8, shutterSeconds: 1 / 60 },
     {
@@ -79,28 +79,13 @@ const INPUTS: Record<string, Record<string, unknown>[]> = {
     { ev100: 14, aperture: 2, biasStops: -1, flashSyncSeconds: 1 / 250 },
   ],
   flash: [
-    {
-      guideNumber: 60,
-      guideNumberUnit: 'm',
-      distance: 3,
-      distanceUnit: 'm',
-      aperture: 5.6,
-      iso: 200,
-      modifierLossStops: 1.5,
-      gelLossStops: 0.67,
-    },
     { guideNumber: 20, distance: 12, aperture: 16, iso: 100 }, // not enough power
   ],
-  falloff: [
-    { subjectDistance: 2.5, backgroundDistance: 9, distanceUnit: 'm' },
-    { subjectDistance: 8, backgroundDistance: 20, distanceUnit: 'ft', groundDistance: 3 },
-  ],
+  falloff: [{ subjectDistance: 8, backgroundDistance: 20, distanceUnit: 'ft', groundDistance: 3 }],
   backlight: [
-    { lightHeight: 2, distanceBehind: 3, distanceUnit: 'm' },
     { lightHeight: 4, distanceBehind: 3, distanceUnit: 'ft', beamAngleDeg: 20, headHeight: 5.5 },
   ],
   balance: [
-    { cameraKelvin: 3800, flashKelvin: 5600 },
     { cameraKelvin: 3200, flashKelvin: 5500, maxGels: 3, miredTolerance: 10, cameraTint: 6 },
     {
       cameraKelvin: 4300,
@@ -113,7 +98,6 @@ const INPUTS: Record<string, Record<string, unknown>[]> = {
     },
   ],
   setup: [
-    { ...PLACE, date: '2026-06-20', key: { guideNumber: 60, distance: 2.5 } },
     {
       ...PLACE,
       date: '2026-09-18',
@@ -139,6 +123,10 @@ const INPUTS: Record<string, Record<string, unknown>[]> = {
     { ...NORTH, date: '2026-06-21', key: { guideNumber: 60, distance: 2.5 } },
   ],
 };
+
+const INPUTS = Object.fromEntries(
+  Object.entries(EDGE_CASES).map(([ep, edge]) => [ep, [DEMO_BODIES[ep]!, ...edge]]),
+);
 
 describe('documented response schemas', () => {
   const compute = new ComputeService();
