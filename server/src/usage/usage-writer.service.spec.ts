@@ -2,7 +2,7 @@ import { Writable } from 'node:stream';
 import type pg from 'pg';
 import type { AppConfig } from '../config/config.js';
 import type { UsageEvent } from './usage-event.js';
-import { UsageWriter } from './usage-writer.service.js';
+import { copyLine, EventBatch, UsageWriter } from './usage-writer.service.js';
 
 /**
  * A pool whose writes fail while `down` is true and that counts the rows of each COPY otherwise
@@ -97,5 +97,45 @@ describe('usage batch writer', () => {
     for (let i = 0; i < 42; i++) w.record(ev(i));
     await w.onApplicationShutdown();
     expect(state.rows).toBe(42);
+  });
+
+  it('keeps each batch as the exact COPY text of its events across buffer chunks, with its roll-up', () => {
+    const b = new EventBatch();
+    const events: UsageEvent[] = [];
+    // ~1,200 rows of ~190 bytes: several 64 KB chunks, so rows meet chunk edges.
+    for (let i = 0; i < 1200; i++) {
+      const e = {
+        ...ev(i),
+        requestId: `req-${i}-${'x'.repeat(i % 97)}`,
+        status: i % 3 ? 200 : 429,
+      };
+      e.billableUnits = e.status === 200 ? 1 : 0;
+      e.latencyMs = (i % 7) + 0.5;
+      events.push(e);
+      b.add(e);
+    }
+    b.seal();
+    expect(b.chunks.length).toBeGreaterThan(2);
+    expect(b.count).toBe(1200);
+    expect(Buffer.concat(b.chunks).toString('utf8')).toBe(events.map(copyLine).join(''));
+    const cols = b.dailyColumns();
+    // Two groups (status 200 and 429); calls, units and latency sums add up over the events.
+    expect(cols[5]).toEqual(expect.arrayContaining([200, 429]));
+    const calls = (cols[6] as number[]).reduce((a, c) => a + c, 0);
+    const units = (cols[7] as number[]).reduce((a, c) => a + c, 0);
+    const ms = (cols[8] as number[]).reduce((a, c) => a + c, 0);
+    expect(calls).toBe(1200);
+    expect(units).toBe(events.filter((e) => e.status === 200).length);
+    expect(ms).toBeCloseTo(
+      events.reduce((a, e) => a + e.latencyMs, 0),
+      6,
+    );
+  });
+
+  it('escapes COPY text specials in an event row', () => {
+    // PostgreSQL documentation, COPY, "Text Format": backslash, newline, CR and tab are escaped.
+    const line = copyLine({ ...ev(1), requestId: 'a\tb\\c\nd' });
+    expect(line.endsWith('\ta\\tb\\\\c\\nd\n')).toBe(true);
+    expect(line.split('\t')).toHaveLength(10);
   });
 });

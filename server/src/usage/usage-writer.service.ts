@@ -28,33 +28,97 @@ export function copyText(v: string | number | null): string {
     : s;
 }
 
-/** The batch as COPY text rows, in COPY_EVENTS' column order. */
-export function copyRows(batch: readonly UsageEvent[]): string {
-  let out = '';
-  for (const e of batch) {
-    out +=
-      e.occurredAt.toISOString() +
-      '\t' +
-      copyText(e.organizationId) +
-      '\t' +
-      copyText(e.keyId) +
-      '\t' +
-      copyText(e.userId) +
-      '\t' +
-      copyText(e.source) +
-      '\t' +
-      copyText(e.endpoint) +
-      '\t' +
-      e.status +
-      '\t' +
-      e.latencyMs +
-      '\t' +
-      e.billableUnits +
-      '\t' +
-      copyText(e.requestId) +
-      '\n';
+/** One event as a COPY text row, in COPY_EVENTS' column order. */
+export function copyLine(e: UsageEvent): string {
+  return (
+    e.occurredAt.toISOString() +
+    '\t' +
+    copyText(e.organizationId) +
+    '\t' +
+    copyText(e.keyId) +
+    '\t' +
+    copyText(e.userId) +
+    '\t' +
+    copyText(e.source) +
+    '\t' +
+    copyText(e.endpoint) +
+    '\t' +
+    e.status +
+    '\t' +
+    e.latencyMs +
+    '\t' +
+    e.billableUnits +
+    '\t' +
+    copyText(e.requestId) +
+    '\n'
+  );
+}
+
+const CHUNK_BYTES = 64 * 1024;
+
+interface DailyRow {
+  row: unknown[];
+  calls: number;
+  units: number;
+  ms: number;
+}
+
+/**
+ * Events waiting to be written, already in COPY text and outside the JavaScript heap: each event
+ * is encoded into a Buffer as it is recorded, and its daily roll-up counted beside it, so a
+ * buffered event is not a set of live objects the garbage collector copies again at every young
+ * collection until the flush (that was most of what survived them under load; see the README's
+ * performance section).
+ */
+export class EventBatch {
+  readonly chunks: Buffer[] = [];
+  readonly daily = new Map<string, DailyRow>();
+  count = 0;
+  private chunk: Buffer | null = null;
+  private used = 0;
+
+  add(e: UsageEvent): void {
+    const line = copyLine(e);
+    // At most 3 bytes per UTF-16 unit, so a line this short always fits a fresh chunk.
+    if (!this.chunk || this.chunk.length - this.used < line.length * 3) {
+      this.seal();
+      this.chunk = Buffer.allocUnsafe(Math.max(CHUNK_BYTES, line.length * 3));
+      this.used = 0;
+    }
+    this.used += this.chunk.write(line, this.used, 'utf8');
+    this.count++;
+    const day = utcDay(e.occurredAt);
+    const k = `${e.organizationId}|${day}|${e.keyId}|${e.source}|${e.endpoint}|${e.status}`;
+    const agg = this.daily.get(k);
+    if (agg) {
+      agg.calls++;
+      agg.units += e.billableUnits;
+      agg.ms += e.latencyMs;
+    } else {
+      this.daily.set(k, {
+        row: [e.organizationId, day, e.keyId, e.source, e.endpoint, e.status],
+        calls: 1,
+        units: e.billableUnits,
+        ms: e.latencyMs,
+      });
+    }
   }
-  return out;
+
+  /** Ends the chunk being filled; the batch takes no more events after its last seal. */
+  seal(): void {
+    if (this.chunk && this.used) this.chunks.push(this.chunk.subarray(0, this.used));
+    this.chunk = null;
+    this.used = 0;
+  }
+
+  /** The roll-up as the UPSERT's nine column arrays. */
+  dailyColumns(): unknown[][] {
+    const cols: unknown[][] = Array.from({ length: 9 }, () => []);
+    for (const a of this.daily.values()) {
+      [...a.row, a.calls, a.units, a.ms].forEach((v, i) => cols[i]!.push(v));
+    }
+    return cols;
+  }
 }
 
 const UPSERT_DAILY = `
@@ -70,7 +134,10 @@ const UPSERT_DAILY = `
 @Injectable()
 export class UsageWriter implements OnModuleInit, OnApplicationShutdown {
   private readonly logger = new Logger('UsageWriter');
-  private buffer: UsageEvent[] = [];
+  /** Full batches waiting for the database, oldest first; `open` takes new events. */
+  private readonly queue: EventBatch[] = [];
+  private open = new EventBatch();
+  private queued = 0;
   private flushing: Promise<void> | null = null;
   private timer: NodeJS.Timeout | null = null;
   private failures = 0;
@@ -89,18 +156,29 @@ export class UsageWriter implements OnModuleInit, OnApplicationShutdown {
   }
 
   get pending(): number {
-    return this.buffer.length;
+    return this.queued + this.open.count;
   }
 
   /** Accepts an event; never drops it. */
   record(event: UsageEvent): void {
-    this.buffer.push(event);
-    if (this.buffer.length >= this.config.usageBatchSize && !this.flushing) void this.flush();
+    this.open.add(event);
+    if (this.open.count >= this.config.usageBatchSize) {
+      this.sealOpen();
+      if (!this.flushing) void this.flush();
+    }
+  }
+
+  private sealOpen(): void {
+    if (!this.open.count) return;
+    this.open.seal();
+    this.queue.push(this.open);
+    this.queued += this.open.count;
+    this.open = new EventBatch();
   }
 
   /** Resolves at once while there is room; otherwise waits for a flush (back-pressure). */
   waitForRoom(timeoutMs = 5000): Promise<void> | null {
-    if (this.buffer.length < this.config.usageMaxBuffer) return null;
+    if (this.pending < this.config.usageMaxBuffer) return null;
     return new Promise<void>((resolve, reject) => {
       const timeout = setTimeout(() => {
         this.waiters = this.waiters.filter((w) => w !== wake);
@@ -122,7 +200,7 @@ export class UsageWriter implements OnModuleInit, OnApplicationShutdown {
   /** Writes everything buffered so far (one flush at a time). */
   flush(): Promise<void> {
     if (this.flushing) return this.flushing;
-    if (!this.buffer.length) return Promise.resolve();
+    if (!this.pending) return Promise.resolve();
     this.flushing = this.drain().finally(() => {
       this.flushing = null;
     });
@@ -130,60 +208,40 @@ export class UsageWriter implements OnModuleInit, OnApplicationShutdown {
   }
 
   private async drain(): Promise<void> {
-    while (this.buffer.length) {
-      const batch = this.buffer.slice(0, this.config.usageBatchSize);
+    // Also takes what arrives while it writes, like a flush called at the end would.
+    for (this.sealOpen(); this.queue.length; this.sealOpen()) {
+      const batch = this.queue[0]!;
       try {
         await this.write(batch);
       } catch (err) {
         this.failures++;
         if (this.failures === 1 || this.failures % 50 === 0) {
           this.logger.warn(
-            `usage flush failed (${this.failures}x), keeping ${this.buffer.length} events: ${String(err)}`,
+            `usage flush failed (${this.failures}x), keeping ${this.pending} events: ${String(err)}`,
           );
         }
         return;
       }
       this.failures = 0;
-      this.buffer.splice(0, batch.length);
-      this.written += batch.length;
+      this.queue.shift();
+      this.queued -= batch.count;
+      this.written += batch.count;
       this.wakeWaiters();
     }
   }
 
   private wakeWaiters() {
-    while (this.waiters.length && this.buffer.length < this.config.usageMaxBuffer) {
+    while (this.waiters.length && this.pending < this.config.usageMaxBuffer) {
       this.waiters.shift()!();
     }
   }
 
-  private async write(batch: UsageEvent[]): Promise<void> {
-    const daily = new Map<string, { row: unknown[]; calls: number; units: number; ms: number }>();
-    for (const e of batch) {
-      const day = utcDay(e.occurredAt);
-      const k = `${e.organizationId}|${day}|${e.keyId}|${e.source}|${e.endpoint}|${e.status}`;
-      const agg = daily.get(k);
-      if (agg) {
-        agg.calls++;
-        agg.units += e.billableUnits;
-        agg.ms += e.latencyMs;
-      } else {
-        daily.set(k, {
-          row: [e.organizationId, day, e.keyId, e.source, e.endpoint, e.status],
-          calls: 1,
-          units: e.billableUnits,
-          ms: e.latencyMs,
-        });
-      }
-    }
-    const dcols: unknown[][] = Array.from({ length: 9 }, () => []);
-    for (const a of daily.values()) {
-      [...a.row, a.calls, a.units, a.ms].forEach((v, i) => dcols[i]!.push(v));
-    }
+  private async write(batch: EventBatch): Promise<void> {
     const client = await this.pool.connect();
     try {
       await client.query('BEGIN');
-      await pipeline(Readable.from([copyRows(batch)]), client.query(copyFrom(COPY_EVENTS)));
-      await client.query(UPSERT_DAILY, dcols);
+      await pipeline(Readable.from(batch.chunks), client.query(copyFrom(COPY_EVENTS)));
+      await client.query(UPSERT_DAILY, batch.dailyColumns());
       await client.query('COMMIT');
     } catch (err) {
       await client.query('ROLLBACK').catch(() => undefined);
@@ -197,12 +255,12 @@ export class UsageWriter implements OnModuleInit, OnApplicationShutdown {
     if (this.timer) clearInterval(this.timer);
     // The HTTP server has closed by now, so every response's event is in the buffer.
     const deadline = Date.now() + 10_000;
-    while (this.buffer.length && Date.now() < deadline) {
+    while (this.pending && Date.now() < deadline) {
       await this.flush();
-      if (this.buffer.length) await new Promise((r) => setTimeout(r, 200));
+      if (this.pending) await new Promise((r) => setTimeout(r, 200));
     }
-    if (this.buffer.length) {
-      this.logger.error(`shutting down with ${this.buffer.length} usage events unwritten`);
+    if (this.pending) {
+      this.logger.error(`shutting down with ${this.pending} usage events unwritten`);
     }
     await this.pool.end().catch(() => undefined);
   }
