@@ -101,6 +101,28 @@ describe('security', () => {
     expect(res.body.errors).toEqual([{ field: 'body', reason: expect.any(String) }]);
   });
 
+  it('API8: JSON bodies only (415 otherwise), prototype keys refused, charset parameter allowed', async () => {
+    const form = await request(t.url)
+      .post('/v1/balance')
+      .set('Content-Type', 'application/x-www-form-urlencoded')
+      .send('cameraKelvin=3800');
+    expect(form.status).toBe(415);
+    expect(form.headers['content-type']).toMatch(/^application\/problem\+json/);
+    // Prototype poisoning (OWASP: "Prototype Pollution Prevention Cheat Sheet").
+    const proto = await request(t.url)
+      .post('/v1/balance')
+      .set('Content-Type', 'application/json')
+      .send('{"cameraKelvin": 3200, "__proto__": {"admin": true}}');
+    expect(proto.status).toBe(400);
+    expect(proto.body.errors).toEqual([{ field: 'body', reason: expect.any(String) }]);
+    const charset = await request(t.url)
+      .post('/v1/auth/sign-in')
+      .set('Content-Type', 'application/json; charset=utf-8')
+      .set('Origin', t.url)
+      .send(JSON.stringify({ email: 'nobody@nowhere.test', password: 'not-the-password-1' }));
+    expect(charset.status).toBe(401);
+  });
+
   it('API8 CORS: only the configured console origin is granted, never with credentials', async () => {
     const ok = await request(t.url)
       .options('/v1/balance')
