@@ -1,3 +1,4 @@
+import { getPosition } from 'suncalc';
 import { describe, expect, it } from 'vitest';
 import { computeFlash, planDuskSetup } from '../src/index.js';
 
@@ -81,5 +82,19 @@ describe('planDuskSetup', () => {
     });
     expect(p.twilight.sunset).toBeNull();
     expect(p.warnings.map((w) => w.code)).toContain('no-sunset');
+  });
+
+  it('polar night: plans without throwing, leaving out the minutes too dark to expose', () => {
+    const night = { ...input, latitude: 78.22, longitude: 15.63, date: '2026-12-15' };
+    // Reference library (suncalc): the sun stays far below the horizon all day there.
+    const noon = getPosition(new Date('2026-12-15T11:00:00Z'), 78.22, 15.63);
+    expect((noon.altitude * 180) / Math.PI).toBeLessThan(-10);
+    const p = planDuskSetup({ ...night, timeZone: 'Arctic/Longyearbyen' });
+    expect(p.window.start).toBeNull();
+    const codes = p.warnings.map((w) => w.code);
+    expect(codes).toEqual(expect.arrayContaining(['no-sunset', 'too-dark']));
+    // What is left is the midday glow, within the background solver's EV100 range (-10..25).
+    for (const m of p.suggestedMinutes) expect(m.ambientEv100).toBeGreaterThanOrEqual(-10);
+    expect(JSON.parse(JSON.stringify(p))).toEqual(p);
   });
 });

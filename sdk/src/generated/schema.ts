@@ -803,6 +803,23 @@ export interface paths {
     patch?: never;
     trace?: never;
   };
+  '/v1/setups/upcoming': {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    /** The next shoots, soonest first: setups whose shooting window has not ended (a setup with no window, in polar day or night, until its local date ends). */
+    get: operations['upcomingSetups'];
+    put?: never;
+    post?: never;
+    delete?: never;
+    options?: never;
+    head?: never;
+    patch?: never;
+    trace?: never;
+  };
   '/v1/setups/{id}': {
     parameters: {
       query?: never;
@@ -4030,6 +4047,10 @@ export interface components {
        */
       timeZone?: string;
     };
+    UpcomingSetupsResponseDto: {
+      /** @description Soonest first: setups whose shooting window has not ended yet. */
+      data: components['schemas']['SavedSetupSummaryDto'][];
+    };
     UpdateGelKitRequestDto: {
       name?: string;
       notes?: string | null;
@@ -6958,6 +6979,45 @@ export interface operations {
       };
       /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
       422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  upcomingSetups: {
+    parameters: {
+      query?: {
+        limit?: number;
+      };
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/json': components['schemas']['UpcomingSetupsResponseDto'];
+        };
+      };
+      /** @description Not signed in. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
         headers: {
           [name: string]: unknown;
         };

@@ -31,6 +31,8 @@ import {
   ListSavedSetupsQueryDto,
   SavedSetupPageResponseDto,
   SavedSetupResponseDto,
+  UpcomingSetupsQueryDto,
+  UpcomingSetupsResponseDto,
   UpdateSavedSetupRequestDto,
 } from './dto/setup.dto.js';
 import { toSavedSetupDto } from './setup.mapper.js';
@@ -68,6 +70,19 @@ export class SetupsController {
     @Body() body: CreateSavedSetupRequestDto,
   ) {
     return toSavedSetupDto(await this.setups.create(p, body));
+  }
+
+  @Get('upcoming')
+  @SessionAuth(...READERS)
+  @ApiOperation({
+    summary:
+      'The next shoots, soonest first: setups whose shooting window has not ended (a setup with ' +
+      'no window, in polar day or night, until its local date ends).',
+  })
+  @ApiOkResponse({ type: UpcomingSetupsResponseDto })
+  @GearProblems()
+  async upcomingSetups(@CurrentPrincipal() p: Principal, @Query() q: UpcomingSetupsQueryDto) {
+    return { data: await this.setups.upcoming(p, q.limit ?? 3) };
   }
 
   @Get(':id')

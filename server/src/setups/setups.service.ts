@@ -10,7 +10,7 @@ import {
   type DuplicateSavedSetupRequestDto,
   type UpdateSavedSetupRequestDto,
 } from './dto/setup.dto.js';
-import { listSetups } from './setup-page.js';
+import { listSetups, listUpcomingSetups } from './setup-page.js';
 import { assertRoomForSetup } from './setup-limit.js';
 import { SetupPlanner } from './setup-planner.service.js';
 import { SetupEntity } from './setup.entity.js';
@@ -24,6 +24,10 @@ export class SetupsService {
 
   list(p: Principal, opts: { limit: number; cursor?: string; q?: string }) {
     return listSetups(this.ds, p.organizationId, opts);
+  }
+
+  upcoming(p: Principal, limit: number) {
+    return listUpcomingSetups(this.ds, p.organizationId, limit);
   }
 
   async get(organizationId: string, id: string): Promise<SetupEntity> {

@@ -190,6 +190,52 @@ describe('saved setups', () => {
     expect(fields(bad.body)).toEqual(['cursor']);
   });
 
+  it('lists upcoming shoots soonest first: past ones left out, a windowless polar day kept until it ends', async () => {
+    const studio = await signUp(t.url);
+    const day = (offset: number) =>
+      new Date(Date.now() + offset * 86_400_000).toISOString().slice(0, 10);
+    // Near the pole the sun stays above or below the blue-hour band all day around the solstices,
+    // so the plan has no window: the next 15 June or 15 December at least 5 days away.
+    const year = new Date().getUTCFullYear();
+    const polarDate = [`${year}-06-15`, `${year}-12-15`, `${year + 1}-06-15`].find(
+      (d) => d >= day(5),
+    )!;
+    const save = (name: string, inputs: object) => saveSetup(studio, { name, inputs });
+    await save('Last month', { ...LAKESIDE_INPUTS, date: day(-30) });
+    const later = await save('In forty days', { ...LAKESIDE_INPUTS, date: day(40) });
+    const soon = await save('In three days', { ...LAKESIDE_INPUTS, date: day(3) });
+    const polar = await save('Polar', {
+      ...LAKESIDE_INPUTS,
+      latitude: 89,
+      longitude: 10,
+      timeZone: 'UTC',
+      date: polarDate,
+    });
+    expect(polar.windowStart).toBeNull();
+
+    const res = await studio.agent.get('/v1/setups/upcoming?limit=10').expect(200);
+    const names = res.body.data.map((s: { name: string }) => s.name);
+    expect(names).not.toContain('Last month');
+    expect([...names].sort()).toEqual(['In forty days', 'In three days', 'Polar']);
+    // Soonest first, by window start (or the local date when there is no window).
+    const starts = res.body.data.map(
+      (s: { windowStart: string | null; date: string }) => s.windowStart ?? `${s.date}T00:00:00Z`,
+    );
+    expect([...starts].sort((a, b) => Date.parse(a) - Date.parse(b))).toEqual(starts);
+    expect(res.body.data[0].id).toBe(soon.id);
+    expect(res.body.data.map((s: { id: string }) => s.id)).toContain(later.id);
+
+    const two = await studio.agent.get('/v1/setups/upcoming?limit=2').expect(200);
+    expect(two.body.data).toHaveLength(2);
+    const three = await studio.agent.get('/v1/setups/upcoming').expect(200);
+    expect(three.body.data).toHaveLength(3);
+    const bad = await studio.agent.get('/v1/setups/upcoming?limit=0').expect(422);
+    expect(fields(bad.body)).toEqual(['limit']);
+    // Another organisation sees none of them.
+    const elsewhere = await other.agent.get('/v1/setups/upcoming').expect(200);
+    expect(elsewhere.body.data.map((s: { id: string }) => s.id)).not.toContain(soon.id);
+  });
+
   it('duplicates a setup as it was saved, with a new id and name', async () => {
     const s = await saveSetup(owner, {
       name: 'Golden hour on the pier',

@@ -8,6 +8,8 @@ import { maybeNumber, optionalNumber, requireObject, requireOneOf } from '../uni
 
 /** Extra flash loss when switching to high-speed sync, stops. Common practice, no source. */
 export const HSS_ENTRY_LOSS_STOPS = 1;
+/** The scene EV100 range the solver takes (about a moonless night to direct sun on snow). */
+export const EV100_RANGE = { min: -10, max: 25 } as const;
 /** Default slowest hand-held shutter, s. Common practice, no source (lens- and hand-dependent). */
 export const DEFAULT_SLOWEST_HANDHELD = 1 / 60;
 
@@ -55,7 +57,7 @@ export interface BackgroundExposureResult extends ExposureResult {
 
 function readInput(input: BackgroundExposureInput) {
   const o = requireObject('input', input);
-  let ev100 = maybeNumber('ev100', o.ev100, { min: -10, max: 25 });
+  let ev100 = maybeNumber('ev100', o.ev100, EV100_RANGE);
   let source: 'ev100' | 'place' = 'ev100';
   if (ev100 === undefined) {
     if (o.place === undefined) throw new LightingInputError('ev100', 'give ev100 or place');

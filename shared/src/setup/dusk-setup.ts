@@ -2,7 +2,11 @@ import { cautionsFor, type Caution } from './cautions.js';
 import { prefixed, readSetup, type DuskSetupInput } from './setup-input.js';
 import { solveBalance, type BalanceResult } from '../color/balance.js';
 import { duskScene, type SceneSwatch } from '../color/scene.js';
-import { solveBackgroundExposure, type BackgroundExposureResult } from '../exposure/background.js';
+import {
+  EV100_RANGE,
+  solveBackgroundExposure,
+  type BackgroundExposureResult,
+} from '../exposure/background.js';
 import { computeBacklight, type BacklightResult } from '../flash/backlight.js';
 import { computeFalloff } from '../flash/falloff.js';
 import { computeFlash, type FlashResult } from '../flash/guide-number.js';
@@ -49,20 +53,27 @@ export interface DuskSetupPlan {
 
 type Setup = ReturnType<typeof readSetup>;
 
+/**
+ * The minutes of the shooting window, without those darker than the background solver takes
+ * (`tooDark` counts them): with no window at all (polar night or day) the whole timeline is
+ * considered, and a polar night's ambient falls far below EV100 −10.
+ */
 function windowPoints(tw: TwilightResult): {
   start: string | null;
   end: string | null;
   points: AmbientPoint[];
+  tooDark: number;
 } {
   const start = tw.blueHour.start ?? tw.sunset;
   const end = tw.blueHour.end ?? tw.civilDusk;
   const lo = start ? Date.parse(start) : -Infinity;
   const hi = end ? Date.parse(end) : Infinity;
-  const points = tw.ambient.points.filter((p) => {
+  const inWindow = tw.ambient.points.filter((p) => {
     const t = Date.parse(p.time);
     return t >= lo && t <= hi;
   });
-  return { start, end, points };
+  const points = inWindow.filter((p) => p.ev100 >= EV100_RANGE.min && p.ev100 <= EV100_RANGE.max);
+  return { start, end, points, tooDark: inWindow.length - points.length };
 }
 
 function minuteAt(s: Setup, p: AmbientPoint, gelLoss: number): SuggestedMinute {
@@ -197,7 +208,7 @@ export function planDuskSetup(input: DuskSetupInput): DuskSetupPlan {
     backgroundFalloffStops: bgFalloff === null ? null : round(bgFalloff, 2),
     look: duskScene(s.kelvin, balance.resultingFlashKelvin, rimKelvin, balance.flashKelvin),
     cautions: cautionsFor({ ...s.conditions, standsCount: 1 + (s.rim ? 1 : 0) }),
-    warnings: planWarnings(tw, usable.length, backlight),
+    warnings: planWarnings(tw, usable.length, backlight, win.tooDark),
   };
 }
 
@@ -206,10 +217,21 @@ function withoutAmbient(tw: TwilightResult): Omit<TwilightResult, 'ambient'> {
   return rest;
 }
 
-function planWarnings(tw: TwilightResult, usableCount: number, backlight: BacklightResult | null) {
+function planWarnings(
+  tw: TwilightResult,
+  usableCount: number,
+  backlight: BacklightResult | null,
+  tooDark: number,
+) {
   const out: Array<{ code: string; message: string }> = [];
   if (!tw.sunset)
     out.push({ code: 'no-sunset', message: `No sunset on this date (${tw.reasons.sunset}).` });
+  if (tooDark > 0) {
+    out.push({
+      code: 'too-dark',
+      message: `${tooDark} minute${tooDark === 1 ? ' is' : 's are'} darker than EV100 ${EV100_RANGE.min} (night): left out of the plan.`,
+    });
+  }
   if (usableCount === 0) {
     out.push({
       code: 'no-usable-minute',

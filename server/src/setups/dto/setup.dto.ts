@@ -1,5 +1,15 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
-import { IsObject, IsString, Length, MaxLength } from 'class-validator';
+import { Type } from 'class-transformer';
+import {
+  IsInt,
+  IsObject,
+  IsOptional,
+  IsString,
+  Length,
+  Max,
+  MaxLength,
+  Min,
+} from 'class-validator';
 import { PageQueryDto } from '../../audit/dto/page-query.dto.js';
 import { SetupResponseDto } from '../../compute/schemas/setup.schema.js';
 import { schemaDto } from '../../compute/validation/schema-dto.js';
@@ -167,4 +177,22 @@ export class SavedSetupPageResponseDto {
     description: 'Pass as `cursor` for the next page; null at the end.',
   })
   nextCursor: string | null;
+}
+
+export class UpcomingSetupsQueryDto {
+  @ApiPropertyOptional({ minimum: 1, maximum: 10, default: 3, example: 3 })
+  @IsOptional()
+  @Type(() => Number)
+  @IsInt()
+  @Min(1)
+  @Max(10)
+  limit?: number;
+}
+
+export class UpcomingSetupsResponseDto {
+  @ApiProperty({
+    type: [SavedSetupSummaryDto],
+    description: 'Soonest first: setups whose shooting window has not ended yet.',
+  })
+  data: SavedSetupSummaryDto[];
 }
