@@ -32,3 +32,15 @@ export function todayIso(now = new Date()): string {
   const d = String(now.getDate()).padStart(2, '0');
   return `${y}-${m}-${d}`;
 }
+
+/** A time of day in the given IANA zone (a shoot's own zone, not the visitor's). */
+export function formatTimeIn(iso: string, timeZone: string): string {
+  return new Date(iso).toLocaleTimeString(undefined, { timeStyle: 'short', timeZone });
+}
+
+/** "today", "tomorrow", "in 3 days", "yesterday"… from `today` to a calendar day (YYYY-MM-DD). */
+export function daysAway(day: string, today: string): string {
+  const ms = Date.parse(`${day}T00:00:00Z`) - Date.parse(`${today}T00:00:00Z`);
+  const days = Math.round(ms / 86_400_000);
+  return new Intl.RelativeTimeFormat(undefined, { numeric: 'auto' }).format(days, 'day');
+}

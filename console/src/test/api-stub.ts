@@ -16,7 +16,7 @@ export const demoSession = {
     planCode: 'free',
     createdAt: '2026-01-01T00:00:00Z',
   },
-  role: 'owner' as const,
+  role: 'owner' as 'owner' | 'admin' | 'developer' | 'photographer',
   permissions: primaryNav.flatMap((entry) => (entry.permission ? [entry.permission] : [])),
   preferences: { lengthUnit: 'm' as 'm' | 'ft' },
 };

@@ -1,1 +1,2 @@
 export { SetupsPage } from './components/setups-page';
+export { UpcomingShoots } from './components/upcoming-shoots';

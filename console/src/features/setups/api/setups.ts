@@ -12,6 +12,7 @@ export type SavedSetupSummary = components['schemas']['SavedSetupSummaryDto'];
 export type SavedSetup = components['schemas']['SavedSetupResponseDto'];
 export type SavedSetupPage = components['schemas']['SavedSetupPageResponseDto'];
 export type CreateSavedSetupBody = components['schemas']['CreateSavedSetupRequestDto'];
+export type UpcomingSetups = components['schemas']['UpcomingSetupsResponseDto'];
 
 export interface SetupListFilter {
   q?: string;
@@ -22,6 +23,7 @@ export interface SetupListFilter {
 export const setupKeys = {
   all: ['setups'] as const,
   list: (filter: SetupListFilter) => [...setupKeys.all, 'list', filter] as const,
+  upcoming: (limit: number) => [...setupKeys.all, 'upcoming', limit] as const,
 };
 
 /** GET /v1/setups: newest first; `q` searches name, venue and notes. */
@@ -42,6 +44,15 @@ export function setupsQueryOptions(filter: SetupListFilter) {
 }
 export function useSetups(filter: SetupListFilter) {
   return useQuery(setupsQueryOptions(filter));
+}
+
+/** GET /v1/setups/upcoming: the next shoots, soonest first. */
+export function useUpcomingSetups(limit = 3) {
+  return useQuery({
+    queryKey: setupKeys.upcoming(limit),
+    queryFn: ({ signal }) =>
+      unwrap(client.GET('/v1/setups/upcoming', { params: { query: { limit } }, signal })),
+  });
 }
 
 function useSetupMutation<TInput, TResult>(fn: (input: TInput) => Promise<TResult>) {

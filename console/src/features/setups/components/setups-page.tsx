@@ -9,7 +9,8 @@ import { PageLoading } from '@/components/ui/page-loading';
 import { TextField } from '@/components/ui/text-field';
 import { paths } from '@/config/paths';
 import { problemMessage } from '@/lib/form-errors';
-import { formatDate, formatDateTime } from '@/lib/format';
+import { formatDate } from '@/lib/format';
+import { shootingWindow } from '../window';
 import { currentCursor, firstPageParams } from '@/lib/pagination';
 import {
   setupSheetHref,
@@ -19,10 +20,8 @@ import {
   type SavedSetupSummary,
 } from '../api/setups';
 import { playgroundHref } from '../schemas';
+import { actionLink } from './action-link';
 import { SaveSetupDialog } from './save-setup-dialog';
-
-const actionLink =
-  'inline-flex rounded-control border border-edge-strong px-2 py-1 text-small font-medium text-ink no-underline hover:bg-raised';
 
 export function SetupsPage() {
   const [params, setParams] = useSearchParams();
@@ -42,10 +41,8 @@ export function SetupsPage() {
       {
         id: 'window',
         header: 'Shooting window',
-        accessorFn: (s) =>
-          s.windowStart && s.windowEnd
-            ? `${formatDateTime(s.windowStart)} – ${new Date(s.windowEnd).toLocaleTimeString(undefined, { timeStyle: 'short' })}`
-            : '—',
+        // In the shoot's own time zone: that is where the light happens.
+        accessorFn: (s) => shootingWindow(s) ?? '—',
       },
       { id: 'by', header: 'Saved by', accessorFn: (s) => s.createdBy?.name ?? '—' },
       {
