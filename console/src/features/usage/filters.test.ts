@@ -59,8 +59,18 @@ describe('chart scale', () => {
     ]);
   });
 
-  it('ticks are whole numbers from 0 to the top', () => {
+  it('ticks are round whole numbers from 0 to the top', () => {
     expect(ticks(200)).toEqual([0, 50, 100, 150, 200]);
     expect(ticks(1)).toEqual([0, 1]);
+    // Steps of 1, 2 or 5 × 10^n, never 2.5 rounded to 3 and 8 (common practice, no source).
+    expect(ticks(10)).toEqual([0, 2, 4, 6, 8, 10]);
+    expect(ticks(2)).toEqual([0, 1, 2]);
+    expect(ticks(20)).toEqual([0, 5, 10, 15, 20]);
+    for (const top of [1, 2, 5, 10, 20, 50, 100, 200, 500, 1000]) {
+      const t = ticks(top);
+      expect(t[0]).toBe(0);
+      expect(t[t.length - 1]).toBe(top);
+      expect(t.every(Number.isInteger)).toBe(true);
+    }
   });
 });
