@@ -36,23 +36,30 @@ export const DEMO_MEMBERS = [
   },
 ] as const;
 
+/** The demo keys' fixed ids (their invented call history is seeded by usage.seeder.ts). */
+export const DEMO_KEY_IDS = {
+  bookingSite: '5eed0000-0000-4000-8000-0000000000b1',
+  shotListStaging: '5eed0000-0000-4000-8000-0000000000b2',
+  oldPrototype: '5eed0000-0000-4000-8000-0000000000b3',
+} as const;
+
 const KEYS = [
   {
-    id: '5eed0000-0000-4000-8000-0000000000b1',
+    id: DEMO_KEY_IDS.bookingSite,
     name: 'Booking site (production)',
     environment: 'live',
     by: 2,
     revoked: false,
   },
   {
-    id: '5eed0000-0000-4000-8000-0000000000b2',
+    id: DEMO_KEY_IDS.shotListStaging,
     name: 'Shot-list app (staging)',
     environment: 'test',
     by: 2,
     revoked: false,
   },
   {
-    id: '5eed0000-0000-4000-8000-0000000000b3',
+    id: DEMO_KEY_IDS.oldPrototype,
     name: 'Old prototype',
     environment: 'test',
     by: 1,

@@ -22,6 +22,12 @@ export function monthPartitions(
   return out;
 }
 
+/** The month's partition, if missing. Names and bounds come from dates we format, never input. */
+export function partitionDdl(p: { name: string; from: string; to: string }): string {
+  return `CREATE TABLE IF NOT EXISTS ${p.name} PARTITION OF usage_events
+    FOR VALUES FROM ('${p.from}') TO ('${p.to}')`;
+}
+
 @Injectable()
 export class UsagePartitions implements OnModuleInit, OnModuleDestroy {
   private readonly logger = new Logger('UsagePartitions');
@@ -42,11 +48,7 @@ export class UsagePartitions implements OnModuleInit, OnModuleDestroy {
   async ensure(now = new Date()): Promise<void> {
     for (const p of monthPartitions(now)) {
       try {
-        // Names and bounds come from dates we format ourselves, never from input.
-        await this.pool.query(
-          `CREATE TABLE IF NOT EXISTS ${p.name} PARTITION OF usage_events
-             FOR VALUES FROM ('${p.from}') TO ('${p.to}')`,
-        );
+        await this.pool.query(partitionDdl(p));
       } catch (err) {
         // Two instances racing, or rows for that month already in the default partition.
         this.logger.warn(`could not create partition ${p.name}: ${String(err)}`);

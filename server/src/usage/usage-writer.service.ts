@@ -121,7 +121,7 @@ export class EventBatch {
   }
 }
 
-const UPSERT_DAILY = `
+export const UPSERT_DAILY = `
   INSERT INTO usage_daily AS d (organization_id, day, key_id, source, endpoint, status, calls,
     billable_units, latency_ms_sum)
   SELECT * FROM unnest($1::uuid[], $2::date[], $3::uuid[], $4::text[], $5::text[], $6::smallint[],

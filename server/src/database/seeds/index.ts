@@ -4,7 +4,14 @@ import { plansSeeder } from '../../plans/plans.seeder.js';
 import { accountsSeeder } from '../../auth/accounts.seeder.js';
 import { gearSeeder } from '../../gear/gear.seeder.js';
 import { setupsSeeder } from '../../setups/setups.seeder.js';
+import { usageSeeder } from '../../usage/usage.seeder.js';
 
 export type Seeder = { name: string; run: (ds: DataSource) => Promise<void> };
 
-export const SEEDERS: Seeder[] = [plansSeeder, accountsSeeder, gearSeeder, setupsSeeder];
+export const SEEDERS: Seeder[] = [
+  plansSeeder,
+  accountsSeeder,
+  gearSeeder,
+  setupsSeeder,
+  usageSeeder,
+];
