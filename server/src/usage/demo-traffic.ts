@@ -1,6 +1,7 @@
 // Demo scenario: invented API traffic for the demo studio's keys over the days they have existed,
 // so the usage pages, the overview and the CSV export show a working studio. A fixed-seed
 // generator: the same day always gets the same calls. Invented data, for the demo only.
+import seedrandom from 'seedrandom';
 import type { UsageEvent } from './usage-event.js';
 
 export interface DemoKey {
@@ -26,18 +27,6 @@ const ENDPOINTS: [string, number, number][] = [
   ['backlight', 0.03, 1.5],
 ];
 
-/** mulberry32: a small, well-known 32-bit generator; enough for demo data. */
-function random(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
 const hex = (rnd: () => number, n: number) =>
   Array.from({ length: n }, () => Math.floor(rnd() * 16).toString(16)).join('');
 
@@ -59,7 +48,7 @@ export function demoTraffic(
     const weekend = weekday === 0 || weekday === 6 || weekday === 5;
     keys.forEach((key, k) => {
       if (key.revokedDaysAgo !== null && d <= key.revokedDaysAgo) return;
-      const rnd = random(dayStart / 86_400_000 + 7919 * (k + 1));
+      const rnd = seedrandom(`${dayStart / 86_400_000}:${k}`);
       const factor = key.environment === 'live' ? (weekend ? 1.6 : 1) : weekend ? 0.2 : 1;
       const calls = Math.round(key.perWeekday * factor * (0.7 + 0.6 * rnd()));
       for (let i = 0; i < calls; i++) {

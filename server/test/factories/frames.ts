@@ -5,6 +5,7 @@ import path from 'node:path';
 import { createInterface } from 'node:readline';
 import sharp from 'sharp';
 import { linearToSrgb, xyToXyz, xyzToLinearRgb } from '../../src/frames/analysis/colour.js';
+import seedrandom from 'seedrandom';
 
 const ROOT = path.resolve(__dirname, '../../..');
 
@@ -63,18 +64,6 @@ export async function startFake(name: string): Promise<RunningFake> {
   };
 }
 
-/** Deterministic pseudo-random numbers (mulberry32), so test images are reproducible. */
-export function prng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
 /** 8-bit sRGB code values of chromaticity (x, y) at luminance Y, with ±0.5 LSB dither. */
 export function srgbCodes(
   x: number,
@@ -111,7 +100,8 @@ export interface FrameSpec {
 export async function renderFrame(spec: FrameSpec): Promise<Buffer> {
   const width = spec.width ?? 480;
   const height = spec.height ?? 320;
-  const rnd = prng(spec.seed ?? 7);
+  // Deterministic, so test images are reproducible.
+  const rnd = seedrandom(String(spec.seed ?? 7));
   const data = Buffer.alloc(width * height * 3);
   const cell = 8;
   const cells = new Map<number, [number, number, number]>();
