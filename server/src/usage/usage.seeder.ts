@@ -82,6 +82,14 @@ export async function seedDemoUsage(m: EntityManager, now = new Date()): Promise
   for (const e of events) batch.add(e);
   await m.query(UPSERT_DAILY, batch.dailyColumns());
 
+  // Each key's last use is its latest call.
+  await m.query(
+    `UPDATE api_keys k SET last_used_at = u.at
+       FROM (SELECT key_id, max(occurred_at) AS at FROM usage_events
+              WHERE organization_id = $1 AND key_id IS NOT NULL GROUP BY key_id) u
+      WHERE k.id = u.key_id`,
+    [DEMO_ORG_ID],
+  );
   // This month's successful key calls are already taken from the monthly quota.
   const { start } = monthBounds(now);
   for (const mode of ['live', 'test'] as const) {

@@ -87,6 +87,12 @@ describe('usage: demo seed', () => {
       `SELECT count(*)::int AS n FROM ONLY usage_events_default WHERE organization_id = $1`,
     );
     expect(inDefault.n).toBe(0);
+    const lastUse = await one<{ n: number }>(
+      `SELECT count(*)::int AS n FROM api_keys k
+        WHERE k.organization_id = $1 AND k.last_used_at IS DISTINCT FROM
+              (SELECT max(occurred_at) FROM usage_events e WHERE e.key_id = k.id)`,
+    );
+    expect(lastUse.n).toBe(0);
   });
 
   it('is the same history for the same moment, and never after it', () => {

@@ -20,3 +20,31 @@ export function keysQueryOptions(cursor: string | undefined) {
 export function useKeys(cursor: string | undefined) {
   return useQuery(keysQueryOptions(cursor));
 }
+
+/** A key's name and environment, for labelling usage by key. */
+export interface KeyLabel {
+  id: string;
+  name: string;
+  environment: string;
+  status: string;
+}
+
+/**
+ * The keys this member may see (owners and admins: all; developers: their own), up to 100, as
+ * labels. Usage by other members' keys stays labelled by id.
+ */
+export function useKeyLabels(enabled = true) {
+  return useQuery({
+    queryKey: [...keyKeys.lists(), 'labels'] as const,
+    queryFn: ({ signal }) =>
+      unwrap(client.GET('/v1/keys', { params: { query: { limit: 100 } }, signal })),
+    select: (page): KeyLabel[] =>
+      page.data.map((k) => ({
+        id: k.id,
+        name: k.name,
+        environment: k.environment,
+        status: k.status,
+      })),
+    enabled,
+  });
+}

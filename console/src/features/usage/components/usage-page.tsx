@@ -1,3 +1,4 @@
+import { useMemo } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { Card } from '@/components/ui/card';
 import { CursorPager } from '@/components/ui/cursor-pager';
@@ -18,7 +19,20 @@ import { daysBetween, filterFromParams, rangeFromParams } from '../filters';
 import { CallsChart, toDayBars } from './calls-chart';
 import { firstPageParams } from '@/lib/pagination';
 
-const eventColumns: DataColumn<UsageEvent>[] = [
+/** A key as the usage page labels it (names come from the keys list, composed by the app). */
+export interface UsageKeyLabel {
+  id: string;
+  name: string;
+  environment: string;
+}
+
+/** The key's name when this member can see it, else the start of its id. */
+function keyLabel(keyId: string | null, keys: Map<string, UsageKeyLabel>): string {
+  if (!keyId) return '—';
+  return keys.get(keyId)?.name ?? `${keyId.slice(0, 8)}…`;
+}
+
+const eventColumns = (keys: Map<string, UsageKeyLabel>): DataColumn<UsageEvent>[] => [
   { id: 'when', header: 'When', accessorFn: (e) => formatDateTime(e.occurredAt) },
   { id: 'endpoint', header: 'Endpoint', accessorFn: (e) => e.endpoint },
   {
@@ -31,7 +45,8 @@ const eventColumns: DataColumn<UsageEvent>[] = [
     ),
   },
   { id: 'source', header: 'Source', accessorFn: (e) => e.source },
-  { id: 'key', header: 'Key', accessorFn: (e) => (e.keyId ? e.keyId.slice(0, 8) : '—') },
+  // A cell, not an accessor: accessor values are cached per row, and names arrive after the rows.
+  { id: 'key', header: 'Key', cell: ({ row }) => keyLabel(row.original.keyId, keys) },
   { id: 'latency', header: 'Latency (ms)', accessorFn: (e) => e.latencyMs },
   { id: 'units', header: 'Billable', accessorFn: (e) => e.billableUnits },
 ];
@@ -52,8 +67,11 @@ const endpointColumns: DataColumn<EndpointRow>[] = [
 const controlClass =
   'rounded-control border border-edge-strong bg-panel px-3 py-2 text-body text-ink';
 
-export function UsagePage() {
+export function UsagePage({ keys = [] }: { keys?: UsageKeyLabel[] }) {
   const [params, setParams] = useSearchParams();
+  const keyMap = useMemo(() => new Map(keys.map((k) => [k.id, k])), [keys]);
+  const columns = useMemo(() => eventColumns(keyMap), [keyMap]);
+  const chosenKey = params.get('keyId') ?? '';
   const range = rangeFromParams(params);
   const filter = filterFromParams(params);
   const summary = useUsageSummary(range);
@@ -125,10 +143,27 @@ export function UsagePage() {
             className={controlClass}
           />
         </label>
-        <label className="flex flex-col gap-1 text-small font-medium">
-          Key id
-          <input name="keyId" defaultValue={params.get('keyId') ?? ''} className={controlClass} />
-        </label>
+        {keys.length ? (
+          <label className="flex flex-col gap-1 text-small font-medium">
+            Key
+            <select name="keyId" defaultValue={chosenKey} className={controlClass}>
+              <option value="">All</option>
+              {keys.map((k) => (
+                <option key={k.id} value={k.id}>
+                  {k.name} ({k.environment})
+                </option>
+              ))}
+              {chosenKey && !keyMap.has(chosenKey) ? (
+                <option value={chosenKey}>{chosenKey.slice(0, 8)}…</option>
+              ) : null}
+            </select>
+          </label>
+        ) : (
+          <label className="flex flex-col gap-1 text-small font-medium">
+            Key id
+            <input name="keyId" defaultValue={chosenKey} className={controlClass} />
+          </label>
+        )}
         <div className="flex gap-2">
           <button
             type="submit"
@@ -194,7 +229,7 @@ export function UsagePage() {
         ) : (
           <DataTable
             caption="Calls"
-            columns={eventColumns}
+            columns={columns}
             data={events.data.data}
             getRowId={(e) => e.id}
             empty="No calls match these filters."
