@@ -111,7 +111,8 @@ export function BillingPage() {
                           : `Overage ${formatMoney(plan.overagePricePer1000Cents)} per 1,000 calls`}
                       </li>
                       <li>
-                        {formatCount(plan.ratePerSecond)} calls/s (bursts of {formatCount(plan.burst)})
+                        {formatCount(plan.ratePerSecond)} calls/s (bursts of{' '}
+                        {formatCount(plan.burst)})
                       </li>
                       <li>{plan.features.seats} seats</li>
                       <li>
