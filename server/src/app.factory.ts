@@ -156,8 +156,23 @@ async function registerConsole(app: NestFastifyApplication, config: AppConfig) {
   };
   fastify.get('/*', async (req: FastifyRequest, reply: FastifyReply) => {
     const p = req.url.split('?')[0] ?? '/';
+    // Built files are routed at boot; one added by a console rebuild since is served from here.
+    // A missing file is a 404, never the page (a script answered with HTML leaves a blank page).
+    if (p.startsWith('/assets/') && dist && typeof reply.sendFile === 'function') {
+      let name = '';
+      try {
+        name = decodeURIComponent(p.slice(1));
+      } catch {
+        // not a file name: the 404 below
+      }
+      const file = name && path.resolve(dist, name);
+      if (file && file.startsWith(dist + path.sep) && fs.existsSync(file)) {
+        return reply.header('Cache-Control', 'public, max-age=31536000, immutable').sendFile(name);
+      }
+    }
     const html = indexHtml();
-    if (p.startsWith('/v1/') || p === '/v1' || p.startsWith('/docs') || !html) {
+    const asset = p.startsWith('/assets/') || /\.[a-z0-9]{1,8}$/i.test(p);
+    if (p.startsWith('/v1/') || p === '/v1' || p.startsWith('/docs') || asset || !html) {
       const { problem } = toProblem({ statusCode: 404, message: `No route for GET ${p}` });
       problem.instance = p;
       problem.requestId = String(req.id);

@@ -69,6 +69,8 @@ describe('console files', () => {
   beforeAll(async () => {
     dir = fs.mkdtempSync(path.join(os.tmpdir(), 'lw-console-dist-'));
     fs.writeFileSync(path.join(dir, 'index.html'), '<!doctype html><title>first build</title>');
+    fs.mkdirSync(path.join(dir, 'assets'));
+    fs.writeFileSync(path.join(dir, 'assets', 'app-first.js'), 'console.log("first")');
     t = await bootApp({ CONSOLE_DIST: dir });
   });
   afterAll(async () => {
@@ -87,5 +89,20 @@ describe('console files', () => {
     const second = await request(t.url).get('/').expect(200);
     expect(second.text).toContain('second build');
     await request(t.url).get('/v1/nothing-here').expect(404);
+  });
+
+  it('serves assets added by a rebuild, and answers a missing asset with 404, not the page', async () => {
+    const first = await request(t.url).get('/assets/app-first.js').expect(200);
+    expect(first.headers['content-type']).toMatch(/javascript/);
+    expect(first.headers['cache-control']).toContain('immutable');
+    fs.writeFileSync(path.join(dir, 'assets', 'app-second.js'), 'console.log("second")');
+    const added = await request(t.url).get('/assets/app-second.js').expect(200);
+    expect(added.headers['content-type']).toMatch(/javascript/);
+    expect(added.text).toContain('second');
+    const missing = await request(t.url).get('/assets/app-gone.js').expect(404);
+    expect(missing.headers['content-type']).toMatch(/^application\/problem\+json/);
+    await request(t.url).get('/favicon-missing.svg').expect(404);
+    // Outside the build folder is never served.
+    await request(t.url).get('/assets/..%2f..%2fetc%2fpasswd').expect(404);
   });
 });
