@@ -26,7 +26,13 @@ function UploadError({ error }: { error: unknown }) {
   return <Notice tone="fault">{problemMessage(error)}</Notice>;
 }
 
-export function FramesPage() {
+/** The studio's plan as far as uploads go (composed by the app from the plan query). */
+export interface FramesPlan {
+  name: string;
+  uploads: boolean;
+}
+
+export function FramesPage({ plan }: { plan?: FramesPlan }) {
   const inputId = useId();
   const upload = useUploadFrame();
   const frames = useFrames();
@@ -74,32 +80,40 @@ export function FramesPage() {
   return (
     <div className="flex flex-col gap-6">
       <Card>
-        <label
-          htmlFor={inputId}
-          onDragOver={(event) => {
-            event.preventDefault();
-            setDragging(true);
-          }}
-          onDragLeave={() => setDragging(false)}
-          onDrop={(event) => {
-            event.preventDefault();
-            setDragging(false);
-            choose(event.dataTransfer.files[0]);
-          }}
-          className={`flex cursor-pointer flex-col items-center justify-center gap-2 rounded-card border-2 border-dashed p-8 text-center ${dragging ? 'border-accent bg-raised' : 'border-edge-strong'}`}
-        >
-          <span className="text-lead font-medium">Drop a test frame here, or choose a file</span>
-          <span className="text-small text-ink-muted">
-            JPEG or PNG, up to 25 MB. Shoot a grey card or white wall under your key light.
-          </span>
-          <input
-            id={inputId}
-            type="file"
-            accept="image/jpeg,image/png"
-            className="sr-only"
-            onChange={(event) => choose(event.target.files?.[0])}
-          />
-        </label>
+        {plan && !plan.uploads ? (
+          <Notice tone="info">
+            <strong>Test-frame uploads aren’t in the {plan.name} plan.</strong> An owner can change
+            the plan on the <Link to={paths.billing}>Billing</Link> page; frames already uploaded
+            stay listed below.
+          </Notice>
+        ) : (
+          <label
+            htmlFor={inputId}
+            onDragOver={(event) => {
+              event.preventDefault();
+              setDragging(true);
+            }}
+            onDragLeave={() => setDragging(false)}
+            onDrop={(event) => {
+              event.preventDefault();
+              setDragging(false);
+              choose(event.dataTransfer.files[0]);
+            }}
+            className={`flex cursor-pointer flex-col items-center justify-center gap-2 rounded-card border-2 border-dashed p-8 text-center ${dragging ? 'border-accent bg-raised' : 'border-edge-strong'}`}
+          >
+            <span className="text-lead font-medium">Drop a test frame here, or choose a file</span>
+            <span className="text-small text-ink-muted">
+              JPEG or PNG, up to 25 MB. Shoot a grey card or white wall under your key light.
+            </span>
+            <input
+              id={inputId}
+              type="file"
+              accept="image/jpeg,image/png"
+              className="sr-only"
+              onChange={(event) => choose(event.target.files?.[0])}
+            />
+          </label>
+        )}
         {fileError ? (
           <Notice tone="fault" className="mt-3">
             {fileError}
