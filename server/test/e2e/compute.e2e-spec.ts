@@ -122,6 +122,22 @@ describe('compute API', () => {
     expect(res.body.reasons.sunset).toEqual(expect.any(String));
   });
 
+  it('plans a polar-night setup (200) instead of blaming a field nobody sent', async () => {
+    // In mid-December the sun stays below the horizon at 78° N (any astronomy text): most of the
+    // day is darker than the background solver's EV100 -10, and the plan says so.
+    const res = await post(t.url, 'setup', org.live.secret, {
+      latitude: 78.2,
+      longitude: 15.6,
+      date: '2026-12-15',
+      timeZone: 'Arctic/Longyearbyen',
+      camera: { aperture: 4, isoMax: 6400 },
+      key: { guideNumber: 60, distance: 2.5 },
+    }).expect(200);
+    expect(res.body.twilight.sunset).toBeNull();
+    const codes = res.body.warnings.map((w: { code: string }) => w.code);
+    expect(codes).toEqual(expect.arrayContaining(['no-sunset', 'too-dark']));
+  });
+
   it('refuses calls without a key (401) and with an unknown key (401 + WWW-Authenticate)', async () => {
     const none = await request(t.url).post('/v1/balance').send(DEMO_BODIES.balance);
     expect(none.status).toBe(401);

@@ -121,6 +121,8 @@ const EDGE_CASES: Record<string, Record<string, unknown>[]> = {
       suggestions: 5,
     },
     { ...NORTH, date: '2026-06-21', key: { guideNumber: 60, distance: 2.5 } },
+    // Polar night: most minutes darker than the background solver takes (a too-dark warning).
+    { ...NORTH, date: '2026-12-15', key: { guideNumber: 60, distance: 2.5 } },
   ],
 };
 
