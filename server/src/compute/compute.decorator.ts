@@ -4,7 +4,7 @@ import { applyDecorators, HttpCode, Post, UseGuards } from '@nestjs/common';
 import { RouteConfig } from '@nestjs/platform-fastify';
 import { ApiBody, ApiOkResponse, ApiOperation, ApiResponse } from '@nestjs/swagger';
 import { ApiKeyAuth } from '../common/decorators/access.decorator.js';
-import { ComputeLimitsGuard } from '../plans/compute-limits.guard.js';
+import { MeteredCallGuard } from '../plans/metered-call.guard.js';
 import type { MeterRouteConfig } from '../usage/metering.hook.js';
 
 const problem = (status: number, description: string) =>
@@ -24,7 +24,7 @@ export function ComputeRoute(
     Post(endpoint),
     HttpCode(200),
     ApiKeyAuth(),
-    UseGuards(ComputeLimitsGuard),
+    UseGuards(MeteredCallGuard),
     RouteConfig({ meter: endpoint } satisfies MeterRouteConfig),
     ApiOperation({ summary }),
     ApiBody({ type: body }),

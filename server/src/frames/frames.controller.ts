@@ -13,7 +13,7 @@ import type { FastifyReply } from 'fastify';
 import { ApiKeyAuth } from '../common/decorators/access.decorator.js';
 import type { RequestWithPrincipal } from '../common/guards/access.guard.js';
 import { ApiQueryFromSchema, SchemaPipe } from '../compute/validation/schema-dto.js';
-import { ComputeLimitsGuard } from '../plans/compute-limits.guard.js';
+import { MeteredCallGuard } from '../plans/metered-call.guard.js';
 import type { MeterRouteConfig } from '../usage/metering.hook.js';
 import { FrameListResponseDto, FrameResponseDto } from './dto/frame.dto.js';
 import { toFrameDto } from './frame.mapper.js';
@@ -53,7 +53,7 @@ export class FramesController {
   @ApiKeyAuth()
   // An upload is a metered call like a computation: rate limit, monthly quota, usage event, and
   // one billable unit for a stored frame on a live key.
-  @UseGuards(ComputeLimitsGuard)
+  @UseGuards(MeteredCallGuard)
   @RouteConfig({ meter: 'frames' } satisfies MeterRouteConfig)
   @HttpCode(201)
   @ApiOperation({

@@ -1,6 +1,7 @@
-// Per-key rate limits (token bucket through @nestjs/throttler's storage interface) and the
-// monthly quota, for compute routes. Runs after the global AccessGuard, so it is keyed by the
-// API key (or, for console sessions, the user) rather than by address.
+// Per-key rate limits (token bucket through @nestjs/throttler's storage interface), the monthly
+// quota and metering back-pressure, for every metered route (computations and frame uploads).
+// Runs after the global AccessGuard, so it is keyed by the API key (or, for console sessions,
+// the user) rather than by address.
 import { ExecutionContext, Inject, Injectable } from '@nestjs/common';
 import { Reflector } from '@nestjs/core';
 import { ThrottlerGuard, ThrottlerStorage } from '@nestjs/throttler';
@@ -27,7 +28,7 @@ export function rateFor(plan: PlanEntity, p: Principal): { rate: number; burst: 
 }
 
 @Injectable()
-export class ComputeLimitsGuard extends ThrottlerGuard {
+export class MeteredCallGuard extends ThrottlerGuard {
   constructor(
     @Inject(RATE_LIMIT_STORAGE) private readonly buckets: ThrottlerStorage,
     // Explicit: the parent's parameter decorators would otherwise claim this slot.
