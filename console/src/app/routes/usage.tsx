@@ -1,8 +1,10 @@
 import { PageHeader } from '@/components/layout/page-header';
-import { useKeyLabels } from '@/features/keys';
+import { useKeyLabels, type KeyLabel } from '@/features/keys';
 import { UsagePage } from '@/features/usage';
 import { useCan } from '@/lib/session';
 import { RequirePermission } from './require-permission';
+
+const NO_KEYS: KeyLabel[] = [];
 
 export default function UsageRoute() {
   const keys = useKeyLabels(useCan('keys:manage-own'));
@@ -12,7 +14,7 @@ export default function UsageRoute() {
         title="Usage"
         lead="Calls your keys and your playground made, by day and by endpoint, against your plan."
       />
-      <UsagePage keys={keys.data ?? []} />
+      <UsagePage keys={keys.data ?? NO_KEYS} />
     </RequirePermission>
   );
 }

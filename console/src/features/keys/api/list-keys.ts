@@ -29,6 +29,10 @@ export interface KeyLabel {
   status: string;
 }
 
+// Module-level, so the labels keep their identity between renders while the data is unchanged.
+const toLabels = (page: ApiKeyPage): KeyLabel[] =>
+  page.data.map((k) => ({ id: k.id, name: k.name, environment: k.environment, status: k.status }));
+
 /**
  * The keys this member may see (owners and admins: all; developers: their own), up to 100, as
  * labels. Usage by other members' keys stays labelled by id.
@@ -38,13 +42,7 @@ export function useKeyLabels(enabled = true) {
     queryKey: [...keyKeys.lists(), 'labels'] as const,
     queryFn: ({ signal }) =>
       unwrap(client.GET('/v1/keys', { params: { query: { limit: 100 } }, signal })),
-    select: (page): KeyLabel[] =>
-      page.data.map((k) => ({
-        id: k.id,
-        name: k.name,
-        environment: k.environment,
-        status: k.status,
-      })),
+    select: toLabels,
     enabled,
   });
 }

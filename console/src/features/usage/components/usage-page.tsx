@@ -67,7 +67,9 @@ const endpointColumns: DataColumn<EndpointRow>[] = [
 const controlClass =
   'rounded-control border border-edge-strong bg-panel px-3 py-2 text-body text-ink';
 
-export function UsagePage({ keys = [] }: { keys?: UsageKeyLabel[] }) {
+const NO_KEYS: UsageKeyLabel[] = [];
+
+export function UsagePage({ keys = NO_KEYS }: { keys?: UsageKeyLabel[] }) {
   const [params, setParams] = useSearchParams();
   const keyMap = useMemo(() => new Map(keys.map((k) => [k.id, k])), [keys]);
   const columns = useMemo(() => eventColumns(keyMap), [keyMap]);
