@@ -150,8 +150,18 @@ describe('the console in a real browser', () => {
     await dialog.getByLabel('Time zone').fill('Europe/Lisbon');
     await dialog.getByLabel('Latitude (°)').fill('38.70');
     await dialog.getByLabel('Longitude (°, east positive)').fill('-9.14');
+    const inTenDays = new Date(Date.now() + 10 * 86_400_000).toISOString().slice(0, 10);
+    await dialog.getByLabel('Date').fill(inTenDays);
     await dialog.getByRole('button', { name: 'Save setup' }).click();
     await dialog.waitFor({ state: 'hidden' });
+
+    // The overview lists it among the shoots coming up.
+    await page.goto(`${baseUrl}/`);
+    const upcoming = page.getByTestId('upcoming-shoots');
+    await upcoming.getByText('Boathouse steps at blue hour').waitFor();
+    expect(await upcoming.textContent()).toContain('Old boathouse');
+    await page.goto(`${baseUrl}/setups`);
+    await page.getByRole('heading', { level: 1, name: 'Setups' }).waitFor();
 
     await page.getByLabel('Search setups').fill('boathouse');
     await page.getByLabel('Search setups').press('Enter');
