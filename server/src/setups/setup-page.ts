@@ -1,5 +1,6 @@
-// The saved-setups list: newest first, optional search, keyset pagination. It reads only the
-// summary columns (not the plan), so long lists stay cheap.
+// The saved-setups lists: all of them newest first (optional search, keyset pagination), and the
+// upcoming ones soonest first. Both read only the summary columns and the plan's window, not the
+// whole plan, so long lists stay cheap.
 import type { DataSource } from 'typeorm';
 import { DomainError } from '../common/errors/domain-error.js';
 import { isUuid } from '../gear/ids.js';
