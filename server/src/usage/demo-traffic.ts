@@ -11,8 +11,9 @@ export interface DemoKey {
   perWeekday: number;
   /** Share of calls that fail validation (422). */
   invalidShare: number;
-  /** The key was revoked this many days ago (no calls after it); null when active. */
-  revokedDaysAgo: number | null;
+  /** No calls before the key existed or after it was revoked (null: still active). */
+  activeFrom?: Date;
+  activeUntil?: Date | null;
 }
 
 /** Rough shape of a booking or shot-planning app's calls (common practice, no source). */
@@ -47,7 +48,6 @@ export function demoTraffic(
     const weekday = new Date(dayStart).getUTCDay();
     const weekend = weekday === 0 || weekday === 6 || weekday === 5;
     keys.forEach((key, k) => {
-      if (key.revokedDaysAgo !== null && d <= key.revokedDaysAgo) return;
       const rnd = seedrandom(`${dayStart / 86_400_000}:${k}`);
       const factor = key.environment === 'live' ? (weekend ? 1.6 : 1) : weekend ? 0.2 : 1;
       const calls = Math.round(key.perWeekday * factor * (0.7 + 0.6 * rnd()));
@@ -55,6 +55,8 @@ export function demoTraffic(
         // Working hours in Europe, 07:00–22:00 UTC, busiest in the evening.
         const at = dayStart + (7 + 15 * Math.sqrt(rnd())) * 3_600_000;
         if (at > now.getTime()) continue;
+        if (key.activeFrom && at < key.activeFrom.getTime()) continue;
+        if (key.activeUntil && at > key.activeUntil.getTime()) continue;
         let pick = rnd();
         const [endpoint, , ms] =
           ENDPOINTS.find(([, share]) => (pick -= share) < 0) ?? ENDPOINTS[0]!;

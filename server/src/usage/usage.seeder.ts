@@ -9,7 +9,7 @@ import { demoTraffic, type DemoKey } from './demo-traffic.js';
 import { monthPartitions, partitionDdl } from './usage-partitions.service.js';
 import { EventBatch, UPSERT_DAILY } from './usage-writer.service.js';
 
-/** The demo keys were created 20 days ago (history from the day after); the prototype key was revoked 5 days ago. */
+/** Days of history (the demo keys are seeded 20 days old; calls stay inside each key's life). */
 const DAYS = 19;
 export const DEMO_TRAFFIC_KEYS: DemoKey[] = [
   // Booking site (production): a small studio's site on the free plan, under its 2,000 calls.
@@ -18,7 +18,6 @@ export const DEMO_TRAFFIC_KEYS: DemoKey[] = [
     environment: 'live',
     perWeekday: 45,
     invalidShare: 0.02,
-    revokedDaysAgo: null,
   },
   // Shot-list app (staging): a developer trying things, more invalid input.
   {
@@ -26,22 +25,22 @@ export const DEMO_TRAFFIC_KEYS: DemoKey[] = [
     environment: 'test',
     perWeekday: 18,
     invalidShare: 0.08,
-    revokedDaysAgo: null,
   },
+  // Old prototype: a few calls until it was revoked.
   {
     id: DEMO_KEY_IDS.oldPrototype,
     environment: 'test',
     perWeekday: 4,
     invalidShare: 0.15,
-    revokedDaysAgo: 5,
   },
 ];
 
 export async function seedDemoUsage(m: EntityManager, now = new Date()): Promise<number> {
   const org: unknown[] = await m.query(`SELECT 1 FROM organizations WHERE id = $1`, [DEMO_ORG_ID]);
-  const keys: { id: string }[] = await m.query(`SELECT id FROM api_keys WHERE id = ANY($1)`, [
-    DEMO_TRAFFIC_KEYS.map((k) => k.id),
-  ]);
+  const keys: { id: string; created_at: Date; revoked_at: Date | null }[] = await m.query(
+    `SELECT id, created_at, revoked_at FROM api_keys WHERE id = ANY($1)`,
+    [DEMO_TRAFFIC_KEYS.map((k) => k.id)],
+  );
   if (!org.length || keys.length !== DEMO_TRAFFIC_KEYS.length) return 0;
   const [row] = (await m.query(
     `SELECT count(*)::int AS n FROM usage_events WHERE organization_id = $1 AND source <> 'console'`,
@@ -49,7 +48,14 @@ export async function seedDemoUsage(m: EntityManager, now = new Date()): Promise
   )) as { n: number }[];
   if ((row?.n ?? 0) > 0) return 0;
 
-  const events = demoTraffic(DEMO_ORG_ID, DEMO_TRAFFIC_KEYS, now, DAYS);
+  // Calls only while each key existed and was not revoked, whenever the keys were seeded.
+  const lives = new Map(keys.map((k) => [k.id, k]));
+  const traffic = DEMO_TRAFFIC_KEYS.map((k) => ({
+    ...k,
+    activeFrom: new Date(lives.get(k.id)!.created_at),
+    activeUntil: lives.get(k.id)!.revoked_at ? new Date(lives.get(k.id)!.revoked_at!) : null,
+  }));
+  const events = demoTraffic(DEMO_ORG_ID, traffic, now, DAYS);
   if (!events.length) return 0;
   // The months the history covers, and the next two, get their partitions first (rows in the
   // default partition would stop a month's partition from being made later).
