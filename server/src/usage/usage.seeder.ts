@@ -50,11 +50,10 @@ export async function seedDemoUsage(m: EntityManager, now = new Date()): Promise
 
   // Calls only while each key existed and was not revoked, whenever the keys were seeded.
   const lives = new Map(keys.map((k) => [k.id, k]));
-  const traffic = DEMO_TRAFFIC_KEYS.map((k) => ({
-    ...k,
-    activeFrom: new Date(lives.get(k.id)!.created_at),
-    activeUntil: lives.get(k.id)!.revoked_at ? new Date(lives.get(k.id)!.revoked_at!) : null,
-  }));
+  const traffic = DEMO_TRAFFIC_KEYS.map((k) => {
+    const life = lives.get(k.id)!;
+    return { ...k, activeFrom: life.created_at, activeUntil: life.revoked_at };
+  });
   const events = demoTraffic(DEMO_ORG_ID, traffic, now, DAYS);
   if (!events.length) return 0;
   // The months the history covers, and the next two, get their partitions first (rows in the

@@ -1,5 +1,5 @@
 import { useMemo, useState } from 'react';
-import { Link, useSearchParams } from 'react-router-dom';
+import { useSearchParams } from 'react-router-dom';
 import { Button } from '@/components/ui/button';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { CursorPager } from '@/components/ui/cursor-pager';
@@ -7,20 +7,17 @@ import { DataTable, type DataColumn } from '@/components/ui/data-table';
 import { Notice } from '@/components/ui/notice';
 import { PageLoading } from '@/components/ui/page-loading';
 import { TextField } from '@/components/ui/text-field';
-import { paths } from '@/config/paths';
 import { problemMessage } from '@/lib/form-errors';
 import { formatDate } from '@/lib/format';
 import { shootingWindow } from '../window';
 import { currentCursor, firstPageParams } from '@/lib/pagination';
 import {
-  setupSheetHref,
   useDeleteSetup,
   useDuplicateSetup,
   useSetups,
   type SavedSetupSummary,
 } from '../api/setups';
-import { playgroundHref } from '../schemas';
-import { actionLink } from './action-link';
+import { SetupLinks } from './setup-links';
 import { SaveSetupDialog } from './save-setup-dialog';
 
 export function SetupsPage() {
@@ -52,22 +49,7 @@ export function SetupsPage() {
           const setup = row.original;
           return (
             <div className="flex flex-wrap gap-2">
-              <Link
-                to={playgroundHref(paths.playground, setup.id)}
-                className={actionLink}
-                aria-label={`Open ${setup.name} in the playground`}
-              >
-                Open
-              </Link>
-              <a
-                href={setupSheetHref(setup.id)}
-                target="_blank"
-                rel="noopener"
-                className={actionLink}
-                aria-label={`Shot sheet for ${setup.name} (opens a new tab)`}
-              >
-                Shot sheet
-              </a>
+              <SetupLinks setup={setup} />
               <Button
                 variant="secondary"
                 className="px-2 py-1 text-small"

@@ -5,10 +5,9 @@ import { PageLoading } from '@/components/ui/page-loading';
 import { paths } from '@/config/paths';
 import { problemMessage } from '@/lib/form-errors';
 import { daysAway, formatDate, todayIso } from '@/lib/format';
-import { setupSheetHref, useUpcomingSetups } from '../api/setups';
-import { playgroundHref } from '../schemas';
+import { useUpcomingSetups } from '../api/setups';
 import { shootingWindow } from '../window';
-import { actionLink } from './action-link';
+import { SetupLinks } from './setup-links';
 
 /** The studio's next saved shoots, soonest first, each with its window in the shoot's zone. */
 export function UpcomingShoots() {
@@ -42,22 +41,7 @@ export function UpcomingShoots() {
                 </p>
               </div>
               <div className="flex gap-2">
-                <Link
-                  to={playgroundHref(paths.playground, s.id)}
-                  className={actionLink}
-                  aria-label={`Open ${s.name} in the playground`}
-                >
-                  Open
-                </Link>
-                <a
-                  href={setupSheetHref(s.id)}
-                  target="_blank"
-                  rel="noopener"
-                  className={actionLink}
-                  aria-label={`Shot sheet for ${s.name} (opens a new tab)`}
-                >
-                  Shot sheet
-                </a>
+                <SetupLinks setup={s} />
               </div>
             </li>
           ))}
