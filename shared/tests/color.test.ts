@@ -44,6 +44,24 @@ describe('gel catalogue (common practice, from memory) inside the published gene
     for (const gel of GEL_CATALOGUE) expect(gel.source).toBe('common practice, from memory');
     expect(GEL_CATALOGUE.find((x) => x.name === 'full plus green')?.greenShift).toBe(30); // ~CC30
   });
+  it("light losses sit in the same reference's rough figures", () => {
+    // Full CTO ~2/3 stop, full CTB ~1.5 stops, half grades ~1/3-2/3 stop (REFERENCES.md [CP]);
+    // a quarter-stop either side, as the figures are rough.
+    const loss = (name: string) => GEL_CATALOGUE.find((x) => x.name === name)?.lossStops ?? NaN;
+    expect(Math.abs(loss('full CTO') - 2 / 3)).toBeLessThanOrEqual(0.25);
+    expect(Math.abs(loss('full CTB') - 1.5)).toBeLessThanOrEqual(0.25);
+    for (const half of ['1/2 CTO', '1/2 CTB']) {
+      expect(loss(half)).toBeGreaterThanOrEqual(1 / 3 - 0.01);
+      expect(loss(half)).toBeLessThanOrEqual(2 / 3 + 0.01);
+    }
+    // Weaker grades of one family never lose more than stronger ones (less dye).
+    const ladder = (f: string) =>
+      ['full', '3/4', '1/2', '1/4', '1/8'].map((g) => loss(`${g} ${f}`));
+    for (const f of ['CTO', 'CTB']) {
+      const l = ladder(f);
+      for (let i = 1; i < l.length; i++) expect(l[i]).toBeLessThanOrEqual(l[i - 1] as number);
+    }
+  });
 });
 
 describe('balancing rules of thumb (common practice, no source)', () => {
@@ -97,21 +115,50 @@ describe('solveBalance mechanics', () => {
     expect(after).toBeCloseTo(10, 0);
   });
   it('a mired tolerance trades a few mireds for fewer gels (common practice, no source)', () => {
-    // ~3800 K camera, 5500 K flash: the closest stack in the catalogue mixes CTO with CTB to land
-    // within a mired; accepting 10 mired (what the camera's fine-tune absorbs) gives a shorter,
-    // brighter stack.
+    // ~3800 K camera, 5500 K flash: the flash must warm by 1e6/3800 - 1e6/5500 = 81.34 mireds
+    // [DER]. Warming pieces only: 1/4 + 1/8 CTO (53 + 23 = 76) is closest, -5.34; accepting 12
+    // mireds lets one 1/2 CTO (+93, +11.66) do it: one piece to cut and clip, no more light lost.
+    const required = 1e6 / 3800 - 1e6 / 5500;
     const exact = solveBalance({ cameraKelvin: 3800 });
-    const loose = solveBalance({ cameraKelvin: 3800, miredTolerance: 10 });
-    expect(Math.abs(exact.residualMired)).toBeLessThan(1);
-    expect(loose.gels.length).toBeLessThan(exact.gels.length);
-    expect(loose.gelLossStops).toBeLessThan(exact.gelLossStops);
-    expect(Math.abs(loose.residualMired)).toBeLessThanOrEqual(10);
-    expect(loose.gels.every((g) => g.miredShift > 0)).toBe(true); // no CTB fighting the CTO
+    const loose = solveBalance({ cameraKelvin: 3800, miredTolerance: 12 });
+    expect(exact.gels.map((g) => g.name)).toEqual(['1/4 CTO', '1/8 CTO']);
+    expect(exact.residualMired).toBeCloseTo(53 + 23 - required, 2);
+    expect(loose.gels.map((g) => g.name)).toEqual(['1/2 CTO']);
+    expect(loose.residualMired).toBeCloseTo(93 - required, 2);
+    expect(loose.gelLossStops).toBeLessThanOrEqual(exact.gelLossStops);
     // Tolerance 0 is the default: the closest stack.
     expect(solveBalance({ cameraKelvin: 3800, miredTolerance: 0 }).gels).toEqual(exact.gels);
     expect(() => solveBalance({ cameraKelvin: 3800, miredTolerance: 60 })).toThrow(
       /miredTolerance/,
     );
+  });
+  it('never stacks warming with cooling gels (common practice, no source)', () => {
+    // Needs ~+36 mireds: CTO and CTB together could land closer, but they only cancel and cost light.
+    const r = solveBalance({ cameraKelvin: 4500, flashKelvin: 5500 });
+    expect(r.gels.length).toBeGreaterThan(0);
+    expect(r.gels.every((g) => g.miredShift >= 0)).toBe(true);
+  });
+  it('gelled light and fine-tune stay real colour temperatures (mireds end at 0 = infinite K) [DER]', () => {
+    // Asking for light bluer than 20000 K is refused, naming the offset.
+    expect(() =>
+      solveBalance({ cameraKelvin: 20000, flashKelvin: 10000, targetMiredOffset: -200 }),
+    ).toThrow(/targetMiredOffset/);
+    // A custom -200 mired piece would take a 5500 K flash (181.8 mireds) below 0 mireds: unused.
+    const r = solveBalance({
+      cameraKelvin: 20000,
+      gels: [{ name: 'deep blue', miredShift: -200, lossStops: 2 }],
+    });
+    expect(r.gels).toEqual([]);
+    expect(r.resultingFlashKelvin).toBe(5500);
+    // With no gels the camera would have to go to 0 mireds: clamped to 20000 K, with a warning.
+    const c = solveBalance({
+      cameraKelvin: 3200,
+      flashKelvin: 10000,
+      targetMiredOffset: 100,
+      maxGels: 0,
+    });
+    expect(c.whiteBalanceFineTune.cameraKelvin).toBe(20000);
+    expect(c.warnings.map((w) => w.code)).toEqual(['fine-tune-limit']);
   });
   it('camera tint asks for green on the flash', () => {
     const r = solveBalance({ cameraKelvin: 5500, cameraTint: 15 });

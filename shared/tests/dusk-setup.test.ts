@@ -32,26 +32,60 @@ describe('planDuskSetup', () => {
       prev = t;
     }
   });
-  it('key power at a suggested minute equals computeFlash with the same settings', () => {
-    const m = plan.suggestedMinutes[0];
-    const direct = computeFlash({
-      guideNumber: 40,
-      distance: 2,
-      aperture: m?.background.aperture ?? 0,
-      iso: m?.background.iso,
-      modifierLossStops: 1.25,
-      gelLossStops: plan.gels.gelLossStops,
-    });
-    expect(m?.keyFlash.powerFraction).toBeCloseTo(direct.powerFraction, 9);
+  it('key gives what the ambient leaves of a correct exposure (exposures add) [DER]', () => {
+    // Ambient on the subject at the background's level: bias -1 (default) less any shortfall.
+    // Light adds, so the key alone must give 1 - 2^(bias - shortfall) of a correct exposure,
+    // which at the same aperture takes that fraction of the power a full exposure would.
+    for (const m of plan.suggestedMinutes) {
+      const ambient = 2 ** (-1 - m.background.shortfallStops);
+      const fullExposure = computeFlash({
+        guideNumber: 40,
+        distance: 2,
+        aperture: m.background.aperture,
+        iso: m.background.iso,
+        modifierLossStops: 1.25,
+        gelLossStops: plan.gels.gelLossStops,
+      });
+      expect(m.keyFlash.powerFraction / fullExposure.powerFraction).toBeCloseTo(1 - ambient, 4);
+    }
   });
-  it('gels the flash for the cooled white balance and compensates power', () => {
+  it('gels the flash for the cooled white balance with warming gels only', () => {
+    // 3800 K camera, 5500 K flash: the flash must warm by 1e6/3800 - 1e6/5500 = 81.3 mireds [DER].
     expect(plan.whiteBalance.cameraKelvin).toBe(3800);
     expect(plan.gels.gels.length).toBeGreaterThan(0);
-    expect(plan.gels.powerCompensationStops).toBeGreaterThan(0);
+    expect(plan.gels.gels.every((g) => g.miredShift > 0)).toBe(true);
+    const achieved = plan.gels.gels.reduce((a, g) => a + g.miredShift, 0);
+    expect(plan.gels.residualMired).toBeCloseTo(achieved - (1e6 / 3800 - 1e6 / 5500), 1);
+    expect(plan.gels.powerCompensationStops).toBeCloseTo(
+      plan.gels.gels.reduce((a, g) => a + g.lossStops, 0),
+      6,
+    );
   });
-  it('default key at 60° gives a dramatic shadow side; ambient one stop under -> 3:1', () => {
+  it('default key at 60° gives a dramatic shadow side; ambient one stop under -> 2:1 [DER]', () => {
+    // Lit side = key + ambient = a correct exposure; shadow side = ambient alone, one stop under
+    // when the background has no shortfall: 1 : 0.5.
     expect(plan.key.shadowSide).toBe('dramatic');
-    expect(plan.key.lightingRatio).toBeGreaterThanOrEqual(3);
+    const first = plan.suggestedMinutes[0];
+    const ambient = 2 ** (-1 - (first?.background.shortfallStops ?? 0));
+    expect(plan.key.lightingRatio).toBeCloseTo(1 / ambient, 1);
+  });
+  it('rim one stop over the lit side takes twice the power of a correct exposure [DER]', () => {
+    const m = plan.suggestedMinutes[0];
+    const rimAlone = computeFlash({
+      guideNumber: 30,
+      distance: plan.backlight?.distanceToHead ?? 0,
+      aperture: m?.background.aperture ?? 0,
+      iso: m?.background.iso,
+      gelLossStops: plan.gels.gelLossStops,
+    });
+    expect(m?.rimFlash?.powerFraction).toBeCloseTo(2 * rimAlone.powerFraction, 6);
+  });
+  it('warns when the ambient alone almost exposes the subject', () => {
+    const bright = planDuskSetup({ ...input, camera: { ...input.camera, biasStops: 0 } });
+    const m = bright.suggestedMinutes.find((x) => x.background.shortfallStops === 0);
+    expect(m?.keyFlash.warnings.map((w) => w.code)).toContain('ambient-dominates');
+    expect(bright.warnings.map((w) => w.code)).toContain('ambient-dominates');
+    expect(plan.warnings.map((w) => w.code)).not.toContain('ambient-dominates');
   });
   it('background 30 m away from a key at 2 m falls off 2 log2(15) stops', () => {
     expect(plan.backgroundFalloffStops).toBeCloseTo(2 * Math.log2(15), 2);

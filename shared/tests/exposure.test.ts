@@ -70,10 +70,18 @@ describe('solveExposure', () => {
       100 * 2 ** (10 - 10),
       6,
     );
+    // f/4 at 1/60 is EV log2(16 * 60) = 9.907 [STD APEX]; a scene of EV100 10 needs ISO
+    // 100 * 2^(9.907 - 10) = 93.75 (Sv = Av + Tv - Bv).
+    const iso = solveExposure({ ev100: 10, aperture: 4, shutterSeconds: 1 / 60 }).iso;
+    expect(Math.abs(iso - 100 * 2 ** (Math.log2(16 * 60) - 10))).toBeLessThanOrEqual(0.05 + 1e-9); // ISO given to 0.1
+  });
+  it('labels f-numbers below f/1 in hundredths, as lenses mark them (from memory)', () => {
+    expect(solveExposure({ ev100: 2, aperture: 0.95, iso: 100 }).apertureLabel).toBe('f/0.95');
   });
   it('all three given: reports how far off the metered exposure they are', () => {
     const r = solveExposure({ ev100: 13, aperture: 8, shutterSeconds: 1 / 64, iso: 100 });
     expect(r.warnings.map((w) => w.code)).toContain('overexposed');
+    // f/8 at 1/64 is EV log2(64 * 64) = 12 [STD APEX]: one stop more light than EV 13 wants.
   });
 });
 
@@ -120,5 +128,16 @@ describe('solveBackgroundExposure', () => {
     });
     expect(r.ambientSource).toBe('place');
     expect(Number.isFinite(r.ev100)).toBe(true);
+  });
+});
+
+describe("solveBackgroundExposure keeps inside the caller's own bounds", () => {
+  it('an apertureMin above the default ceiling (f/22) is honoured', () => {
+    const r = solveBackgroundExposure({ ev100: 14, iso: 100, apertureMin: 32 });
+    expect(r.aperture).toBeGreaterThanOrEqual(32);
+  });
+  it('an isoMin above the default ceiling (ISO 6400) is honoured', () => {
+    const r = solveBackgroundExposure({ ev100: -2, aperture: 5.6, isoMin: 12800 });
+    expect(r.iso).toBeGreaterThanOrEqual(12800);
   });
 });

@@ -205,3 +205,30 @@ describe('key light', () => {
     expect(r.position.sideways).toBeCloseTo(2 * Math.cos(Math.PI / 6) * Math.sin(Math.PI / 3), 3);
   });
 });
+
+describe('flash below its lowest power (ISO 1230 guide-number relation)', () => {
+  it('GN 60 at 1 m, f/2 needs (2 x 1 / 60)^2 = 1/900 of full power: move back or stop down', () => {
+    // 1/900 is under 1/256 by 900/256; distance and f-number each scale with the square root
+    // [DER]: move back to sqrt(900/256) = 1.875 m, or stop down to f/3.75.
+    const r = computeFlash({ guideNumber: 60, distance: 1, aperture: 2 });
+    expect(r.feasible).toBe(false);
+    expect(r.warnings.map((w) => w.code)).toEqual(['below-min-power']);
+    expect(r.fixes?.moveBackTo).toBeCloseTo(Math.sqrt(900 / 256), 2);
+    expect(r.fixes?.stopDownTo).toBeCloseTo(2 * Math.sqrt(900 / 256), 2);
+  });
+  it('exposureStops scales the power: -1 stop is half the power [DER]', () => {
+    const full = computeFlash({ guideNumber: 40, distance: 3, aperture: 5.6 });
+    const half = computeFlash({ guideNumber: 40, distance: 3, aperture: 5.6, exposureStops: -1 });
+    expect(half.powerFraction).toBeCloseTo(((5.6 * 3) / 40) ** 2 / 2, 5);
+    expect(half.powerFraction / full.powerFraction).toBeCloseTo(0.5, 5);
+  });
+});
+
+describe('falloff series', () => {
+  it('runs outward from `from` even when `from` is past the farthest mark', () => {
+    const r = computeFalloff({ subjectDistance: 1, from: 10 });
+    const d = r.series.map((p) => p.distance);
+    expect(d[0]).toBeCloseTo(10, 6);
+    for (let i = 1; i < d.length; i++) expect(d[i]).toBeGreaterThan(d[i - 1] as number);
+  });
+});

@@ -108,6 +108,21 @@ describe('mireds', () => {
   });
 });
 
+type KitGel = { miredShift: number; greenShift: number };
+/**
+ * Stacks the solver may choose [DER]: no warming piece with a cooling one, no plus-green with
+ * minus-green (opposing pieces only cost light; common practice, no source), and the gelled
+ * 5500 K flash stays a real colour temperature within 1500..20000 K (mired 50..666.7).
+ */
+function allowedStack(gels: readonly KitGel[], idx: number[]): boolean {
+  const m = idx.map((i) => (gels[i] as KitGel).miredShift);
+  const g = idx.map((i) => (gels[i] as KitGel).greenShift);
+  if (m.some((x) => x > 0) && m.some((x) => x < 0)) return false;
+  if (g.some((x) => x > 0) && g.some((x) => x < 0)) return false;
+  const flashMired = 1e6 / 5500 + m.reduce((a, b) => a + b, 0);
+  return flashMired >= 1e6 / 20000 - 1e-9 && flashMired <= 1e6 / 1500 + 1e-9;
+}
+
 describe('gel solver equals brute force on random kits', () => {
   const gel = fc.record({
     miredShift: fc.integer({ min: -160, max: 160 }),
@@ -129,7 +144,7 @@ describe('gel solver equals brute force on random kits', () => {
           let bestKey = [Math.abs(required), Math.abs(tint), 0, 0];
           for (let mask = 1; mask < 1 << gels.length; mask++) {
             const idx = gels.map((_, i) => i).filter((i) => mask & (1 << i));
-            if (idx.length > maxGels) continue;
+            if (idx.length > maxGels || !allowedStack(gels, idx)) continue;
             const sum = (f: (g: (typeof gels)[number]) => number) =>
               idx.reduce((s, i) => s + f(gels[i] as (typeof gels)[number]), 0);
             const key = [
@@ -182,7 +197,7 @@ describe('gel solver with a mired tolerance equals brute force on random kits', 
           const stacks: { mired: number; green: number; n: number; loss: number }[] = [];
           for (let mask = 0; mask < 1 << gels.length; mask++) {
             const idx = gels.map((_, i) => i).filter((i) => mask & (1 << i));
-            if (idx.length > maxGels) continue;
+            if (idx.length > maxGels || !allowedStack(gels, idx)) continue;
             const sum = (f: (g: (typeof gels)[number]) => number) =>
               idx.reduce((s, i) => s + f(gels[i] as (typeof gels)[number]), 0);
             stacks.push({
@@ -211,6 +226,41 @@ describe('gel solver with a mired tolerance equals brute force on random kits', 
         },
       ),
       { numRuns: 200 },
+    );
+  });
+});
+
+describe('balance answers stay real colour temperatures (mireds end at 0 = infinite K) [DER]', () => {
+  it('gelled flash and fine-tuned camera within 1500..20000 K, or the offset is refused', () => {
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 1500, max: 20000 }),
+        fc.integer({ min: 2500, max: 10000 }),
+        fc.integer({ min: -200, max: 200 }),
+        fc.array(
+          fc.record({
+            name: fc.constant('piece'),
+            miredShift: fc.integer({ min: -400, max: 400 }),
+            lossStops: fc.constant(0.5),
+          }),
+          { minLength: 1, maxLength: 6 },
+        ),
+        fc.integer({ min: 0, max: 4 }),
+        (cameraKelvin, flashKelvin, targetMiredOffset, gels, maxGels) => {
+          const target = 1e6 / cameraKelvin + targetMiredOffset;
+          const input = { cameraKelvin, flashKelvin, targetMiredOffset, gels, maxGels };
+          if (target < 50 || target > 1e6 / 1500) {
+            expect(() => solveBalance(input)).toThrow(/targetMiredOffset/);
+            return;
+          }
+          const r = solveBalance(input);
+          for (const k of [r.resultingFlashKelvin, r.whiteBalanceFineTune.cameraKelvin]) {
+            expect(k).toBeGreaterThanOrEqual(1500);
+            expect(k).toBeLessThanOrEqual(20000);
+          }
+        },
+      ),
+      { numRuns: 300 },
     );
   });
 });

@@ -47,19 +47,29 @@ describe('compute API', () => {
   });
 
   it('accepts a mired tolerance for shorter gel stacks and names the field when it is out of range', async () => {
-    // Mired arithmetic as above; the tolerance rule itself is common practice, no source.
+    // Mired arithmetic as above: 3800 K camera, 5500 K flash needs +81.3 mireds. The closest
+    // warming stack is two pieces (-5.3); accepting 12 mireds lets one piece (+11.7) do. The
+    // tolerance rule itself is common practice, no source.
     const body = { cameraKelvin: 3800, flashKelvin: 5500, maxGels: 3 };
     const exact = await post(t.url, 'balance', org.test.secret, body).expect(200);
     const loose = await post(t.url, 'balance', org.test.secret, {
       ...body,
-      miredTolerance: 10,
+      miredTolerance: 12,
     }).expect(200);
     expect(loose.body.gels.length).toBeLessThan(exact.body.gels.length);
-    expect(Math.abs(loose.body.residualMired)).toBeLessThanOrEqual(10);
+    expect(Math.abs(loose.body.residualMired)).toBeLessThanOrEqual(12);
     const bad = await post(t.url, 'balance', org.test.secret, { ...body, miredTolerance: 80 });
     expect(bad.status).toBe(422);
     expect(bad.headers['content-type']).toMatch(/^application\/problem\+json/);
     expect(bad.body.errors).toEqual([expect.objectContaining({ field: 'miredTolerance' })]);
+    // An offset that asks for light bluer than 20000 K (mireds below 50) is refused by name.
+    const unreal = await post(t.url, 'balance', org.test.secret, {
+      cameraKelvin: 20000,
+      flashKelvin: 10000,
+      targetMiredOffset: -200,
+    });
+    expect(unreal.status).toBe(422);
+    expect(unreal.body.errors).toEqual([expect.objectContaining({ field: 'targetMiredOffset' })]);
     const setup = await post(t.url, 'setup', org.test.secret, {
       ...(DEMO_BODIES.setup as object),
       miredTolerance: 10,

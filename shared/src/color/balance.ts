@@ -1,5 +1,6 @@
 import { GEL_CATALOGUE, type Gel } from './gels.js';
 import { bestStack, type SearchGel } from './gel-search.js';
+import { LightingInputError } from '../errors.js';
 import { applyMiredShift, kelvinFromMired, mired } from './mired.js';
 import { duskScene, type SceneSwatch } from './scene.js';
 import { round } from '../units/math.js';
@@ -14,6 +15,14 @@ import {
 /** Camera fine-tune step on the amber-blue axis, mireds. Common practice, from memory (~5). */
 export const WB_FINE_TUNE_STEP_MIRED = 5;
 
+/**
+ * Colour temperatures the balance works in, kelvin: the camera white-balance range it accepts.
+ * Gelled light and fine-tuned white balance stay inside it (mireds run out at 0 = infinite K).
+ */
+export const KELVIN_RANGE = { min: 1500, max: 20000 } as const;
+const MIRED_LO = mired(KELVIN_RANGE.max);
+const MIRED_HI = mired(KELVIN_RANGE.min);
+
 export interface BalanceInput {
   /** Camera white balance, kelvin, 1500..20000. */
   cameraKelvin: number;
@@ -24,7 +33,10 @@ export interface BalanceInput {
   cameraTint?: number;
   /** Bare flash colour temperature, kelvin, 2500..10000; default 5500 (common practice). */
   flashKelvin?: number;
-  /** Extra warmth wanted on the subject, mireds, -200..200 (+ = warmer skin); default 0. */
+  /**
+   * Extra warmth wanted on the subject, mireds, -200..200 (+ = warmer skin); default 0.
+   * mired(cameraKelvin) + offset must stay within 1500..20000 K.
+   */
   targetMiredOffset?: number;
   /** The kit; default {@link GEL_CATALOGUE}. Each piece usable once per stack. 1..30 pieces. */
   gels?: Array<{ name: string; miredShift: number; greenShift?: number; lossStops: number }>;
@@ -66,6 +78,8 @@ export interface BalanceResult {
   flashKelvin: number;
   resultingFlashKelvin: number;
   scene: SceneSwatch[];
+  /** `fine-tune-limit`: the camera white balance needed to cancel the residual is out of range. */
+  warnings: Array<{ code: string; message: string }>;
 }
 
 function readKit(value: unknown): Gel[] {
@@ -92,7 +106,7 @@ function readKit(value: unknown): Gel[] {
  */
 export function solveBalance(input: BalanceInput): BalanceResult {
   const o = requireObject('input', input);
-  const camera = requireNumber('cameraKelvin', o.cameraKelvin, { min: 1500, max: 20000 });
+  const camera = requireNumber('cameraKelvin', o.cameraKelvin, KELVIN_RANGE);
   const tint = optionalNumber('cameraTint', o.cameraTint, 0, { min: -60, max: 60 });
   const flash = optionalNumber('flashKelvin', o.flashKelvin, 5500, { min: 2500, max: 10000 });
   const offset = optionalNumber('targetMiredOffset', o.targetMiredOffset, 0, {
@@ -102,14 +116,40 @@ export function solveBalance(input: BalanceInput): BalanceResult {
   const kit = readKit(o.gels);
   const maxGels = optionalNumber('maxGels', o.maxGels, 3, { min: 0, max: 4, integer: true });
   const tolerance = optionalNumber('miredTolerance', o.miredTolerance, 0, { min: 0, max: 50 });
-  const required = mired(camera) - mired(flash) + offset;
+  // The subject should render like light of mired(camera) + offset: that light must exist.
+  const target = mired(camera) + offset;
+  if (target < MIRED_LO - 1e-9 || target > MIRED_HI + 1e-9) {
+    throw new LightingInputError(
+      'targetMiredOffset',
+      `with the camera at ${camera} K, an offset of ${offset} mireds asks the flash for light ` +
+        `outside ${KELVIN_RANGE.min}..${KELVIN_RANGE.max} K; use an offset between ` +
+        `${Math.ceil(MIRED_LO - mired(camera))} and ${Math.floor(MIRED_HI - mired(camera))}`,
+    );
+  }
+  const required = target - mired(flash);
   const search: SearchGel[] = kit.map((gel, index) => ({ index, ...gel }));
-  const best = bestStack(search, maxGels, required, tint, tolerance);
+  const best = bestStack(search, maxGels, required, tint, tolerance, {
+    min: MIRED_LO - mired(flash),
+    max: MIRED_HI - mired(flash),
+  });
   const chosen = best.indices.map((i) => kit[i] as Gel);
   const achieved = chosen.reduce((s, gel) => s + gel.miredShift, 0);
   const green = chosen.reduce((s, gel) => s + gel.greenShift, 0);
   const residual = achieved - required;
-  const fineTuneKelvin = kelvinFromMired(mired(camera) + residual);
+  const warnings: BalanceResult['warnings'] = [];
+  const fineTuneMired = mired(camera) + residual;
+  const clampedMired = Math.min(MIRED_HI, Math.max(MIRED_LO, fineTuneMired));
+  if (Math.abs(clampedMired - fineTuneMired) > 1e-9) {
+    warnings.push({
+      code: 'fine-tune-limit',
+      message:
+        `Cancelling the ${round(residual, 1)} mired residual would take the camera past ` +
+        `${clampedMired === MIRED_LO ? KELVIN_RANGE.max : KELVIN_RANGE.min} K; the subject ` +
+        `stays ${round(Math.abs(fineTuneMired - clampedMired), 1)} mireds ` +
+        `${fineTuneMired > clampedMired ? 'warmer' : 'cooler'} than intended.`,
+    });
+  }
+  const fineTuneKelvin = kelvinFromMired(clampedMired);
   const resultingKelvin = applyMiredShift(flash, achieved);
   return {
     requiredMiredShift: round(required, 2),
@@ -135,5 +175,6 @@ export function solveBalance(input: BalanceInput): BalanceResult {
     flashKelvin: flash,
     resultingFlashKelvin: Math.round(resultingKelvin),
     scene: duskScene(camera, resultingKelvin, resultingKelvin, flash),
+    warnings,
   };
 }

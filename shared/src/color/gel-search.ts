@@ -69,10 +69,19 @@ function compareScores(
   return 0;
 }
 
+/** Allowed range of a stack's total mired shift (inclusive). */
+export interface MiredLimits {
+  min: number;
+  max: number;
+}
+
 /**
  * Best stack of at most `maxGels` distinct pieces, by depth-first enumeration of combinations
- * (each piece used at most once). Mired shifts add; so do green shifts and losses. Candidates are
- * scored without allocating; only a new best is copied.
+ * (each piece used at most once). Mired shifts add; so do green shifts and losses. A stack never
+ * mixes warming with cooling pieces, nor plus-green with minus-green: opposing pieces cancel
+ * each other and only cost light (common practice, no source). With `limits`, stacks whose total
+ * mired shift falls outside them are not candidates. Candidates are scored without allocating;
+ * only a new best is copied.
  */
 export function bestStack(
   gels: readonly SearchGel[],
@@ -80,6 +89,7 @@ export function bestStack(
   requiredMired: number,
   requiredGreen: number,
   tolerance = 0,
+  limits: MiredLimits = { min: -Infinity, max: Infinity },
 ): StackScore {
   let best: StackScore = {
     indices: [],
@@ -88,12 +98,24 @@ export function bestStack(
     loss: 0,
   };
   const chosen: number[] = [];
-  const visit = (start: number, mired: number, green: number, loss: number): void => {
+  const visit = (
+    start: number,
+    mired: number,
+    green: number,
+    loss: number,
+    miredSign: number,
+    greenSign: number,
+  ): void => {
     if (chosen.length >= maxGels) return;
     for (let i = start; i < gels.length; i++) {
       const gel = gels[i] as SearchGel;
-      chosen.push(gel.index);
+      const ms = Math.sign(gel.miredShift);
+      const gs = Math.sign(gel.greenShift);
+      if (ms * miredSign < 0 || gs * greenSign < 0) continue;
       const m = mired + gel.miredShift;
+      // Pieces of one sign only push further out, so nothing past a limit can come back.
+      if (m < limits.min - EPS || m > limits.max + EPS) continue;
+      chosen.push(gel.index);
       const gr = green + gel.greenShift;
       const l = loss + gel.lossStops;
       const better =
@@ -116,10 +138,10 @@ export function bestStack(
           loss: l,
         };
       }
-      visit(i + 1, m, gr, l);
+      visit(i + 1, m, gr, l, miredSign || ms, greenSign || gs);
       chosen.pop();
     }
   };
-  visit(0, 0, 0, 0);
+  visit(0, 0, 0, 0, 0, 0);
   return best;
 }

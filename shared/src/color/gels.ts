@@ -36,7 +36,7 @@ export const GEL_CATALOGUE: readonly Gel[] = Object.freeze([
   g('1/8 CTO', 23, 0, 0.15), // range +20..+26
   g('full CTB', -134, 0, 1.5), // range -131..-137
   g('3/4 CTB', -100, 0, 1.1),
-  g('1/2 CTB', -73, 0, 0.75), // range -68..-78
+  g('1/2 CTB', -73, 0, 0.67), // range -68..-78
   g('1/4 CTB', -32, 0, 0.4), // range -30..-35
   g('1/8 CTB', -15, 0, 0.2), // range -12..-18
   g('full plus green', 0, 30, 0.5), // ~CC30

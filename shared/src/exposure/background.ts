@@ -71,7 +71,11 @@ function readInput(input: BackgroundExposureInput) {
     source = 'place';
   }
   const isoMin = optionalNumber('isoMin', o.isoMin, 100, { min: 3, max: 409600 });
-  const isoMax = optionalNumber('isoMax', o.isoMax, 6400, { min: isoMin, max: 409600 });
+  // Defaults of an upper bound follow a lower bound set above them.
+  const isoMax = optionalNumber('isoMax', o.isoMax, Math.max(6400, isoMin), {
+    min: isoMin,
+    max: 409600,
+  });
   const apertureMin = optionalNumber('apertureMin', o.apertureMin, 1.4, { min: 0.7, max: 128 });
   return {
     ev100,
@@ -82,7 +86,10 @@ function readInput(input: BackgroundExposureInput) {
     isoMin,
     isoMax,
     apertureMin,
-    apertureMax: optionalNumber('apertureMax', o.apertureMax, 22, { min: apertureMin, max: 128 }),
+    apertureMax: optionalNumber('apertureMax', o.apertureMax, Math.max(22, apertureMin), {
+      min: apertureMin,
+      max: 128,
+    }),
     support: requireOneOf('support', o.support, ['handheld', 'tripod'] as const, 'handheld'),
     handheld: optionalNumber(
       'slowestHandheldSeconds',

@@ -172,6 +172,8 @@ export function shutterLabel(seconds: number): string {
 
 /** Label for an arbitrary f-number: the nominal mark if within 1/6 stop, else one decimal. */
 export function apertureLabel(fNumber: number): string {
+  // Below f/1 lenses are marked in hundredths (f/0.95), not on the third-stop scale.
+  if (fNumber < 1 - 1e-9) return `f/${Number(fNumber.toFixed(2))}`;
   const s = nearestStop(APERTURE_SCALE, fNumber);
   if (Math.abs(2 * Math.log2(s.value / fNumber)) <= 1 / 6 + 1e-9) return s.label;
   return `f/${fNumber.toFixed(1)}`;

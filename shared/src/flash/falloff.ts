@@ -51,7 +51,10 @@ export function computeFalloff(input: FalloffInput): FalloffResult {
   const ground = maybeNumber('groundDistance', o.groundDistance, D_RANGE);
   const far = Math.max(subject, background ?? 0, ground ?? 0);
   const from = optionalNumber('from', o.from, subject / 2, D_RANGE);
-  const to = optionalNumber('to', o.to, far * 3, { min: from, max: 1000 });
+  const to = optionalNumber('to', o.to, Math.min(1000, Math.max(far * 3, from * 2)), {
+    min: from,
+    max: 1000,
+  });
   const n = optionalNumber('points', o.points, 40, { min: 2, max: 500, integer: true });
   const rel = (d: number): number => round(-stopsBetween(subject, d), 3);
   const marks: FalloffMark[] = [{ id: 'subject', distance: subject, stopsRelativeToSubject: 0 }];

@@ -27,6 +27,12 @@ export interface FlashInput {
   gelLossStops?: number;
   /** Lowest power the light can go to, as a fraction; default 1/256. */
   minPowerFraction?: number;
+  /**
+   * Exposure this light should give on its own, stops relative to a correct exposure at
+   * `aperture` and `iso`, -6..6; default 0. -1 when the ambient already supplies half the
+   * exposure; +1 for a rim one stop brighter than the key.
+   */
+  exposureStops?: number;
 }
 
 export interface FlashResult {
@@ -65,6 +71,7 @@ interface FlashParams {
   aperture: number;
   iso: number;
   loss: number;
+  exposure: number;
   minFraction: number;
 }
 
@@ -83,6 +90,7 @@ function readFlash(o: Record<string, unknown>, needAperture: boolean): FlashPara
     loss:
       optionalNumber('modifierLossStops', o.modifierLossStops, 0, { min: 0, max: 8 }) +
       optionalNumber('gelLossStops', o.gelLossStops, 0, { min: 0, max: 8 }),
+    exposure: optionalNumber('exposureStops', o.exposureStops, 0, { min: -6, max: 6 }),
     minFraction: optionalNumber('minPowerFraction', o.minPowerFraction, MIN_SCALE_FRACTION, {
       min: 1 / 4096,
       max: 1,
@@ -95,7 +103,8 @@ export function computeFlash(input: FlashInput): FlashResult {
   const p = readFlash(requireObject('input', input), true);
   const isoGain = Math.sqrt(p.iso / 100);
   const lossFactor = 2 ** (p.loss / 2);
-  const requiredM = (p.aperture * p.dM * lossFactor) / isoGain; // GN needed at ISO 100, no loss
+  // The rated GN (ISO 100, no loss) the light needs to give `exposureStops` at this aperture.
+  const requiredM = (p.aperture * p.dM * lossFactor * 2 ** (p.exposure / 2)) / isoGain;
   const fraction = (requiredM / p.gnM) ** 2;
   const s = stopsBelowFull(fraction);
   const tooMuch = fraction > 1 + 1e-9;
@@ -145,7 +154,10 @@ export interface FlashApertureInput extends Omit<FlashInput, 'aperture'> {
   powerFraction: number;
 }
 
-/** The inverse: aperture for a power fraction, N = GN sqrt(p) sqrt(ISO/100) / (d 2^(L/2)). */
+/**
+ * The inverse: aperture for a power fraction, N = GN sqrt(p) sqrt(ISO/100) / (d 2^(L/2) 2^(E/2))
+ * with E the light's `exposureStops`.
+ */
 export function computeFlashAperture(input: FlashApertureInput): {
   aperture: number;
   apertureLabel: string;
@@ -153,7 +165,9 @@ export function computeFlashAperture(input: FlashApertureInput): {
   const o = requireObject('input', input);
   const p = readFlash(o, false);
   const fraction = requireNumber('powerFraction', o.powerFraction, { min: 1 / 4096, max: 1 });
-  const n = (p.gnM * Math.sqrt(fraction) * Math.sqrt(p.iso / 100)) / (p.dM * 2 ** (p.loss / 2));
+  const n =
+    (p.gnM * Math.sqrt(fraction) * Math.sqrt(p.iso / 100)) /
+    (p.dM * 2 ** (p.loss / 2) * 2 ** (p.exposure / 2));
   return { aperture: round(n, 4), apertureLabel: apertureLabel(n) };
 }
 

@@ -76,6 +76,29 @@ function windowPoints(tw: TwilightResult): {
   return { start, end, points, tooDark: inWindow.length - points.length };
 }
 
+/**
+ * Least share of the exposure the key gives on its own. When the ambient alone comes within
+ * this of a full exposure, the key still adds this much (common practice, no source).
+ */
+const MIN_KEY_SHARE = 1 / 8;
+
+/**
+ * How the lit side's exposure splits between the ambient and the key. Exposures add: with the
+ * ambient on the subject at `bias - shortfall` stops (the background's level, assuming the
+ * subject stands in the same light), the key gives the rest of a correct exposure.
+ */
+export function keyShare(biasStops: number, shortfallStops: number) {
+  const ambient = 2 ** (biasStops - shortfallStops);
+  const key = Math.max(1 - ambient, MIN_KEY_SHARE);
+  return {
+    ambient,
+    key,
+    keyExposureStops: Math.log2(key),
+    keyOverAmbientStops: Math.log2(key / ambient),
+    overStops: Math.log2(key + ambient),
+  };
+}
+
 function minuteAt(s: Setup, p: AmbientPoint, gelLoss: number): SuggestedMinute {
   const background = prefixed('camera', () =>
     solveBackgroundExposure({
@@ -86,10 +109,22 @@ function minuteAt(s: Setup, p: AmbientPoint, gelLoss: number): SuggestedMinute {
       flashSyncSeconds: s.sync,
     }),
   );
+  const share = keyShare(s.bias, background.shortfallStops);
   const flashArgs = { aperture: background.aperture, iso: background.iso, gelLossStops: gelLoss };
   const keyFlash = prefixed('key', () =>
-    computeFlash({ ...s.key, ...flashArgs, modifierLossStops: s.modifierLoss } as never),
+    computeFlash({
+      ...s.key,
+      ...flashArgs,
+      modifierLossStops: s.modifierLoss,
+      exposureStops: share.keyExposureStops,
+    } as never),
   );
+  if (share.overStops > 0.01) {
+    keyFlash.warnings.push({
+      code: 'ambient-dominates',
+      message: `The ambient alone gives ${Math.round(share.ambient * 100)}% of a correct exposure on the subject; with the key at its least share the lit side comes out ${round(share.overStops, 1)} stops over. Lower the background bias for the key to shape the light.`,
+    });
+  }
   const rimFlash = s.rim ? rimPower(s, background, gelLoss) : null;
   const usable =
     background.warnings.every((w) => w.code === 'subject-motion') &&
@@ -116,8 +151,9 @@ function rimPower(s: Setup, bg: BackgroundExposureResult, gelLoss: number): Flas
       guideNumberUnit: r.guideNumberUnit as 'm' | 'ft' | undefined,
       distance: geometry.distanceToHead,
       distanceUnit: geometry.distanceUnit,
-      aperture: bg.aperture * 2 ** (over / 2), // brighter rim = the power an aperture `over` stops smaller needs
+      aperture: bg.aperture,
       iso: bg.iso,
+      exposureStops: over, // the rim `over` stops brighter than a correct exposure
       modifierLossStops: (r.modifierLossStops as number | undefined) ?? 0,
       gelLossStops: r.gelled === false ? 0 : gelLoss,
     }),
@@ -164,7 +200,10 @@ export function planDuskSetup(input: DuskSetupInput): DuskSetupPlan {
   const usable = minutes.filter((m) => m.usable);
   const suggested = pickSuggestions(minutes, s.suggestions);
   const first = suggested[0];
-  const keyOverAmbient = first ? -s.bias + first.background.shortfallStops : -s.bias;
+  const keyOverAmbient = keyShare(
+    s.bias,
+    first?.background.shortfallStops ?? 0,
+  ).keyOverAmbientStops;
   const key = prefixed('key', () =>
     computeKeyLight({
       angleFromCameraDeg: (s.key.angleFromCameraDeg as number | undefined) ?? 60,
@@ -208,7 +247,14 @@ export function planDuskSetup(input: DuskSetupInput): DuskSetupPlan {
     backgroundFalloffStops: bgFalloff === null ? null : round(bgFalloff, 2),
     look: duskScene(s.kelvin, balance.resultingFlashKelvin, rimKelvin, balance.flashKelvin),
     cautions: cautionsFor({ ...s.conditions, standsCount: 1 + (s.rim ? 1 : 0) }),
-    warnings: planWarnings(tw, usable.length, backlight, win.tooDark),
+    warnings: [
+      ...planWarnings(tw, usable.length, backlight, win.tooDark),
+      // The first suggested minute where the ambient outweighs the key speaks for the evening.
+      ...suggested
+        .flatMap((m) => m.keyFlash.warnings.filter((w) => w.code === 'ambient-dominates'))
+        .slice(0, 1),
+      ...balance.warnings,
+    ],
   };
 }
 

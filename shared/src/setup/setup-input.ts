@@ -32,7 +32,10 @@ export interface DuskSetupInput {
     slowestHandheldSeconds?: number;
     /** Flash sync speed, s; default 1/200. */
     flashSyncSeconds?: number;
-    /** Background bias in stops (taste); default -1 (ambient one stop under, key one over). */
+    /**
+     * Background bias in stops (taste); default -1: the background one stop under, and the key
+     * makes up the rest of a correct exposure on the subject (ambient plus key).
+     */
     biasStops?: number;
     /** Camera white balance, K; default 3800 (a cooled dusk look; taste, not a rule). */
     kelvin?: number;
@@ -57,7 +60,10 @@ export interface DuskSetupInput {
     lightHeight: number;
     distanceUnit?: LengthUnit;
     beamAngleDeg?: number;
-    /** Rim brighter than the key by, stops; default 1 (common practice, no source). */
+    /**
+     * Rim brighter than the lit side (what a meter reads for key plus ambient), stops; default 1
+     * (common practice, no source).
+     */
     rimOverKeyStops?: number;
     /** Gel the rim like the key (default) or leave it bare (renders cooler). */
     gelled?: boolean;

@@ -24,7 +24,10 @@ export const MODEL_UNCERTAINTY_STOPS: Record<SkyCondition, number> = {
   overcast: 2,
 };
 
-/** Starlight + airglow floor added below the twilight range, lux (REFERENCES: ~0.0005 lx). */
+/**
+ * Starlight + airglow, lux (REFERENCES: ~0.0005 lx): the least the sky gives. The circular's
+ * last band already ends at about this level at -18°, so the floor is a minimum, not an addition.
+ */
 export const NIGHT_SKY_FLOOR_LUX = 0.0005;
 
 /** Incident-light meter calibration constant C for a flat receptor (ISO 2720:1974). */
@@ -52,9 +55,9 @@ export function sunIlluminanceClearLux(altitudeDeg: number): number {
   return 0;
 }
 
-/** Ambient illuminance (lux) under `sky`, including the night-sky floor. */
+/** Ambient illuminance (lux) under `sky`, never below the night-sky floor. */
 export function ambientIlluminanceLux(altitudeDeg: number, sky: SkyCondition): number {
-  return sunIlluminanceClearLux(altitudeDeg) / SKY_DIVISOR[sky] + NIGHT_SKY_FLOOR_LUX;
+  return Math.max(sunIlluminanceClearLux(altitudeDeg) / SKY_DIVISOR[sky], NIGHT_SKY_FLOOR_LUX);
 }
 
 /** Incident EV at ISO 100: log2(E * 100 / C), C = 250 (ISO 2720), i.e. log2(E / 2.5). */

@@ -1,6 +1,6 @@
 import type { JsonSchema } from '../validation/json-schema.js';
 import { schemaDto, type ObjectSchema } from '../validation/schema-dto.js';
-import { num, outNum, str } from './common.js';
+import { num, outNum, str, WARNINGS } from './common.js';
 
 export const balanceRequestSchema: ObjectSchema = {
   type: 'object',
@@ -16,7 +16,8 @@ export const balanceRequestSchema: ObjectSchema = {
       exclusiveMinimum: 0,
     }),
     targetMiredOffset: num(
-      'Extra warmth wanted on the subject, mireds (-200..200; + = warmer).',
+      'Extra warmth wanted on the subject, mireds (-200..200; + = warmer). With the camera ' +
+        'white balance it must name real light: 10⁶ / cameraKelvin + offset within 1500..20000 K.',
       10,
     ),
     gels: {
@@ -119,6 +120,7 @@ export const balanceResponseSchema: ObjectSchema = {
       description: 'How light sources in the scene render at this white balance.',
       items: SCENE_SWATCH,
     },
+    warnings: WARNINGS,
   },
 };
 

@@ -21,6 +21,12 @@ export const flashRequestSchema: ObjectSchema = {
       'Lowest power the light can go to, as a fraction of full; default 1/256.',
       0.00390625,
     ),
+    exposureStops: num(
+      'Exposure this light should give on its own, stops relative to a correct exposure at ' +
+        'aperture and iso (-6..6); default 0. -1 when the ambient already gives half the ' +
+        'exposure on the subject; +1 for a rim one stop brighter.',
+      0,
+    ),
   },
 };
 

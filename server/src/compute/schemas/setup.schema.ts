@@ -73,7 +73,10 @@ export const setupRequestSchema: ObjectSchema = {
         lightHeight: num('Height of the light above the ground.', 2),
         distanceUnit: lengthUnit('Unit of the distances.'),
         beamAngleDeg: num('Full beam angle, degrees.', 40),
-        rimOverKeyStops: num('Rim brighter than the key by, stops; default 1.', 1),
+        rimOverKeyStops: num(
+          'Rim brighter than the lit side (key plus ambient, as a meter reads it), stops; default 1.',
+          1,
+        ),
         gelled: bool('Gel the rim like the key (default true).', true),
         modifierLossStops: num('Light lost in the modifier, stops.', 0),
       },

@@ -220,9 +220,9 @@ describe('playground', () => {
 
   it('shows the gel stack and scene swatches solveBalance picks for the camera white balance', async () => {
     const panel = await openCalculation('balance');
-    setValue(within(panel).getByLabelText('Camera WB (K)'), '3200');
+    setValue(within(panel).getByLabelText('Camera WB (K)'), '3000');
     const stackFor = (miredTolerance: number) =>
-      solveBalance({ cameraKelvin: 3200, flashKelvin: 5500, maxGels: 3, miredTolerance });
+      solveBalance({ cameraKelvin: 3000, flashKelvin: 5500, maxGels: 3, miredTolerance });
     const expected = stackFor(10); // the playground accepts 10 mired by default
     await waitFor(() =>
       expect(within(panel).getByTestId('gel-stack').textContent).toBe(
@@ -231,7 +231,7 @@ describe('playground', () => {
     );
     expect(panel.querySelectorAll('[data-swatch]').length).toBe(expected.scene.length);
     expect(panel.querySelector('svg[data-chart="mired"]')).not.toBeNull();
-    // 0 asks for the closest stack, which at 3200 K is a longer one.
+    // 0 asks for the closest stack, which at 3000 K is a longer one.
     setValue(within(panel).getByLabelText('Close enough (mired)'), '0');
     const closest = stackFor(0);
     expect(closest.gels.length).toBeGreaterThan(expected.gels.length);

@@ -13,6 +13,7 @@ import { CalculationResult } from '../calculation-result';
 import { SideDiagram } from '../diagrams/side-diagram';
 import { FormGrid, Readouts } from '../form-grid';
 import { usePlaygroundScene } from '../playground-scene';
+import { WarningList } from '../warning-list';
 
 const maybe = z.union([z.number(), z.nan()]).optional();
 const number = z.number({ error: 'Enter a number' });
@@ -157,18 +158,7 @@ export function BacklightPanel() {
                 softly at the edge.
               </figcaption>
             </figure>
-            {result.warnings.length > 0 ? (
-              <ul className="flex flex-col gap-2" aria-label="Warnings">
-                {result.warnings.map((warning) => (
-                  <li
-                    key={warning.code}
-                    className="rounded-control border border-caution/50 bg-panel px-3 py-2 text-small text-ink"
-                  >
-                    {warning.message}
-                  </li>
-                ))}
-              </ul>
-            ) : null}
+            <WarningList warnings={result.warnings} />
           </div>
         )}
       </CalculationResult>

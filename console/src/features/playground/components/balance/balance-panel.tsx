@@ -8,6 +8,7 @@ import { FormGrid, Readouts } from '../form-grid';
 import { usePlaygroundScene } from '../playground-scene';
 import { MiredBar } from './mired-bar';
 import { Swatches } from './swatches';
+import { WarningList } from '../warning-list';
 
 const maybe = z.union([z.number(), z.nan()]).optional();
 const schema = z.object({
@@ -163,6 +164,7 @@ export function BalancePanel() {
               </h3>
               <Swatches swatches={result.scene} cameraKelvin={input.cameraKelvin} />
             </section>
+            <WarningList warnings={result.warnings} />
           </div>
         )}
       </CalculationResult>

@@ -12,6 +12,7 @@ import { CalculationResult } from '../calculation-result';
 import { FormGrid, Readouts } from '../form-grid';
 import { usePlaygroundScene, type SceneMoment } from '../playground-scene';
 import { ShutterScale } from './shutter-scale';
+import { WarningList } from '../warning-list';
 
 const maybe = z.union([z.number(), z.nan()]).optional();
 const schema = z.object({
@@ -199,18 +200,7 @@ export function ExposurePanel() {
                   : ''}
               </figcaption>
             </figure>
-            {result.warnings.length > 0 ? (
-              <ul className="flex flex-col gap-2" aria-label="Warnings">
-                {result.warnings.map((warning) => (
-                  <li
-                    key={warning.code}
-                    className="rounded-control border border-caution/50 bg-panel px-3 py-2 text-small text-ink"
-                  >
-                    {warning.message}
-                  </li>
-                ))}
-              </ul>
-            ) : null}
+            <WarningList warnings={result.warnings} />
           </div>
         )}
       </CalculationResult>

@@ -6,6 +6,7 @@ import { SideDiagram } from '../diagrams/side-diagram';
 import { TopDiagram } from '../diagrams/top-diagram';
 import { Readouts } from '../form-grid';
 import { modifierLabels } from '../flash/flash-panel';
+import { WarningList } from '../warning-list';
 
 /** The head height the plan's rim geometry assumes (computeBacklight's default), metres. */
 const DEFAULT_HEAD_M = 1.6;
@@ -192,18 +193,7 @@ export function SetupResultView({ plan, input }: { plan: DuskSetupPlan; input: D
         <Swatches swatches={plan.look} cameraKelvin={plan.whiteBalance.cameraKelvin} />
       </section>
 
-      {plan.warnings.length > 0 ? (
-        <ul className="flex flex-col gap-2" aria-label="Warnings">
-          {plan.warnings.map((warning) => (
-            <li
-              key={warning.code}
-              className="rounded-control border border-caution/50 bg-panel px-3 py-2 text-small text-ink"
-            >
-              {warning.message}
-            </li>
-          ))}
-        </ul>
-      ) : null}
+      <WarningList warnings={plan.warnings} />
       <Cautions cautions={plan.cautions} />
     </div>
   );
