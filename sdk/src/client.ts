@@ -130,8 +130,14 @@ export class Lumenwright {
         attempt < this.maxRetries &&
         (wait ?? 1) <= this.maxRetryAfter;
       if (retryable) {
-        // Retry-After when given; otherwise a short exponential backoff with jitter.
-        await sleep(wait !== null ? wait * 1000 : 2 ** attempt * 250 + Math.random() * 100);
+        // Retry-After when given, plus up to half of it again (at most 1 s) so that callers
+        // refused in the same second do not all come back in the same second; otherwise a short
+        // exponential backoff with jitter.
+        await sleep(
+          wait !== null
+            ? wait * 1000 + Math.random() * Math.min(1000, wait * 500)
+            : 2 ** attempt * 250 + Math.random() * 100,
+        );
         continue;
       }
       throw new LumenwrightError({

@@ -119,7 +119,9 @@ describe('Lumenwright SDK', () => {
     const r = await flaky.exposure({ ev100: 10, aperture: 4 });
     expect(r.shutterSeconds).toBeGreaterThan(0);
     expect(calls).toHaveLength(2);
+    // At least Retry-After; jitter adds up to half of it again.
     expect(calls[1]! - calls[0]!).toBeGreaterThanOrEqual(950);
+    expect(calls[1]! - calls[0]!).toBeLessThan(1500 + 500);
   });
 
   it('gives up after maxRetries and never retries an exhausted quota', async () => {

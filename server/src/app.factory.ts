@@ -13,6 +13,7 @@ import type { FastifyInstance, FastifyReply, FastifyRequest } from 'fastify';
 import { AppModule } from './app.module.js';
 import { registerSessions } from './auth/session.plugin.js';
 import { DomainError } from './common/errors/domain-error.js';
+import { findNul, nulProblem, queryNul } from './common/http/nul-text.js';
 import { isMultipart, scopedHooks } from './common/http/scoped-hooks.js';
 import { registerSecurityHeaders } from './common/http/security-headers.js';
 import { createLogger, PinoNestLogger, registerRequestLogging } from './common/logging/logging.js';
@@ -62,7 +63,8 @@ export async function createApp(
   registerJsonBodies(fastify, config.bodyLimitBytes);
   fastify.addHook('onRequest', (req, reply, done) => {
     void reply.header('X-Request-Id', req.id);
-    done();
+    const nulField = queryNul(req.url);
+    done(nulField === null ? undefined : nulProblem(nulField));
   });
   registerRequestLogging(fastify, logger);
   // Errors Fastify raises itself (body limits, bad JSON) reach the error handler Nest installs at
@@ -108,19 +110,47 @@ export async function createApp(
  * JSON request bodies: Fastify's own JSON parser (prototype-poisoning checks on), made once, with
  * the bytes kept as `req.rawBody` for the billing webhook's signature check. Nest's parser, which
  * this replaces, built a new JSON parser and two closures for every request. Other content types
- * get a 415 problem, except multipart, which the uploads plugin parses.
+ * (text/plain included) get a 415 problem, except multipart, which the uploads plugin parses; so
+ * do compressed bodies. A NUL character (written `\u0000` in JSON) anywhere gets a 422 naming
+ * the field.
  */
 function registerJsonBodies(fastify: FastifyInstance, bodyLimit: number) {
   const parseJson = fastify.getDefaultJsonParser('error', 'error');
+  if (fastify.hasContentTypeParser('text/plain')) fastify.removeContentTypeParser('text/plain');
   fastify.addContentTypeParser(
     'application/json',
     { parseAs: 'buffer', bodyLimit },
     (req: FastifyRequest & { rawBody?: Buffer }, body: Buffer | string, done) => {
+      const encoding = req.headers['content-encoding'];
+      if (encoding !== undefined && encoding.toLowerCase() !== 'identity') {
+        done(
+          new DomainError(
+            'unsupported_media_type',
+            `Content-Encoding ${encoding} is not accepted; send the JSON body uncompressed.`,
+            [{ field: 'body', reason: 'must not be compressed' }],
+          ),
+        );
+        return;
+      }
       req.rawBody = body as Buffer;
       // Typed for strings; it parses Buffers too (secure-json-parse decodes them as UTF-8).
-      void parseJson(req, body as unknown as string, done);
+      void parseJson(req, body as unknown as string, (err, parsed) => {
+        if (err) {
+          // Valid JSON refused for prototype keys says so, rather than "not valid JSON".
+          const poisoned = /"(__proto__|constructor)"\s*:/.test((body as Buffer).toString('utf8'));
+          return done(poisoned ? protoProblem() : err);
+        }
+        // JSON can only carry U+0000 escaped; a quick byte search spares the walk otherwise.
+        const field = (body as Buffer).includes('\\u0000') ? findNul(parsed) : null;
+        return field === null ? done(null, parsed) : done(nulProblem(field));
+      });
     },
   );
+}
+
+function protoProblem(): DomainError {
+  const reason = 'must not have a "__proto__" or "constructor.prototype" key';
+  return new DomainError('invalid_input', `The body ${reason}.`, [{ field: 'body', reason }]);
 }
 
 /** Serves the built console at `/`, falling back to index.html for client-side routes. */

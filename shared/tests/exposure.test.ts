@@ -136,6 +136,13 @@ describe("solveBackgroundExposure keeps inside the caller's own bounds", () => {
     const r = solveBackgroundExposure({ ev100: 14, iso: 100, apertureMin: 32 });
     expect(r.aperture).toBeGreaterThanOrEqual(32);
   });
+  it('refuses ambiguous input by name: ev100 with place, or a shutter time to solve for', () => {
+    const place = { latitude: 51.5, longitude: 0, time: '2026-09-20T18:30:00Z' };
+    expect(() => solveBackgroundExposure({ ev100: 5, place } as never)).toThrow(/place/);
+    expect(() => solveBackgroundExposure({ ev100: 5, shutterSeconds: 1 / 60 } as never)).toThrow(
+      /shutterSeconds/,
+    );
+  });
   it('an isoMin above the default ceiling (ISO 6400) is honoured', () => {
     const r = solveBackgroundExposure({ ev100: -2, aperture: 5.6, isoMin: 12800 });
     expect(r.iso).toBeGreaterThanOrEqual(12800);

@@ -1194,7 +1194,7 @@ export interface components {
        */
       beamAngleDeg?: number;
       /**
-       * @description Horizontal distance of the light behind the subject (0.1..50).
+       * @description Horizontal distance of the light behind the subject (0.1..50 m, 0.1..164 ft).
        * @example 3
        */
       distanceBehind: number;
@@ -1290,17 +1290,17 @@ export interface components {
       /** @description The gels to choose from; default: the built-in catalogue of common CTO/CTB cuts. */
       gels?: {
         /**
-         * @description Green shift, CC units (+ = plus-green); default 0.
+         * @description Green shift, CC units (-60..60; + = plus-green); default 0.
          * @example 0
          */
         greenShift?: number;
         /**
-         * @description Light the gel absorbs, stops (0..8).
+         * @description Light the gel absorbs, stops (0..6).
          * @example 0.33
          */
         lossStops: number;
         /**
-         * @description Mired shift of the gel (+ = warmer, CTO; − = cooler, CTB).
+         * @description Mired shift of the gel (-400..400; + = warmer, CTO; − = cooler, CTB).
          * @example 81
          */
         miredShift: number;
@@ -1321,7 +1321,7 @@ export interface components {
        */
       miredTolerance?: number;
       /**
-       * @description Extra warmth wanted on the subject, mireds (-200..200; + = warmer).
+       * @description Extra warmth wanted on the subject, mireds (-200..200; + = warmer). With the camera white balance it must name real light: 10⁶ / cameraKelvin + offset within 1500..20000 K.
        * @example 10
        */
       targetMiredOffset?: number;
@@ -1433,6 +1433,13 @@ export interface components {
          * @enum {string}
          */
         rendersAs: 'much warmer' | 'warmer' | 'neutral' | 'cooler' | 'much cooler';
+      }[];
+      /** @description Things to look at: a stable code and a sentence for people. */
+      warnings?: {
+        /** @description Stable warning code. */
+        code: string;
+        /** @description Explanation. */
+        message: string;
       }[];
       /** @description Camera white-balance change that cancels the residual on the subject. */
       whiteBalanceFineTune?: {
@@ -1688,15 +1695,25 @@ export interface components {
          */
         consoleCalls: number;
         /**
-         * @description Calls with live keys this month.
+         * @description Calls with live keys this month, failures included.
          * @example 1520
          */
         liveCalls: number;
         /**
-         * @description Calls with test keys this month.
+         * @description Successful live-key calls this month: what counts against includedCallsPerMonth.
+         * @example 1498
+         */
+        liveCallsCounted: number;
+        /**
+         * @description Calls with test keys this month, failures included.
          * @example 310
          */
         testCalls: number;
+        /**
+         * @description Successful test-key calls this month: what counts against testCallsPerMonth.
+         * @example 301
+         */
+        testCallsCounted: number;
       };
     };
     DeleteOrganizationRequestDto: {
@@ -1975,6 +1992,11 @@ export interface components {
        * @enum {string}
        */
       distanceUnit?: 'm' | 'ft';
+      /**
+       * @description Exposure this light should give on its own, stops relative to a correct exposure at aperture and iso (-6..6); default 0. -1 when the ambient already gives half the exposure on the subject; +1 for a rim one stop brighter.
+       * @example 0
+       */
+      exposureStops?: number;
       /**
        * @description Light lost in gels, stops (0..8).
        * @example 0.67
@@ -2879,17 +2901,17 @@ export interface components {
       /** @description The gels to choose from; default: the built-in catalogue of common CTO/CTB cuts. */
       gels?: {
         /**
-         * @description Green shift, CC units (+ = plus-green); default 0.
+         * @description Green shift, CC units (-60..60; + = plus-green); default 0.
          * @example 0
          */
         greenShift?: number;
         /**
-         * @description Light the gel absorbs, stops (0..8).
+         * @description Light the gel absorbs, stops (0..6).
          * @example 0.33
          */
         lossStops: number;
         /**
-         * @description Mired shift of the gel (+ = warmer, CTO; − = cooler, CTB).
+         * @description Mired shift of the gel (-400..400; + = warmer, CTO; − = cooler, CTB).
          * @example 81
          */
         miredShift: number;
@@ -3026,7 +3048,7 @@ export interface components {
          */
         modifierLossStops?: number;
         /**
-         * @description Rim brighter than the key by, stops; default 1.
+         * @description Rim brighter than the lit side (key plus ambient, as a meter reads it), stops; default 1.
          * @example 1
          */
         rimOverKeyStops?: number;
@@ -3048,7 +3070,7 @@ export interface components {
        */
       suggestions?: number;
       /**
-       * @description Extra warmth wanted on the subject, mireds (-200..200; + = warmer).
+       * @description Extra warmth wanted on the subject, mireds (-200..200; + = warmer). With the camera white balance it must name real light: 10⁶ / cameraKelvin + offset within 1500..20000 K.
        * @example 10
        */
       targetMiredOffset?: number;
@@ -3226,17 +3248,17 @@ export interface components {
       /** @description The gels to choose from; default: the built-in catalogue of common CTO/CTB cuts. */
       gels?: {
         /**
-         * @description Green shift, CC units (+ = plus-green); default 0.
+         * @description Green shift, CC units (-60..60; + = plus-green); default 0.
          * @example 0
          */
         greenShift?: number;
         /**
-         * @description Light the gel absorbs, stops (0..8).
+         * @description Light the gel absorbs, stops (0..6).
          * @example 0.33
          */
         lossStops: number;
         /**
-         * @description Mired shift of the gel (+ = warmer, CTO; − = cooler, CTB).
+         * @description Mired shift of the gel (-400..400; + = warmer, CTO; − = cooler, CTB).
          * @example 81
          */
         miredShift: number;
@@ -3373,7 +3395,7 @@ export interface components {
          */
         modifierLossStops?: number;
         /**
-         * @description Rim brighter than the key by, stops; default 1.
+         * @description Rim brighter than the lit side (key plus ambient, as a meter reads it), stops; default 1.
          * @example 1
          */
         rimOverKeyStops?: number;
@@ -3395,7 +3417,7 @@ export interface components {
        */
       suggestions?: number;
       /**
-       * @description Extra warmth wanted on the subject, mireds (-200..200; + = warmer).
+       * @description Extra warmth wanted on the subject, mireds (-200..200; + = warmer). With the camera white balance it must name real light: 10⁶ / cameraKelvin + offset within 1500..20000 K.
        * @example 10
        */
       targetMiredOffset?: number;

@@ -79,10 +79,25 @@ export const CurrentPlanResponseDto = schemaDto('CurrentPlanResponseDto', {
     resetsAt: str('When the monthly quota resets (ISO 8601).', '2027-01-01T00:00:00.000Z'),
     usage: {
       type: 'object',
-      required: ['liveCalls', 'testCalls', 'consoleCalls', 'billableUnits'],
+      required: [
+        'liveCalls',
+        'testCalls',
+        'consoleCalls',
+        'billableUnits',
+        'liveCallsCounted',
+        'testCallsCounted',
+      ],
       properties: {
-        liveCalls: num('Calls with live keys this month.', 1520),
-        testCalls: num('Calls with test keys this month.', 310),
+        liveCalls: num('Calls with live keys this month, failures included.', 1520),
+        testCalls: num('Calls with test keys this month, failures included.', 310),
+        liveCallsCounted: num(
+          'Successful live-key calls this month: what counts against includedCallsPerMonth.',
+          1498,
+        ),
+        testCallsCounted: num(
+          'Successful test-key calls this month: what counts against testCallsPerMonth.',
+          301,
+        ),
         consoleCalls: num('Calls from the console this month (not billed).', 42),
         billableUnits: num('Billable units this month (successful live calls).', 1498),
       },

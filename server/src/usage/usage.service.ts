@@ -108,16 +108,22 @@ export class UsageService {
   }
 
   async monthTotals(orgId: string, periodStart: string) {
-    const rows: { source: string; calls: number; units: number }[] = await this.ds.query(
-      `SELECT source, SUM(calls)::int AS calls, SUM(billable_units)::int AS units FROM usage_daily
+    const rows: { source: string; calls: number; ok: number; units: number }[] =
+      await this.ds.query(
+        `SELECT source, SUM(calls)::int AS calls, SUM(billable_units)::int AS units,
+              (SUM(calls) FILTER (WHERE status BETWEEN 200 AND 299))::int AS ok FROM usage_daily
        WHERE organization_id = $1 AND day >= $2::date
          AND day < ($2::date + interval '1 month') GROUP BY source`,
-      [orgId, periodStart],
-    );
+        [orgId, periodStart],
+      );
     const by = (s: string) => rows.find((r) => r.source === s)?.calls ?? 0;
+    // The monthly limits count successful calls only (a failed call gives its quota back).
+    const ok = (s: string) => rows.find((r) => r.source === s)?.ok ?? 0;
     return {
       liveCalls: by('live'),
       testCalls: by('test'),
+      liveCallsCounted: ok('live'),
+      testCallsCounted: ok('test'),
       consoleCalls: by('console'),
       billableUnits: rows.reduce((a, r) => a + (r.units ?? 0), 0),
     };

@@ -5,6 +5,7 @@
 // every route and cross-organisation isolation (accounts-access, gear, setups, frames, usage),
 // webhook signatures and replays (billing), JSON body limit (foundation, compute).
 import { createHmac, randomUUID } from 'node:crypto';
+import { gzipSync } from 'node:zlib';
 import { METHOD_METADATA, PATH_METADATA } from '@nestjs/common/constants.js';
 import { RequestMethod } from '@nestjs/common';
 import { ModulesContainer } from '@nestjs/core';
@@ -113,14 +114,51 @@ describe('security', () => {
       .post('/v1/balance')
       .set('Content-Type', 'application/json')
       .send('{"cameraKelvin": 3200, "__proto__": {"admin": true}}');
-    expect(proto.status).toBe(400);
-    expect(proto.body.errors).toEqual([{ field: 'body', reason: expect.any(String) }]);
+    expect(proto.status).toBe(422);
+    expect(proto.body.errors).toEqual([
+      { field: 'body', reason: expect.stringMatching(/__proto__/) },
+    ]);
+    // Plain text and compressed bodies are other media: 415, not a parse or validation error.
+    const text = await request(t.url)
+      .post('/v1/balance')
+      .set('Content-Type', 'text/plain')
+      .send('cameraKelvin=3800');
+    expect(text.status).toBe(415);
+    const gzip = await request(t.url)
+      .post('/v1/balance')
+      .set('Content-Type', 'application/json')
+      .set('Content-Encoding', 'gzip')
+      .send(gzipSync(JSON.stringify({ cameraKelvin: 3800 })));
+    expect(gzip.status).toBe(415);
+    expect(gzip.body.errors).toEqual([{ field: 'body', reason: 'must not be compressed' }]);
     const charset = await request(t.url)
       .post('/v1/auth/sign-in')
       .set('Content-Type', 'application/json; charset=utf-8')
       .set('Origin', t.url)
       .send(JSON.stringify({ email: 'nobody@nowhere.test', password: 'not-the-password-1' }));
     expect(charset.status).toBe(401);
+  });
+
+  it('API8: a NUL character (U+0000) anywhere is a 422 naming the field, and nothing is saved', async () => {
+    const key = await createKey(owner, 'test');
+    const gel = await request(t.url)
+      .post('/v1/balance')
+      .set('Authorization', `Bearer ${key.secret}`)
+      .send({
+        cameraKelvin: 3800,
+        gels: [{ name: 'half\u0000warm', miredShift: 81, lossStops: 0.3 }],
+      });
+    expect(gel.status).toBe(422);
+    expect(gel.headers['content-type']).toMatch(/^application\/problem\+json/);
+    expect(gel.body.errors).toEqual([{ field: 'gels[0].name', reason: expect.any(String) }]);
+    const before = (await owner.agent.get('/v1/organization').expect(200)).body.name;
+    const rename = await owner.agent.patch('/v1/organization').send({ name: 'Null\u0000Studio' });
+    expect(rename.status).toBe(422);
+    expect(rename.body.errors).toEqual([{ field: 'name', reason: expect.any(String) }]);
+    expect((await owner.agent.get('/v1/organization').expect(200)).body.name).toBe(before);
+    const search = await owner.agent.get('/v1/setups?q=%00');
+    expect(search.status).toBe(422);
+    expect(search.body.errors).toEqual([{ field: 'q', reason: expect.any(String) }]);
   });
 
   it('API8 CORS: only the configured console origin is granted, never with credentials', async () => {

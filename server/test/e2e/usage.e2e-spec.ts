@@ -132,6 +132,14 @@ describe('usage API', () => {
     const res = await org.owner.agent.get('/v1/plans/current').expect(200);
     expect(res.body.plan.code).toBe('studio');
     expect(res.body.usage).toMatchObject({ liveCalls: 8, testCalls: 3, billableUnits: 7 });
+    // The monthly limits count successful calls: the same number as the 2xx events listed.
+    const events = (await org.owner.agent.get('/v1/usage/events').query({ limit: 100 }).expect(200))
+      .body.data as { source: string; status: number }[];
+    const ok = (source: string) =>
+      events.filter((e) => e.source === source && e.status >= 200 && e.status < 300).length;
+    expect(res.body.usage.liveCallsCounted).toBe(ok('live'));
+    expect(res.body.usage.liveCallsCounted).toBe(7);
+    expect(res.body.usage.testCallsCounted).toBe(ok('test'));
     const plans = await request(t.url).get('/v1/plans').expect(200);
     expect(plans.body.data.map((p: { code: string }) => p.code)).toEqual([
       'free',

@@ -58,6 +58,13 @@ export interface BackgroundExposureResult extends ExposureResult {
 function readInput(input: BackgroundExposureInput) {
   const o = requireObject('input', input);
   let ev100 = maybeNumber('ev100', o.ev100, EV100_RANGE);
+  if (ev100 !== undefined && o.place !== undefined && o.place !== null)
+    throw new LightingInputError('place', 'give ev100 or place, not both');
+  if (o.shutterSeconds !== undefined && o.shutterSeconds !== null)
+    throw new LightingInputError(
+      'shutterSeconds',
+      'is what the background solver finds; leave it out',
+    );
   let source: 'ev100' | 'place' = 'ev100';
   if (ev100 === undefined) {
     if (o.place === undefined) throw new LightingInputError('ev100', 'give ev100 or place');

@@ -48,7 +48,7 @@ export function computeBacklight(input: BacklightInput): BacklightResult {
   const maxH = unit === 'ft' ? 33 : 10;
   const h = toMetres(requireNumber('lightHeight', o.lightHeight, { min: 0, max: maxH }), unit);
   const behind = toMetres(
-    requireNumber('distanceBehind', o.distanceBehind, { min: 0.1, max: 160 }),
+    requireNumber('distanceBehind', o.distanceBehind, { min: 0.1, max: unit === 'ft' ? 164 : 50 }),
     unit,
   );
   const head = toMetres(

@@ -62,7 +62,13 @@ export class AccessGuard implements CanActivate {
         rule.kind === 'api-key-or-session'
           ? { 'WWW-Authenticate': 'Bearer realm="lumenwright"' }
           : {};
-      throw new DomainError('unauthenticated', 'Sign in or send an API key.', [], headers);
+      const detail =
+        rule.kind === 'api-key-or-session'
+          ? 'Sign in or send an API key.'
+          : hasBearer
+            ? 'This route takes a signed-in console session; API keys cannot use it.'
+            : 'Sign in first.';
+      throw new DomainError('unauthenticated', detail, [], headers);
     }
     if (!principal.role || !rule.roles.includes(principal.role)) {
       throw new DomainError('forbidden', 'Your role does not allow this.');

@@ -10,7 +10,10 @@ export const backlightRequestSchema: ObjectSchema = {
   required: ['lightHeight', 'distanceBehind'],
   properties: {
     lightHeight: num('Height of the light above the ground, in distanceUnit (0..10 m).', 2),
-    distanceBehind: num('Horizontal distance of the light behind the subject (0.1..50).', 3),
+    distanceBehind: num(
+      'Horizontal distance of the light behind the subject (0.1..50 m, 0.1..164 ft).',
+      3,
+    ),
     headHeight: num('Height of the subject’s head; default 1.6 m.', 1.7),
     distanceUnit: lengthUnit('Unit of every distance.'),
     tiltDeg: num(

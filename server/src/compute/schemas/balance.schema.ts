@@ -22,7 +22,7 @@ export const balanceRequestSchema: ObjectSchema = {
     ),
     gels: {
       type: 'array',
-      maxItems: 200,
+      maxItems: 30,
       description:
         'The gels to choose from; default: the built-in catalogue of common CTO/CTB cuts.',
       items: {
@@ -30,10 +30,13 @@ export const balanceRequestSchema: ObjectSchema = {
         additionalProperties: false,
         required: ['name', 'miredShift', 'lossStops'],
         properties: {
-          name: str('Your name for the gel.', 'Half warming', { minLength: 1, maxLength: 80 }),
-          miredShift: num('Mired shift of the gel (+ = warmer, CTO; − = cooler, CTB).', 81),
-          greenShift: num('Green shift, CC units (+ = plus-green); default 0.', 0),
-          lossStops: num('Light the gel absorbs, stops (0..8).', 0.33),
+          name: str('Your name for the gel.', 'Half warming', { minLength: 1, maxLength: 60 }),
+          miredShift: num(
+            'Mired shift of the gel (-400..400; + = warmer, CTO; − = cooler, CTB).',
+            81,
+          ),
+          greenShift: num('Green shift, CC units (-60..60; + = plus-green); default 0.', 0),
+          lossStops: num('Light the gel absorbs, stops (0..6).', 0.33),
         },
       },
     },
