@@ -80,6 +80,20 @@ describe('planDuskSetup', () => {
     });
     expect(m?.rimFlash?.powerFraction).toBeCloseTo(2 * rimAlone.powerFraction, 6);
   });
+  it('on a tripod, minutes slower than 1/15 s are not usable (ghosting; common practice, no source)', () => {
+    const tripod = planDuskSetup({
+      ...input,
+      camera: { ...input.camera, support: 'tripod' },
+      stepMinutes: 1,
+    } as never);
+    const slow = tripod.suggestedMinutes.filter(
+      (m) => m.background.shutterSeconds > (1 / 15) * 1.001, // shutter times are rounded
+    );
+    for (const m of slow) expect(m.usable).toBe(false);
+    for (const m of tripod.suggestedMinutes.filter((x) => x.usable))
+      expect(m.background.shutterSeconds).toBeLessThanOrEqual((1 / 15) * 1.001);
+    expect(tripod.window.usableEnd).not.toBeNull();
+  });
   it('warns when the ambient alone almost exposes the subject', () => {
     const bright = planDuskSetup({ ...input, camera: { ...input.camera, biasStops: 0 } });
     const m = bright.suggestedMinutes.find((x) => x.background.shortfallStops === 0);

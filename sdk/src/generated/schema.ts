@@ -2838,7 +2838,7 @@ export interface components {
          */
         slowestHandheldSeconds?: number;
         /**
-         * @description Handheld or on a tripod.
+         * @description Handheld (the shutter stops at 1/60 s before ISO rises) or on a tripod (it may go to 1/15 s, where a person starts to ghost).
          * @example handheld
          * @enum {string}
          */
@@ -3185,7 +3185,7 @@ export interface components {
          */
         slowestHandheldSeconds?: number;
         /**
-         * @description Handheld or on a tripod.
+         * @description Handheld (the shutter stops at 1/60 s before ISO rises) or on a tripod (it may go to 1/15 s, where a person starts to ghost).
          * @example handheld
          * @enum {string}
          */

@@ -112,6 +112,9 @@ function readInput(input: BackgroundExposureInput) {
   };
 }
 
+/** Longest ambient exposure before a person ghosts under the flash, s (common practice, no source). */
+export const GHOSTING_LIMIT_SECONDS = 1 / 15;
+
 /**
  * Background (ambient) exposure under constraints. Aperture fixed (default f/5.6): ISO rises
  * from isoMin only as far as needed to keep the shutter at or above the slowest allowed time,
@@ -159,7 +162,7 @@ export function solveBackgroundExposure(input: BackgroundExposureInput): Backgro
       message: `${shutterLabel(t)} is slower than the hand-held limit ${shutterLabel(p.handheld)}: use a tripod or accept more ISO.`,
     });
   }
-  if (t > 1 / 15) {
+  if (t > GHOSTING_LIMIT_SECONDS) {
     warnings.push({
       code: 'subject-motion',
       message:

@@ -4,6 +4,7 @@ import { solveBalance, type BalanceResult } from '../color/balance.js';
 import { duskScene, type SceneSwatch } from '../color/scene.js';
 import {
   EV100_RANGE,
+  GHOSTING_LIMIT_SECONDS,
   solveBackgroundExposure,
   type BackgroundExposureResult,
 } from '../exposure/background.js';
@@ -24,7 +25,10 @@ export interface SuggestedMinute {
   background: BackgroundExposureResult;
   keyFlash: FlashResult;
   rimFlash: FlashResult | null;
-  /** True when settings stay inside every limit and the flashes are feasible. */
+  /**
+   * True when settings stay inside every limit (no background warning, ghosting past 1/15 s
+   * included) and the flashes are feasible.
+   */
   usable: boolean;
 }
 
@@ -107,6 +111,8 @@ function minuteAt(s: Setup, p: AmbientPoint, gelLoss: number): SuggestedMinute {
       aperture: s.aperture,
       biasStops: s.bias,
       flashSyncSeconds: s.sync,
+      // A portrait: on a tripod the shutter stops at the ghosting limit and ISO rises after it.
+      slowestTripodSeconds: GHOSTING_LIMIT_SECONDS,
     }),
   );
   const share = keyShare(s.bias, background.shortfallStops);
@@ -126,8 +132,10 @@ function minuteAt(s: Setup, p: AmbientPoint, gelLoss: number): SuggestedMinute {
     });
   }
   const rimFlash = s.rim ? rimPower(s, background, gelLoss) : null;
+  // Any background warning rules a minute out, ghosting included: the ambient gives a large share
+  // of the subject's exposure, so past 1/15 s a moving person blurs under the flash.
   const usable =
-    background.warnings.every((w) => w.code === 'subject-motion') &&
+    background.warnings.length === 0 &&
     keyFlash.feasible &&
     (rimFlash === null || rimFlash.feasible);
   return {
@@ -282,7 +290,7 @@ function planWarnings(
     out.push({
       code: 'no-usable-minute',
       message:
-        'No minute in the window fits every limit: see each minute\u2019s warnings (ISO ceiling, tripod, sync, flash power).',
+        'No minute in the window fits every limit: see each minute\u2019s warnings (ISO ceiling, tripod, ghosting past 1/15 s, sync, flash power).',
     });
   }
   for (const w of backlight?.warnings ?? [])

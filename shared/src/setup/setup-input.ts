@@ -28,6 +28,10 @@ export interface DuskSetupInput {
     isoMin?: number;
     /** ISO ceiling; default 6400. */
     isoMax?: number;
+    /**
+     * Hand-held (default): the shutter stops at `slowestHandheldSeconds` (1/60) before ISO rises.
+     * Tripod: it may go to 1/15 s, where a person starts to ghost.
+     */
     support?: 'handheld' | 'tripod';
     slowestHandheldSeconds?: number;
     /** Flash sync speed, s; default 1/200. */

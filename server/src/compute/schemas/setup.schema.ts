@@ -41,7 +41,12 @@ export const setupRequestSchema: ObjectSchema = {
       aperture: num('Working f-number; default 5.6.', 4),
       isoMin: num('Lowest ISO to use.', 100),
       isoMax: num('ISO ceiling; default 6400.', 3200),
-      support: str('Handheld or on a tripod.', 'handheld', { enum: ['handheld', 'tripod'] }),
+      support: str(
+        'Handheld (the shutter stops at 1/60 s before ISO rises) or on a tripod (it may go to ' +
+          '1/15 s, where a person starts to ghost).',
+        'handheld',
+        { enum: ['handheld', 'tripod'] },
+      ),
       slowestHandheldSeconds: num('Slowest handheld shutter time, seconds.', 0.0167),
       flashSyncSeconds: num('Flash sync speed, seconds; default 1/200.', 0.005),
       biasStops: num('Background bias, stops (taste); default −1.', -1),
