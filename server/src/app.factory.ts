@@ -2,6 +2,7 @@
 import { randomUUID } from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
+import type { Duplex } from 'node:stream';
 import { ValidationError, ValidationPipe } from '@nestjs/common';
 import { NestFactory } from '@nestjs/core';
 import { FastifyAdapter, NestFastifyApplication } from '@nestjs/platform-fastify';
@@ -43,6 +44,12 @@ export async function createApp(
     },
     trustProxy: false,
     routerOptions: { ignoreTrailingSlash: true },
+    // Refusals made before a route is found are problem+json too.
+    frameworkErrors: (err: Error, _req: FastifyRequest, reply: FastifyReply) => {
+      const { problem } = toProblem(err);
+      void reply.code(problem.status).type('application/problem+json').send(problem);
+    },
+    clientErrorHandler: writeClientError,
   });
   const app = await NestFactory.create<NestFastifyApplication>(AppModule.forRoot(config), adapter, {
     preview: opts.preview ?? false,
@@ -146,6 +153,31 @@ function registerJsonBodies(fastify: FastifyInstance, bodyLimit: number) {
       });
     },
   );
+}
+
+/**
+ * Requests Node's HTTP parser refuses (headers too large, a timeout, malformed HTTP) never reach
+ * Fastify: answer them on the socket as problem+json, then close it.
+ */
+function writeClientError(err: NodeJS.ErrnoException, socket: Duplex): void {
+  if (err.code === 'ECONNRESET' || socket.destroyed) return;
+  const status =
+    err.code === 'HPE_HEADER_OVERFLOW' ? 431 : err.code === 'ERR_HTTP_REQUEST_TIMEOUT' ? 408 : 400;
+  const detail =
+    status === 431
+      ? 'The request headers are larger than the server accepts.'
+      : status === 408
+        ? 'The request did not arrive in time.'
+        : 'The request is not valid HTTP.';
+  const { problem } = toProblem({ statusCode: status, message: detail });
+  const body = JSON.stringify(problem);
+  if (socket.writable) {
+    socket.write(
+      `HTTP/1.1 ${status} ${problem.title}\r\nContent-Type: application/problem+json\r\n` +
+        `Content-Length: ${Buffer.byteLength(body)}\r\nConnection: close\r\n\r\n${body}`,
+    );
+  }
+  socket.destroy(err);
 }
 
 function protoProblem(): DomainError {

@@ -161,6 +161,18 @@ describe('security', () => {
     expect(search.body.errors).toEqual([{ field: 'q', reason: expect.any(String) }]);
   });
 
+  it('API8: refusals before routing are problem+json too (URI too long 414, headers too large 431)', async () => {
+    const longId = await owner.agent.delete(`/v1/keys/${'a'.repeat(5000)}`);
+    expect(longId.status).toBe(414);
+    expect(longId.headers['content-type']).toMatch(/^application\/problem\+json/);
+    expect(longId.body).toMatchObject({ status: 414, title: 'URI too long' });
+    // Node's default header limit is 16 KiB.
+    const bigHeader = await request(t.url).get('/v1/health').set('X-Padding', 'x'.repeat(20_000));
+    expect(bigHeader.status).toBe(431);
+    expect(bigHeader.headers['content-type']).toMatch(/^application\/problem\+json/);
+    expect(bigHeader.body).toMatchObject({ status: 431 });
+  });
+
   it('API8 CORS: only the configured console origin is granted, never with credentials', async () => {
     const ok = await request(t.url)
       .options('/v1/balance')
