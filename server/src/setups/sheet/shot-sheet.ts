@@ -74,7 +74,13 @@ const MINUTE_COLUMNS = [
 ] as const;
 
 function minutes(p: DuskSetupPlan): string {
-  const notEnough = ' <span class="no">(not enough power)</span>';
+  // Out of the light's range either way: name which end, as the plan's warnings do.
+  const outOfRange = (f: { feasible: boolean; warnings: Array<{ code: string }> }): string =>
+    f.feasible
+      ? ''
+      : f.warnings.some((w) => w.code === 'below-min-power')
+        ? ' <span class="no">(below the lowest power)</span>'
+        : ' <span class="no">(over full power)</span>';
   const rows = p.suggestedMinutes
     .map((m) => {
       const cells = [
@@ -82,8 +88,8 @@ function minutes(p: DuskSetupPlan): string {
         `${fmt(m.sunAltitudeDeg)}°`,
         fmt(m.ambientEv100),
         `${esc(m.background.shutterLabel)} · ${esc(m.background.apertureLabel)} · ${esc(m.background.isoLabel)}`,
-        esc(m.keyFlash.powerLabel) + (m.keyFlash.feasible ? '' : notEnough),
-        m.rimFlash ? esc(m.rimFlash.powerLabel) + (m.rimFlash.feasible ? '' : notEnough) : '—',
+        esc(m.keyFlash.powerLabel) + outOfRange(m.keyFlash),
+        m.rimFlash ? esc(m.rimFlash.powerLabel) + outOfRange(m.rimFlash) : '—',
         m.usable ? 'yes' : '<span class="no">no</span>',
       ];
       // data-label: on a phone each minute becomes a card of label/value lines (sheet-style.ts).

@@ -25,9 +25,22 @@ export interface SiteConditions {
   modellingLamps: boolean;
 }
 
+/** A place and date another tab asks the Twilight tab to show (a reopened saved setup's). */
+export interface PlaceRequest {
+  latitude: number;
+  longitude: number;
+  date: string;
+  timeZone: string;
+  sky: 'clear' | 'partly-cloudy' | 'overcast';
+  /** Counts requests, so asking twice for the same place still applies it. */
+  seq: number;
+}
+
 interface SceneValue {
   moment: SceneMoment | null;
   setMoment: (moment: SceneMoment | null) => void;
+  placeRequest: PlaceRequest | null;
+  requestPlace: (place: Omit<PlaceRequest, 'seq'>) => void;
   conditions: SiteConditions;
   setConditions: (conditions: SiteConditions) => void;
   /** Cautions for a result that puts `stands` light stands on the site. */
@@ -46,13 +59,27 @@ const SceneContext = createContext<SceneValue | null>(null);
 export function PlaygroundSceneProvider({ children }: { children: React.ReactNode }) {
   const [moment, setMoment] = useState<SceneMoment | null>(null);
   const [conditions, setConditions] = useState<SiteConditions>(initialConditions);
+  const [placeRequest, setPlaceRequest] = useState<PlaceRequest | null>(null);
+  const requestPlace = useCallback(
+    (place: Omit<PlaceRequest, 'seq'>) =>
+      setPlaceRequest((previous) => ({ ...place, seq: (previous?.seq ?? 0) + 1 })),
+    [],
+  );
   const cautions = useCallback(
     (stands: number) => cautionsFor({ ...conditions, standsCount: stands }),
     [conditions],
   );
   const value = useMemo(
-    () => ({ moment, setMoment, conditions, setConditions, cautionsFor: cautions }),
-    [moment, conditions, cautions],
+    () => ({
+      moment,
+      setMoment,
+      placeRequest,
+      requestPlace,
+      conditions,
+      setConditions,
+      cautionsFor: cautions,
+    }),
+    [moment, placeRequest, requestPlace, conditions, cautions],
   );
   return <SceneContext.Provider value={value}>{children}</SceneContext.Provider>;
 }

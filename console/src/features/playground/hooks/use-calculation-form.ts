@@ -11,7 +11,7 @@ import {
   type PathValue,
   type Resolver,
 } from 'react-hook-form';
-import type { z } from 'zod';
+import { z } from 'zod';
 import { useLengthUnit, type DisplayUnit } from './use-length-unit';
 import { usePreview } from './use-preview';
 
@@ -70,11 +70,15 @@ export function useCalculationForm<F extends FieldValues, I, R>({
     return sharedError?.field === sharedField ? sharedError.reason : undefined;
   };
 
-  /** Props for a numeric TextField bound to `field`. */
-  const numberField = (field: Path<F>, sharedField?: string) => ({
+  /**
+   * Props for a numeric TextField bound to `field`. `whenEmpty` is what the calculation uses for an
+   * empty box (e.g. "default 5.6"), shown as the placeholder so an empty box never hides a value.
+   */
+  const numberField = (field: Path<F>, sharedField?: string, whenEmpty?: string) => ({
     type: 'number',
     step: 'any',
     inputMode: 'decimal' as const,
+    ...(whenEmpty ? { placeholder: whenEmpty } : {}),
     error: errorFor(field, sharedField),
     ...form.register(field, { valueAsNumber: true }),
   });
@@ -85,4 +89,19 @@ export function useCalculationForm<F extends FieldValues, I, R>({
 /** valueAsNumber gives NaN for an empty box: treat that as "not given". */
 export function given(value: number | undefined): number | undefined {
   return value === undefined || Number.isNaN(value) ? undefined : value;
+}
+
+/** An optional number box: a number, or NaN (empty) for "not given". */
+export const optionalNumberField = z.union([z.number(), z.nan()]).optional();
+
+/** An optional 1/x seconds box: x above 0 when given (1/0 has no meaning). */
+export const optionalDenominatorField = optionalNumberField.refine(
+  (v) => v === undefined || Number.isNaN(v) || v > 0,
+  { error: 'Enter x of 1/x s above 0, e.g. 200, or leave it empty' },
+);
+
+/** 1/x seconds from a denominator box, or undefined when it is empty. */
+export function secondsFrom(denominator: number | undefined): number | undefined {
+  const x = given(denominator);
+  return x === undefined ? undefined : 1 / x;
 }

@@ -9,6 +9,7 @@ import { PageLoading } from '@/components/ui/page-loading';
 import { TextField } from '@/components/ui/text-field';
 import { problemMessage } from '@/lib/form-errors';
 import { formatDate } from '@/lib/format';
+import { useCan } from '@/lib/session';
 import { shootingWindow } from '../window';
 import { currentCursor, firstPageParams } from '@/lib/pagination';
 import {
@@ -29,6 +30,8 @@ export function SetupsPage() {
   const [saving, setSaving] = useState(false);
   const [deleting, setDeleting] = useState<SavedSetupSummary | null>(null);
   const [actionError, setActionError] = useState<string | null>(null);
+  // Reading roles (developers) open setups and sheets; only `setups:manage` changes them.
+  const canManage = useCan('setups:manage');
 
   const columns = useMemo<DataColumn<SavedSetupSummary>[]>(
     () => [
@@ -50,35 +53,39 @@ export function SetupsPage() {
           return (
             <div className="flex flex-wrap gap-2">
               <SetupLinks setup={setup} />
-              <Button
-                variant="secondary"
-                className="px-2 py-1 text-small"
-                aria-label={`Duplicate ${setup.name}`}
-                onClick={() => {
-                  setActionError(null);
-                  duplicate.mutate(
-                    { id: setup.id, name: `${setup.name} (copy)`.slice(0, 100) },
-                    { onError: (error) => setActionError(problemMessage(error)) },
-                  );
-                }}
-              >
-                Duplicate
-              </Button>
-              <Button
-                variant="danger"
-                className="px-2 py-1 text-small"
-                aria-label={`Delete ${setup.name}`}
-                onClick={() => setDeleting(setup)}
-              >
-                Delete
-              </Button>
+              {canManage ? (
+                <>
+                  <Button
+                    variant="secondary"
+                    className="px-2 py-1 text-small"
+                    aria-label={`Duplicate ${setup.name}`}
+                    onClick={() => {
+                      setActionError(null);
+                      duplicate.mutate(
+                        { id: setup.id, name: `${setup.name} (copy)`.slice(0, 100) },
+                        { onError: (error) => setActionError(problemMessage(error)) },
+                      );
+                    }}
+                  >
+                    Duplicate
+                  </Button>
+                  <Button
+                    variant="danger"
+                    className="px-2 py-1 text-small"
+                    aria-label={`Delete ${setup.name}`}
+                    onClick={() => setDeleting(setup)}
+                  >
+                    Delete
+                  </Button>
+                </>
+              ) : null}
             </div>
           );
         },
       },
     ],
     // eslint-disable-next-line react-hooks/exhaustive-deps -- the mutation object is stable
-    [],
+    [canManage],
   );
 
   const closeDelete = () => {
@@ -109,8 +116,14 @@ export function SetupsPage() {
             hint="Name, venue or notes; press Enter."
           />
         </form>
-        <Button onClick={() => setSaving(true)}>Save a setup</Button>
+        {canManage ? <Button onClick={() => setSaving(true)}>Save a setup</Button> : null}
       </div>
+      {canManage ? null : (
+        <Notice className="mb-4">
+          Your role can open saved setups and their shot sheets. Saving, duplicating and deleting
+          are for photographers, admins and owners.
+        </Notice>
+      )}
       {actionError ? (
         <Notice tone="fault" className="mb-4">
           {actionError}
@@ -130,7 +143,7 @@ export function SetupsPage() {
           footer={<CursorPager nextCursor={setups.data.nextCursor} label="Setups" />}
         />
       )}
-      <SaveSetupDialog open={saving} onClose={() => setSaving(false)} />
+      {canManage ? <SaveSetupDialog open={saving} onClose={() => setSaving(false)} /> : null}
       <ConfirmDialog
         open={deleting !== null}
         title={`Delete “${deleting?.name ?? ''}”?`}

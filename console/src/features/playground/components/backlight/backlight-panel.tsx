@@ -94,11 +94,18 @@ export function BacklightPanel() {
         <FormGrid legend="Rim light behind the subject">
           <TextField label={`Height (${unit})`} {...numberField('lightHeight')} />
           <TextField label={`Behind subject (${unit})`} {...numberField('distanceBehind')} />
-          <TextField label={`Head height (${unit})`} {...numberField('headHeight')} />
+          <TextField
+            label={`Head height (${unit})`}
+            {...numberField(
+              'headHeight',
+              undefined,
+              `default ${fixed(fromMetres(DEFAULT_HEAD_M, unit), 2)}`,
+            )}
+          />
           <TextField
             label="Tilt (°, + up)"
             hint="Empty: aimed at the head"
-            {...numberField('tiltDeg')}
+            {...numberField('tiltDeg', undefined, 'aimed at the head')}
           />
           <SelectField
             label="Beam"

@@ -79,15 +79,24 @@ export function BalancePanel() {
           <TextField
             label="Camera tint (CC)"
             hint="+ for greenish ambient"
-            {...numberField('cameraTint')}
+            {...numberField('cameraTint', undefined, 'default 0')}
           />
-          <TextField label="Bare flash (K)" {...numberField('flashKelvin')} />
-          <TextField label="Extra warmth on skin (mired)" {...numberField('targetMiredOffset')} />
-          <TextField label="Most gels in a stack" {...numberField('maxGels')} />
+          <TextField
+            label="Bare flash (K)"
+            {...numberField('flashKelvin', undefined, 'default 5500')}
+          />
+          <TextField
+            label="Extra warmth on skin (mired)"
+            {...numberField('targetMiredOffset', undefined, 'default 0')}
+          />
+          <TextField
+            label="Most gels in a stack"
+            {...numberField('maxGels', undefined, 'default 3')}
+          />
           <TextField
             label="Close enough (mired)"
             hint="Fewer gels when within this; 0 = closest"
-            {...numberField('miredTolerance')}
+            {...numberField('miredTolerance', undefined, 'default 0')}
           />
         </FormGrid>
         <p className="text-caption text-ink-muted">

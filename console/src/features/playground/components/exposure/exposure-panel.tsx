@@ -6,7 +6,12 @@ import {
 import { z } from 'zod';
 import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
-import { given, useCalculationForm } from '../../hooks/use-calculation-form';
+import {
+  given,
+  optionalDenominatorField,
+  secondsFrom,
+  useCalculationForm,
+} from '../../hooks/use-calculation-form';
 import { clockTime, fixed, stops } from '../../utils/format';
 import { CalculationResult } from '../calculation-result';
 import { FormGrid, Readouts } from '../form-grid';
@@ -23,8 +28,8 @@ const schema = z.object({
   isoMin: maybe,
   isoMax: maybe,
   support: z.enum(['handheld', 'tripod']),
-  handheldDenominator: maybe,
-  syncDenominator: maybe,
+  handheldDenominator: optionalDenominatorField,
+  syncDenominator: optionalDenominatorField,
 });
 type ExposureForm = z.infer<typeof schema>;
 
@@ -60,10 +65,8 @@ function toInput(
     aperture: given(form.aperture),
     isoMin: given(form.isoMin),
     isoMax: given(form.isoMax),
-    slowestHandheldSeconds: given(form.handheldDenominator)
-      ? 1 / form.handheldDenominator!
-      : undefined,
-    flashSyncSeconds: given(form.syncDenominator) ? 1 / form.syncDenominator! : undefined,
+    slowestHandheldSeconds: secondsFrom(form.handheldDenominator),
+    flashSyncSeconds: secondsFrom(form.syncDenominator),
   };
   for (const [key, value] of Object.entries(optional)) {
     if (value !== undefined) (input as Record<string, unknown>)[key] = value;
@@ -119,11 +122,11 @@ export function ExposurePanel() {
           <TextField
             label="Background bias (stops)"
             hint="Taste: −1 keeps the sky a stop under"
-            {...numberField('biasStops')}
+            {...numberField('biasStops', undefined, 'default 0')}
           />
         </FormGrid>
         <FormGrid legend="Camera limits">
-          <TextField label="Aperture (f/)" {...numberField('aperture')} />
+          <TextField label="Aperture (f/)" {...numberField('aperture', undefined, 'default 5.6')} />
           <SelectField
             label="Support"
             options={[
@@ -132,16 +135,16 @@ export function ExposurePanel() {
             ]}
             {...form.register('support')}
           />
-          <TextField label="Lowest ISO" {...numberField('isoMin')} />
-          <TextField label="Highest ISO" {...numberField('isoMax')} />
+          <TextField label="Lowest ISO" {...numberField('isoMin', undefined, 'default 100')} />
+          <TextField label="Highest ISO" {...numberField('isoMax', undefined, 'default 6400')} />
           <TextField
             label="Slowest hand-held (1/x s)"
-            {...numberField('handheldDenominator', 'slowestHandheldSeconds')}
+            {...numberField('handheldDenominator', 'slowestHandheldSeconds', 'default 60')}
           />
           <TextField
             label="Flash sync (1/x s)"
             hint="Leave empty without flash"
-            {...numberField('syncDenominator', 'flashSyncSeconds')}
+            {...numberField('syncDenominator', 'flashSyncSeconds', 'no flash limit')}
           />
         </FormGrid>
         {errorFor('source', 'place.time') ? (

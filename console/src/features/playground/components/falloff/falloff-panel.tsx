@@ -57,12 +57,12 @@ export function FalloffPanel() {
           <TextField
             label="To the background"
             hint="Optional"
-            {...numberField('backgroundDistance')}
+            {...numberField('backgroundDistance', undefined, 'not set')}
           />
           <TextField
             label="To the ground in frame"
             hint="Optional"
-            {...numberField('groundDistance')}
+            {...numberField('groundDistance', undefined, 'not set')}
           />
         </FormGrid>
       </form>

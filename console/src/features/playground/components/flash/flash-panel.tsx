@@ -106,7 +106,7 @@ export function FlashPanel() {
           />
           <TextField label={`Light to subject (${unit})`} {...numberField('distance')} />
           <TextField label="Aperture (f/)" {...numberField('aperture')} />
-          <TextField label="ISO" {...numberField('iso')} />
+          <TextField label="ISO" {...numberField('iso', undefined, 'default 100')} />
           <SelectField
             label="Modifier"
             className="col-span-2"
@@ -116,12 +116,12 @@ export function FlashPanel() {
           <TextField
             label="Modifier loss (stops)"
             hint={`Empty: about ${MODIFIERS[modifier].lossStops}`}
-            {...numberField('modifierLossStops')}
+            {...numberField('modifierLossStops', undefined, 'from the modifier')}
           />
           <TextField
             label="Gel loss (stops)"
             hint="From the Gels tab"
-            {...numberField('gelLossStops')}
+            {...numberField('gelLossStops', undefined, 'default 0')}
           />
         </FormGrid>
       </form>

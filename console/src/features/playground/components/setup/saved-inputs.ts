@@ -16,26 +16,106 @@ export interface SavedPlace {
 /** The rim beam choices the form offers, in degrees. */
 export const RIM_BEAMS = [100, 40, 30, 20, 10] as const;
 
-/** Saved inputs that have no field in the Dusk setup form: reopened without them. */
-const UNSUPPORTED = [
-  'elevation',
-  'flashKelvin',
+/**
+ * Saved values with no field in the Dusk setup form, with what the notice calls them. A reopened
+ * setup carries them into its plan unchanged, so the preview matches the saved plan and its sheet.
+ */
+const CARRIED = {
+  elevation: 'elevation',
+  flashKelvin: 'flash colour temperature',
+  gels: 'gel list',
+  maxGels: 'most gels in a stack',
+  targetMiredOffset: 'skin warmth offset',
+  stepMinutes: 'minutes between points',
+  suggestions: 'number of suggested minutes',
+  'camera.isoMin': 'lowest ISO',
+  'camera.slowestHandheldSeconds': 'slowest hand-held shutter',
+  'camera.tint': 'camera tint',
+  'key.modifierSize': 'key modifier size',
+  'key.modifierLossStops': 'key modifier loss',
+  'rim.modifierLossStops': 'rim modifier loss',
+} as const;
+type CarriedPath = keyof typeof CARRIED;
+
+/** Gear links the saved inputs name: their values are in the resolved inputs, the links are not kept. */
+const LINKS = [
   'gelKitId',
-  'gels',
-  'maxGels',
-  'targetMiredOffset',
-  'stepMinutes',
-  'camera.isoMin',
-  'camera.slowestHandheldSeconds',
-  'camera.tint',
-  'key.modifierSize',
-  'key.modifierLossStops',
   'key.lightId',
   'key.modifierId',
-  'rim.modifierLossStops',
   'rim.lightId',
   'rim.modifierId',
 ] as const;
+
+/** Saved values the form cannot show, by part of the input; applied under the form's values. */
+export interface CarriedInputs {
+  top: Record<string, unknown>;
+  camera: Record<string, unknown>;
+  key: Record<string, unknown>;
+  rim: Record<string, unknown>;
+  /** The key modifier these were saved with: its loss and size only hold while it is chosen. */
+  keyModifier: string | undefined;
+  /** What the notice lists, e.g. "key modifier loss 1.5 stops". */
+  described: string[];
+}
+
+export const NOTHING_CARRIED: CarriedInputs = {
+  top: {},
+  camera: {},
+  key: {},
+  rim: {},
+  keyModifier: undefined,
+  described: [],
+};
+
+function describeValue(path: CarriedPath, value: unknown): string {
+  const label = CARRIED[path];
+  if (Array.isArray(value))
+    return `${label} (${value.length} ${value.length === 1 ? 'piece' : 'pieces'})`;
+  if (path.endsWith('LossStops')) return `${label} ${String(value)} stops`;
+  if (
+    path === 'camera.slowestHandheldSeconds' &&
+    typeof value === 'number' &&
+    value > 0 &&
+    value < 1
+  )
+    return `${label} 1/${Math.round(1 / value)} s`;
+  return `${label} ${String(value)}`;
+}
+
+/** The saved values `toSetupInput` should carry, read from a saved setup's (resolved) inputs. */
+export function carriedInputs(inputs: SavedSetupInputs): CarriedInputs {
+  const record = inputs as unknown as Record<string, unknown>;
+  const out: CarriedInputs = {
+    top: {},
+    camera: {},
+    key: {},
+    rim: {},
+    keyModifier: inputs.key.modifier,
+    described: [],
+  };
+  for (const path of Object.keys(CARRIED) as CarriedPath[]) {
+    const [head, tail] = path.split('.') as [string, string | undefined];
+    const part = tail ? (record[head] as Record<string, unknown> | undefined) : record;
+    const value = part?.[tail ?? head];
+    if (value === undefined || value === null) continue;
+    const bucket = tail
+      ? (out[head as 'camera' | 'key' | 'rim'] as Record<string, unknown>)
+      : out.top;
+    bucket[tail ?? head] = value;
+    out.described.push(describeValue(path, value));
+  }
+  return out;
+}
+
+/** Gear links (ids) in the saved inputs: the resolved values stand in for them. */
+export function linkedGear(inputs: SavedSetupInputs): string[] {
+  const record = inputs as unknown as Record<string, Record<string, unknown> | undefined>;
+  return LINKS.filter((path) => {
+    const [head, tail] = path.split('.') as [string, string | undefined];
+    const value = tail ? record[head]?.[tail] : record[head];
+    return value !== undefined && value !== null;
+  });
+}
 
 /** A length in `from` as the display unit shows it (2 decimals when converted, as the unit toggle does). */
 function lengthIn(value: number | undefined, from: DisplayUnit, to: DisplayUnit): number {
@@ -122,14 +202,4 @@ export function savedConditions(inputs: SavedSetupInputs): SiteConditions {
     coldFogOrHaze: c.coldFogOrHaze ?? false,
     modellingLamps: c.modellingLamps ?? false,
   };
-}
-
-/** Names of saved values the form cannot show, e.g. `gels`, `key.modifierLossStops`. */
-export function unsupportedInputs(inputs: SavedSetupInputs): string[] {
-  const record = inputs as unknown as Record<string, Record<string, unknown> | undefined>;
-  return UNSUPPORTED.filter((path) => {
-    const [head, tail] = path.split('.') as [string, string | undefined];
-    const value = tail ? record[head]?.[tail] : record[head];
-    return value !== undefined && value !== null;
-  });
 }

@@ -5,6 +5,7 @@ import { beforeEach, describe, expect, it, vi } from 'vitest';
 import { SessionContext, type Session } from '@/lib/session';
 import { demoSession } from '@/test/api-stub';
 import { jsonResponse } from '@/test/responses';
+import { planDuskSetup } from '@lumenwright/shared';
 import { Playground } from '../playground';
 
 const SETUP_ID = '3f1c2a9e-7b4d-4e2a-9c1f-5a6b7c8d9e01';
@@ -147,6 +148,84 @@ describe('Dusk setup: saved setups', () => {
       false,
     );
     expect(within(panel).getByText(/Place and date from the saved setup: 47\.100°/)).toBeTruthy();
+  });
+
+  it('plans a reopened setup with its saved values that have no field, as its sheet does', async () => {
+    // A setup saved through the API with gear values the form has no field for.
+    const extras = {
+      ...savedInputs,
+      stepMinutes: 2,
+      camera: { ...savedInputs.camera, isoMin: 200 },
+      key: { ...savedInputs.key, modifier: 'softbox', modifierLossStops: 3 },
+    };
+    respond = ({ path }) =>
+      path === `/v1/setups/${SETUP_ID}`
+        ? jsonResponse({ ...savedSetup, inputs: extras, resolvedInputs: extras })
+        : jsonResponse({ title: 'Not Found', status: 404 }, 404, 'application/problem+json');
+    const { panel, key } = await openSaved();
+    const notice = within(panel).getByText(/Also planned with these saved values/);
+    expect(notice.textContent).toContain('key modifier loss 3 stops');
+    expect(notice.textContent).toContain('minutes between points 2');
+    expect(notice.textContent).toContain('lowest ISO 200');
+    // The preview is the saved plan: the shared library on the saved (resolved) inputs.
+    const asSaved = planDuskSetup(extras as never);
+    const withoutExtras = planDuskSetup({
+      ...savedInputs,
+      key: { ...savedInputs.key, modifier: 'softbox' },
+    } as never);
+    expect(withoutExtras.suggestedMinutes[0]!.keyFlash.powerLabel).not.toBe(
+      asSaved.suggestedMinutes[0]!.keyFlash.powerLabel,
+    );
+    const firstKey = () =>
+      within(panel).getAllByRole('row')[1]!.querySelectorAll('td')[3]?.textContent;
+    await waitFor(() => expect(firstKey()).toBe(asSaved.suggestedMinutes[0]!.keyFlash.powerLabel));
+    // Another modifier drops the saved modifier's loss; the other saved values stay.
+    fireEvent.change(within(key).getByLabelText('Modifier'), { target: { value: 'umbrella' } });
+    const umbrella = planDuskSetup({
+      ...extras,
+      key: { ...savedInputs.key, modifier: 'umbrella' },
+    } as never);
+    expect(umbrella.suggestedMinutes[0]!.keyFlash.powerLabel).not.toBe(
+      asSaved.suggestedMinutes[0]!.keyFlash.powerLabel,
+    );
+    await waitFor(() => expect(firstKey()).toBe(umbrella.suggestedMinutes[0]!.keyFlash.powerLabel));
+    // And the notice's button plans without any of them.
+    fireEvent.click(within(panel).getByRole('button', { name: 'Plan without them' }));
+    expect(within(panel).queryByText(/Also planned with these saved values/)).toBeNull();
+    const bare = planDuskSetup({
+      ...savedInputs,
+      key: { ...savedInputs.key, modifier: 'umbrella' },
+    } as never);
+    await waitFor(() => expect(firstKey()).toBe(bare.suggestedMinutes[0]!.keyFlash.powerLabel));
+  });
+
+  it('shows what an empty box stands for, and refuses 1/0 s instead of using the default', async () => {
+    const { panel } = await openSaved();
+    const camera = within(panel).getByRole('group', { name: 'Camera' });
+    const aperture = within(camera).getByLabelText('Aperture (f/)');
+    fireEvent.change(aperture, { target: { value: '' } });
+    // The shared library's own default (setup-input.ts): f/5.6 when no aperture is given.
+    expect(aperture.getAttribute('placeholder')).toBe('default 5.6');
+    expect(within(camera).getByLabelText('White balance (K)').getAttribute('placeholder')).toBe(
+      'default 3800',
+    );
+    const sync = within(camera).getByLabelText('Flash sync (1/x s)');
+    fireEvent.change(sync, { target: { value: '0' } });
+    expect(
+      await within(camera).findByText('Enter x of 1/x s above 0, e.g. 200, or leave it empty'),
+    ).toBeTruthy();
+    expect(sync.getAttribute('aria-invalid')).toBe('true');
+  });
+
+  it('shows the saved place and date on the Twilight tab too', async () => {
+    await openSaved();
+    fireEvent.click(screen.getByRole('tab', { name: /Twilight/ }));
+    const twilight = screen.getByRole('tabpanel');
+    await waitFor(() =>
+      expect(valueOf(within(twilight).getByLabelText('Latitude (°N)'))).toBe('47.1'),
+    );
+    expect(valueOf(within(twilight).getByLabelText('Longitude (°E)'))).toBe('8.2');
+    expect(valueOf(within(twilight).getByLabelText('Date'))).toBe('2026-06-20');
   });
 
   it('saves the current inputs and shows the server’s field errors inline', async () => {

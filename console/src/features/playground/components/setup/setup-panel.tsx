@@ -5,7 +5,7 @@ import {
   type DuskSetupPlan,
   type ModifierName,
 } from '@lumenwright/shared';
-import { useEffect, useRef, useState } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
 import { z } from 'zod';
 import { Button } from '@/components/ui/button';
@@ -17,7 +17,12 @@ import { ApiProblem } from '@/lib/api';
 import { problemMessage } from '@/lib/form-errors';
 import { useSession, type Role } from '@/lib/session';
 import { useSavedSetup, type OpenedSetup } from '../../api/saved-setups';
-import { given, useCalculationForm } from '../../hooks/use-calculation-form';
+import {
+  given,
+  optionalDenominatorField,
+  secondsFrom,
+  useCalculationForm,
+} from '../../hooks/use-calculation-form';
 import type { DisplayUnit } from '../../hooks/use-length-unit';
 import { fixed } from '../../utils/format';
 import { CalculationResult } from '../calculation-result';
@@ -26,10 +31,13 @@ import { modifierOptions } from '../flash/flash-panel';
 import { usePlaygroundScene, type SiteConditions } from '../playground-scene';
 import { SaveSetupDialog } from './save-setup-dialog';
 import {
+  carriedInputs,
   fromSetupInput,
+  linkedGear,
+  NOTHING_CARRIED,
   savedConditions,
   savedPlace,
-  unsupportedInputs,
+  type CarriedInputs,
   type SavedPlace,
 } from './saved-inputs';
 import { SetupResultView } from './setup-result';
@@ -40,7 +48,7 @@ const schema = z.object({
   aperture: maybe,
   isoMax: maybe,
   support: z.enum(['handheld', 'tripod']),
-  syncDenominator: maybe,
+  syncDenominator: optionalDenominatorField,
   biasStops: maybe,
   kelvin: maybe,
   keyGuideNumber: number,
@@ -75,6 +83,20 @@ const labels: Record<string, string> = {
   'rim.rimOverKeyStops': 'Rim over key',
   backgroundDistance: 'Key to background',
   miredTolerance: 'Gels close enough',
+  // Carried from a reopened saved setup (no field here).
+  elevation: 'Elevation (saved)',
+  flashKelvin: 'Flash colour temperature (saved)',
+  gels: 'Gel list (saved)',
+  maxGels: 'Most gels in a stack (saved)',
+  targetMiredOffset: 'Skin warmth offset (saved)',
+  stepMinutes: 'Minutes between points (saved)',
+  suggestions: 'Number of suggested minutes (saved)',
+  'camera.isoMin': 'Lowest ISO (saved)',
+  'camera.slowestHandheldSeconds': 'Slowest hand-held shutter (saved)',
+  'camera.tint': 'Camera tint (saved)',
+  'key.modifierSize': 'Key modifier size (saved)',
+  'key.modifierLossStops': 'Key modifier loss (saved)',
+  'rim.modifierLossStops': 'Rim modifier loss (saved)',
 };
 
 /** Drop keys whose value is undefined, so the request (and the copied snippet) stays short. */
@@ -87,23 +109,36 @@ export function toSetupInput(
   unit: DisplayUnit,
   moment: SavedPlace | null,
   conditions: SiteConditions,
+  carried: CarriedInputs = NOTHING_CARRIED,
 ): DuskSetupInput | undefined {
   if (!moment) return undefined;
+  // A saved modifier's loss and size hold only while that modifier is still the one chosen.
+  const keyCarried =
+    form.modifier === (carried.keyModifier ?? 'softbox')
+      ? carried.key
+      : Object.fromEntries(
+          Object.entries(carried.key).filter(
+            ([k]) => k !== 'modifierLossStops' && k !== 'modifierSize',
+          ),
+        );
   const input: DuskSetupInput = {
+    ...carried.top,
     latitude: moment.latitude,
     longitude: moment.longitude,
     date: moment.date,
     timeZone: moment.timeZone,
     sky: moment.sky,
     camera: compact({
+      ...carried.camera,
       aperture: given(form.aperture),
       isoMax: given(form.isoMax),
       support: form.support,
-      flashSyncSeconds: given(form.syncDenominator) ? 1 / form.syncDenominator! : undefined,
+      flashSyncSeconds: secondsFrom(form.syncDenominator),
       biasStops: given(form.biasStops),
       kelvin: given(form.kelvin),
     }),
     key: compact({
+      ...keyCarried,
       guideNumber: form.keyGuideNumber,
       guideNumberUnit: form.guideNumberUnit,
       distance: form.keyDistance,
@@ -115,6 +150,7 @@ export function toSetupInput(
   };
   if (form.rimEnabled) {
     input.rim = compact({
+      ...carried.rim,
       guideNumber: given(form.rimGuideNumber) ?? Number.NaN,
       guideNumberUnit: form.guideNumberUnit,
       distanceBehind: given(form.rimDistanceBehind) ?? Number.NaN,
@@ -143,19 +179,36 @@ function openFailure(error: unknown): string {
   return `The saved setup could not be opened. ${problemMessage(error)}`;
 }
 
+function samePlace(a: SavedPlace, b: SavedPlace): boolean {
+  return (
+    Math.abs(a.latitude - b.latitude) < 1e-9 &&
+    Math.abs(a.longitude - b.longitude) < 1e-9 &&
+    a.date === b.date &&
+    a.timeZone === b.timeZone &&
+    a.sky === b.sky
+  );
+}
+
 function describe(setup: Pick<OpenedSetup, 'name' | 'venue' | 'date'>): string {
   return `${setup.name} (${setup.venue ? `${setup.venue}, ` : ''}${setup.date})`;
 }
 
 export function SetupPanel() {
-  const { moment, conditions, setConditions } = usePlaygroundScene();
+  const { moment, conditions, setConditions, requestPlace } = usePlaygroundScene();
   const [params] = useSearchParams();
   const setupId = params.get('setup');
   const opened = useSavedSetup(setupId);
   const openedInputs = opened.data ? (opened.data.resolvedInputs ?? opened.data.inputs) : undefined;
-  // A reopened setup brings its own place and date until the Twilight tab's are chosen instead.
-  const [sceneWins, setSceneWins] = useState(false);
-  const place: SavedPlace | null = openedInputs && !sceneWins ? savedPlace(openedInputs) : moment;
+  const savedAt = useMemo(() => (openedInputs ? savedPlace(openedInputs) : null), [openedInputs]);
+  // A reopened setup sends its place and date to the Twilight tab, so every tab shows the same
+  // evening. Until the Twilight tab has taken it, the saved place is used here; after that the
+  // scene's (a later change on the Twilight tab then moves this plan too).
+  const [syncedFor, setSyncedFor] = useState<string | null>(null);
+  const synced = !!opened.data && syncedFor === opened.data.id;
+  if (opened.data && savedAt && moment && !synced && samePlace(moment, savedAt))
+    setSyncedFor(opened.data.id); // state adjusted while rendering, React's pattern for this
+  const place: SavedPlace | null = savedAt && !synced ? savedAt : moment;
+  const [carried, setCarried] = useState<CarriedInputs>(NOTHING_CARRIED);
   const role = useSession()?.role;
   const maySave = role !== undefined && SAVERS.includes(role);
   const [saving, setSaving] = useState(false);
@@ -167,16 +220,18 @@ export function SetupPanel() {
     DuskSetupPlan
   >({
     schema,
+    // A usable evening out of the box: on a tripod at f/4 the shutter can wait at 1/15 s while the
+    // sky darkens, and a 40 m key through a softbox at 3 m stays within its power range.
     defaults: {
-      aperture: 5.6,
+      aperture: 4,
       isoMax: 6400,
-      support: 'handheld',
+      support: 'tripod',
       syncDenominator: 200,
       biasStops: -1,
       kelvin: 3800,
       keyGuideNumber: 40,
       guideNumberUnit: 'm',
-      keyDistance: 2,
+      keyDistance: 3,
       keyAngle: 60,
       modifier: 'softbox',
       rimEnabled: true,
@@ -191,7 +246,7 @@ export function SetupPanel() {
       miredTolerance: 10,
     },
     lengthFields: ['keyDistance', 'rimDistanceBehind', 'rimHeight', 'backgroundDistance'],
-    toInput: (values, displayUnit) => toSetupInput(values, displayUnit, place, conditions),
+    toInput: (values, displayUnit) => toSetupInput(values, displayUnit, place, conditions, carried),
     compute: planDuskSetup,
   });
   const rimEnabled = form.watch('rimEnabled');
@@ -203,10 +258,12 @@ export function SetupPanel() {
     filledFrom.current = opened.data.id;
     form.reset(fromSetupInput(openedInputs, unit));
     setConditions(savedConditions(openedInputs));
-  }, [opened.data, openedInputs, unit, form, setConditions]);
-  const leftOut = openedInputs ? unsupportedInputs(openedInputs) : [];
+    setCarried(carriedInputs(openedInputs));
+    requestPlace(savedPlace(openedInputs));
+  }, [opened.data, openedInputs, unit, form, setConditions, requestPlace]);
+  const links = openedInputs ? linkedGear(openedInputs) : [];
 
-  const fromSaved = !!openedInputs && !sceneWins;
+  const fromSaved = !!savedAt && (!synced || (!!moment && samePlace(moment, savedAt)));
   const setupsLink = (
     <Link to={paths.setups} className="font-medium text-accent underline">
       Back to setups
@@ -224,9 +281,23 @@ export function SetupPanel() {
       {opened.data ? (
         <Notice tone="ok">
           Opened saved setup {describe(opened.data)}. {setupsLink}
-          {leftOut.length ? (
+          {carried.described.length ? (
             <span className="mt-1 block text-ink-muted">
-              Saved values with no field here, left out of this preview: {leftOut.join(', ')}.
+              Also planned with these saved values, which have no field here:{' '}
+              {carried.described.join('; ')}.{' '}
+              <Button
+                variant="quiet"
+                className="px-0 py-0"
+                onClick={() => setCarried(NOTHING_CARRIED)}
+              >
+                Plan without them
+              </Button>
+            </span>
+          ) : null}
+          {links.length ? (
+            <span className="mt-1 block text-ink-muted">
+              This setup was saved with links to studio gear; it reopens with the values it was
+              planned with, not the links.
             </span>
           ) : null}
         </Notice>
@@ -249,11 +320,6 @@ export function SetupPanel() {
             {place
               ? `Place and date from ${fromSaved ? 'the saved setup' : 'the Twilight tab'}: ${fixed(place.latitude, 3)}°, ${fixed(place.longitude, 3)}° on ${place.date} (${place.timeZone}), sky ${place.sky}. Site conditions above set the cautions.`
               : 'Set the place and date on the Twilight tab first.'}
-            {fromSaved && moment ? (
-              <Button variant="quiet" className="mt-2 px-0 py-0" onClick={() => setSceneWins(true)}>
-                Use the Twilight tab’s place instead
-              </Button>
-            ) : null}
           </div>
           {maySave ? (
             <div className="flex items-center gap-3">
@@ -273,8 +339,14 @@ export function SetupPanel() {
             </div>
           ) : null}
           <FormGrid legend="Camera">
-            <TextField label="Aperture (f/)" {...numberField('aperture', 'camera.aperture')} />
-            <TextField label="Highest ISO" {...numberField('isoMax', 'camera.isoMax')} />
+            <TextField
+              label="Aperture (f/)"
+              {...numberField('aperture', 'camera.aperture', 'default 5.6')}
+            />
+            <TextField
+              label="Highest ISO"
+              {...numberField('isoMax', 'camera.isoMax', 'default 6400')}
+            />
             <SelectField
               label="Support"
               options={[
@@ -285,17 +357,20 @@ export function SetupPanel() {
             />
             <TextField
               label="Flash sync (1/x s)"
-              {...numberField('syncDenominator', 'camera.flashSyncSeconds')}
+              {...numberField('syncDenominator', 'camera.flashSyncSeconds', 'default 200')}
             />
             <TextField
               label="Background bias (stops)"
-              {...numberField('biasStops', 'camera.biasStops')}
+              {...numberField('biasStops', 'camera.biasStops', 'default −1')}
             />
-            <TextField label="White balance (K)" {...numberField('kelvin', 'camera.kelvin')} />
+            <TextField
+              label="White balance (K)"
+              {...numberField('kelvin', 'camera.kelvin', 'default 3800')}
+            />
             <TextField
               label="Gels close enough (mired)"
               hint="Fewer gels when within this; 0 = closest"
-              {...numberField('miredTolerance')}
+              {...numberField('miredTolerance', undefined, 'default 0')}
             />
           </FormGrid>
           <FormGrid legend="Key light">
@@ -314,7 +389,7 @@ export function SetupPanel() {
             />
             <TextField
               label="Angle from camera (°)"
-              {...numberField('keyAngle', 'key.angleFromCameraDeg')}
+              {...numberField('keyAngle', 'key.angleFromCameraDeg', 'default 60')}
             />
             <SelectField
               label="Modifier"
@@ -326,7 +401,7 @@ export function SetupPanel() {
               label={`Key to background (${unit})`}
               hint="Optional"
               className="col-span-2"
-              {...numberField('backgroundDistance')}
+              {...numberField('backgroundDistance', undefined, 'not set')}
             />
           </FormGrid>
           <FormGrid legend="Rim light">
@@ -365,7 +440,7 @@ export function SetupPanel() {
                 />
                 <TextField
                   label="Rim over key (stops)"
-                  {...numberField('rimOverKeyStops', 'rim.rimOverKeyStops')}
+                  {...numberField('rimOverKeyStops', 'rim.rimOverKeyStops', 'default 1')}
                 />
                 <label className="flex items-center gap-2 self-end pb-2 text-small">
                   <input

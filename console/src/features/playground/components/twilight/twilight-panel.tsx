@@ -5,7 +5,7 @@ import {
   type TwilightInput,
   type TwilightResult,
 } from '@lumenwright/shared';
-import { useEffect, useMemo, useState } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import { z } from 'zod';
 import { SelectField } from '@/components/ui/select-field';
@@ -95,6 +95,8 @@ export function TwilightPanel({ initial }: { initial?: Partial<TwilightForm> }) 
   const {
     register,
     control,
+    getValues,
+    reset,
     formState: { errors },
   } = useForm<TwilightForm>({
     resolver: zodResolver(twilightForm),
@@ -110,7 +112,17 @@ export function TwilightPanel({ initial }: { initial?: Partial<TwilightForm> }) 
     own ?? (sharedError?.field === field ? sharedError.reason : undefined);
 
   const [selectedIndex, setSelectedIndex] = useState<number | null>(null);
-  const { setMoment, cautionsFor } = usePlaygroundScene();
+  const { setMoment, cautionsFor, placeRequest } = usePlaygroundScene();
+
+  // Another tab (a reopened saved setup) asks for its place and date: show that evening here.
+  const appliedRequest = useRef(0);
+  useEffect(() => {
+    if (!placeRequest || placeRequest.seq === appliedRequest.current) return;
+    appliedRequest.current = placeRequest.seq;
+    const { latitude, longitude, date, timeZone, sky } = placeRequest;
+    reset({ ...getValues(), latitude, longitude, date, timeZone, sky });
+    setSelectedIndex(null);
+  }, [placeRequest, getValues, reset]);
   const result = preview.state === 'ok' ? preview.result : null;
   const defaultIndex = useMemo(() => defaultMinute(result), [result]);
   const points = result?.ambient.points ?? [];

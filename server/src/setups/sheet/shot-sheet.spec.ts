@@ -1,0 +1,66 @@
+// The shot sheet says which end of a light's range a minute falls off: a key too weak for the
+// distance is "over full power", one too strong for the closest setting is "below the lowest power".
+import { planDuskSetup, type DuskSetupInput } from '@lumenwright/shared';
+import { renderShotSheet } from './shot-sheet.js';
+
+const BASE: DuskSetupInput = {
+  latitude: 54.21,
+  longitude: -2.47,
+  date: '2026-09-12',
+  timeZone: 'Europe/London',
+  camera: { aperture: 4, isoMax: 6400, support: 'tripod' },
+  key: { guideNumber: 40, distance: 3, modifier: 'softbox' },
+};
+
+function sheetFor(key: DuskSetupInput['key']) {
+  const plan = planDuskSetup({ ...BASE, key });
+  const html = renderShotSheet({
+    name: 'Range check',
+    venue: null,
+    notes: null,
+    date: BASE.date,
+    timeZone: BASE.timeZone,
+    author: null,
+    plan,
+    resolvedInputs: { ...BASE, key },
+  });
+  const table = /<table class="minutes">[\s\S]*?<\/table>/.exec(html)?.[0] ?? '';
+  return { plan, table };
+}
+
+describe('shot sheet power column', () => {
+  it('marks a key that needs more than full power as over full power', () => {
+    // GN 8 m at 12 m through a softbox at f/4: (4 × 12 / 8)² = 36× full power before losses,
+    // so every minute is out of range at the top (GN = f-number × distance, ISO 100).
+    const { plan, table } = sheetFor({ guideNumber: 8, distance: 12, modifier: 'softbox' });
+    expect(plan.suggestedMinutes.length).toBeGreaterThan(0);
+    expect(plan.suggestedMinutes.every((m) => !m.keyFlash.feasible)).toBe(true);
+    expect(table).toContain('(over full power)');
+    expect(table).not.toContain('(below the lowest power)');
+  });
+
+  it('marks a key that is too strong even at its lowest setting as below the lowest power', () => {
+    // GN 300 m at 0.3 m bare at f/4: (4 × 0.3 / 300)² ≈ 1.6e-5 of full power, far under 1/256.
+    const { plan, table } = sheetFor({ guideNumber: 300, distance: 0.3, modifier: 'bare' });
+    expect(plan.suggestedMinutes.length).toBeGreaterThan(0);
+    expect(
+      plan.suggestedMinutes.every((m) =>
+        m.keyFlash.warnings.some((w) => w.code === 'below-min-power'),
+      ),
+    ).toBe(true);
+    expect(table).toContain('(below the lowest power)');
+    expect(table).not.toContain('(over full power)');
+  });
+
+  it('adds no range note when the key is within range', () => {
+    const { plan, table } = sheetFor(BASE.key);
+    const inRange = plan.suggestedMinutes.filter((m) => m.keyFlash.feasible);
+    expect(inRange.length).toBeGreaterThan(0);
+    const rows = table.split('<tr>').filter((r) => r.includes('data-label="Key power"'));
+    expect(rows.length).toBe(plan.suggestedMinutes.length);
+    rows.forEach((row, i) => {
+      const marked = row.includes('power)</span>');
+      expect(marked).toBe(!plan.suggestedMinutes[i]!.keyFlash.feasible);
+    });
+  });
+});
