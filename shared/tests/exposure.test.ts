@@ -53,6 +53,20 @@ describe('third-stop scales', () => {
     }
     expect(nearestStop(ISO_SCALE, 3000).label).toBe('ISO 3200');
   });
+  it('labels every ISO the API takes with its own mark, past 102400 too', () => {
+    // ISO 12232 / ISO 5800 arithmetic speed series (third stops), from memory: ... 102400, 128000,
+    // 160000, 204800, ..., 409600 above, and 3, 4, 5, 6, 8, 10, 12, 16, 20, 25, 32, 40 below 50.
+    expect(solveExposure({ ev100: 0, aperture: 2, iso: 409600 }).isoLabel).toBe('ISO 409600');
+    expect(solveExposure({ ev100: 0, aperture: 2, iso: 204800 }).isoLabel).toBe('ISO 204800');
+    expect(solveExposure({ ev100: 15, aperture: 8, iso: 25 }).isoLabel).toBe('ISO 25');
+    expect(solveExposure({ ev100: 15, aperture: 8, iso: 3 }).isoLabel).toBe('ISO 3');
+    // Each mark is 100 * 2^(k/3) within the series' rounding (under 1/6 stop).
+    for (const s of ISO_SCALE) expect(Math.abs(Math.log2(s.nominal / s.value))).toBeLessThan(1 / 6);
+    const warned = solveExposure({ ev100: 0, aperture: 2, iso: 204800 }).warnings.map(
+      (w) => w.code,
+    );
+    expect(warned).toContain('iso-off-scale');
+  });
 });
 
 describe('solveExposure', () => {

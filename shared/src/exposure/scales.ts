@@ -137,15 +137,18 @@ export const SHUTTER_SCALE: readonly ScaleStop[] = [
   }),
 ];
 
+// The ISO 12232 / ISO 5800 third-stop series from ISO 3 to 409600, the whole range the API takes
+// (the 'iso-off-scale' warning still marks what lies outside the usual 50..102400).
 const ISO_MARKS = [
-  50, 64, 80, 100, 125, 160, 200, 250, 320, 400, 500, 640, 800, 1000, 1250, 1600, 2000, 2500, 3200,
-  4000, 5000, 6400, 8000, 10000, 12800, 16000, 20000, 25600, 32000, 40000, 51200, 64000, 80000,
-  102400,
+  3, 4, 5, 6, 8, 10, 12, 16, 20, 25, 32, 40, 50, 64, 80, 100, 125, 160, 200, 250, 320, 400, 500,
+  640, 800, 1000, 1250, 1600, 2000, 2500, 3200, 4000, 5000, 6400, 8000, 10000, 12800, 16000, 20000,
+  25600, 32000, 40000, 51200, 64000, 80000, 102400, 128000, 160000, 204800, 256000, 320000, 409600,
 ];
+const ISO_100_INDEX = ISO_MARKS.indexOf(100);
 
-/** ISO scale 50 .. 102400 in thirds; exact value 100 * 2^(k/3), k = 0 at ISO 100. */
+/** ISO scale 3 .. 409600 in thirds; exact value 100 * 2^(k/3), k = 0 at ISO 100. */
 export const ISO_SCALE: readonly ScaleStop[] = ISO_MARKS.map((m, i) => {
-  const k = i - 3;
+  const k = i - ISO_100_INDEX;
   return { value: 100 * 2 ** (k / 3), label: `ISO ${m}`, nominal: m, thirds: k };
 });
 

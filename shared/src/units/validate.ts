@@ -8,17 +8,20 @@ export interface NumberRange {
   integer?: boolean;
 }
 
+/** "between 0.7 and 128", "at least 0", "more than 0 and at most 8": words, not operators. */
 function describe(range: NumberRange): string {
-  const lo = range.min === undefined ? '' : `${range.exclusiveMin ? '>' : '>='} ${range.min}`;
-  const hi = range.max === undefined ? '' : `<= ${range.max}`;
+  const { min, max, exclusiveMin } = range;
+  if (min !== undefined && max !== undefined && !exclusiveMin) return `between ${min} and ${max}`;
+  const lo = min === undefined ? '' : `${exclusiveMin ? 'more than' : 'at least'} ${min}`;
+  const hi = max === undefined ? '' : `at most ${max}`;
   return [lo, hi].filter(Boolean).join(' and ');
 }
 
 /** A finite number within `range`, or a LightingInputError naming `field`. */
 export function requireNumber(field: string, value: unknown, range: NumberRange = {}): number {
-  if (typeof value !== 'number' || !Number.isFinite(value)) {
-    throw new LightingInputError(field, 'must be a finite number');
-  }
+  if (value === undefined || value === null) throw new LightingInputError(field, 'is required');
+  if (typeof value !== 'number') throw new LightingInputError(field, 'must be a number');
+  if (!Number.isFinite(value)) throw new LightingInputError(field, 'must be a finite number');
   const tooLow =
     range.min !== undefined && (range.exclusiveMin ? value <= range.min : value < range.min);
   const tooHigh = range.max !== undefined && value > range.max;

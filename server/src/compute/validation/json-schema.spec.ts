@@ -48,7 +48,7 @@ describe('compiled JSON-schema validator', () => {
       { field: 'cameraKelvin', reason: 'must be greater than 0' },
     ]);
     expect(balance({ cameraKelvin: 3800, maxGels: 1.5 })).toEqual([
-      { field: 'maxGels', reason: 'must be a integer' },
+      { field: 'maxGels', reason: 'must be a whole number' },
     ]);
     expect(balance({ cameraKelvin: 3800, colour: 'warm' })).toEqual([
       { field: 'colour', reason: 'is not a known field' },
@@ -65,7 +65,7 @@ describe('compiled JSON-schema validator', () => {
   });
 
   it('refuses a body that is not an object, and caps the number of problems', () => {
-    expect(balance([])).toEqual([{ field: 'body', reason: 'must be a object' }]);
+    expect(balance([])).toEqual([{ field: 'body', reason: 'must be an object' }]);
     const many = Object.fromEntries(Array.from({ length: 100 }, (_, i) => [`x${i}`, i]));
     expect(balance({ cameraKelvin: 3800, ...many })).toHaveLength(20);
   });

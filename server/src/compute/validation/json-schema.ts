@@ -54,8 +54,22 @@ function matchesType(actual: JsonType, wanted: JsonType): boolean {
 const join = (path: string, key: string) => (path ? `${path}.${key}` : key);
 const label = (path: string) => path || 'body';
 
+const A_TYPE: Record<JsonType, string> = {
+  number: 'a number',
+  integer: 'a whole number',
+  string: 'a string',
+  boolean: 'true or false',
+  object: 'an object',
+  array: 'an array',
+  null: 'null',
+};
+
+/** "an object", "a number or null": the words a person reads in the problem. */
 function describeTypes(types: JsonType[]): string {
-  return types.length === 1 ? `a ${types[0]}` : `one of ${types.join(', ')}`;
+  const words = types.map((t) => A_TYPE[t]);
+  return words.length <= 2
+    ? words.join(' or ')
+    : `${words.slice(0, -1).join(', ')} or ${words.at(-1)}`;
 }
 
 function numberChecks(s: JsonSchema): Check[] {

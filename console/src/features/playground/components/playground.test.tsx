@@ -93,7 +93,7 @@ describe('playground', () => {
     const panel = await openCalculation('twilight');
     setValue(within(panel).getByLabelText('Latitude (°N)'), '95');
     const alert = await within(panel).findByRole('alert');
-    expect(alert.textContent).toBe('Latitude: must be >= -90 and <= 90');
+    expect(alert.textContent).toBe('Latitude: must be between -90 and 90');
   });
 
   it('converts typed distances when switching to feet, remembers the choice, and sends ft', async () => {

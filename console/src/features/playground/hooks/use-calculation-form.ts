@@ -67,7 +67,9 @@ export function useCalculationForm<F extends FieldValues, I, R>({
   const errorFor = (field: string, sharedField: string = field): string | undefined => {
     const own = get(form.formState.errors, field) as { message?: string } | undefined;
     if (own?.message) return own.message;
-    return sharedError?.field === sharedField ? sharedError.reason : undefined;
+    if (sharedError?.field !== sharedField) return undefined;
+    // A 1/x box reports the library's limits in seconds: say them in x, as typed.
+    return field.endsWith('Denominator') ? inDenominators(sharedError.reason) : sharedError.reason;
   };
 
   /**
@@ -104,4 +106,20 @@ export const optionalDenominatorField = optionalNumberField.refine(
 export function secondsFrom(denominator: number | undefined): number | undefined {
   const x = given(denominator);
   return x === undefined ? undefined : 1 / x;
+}
+
+/**
+ * A limit on seconds restated for the 1/x box: "must be between 0.0000625 and 1" (seconds) becomes
+ * "must be between 1 and 16000"; "at most 30" becomes "at least 0.0333".
+ */
+export function inDenominators(reason: string): string {
+  const x = (seconds: string) => String(Number((1 / Number(seconds)).toPrecision(4)));
+  const NUM = '(\\d+(?:\\.\\d+)?(?:e-?\\d+)?)';
+  const between = new RegExp(`between ${NUM} and ${NUM}`).exec(reason);
+  if (between) return reason.replace(between[0], `between ${x(between[2]!)} and ${x(between[1]!)}`);
+  return reason.replace(
+    new RegExp(`(at least|at most|more than) ${NUM}`, 'g'),
+    (_, bound: string, n: string) =>
+      `${bound === 'at most' ? 'at least' : bound === 'at least' ? 'at most' : 'less than'} ${x(n)}`,
+  );
 }
