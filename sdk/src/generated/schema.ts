@@ -7663,6 +7663,20 @@ export interface operations {
         from?: string;
         /** @description Last UTC day (inclusive), YYYY-MM-DD; default today. */
         to?: string;
+        /** @description Only calls made with this API key. */
+        keyId?: string;
+        /** @description Only calls to this endpoint. */
+        endpoint?:
+          | 'twilight'
+          | 'exposure'
+          | 'flash'
+          | 'falloff'
+          | 'backlight'
+          | 'balance'
+          | 'setup'
+          | 'frames';
+        /** @description Only calls answered with this HTTP status. */
+        status?: string;
       };
       header?: never;
       path?: never;

@@ -63,11 +63,15 @@ export class UsageController {
     const from = q.from ?? `${today.slice(0, 8)}01`;
     const to = q.to ?? today;
     if (from > to) {
-      throw new DomainError('invalid_input', 'from is after to.', [
-        { field: 'from', reason: 'must not be after to' },
+      throw new DomainError('invalid_input', `The range starts (${from}) after it ends (${to}).`, [
+        { field: 'from', reason: `must be on or before ${to}` },
       ]);
     }
-    return this.usage.summary(req.principal!.organizationId, from, to);
+    return this.usage.summary(req.principal!.organizationId, from, to, {
+      keyId: q.keyId,
+      endpoint: q.endpoint,
+      status: q.status === undefined ? undefined : Number(q.status),
+    });
   }
 
   @Get('events')

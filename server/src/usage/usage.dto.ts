@@ -29,6 +29,9 @@ export const summaryQuerySchema: ObjectSchema = {
       pattern: DATE,
       format: 'date',
     }),
+    keyId: str('Only calls made with this API key.', undefined, { pattern: UUID }),
+    endpoint: str('Only calls to this endpoint.', 'balance', { enum: ENDPOINTS }),
+    status: str('Only calls answered with this HTTP status.', '429', { pattern: '^[1-5]\\d\\d$' }),
   },
 };
 

@@ -67,9 +67,24 @@ function decodeCursor(cursor: string): { micros: string; id: string } {
 export class UsageService {
   constructor(@InjectDataSource() private readonly ds: DataSource) {}
 
-  async summary(orgId: string, from: string, to: string) {
-    const args = [orgId, from, to];
-    const where = `organization_id = $1 AND day BETWEEN $2::date AND $3::date`;
+  /** Roll-ups over UTC days `from`..`to` (inclusive), optionally for one key, endpoint or status. */
+  async summary(
+    orgId: string,
+    from: string,
+    to: string,
+    only: { keyId?: string; endpoint?: string; status?: number } = {},
+  ) {
+    const args: unknown[] = [orgId, from, to];
+    let where = `organization_id = $1 AND day BETWEEN $2::date AND $3::date`;
+    for (const [column, value] of [
+      ['key_id', only.keyId],
+      ['endpoint', only.endpoint],
+      ['status', only.status],
+    ] as const) {
+      if (value === undefined) continue;
+      args.push(value);
+      where += ` AND ${column} = $${args.length}`;
+    }
     const agg = `SUM(calls)::int AS calls, SUM(billable_units)::int AS "billableUnits",
       (SUM(calls) FILTER (WHERE status >= 400))::int AS errors,
       ROUND((SUM(latency_ms_sum) / NULLIF(SUM(calls), 0))::numeric, 2)::float8 AS "meanLatencyMs"`;

@@ -58,6 +58,45 @@ describe('usage API', () => {
     expect(res.body.byDay.reduce((a: number, d: { calls: number }) => a + d.calls, 0)).toBe(11);
   });
 
+  it('summarises only the calls a key, endpoint or status filter picks, as the event list does', async () => {
+    const summary = async (q: Record<string, string>) =>
+      (await org.owner.agent.get('/v1/usage/summary').query(q).expect(200)).body;
+    const events = async (q: Record<string, string>) =>
+      (
+        await org.owner.agent
+          .get('/v1/usage/events')
+          .query({ ...q, limit: '200' })
+          .expect(200)
+      ).body.data as unknown[];
+    for (const q of [
+      { keyId: org.test.id },
+      { endpoint: 'flash' },
+      { status: '422' },
+      { endpoint: 'balance', keyId: org.live.id },
+    ]) {
+      const s = await summary(q);
+      expect(s.totals.calls).toBe((await events(q)).length);
+      expect(s.byDay.reduce((a: number, d: { calls: number }) => a + d.calls, 0)).toBe(
+        s.totals.calls,
+      );
+    }
+    expect((await summary({ keyId: org.test.id })).totals.calls).toBe(3);
+    expect((await summary({ status: '422' })).totals).toMatchObject({ calls: 1, errors: 1 });
+    const bad = await org.owner.agent
+      .get('/v1/usage/summary')
+      .query({ from: '2026-12-10', to: '2026-12-01' })
+      .expect(422);
+    expect(bad.body.errors[0]).toEqual({
+      field: 'from',
+      reason: 'must be on or before 2026-12-01',
+    });
+    const badStatus = await org.owner.agent
+      .get('/v1/usage/summary')
+      .query({ status: 'teapot' })
+      .expect(422);
+    expect(badStatus.body.errors[0].field).toBe('status');
+  });
+
   it('lists events newest first with filters and cursor pagination, each with keyId', async () => {
     const seen: string[] = [];
     let cursor: string | null = null;

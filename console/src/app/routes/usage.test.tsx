@@ -1,4 +1,4 @@
-import { screen, within } from '@testing-library/react';
+import { fireEvent, screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { demoSession, stubApi } from '@/test/api-stub';
 import { renderApp } from '@/test/render';
@@ -85,5 +85,43 @@ describe('usage page', () => {
     const keySelect = screen.getByLabelText('Key') as HTMLSelectElement;
     const options = [...keySelect.options].map((o) => o.textContent);
     expect(options).toEqual(['All', 'Gallery site (live)']);
+  });
+
+  it('narrows the chart and totals with the same filters as the list', async () => {
+    const mock = stub();
+    renderApp('/usage?endpoint=flash&status=429&from=2026-12-01&to=2026-12-02');
+    await screen.findByRole('heading', { name: 'Calls by day (filtered)' });
+    const urls = mock.mock.calls.map(
+      ([input]) =>
+        new URL(input instanceof Request ? input.url : String(input), 'http://localhost'),
+    );
+    const summary = urls.find((u) => u.pathname === '/v1/usage/summary')!;
+    expect(Object.fromEntries(summary.searchParams)).toEqual({
+      from: '2026-12-01',
+      to: '2026-12-02',
+      endpoint: 'flash',
+      status: '429',
+    });
+  });
+
+  it('refuses a range that ends before it starts, and names address filters it left out', async () => {
+    const mock = stub();
+    const { router } = renderApp('/usage?endpoint=teleport');
+    expect(
+      await screen.findByText(
+        /Left out of the filters from this page’s address: endpoint “teleport” is not one of ours/,
+      ),
+    ).toBeTruthy();
+    fireEvent.change(screen.getByLabelText('From (UTC day)'), { target: { value: '2026-12-10' } });
+    fireEvent.change(screen.getByLabelText('To (UTC day)'), { target: { value: '2026-12-01' } });
+    const before = mock.mock.calls.length;
+    fireEvent.click(screen.getByRole('button', { name: 'Apply' }));
+    expect(
+      await screen.findByText(
+        '“From” (2026-12-10) is after “To” (2026-12-01): pick a From day on or before it.',
+      ),
+    ).toBeTruthy();
+    await waitFor(() => expect(router.state.location.search).toBe('?endpoint=teleport'));
+    expect(mock.mock.calls.length).toBe(before);
   });
 });

@@ -1,7 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import { usageCsvHref } from './api/usage';
 import { niceCeiling, ticks } from './chart-scale';
-import { daysBetween, filterFromParams, nextDay, rangeFromParams } from './filters';
+import {
+  daysBetween,
+  filterFromParams,
+  ignoredParams,
+  nextDay,
+  summaryFromParams,
+} from './filters';
 
 describe('usage filters from the URL', () => {
   it('keeps valid filters, drops malformed ones, and makes "to" exclusive', () => {
@@ -29,10 +35,39 @@ describe('usage filters from the URL', () => {
     expect(nextDay('2027-02-28')).toBe('2027-03-01');
   });
 
-  it('the summary range passes only well-formed days', () => {
-    expect(rangeFromParams(new URLSearchParams('from=2026-12-01&to=soon'))).toEqual({
+  it('the summary takes the same filters as the list, as inclusive days', () => {
+    expect(summaryFromParams(new URLSearchParams('from=2026-12-01&to=soon'))).toEqual({
       from: '2026-12-01',
     });
+    expect(
+      summaryFromParams(
+        new URLSearchParams('from=2026-12-01&to=2026-12-31&endpoint=flash&status=429&keyId=k1'),
+      ),
+    ).toEqual({
+      from: '2026-12-01',
+      to: '2026-12-31',
+      endpoint: 'flash',
+      status: '429',
+      keyId: 'k1',
+    });
+  });
+
+  it('says which address filters it left out, and drops a range that ends before it starts', () => {
+    const params = new URLSearchParams(
+      'endpoint=teleport&status=99&from=2026-12-10&to=2026-12-01&keyId=k1',
+    );
+    expect(ignoredParams(params)).toEqual([
+      'endpoint “teleport” is not one of ours',
+      'status “99” is not an HTTP status',
+      'the range 2026-12-10 to 2026-12-01 ends before it starts',
+    ]);
+    expect(summaryFromParams(params)).toEqual({ keyId: 'k1' });
+    expect(filterFromParams(params)).toEqual({ limit: '50', keyId: 'k1' });
+    // 31 November is not a day, though it has the shape of one.
+    expect(ignoredParams(new URLSearchParams('from=2026-11-31'))).toEqual([
+      'from “2026-11-31” is not a YYYY-MM-DD day',
+    ]);
+    expect(ignoredParams(new URLSearchParams('from=2026-11-30&endpoint=flash'))).toEqual([]);
   });
 
   it('daysBetween lists every day inclusive', () => {

@@ -1,25 +1,87 @@
-import { ENDPOINTS, type Endpoint, type UsageEventFilter } from './api/usage';
+import {
+  ENDPOINTS,
+  type Endpoint,
+  type UsageEventFilter,
+  type UsageSummaryFilter,
+} from './api/usage';
 
 const DAY = /^\d{4}-\d{2}-\d{2}$/;
+const STATUS = /^[1-5]\d\d$/;
+
+function validDay(value: string | null): value is string {
+  if (!value || !DAY.test(value)) return false;
+  const d = new Date(`${value}T00:00:00Z`);
+  return !Number.isNaN(d.getTime()) && d.toISOString().slice(0, 10) === value;
+}
+
+/** The filters the URL holds that the page can use; the rest are listed by `ignoredParams`. */
+function readParams(params: URLSearchParams) {
+  const endpoint = params.get('endpoint');
+  const status = params.get('status');
+  let from = params.get('from');
+  let to = params.get('to');
+  if (!validDay(from)) from = null;
+  if (!validDay(to)) to = null;
+  // A range that ends before it starts is dropped whole (ignoredParams says why).
+  if (from && to && from > to) from = to = null;
+  return {
+    endpoint:
+      endpoint && (ENDPOINTS as readonly string[]).includes(endpoint)
+        ? (endpoint as Endpoint)
+        : undefined,
+    status: status && STATUS.test(status) ? status : undefined,
+    keyId: params.get('keyId') || undefined,
+    from: from ?? undefined,
+    to: to ?? undefined,
+  };
+}
+
+/** Drop undefined values, so query keys and URLs stay short. */
+function defined<T extends object>(value: T): T {
+  return Object.fromEntries(Object.entries(value).filter(([, v]) => v !== undefined)) as T;
+}
 
 /** The events filter from the URL; unknown or malformed values are dropped, not sent. */
 export function filterFromParams(params: URLSearchParams, pageSize = 50): UsageEventFilter {
-  const filter: UsageEventFilter = { limit: String(pageSize) };
+  const p = readParams(params);
+  return defined({
+    limit: String(pageSize),
+    endpoint: p.endpoint,
+    status: p.status,
+    keyId: p.keyId,
+    from: p.from,
+    to: p.to === undefined ? undefined : nextDay(p.to),
+    cursor: params.get('cursor') || undefined,
+  });
+}
+
+/** The summary's filter from the URL: inclusive UTC days (the server defaults to this month). */
+export function summaryFromParams(params: URLSearchParams): UsageSummaryFilter {
+  const p = readParams(params);
+  return defined({
+    from: p.from,
+    to: p.to,
+    endpoint: p.endpoint,
+    status: p.status,
+    keyId: p.keyId,
+  });
+}
+
+/** Sentences for URL filters the page left out, so a shared link never filters silently wrong. */
+export function ignoredParams(params: URLSearchParams): string[] {
+  const out: string[] = [];
   const endpoint = params.get('endpoint');
-  if (endpoint && (ENDPOINTS as readonly string[]).includes(endpoint)) {
-    filter.endpoint = endpoint as Endpoint;
-  }
+  if (endpoint && !(ENDPOINTS as readonly string[]).includes(endpoint))
+    out.push(`endpoint “${endpoint}” is not one of ours`);
   const status = params.get('status');
-  if (status && /^[1-5]\d\d$/.test(status)) filter.status = status;
-  const keyId = params.get('keyId');
-  if (keyId) filter.keyId = keyId;
+  if (status && !STATUS.test(status)) out.push(`status “${status}” is not an HTTP status`);
   const from = params.get('from');
-  if (from && DAY.test(from)) filter.from = from;
   const to = params.get('to');
-  if (to && DAY.test(to)) filter.to = nextDay(to);
-  const cursor = params.get('cursor');
-  if (cursor) filter.cursor = cursor;
-  return filter;
+  if (from && !validDay(from)) out.push(`from “${from}” is not a YYYY-MM-DD day`);
+  if (to && !validDay(to)) out.push(`to “${to}” is not a YYYY-MM-DD day`);
+  if (validDay(from) && validDay(to) && from > to)
+    out.push(`the range ${from} to ${to} ends before it starts`);
+  return out;
 }
 
 /** The form shows an inclusive "to" day; the API's `to` is exclusive, so send the day after. */
@@ -27,16 +89,6 @@ export function nextDay(day: string): string {
   const date = new Date(`${day}T00:00:00Z`);
   date.setUTCDate(date.getUTCDate() + 1);
   return date.toISOString().slice(0, 10);
-}
-
-/** The summary's range from the URL (inclusive UTC days; the server defaults to this month). */
-export function rangeFromParams(params: URLSearchParams): { from?: string; to?: string } {
-  const range: { from?: string; to?: string } = {};
-  const from = params.get('from');
-  const to = params.get('to');
-  if (from && DAY.test(from)) range.from = from;
-  if (to && DAY.test(to)) range.to = to;
-  return range;
 }
 
 /** Every day from `from` to `to` inclusive, so days without calls still get a (zero) bar. */

@@ -6,6 +6,9 @@ export type UsageSummary = components['schemas']['UsageSummaryResponseDto'];
 export type UsageEvent = UsageEventPage['data'][number];
 export type CurrentPlan = components['schemas']['CurrentPlanResponseDto'];
 export type UsageEventFilter = NonNullable<paths['/v1/usage/events']['get']['parameters']['query']>;
+export type UsageSummaryFilter = NonNullable<
+  paths['/v1/usage/summary']['get']['parameters']['query']
+>;
 export type Endpoint = NonNullable<UsageEventFilter['endpoint']>;
 type UsageEventPageRaw = components['schemas']['UsageEventPageResponseDto'];
 // The spec gives nextCursor as string[] (a 3.1 type list read as 3.0); the server sends string | null.
@@ -24,24 +27,27 @@ export const ENDPOINTS: readonly Endpoint[] = [
 
 export const usageKeys = {
   all: ['usage'] as const,
-  summary: (range: { from?: string; to?: string }) => [...usageKeys.all, 'summary', range] as const,
+  summary: (filter: UsageSummaryFilter) => [...usageKeys.all, 'summary', filter] as const,
   events: (filter: UsageEventFilter) => [...usageKeys.all, 'events', filter] as const,
   currentPlan: () => ['plans', 'current'] as const,
 };
 
-/** GET /v1/usage/summary: totals by day, endpoint, key, status and source over a UTC range. */
-export function getUsageSummary(range: { from?: string; to?: string }, signal?: AbortSignal) {
-  return unwrap(client.GET('/v1/usage/summary', { params: { query: range }, signal }));
+/**
+ * GET /v1/usage/summary: totals by day, endpoint, key, status and source over a UTC range,
+ * optionally for one key, endpoint or status.
+ */
+export function getUsageSummary(filter: UsageSummaryFilter, signal?: AbortSignal) {
+  return unwrap(client.GET('/v1/usage/summary', { params: { query: filter }, signal }));
 }
-export function usageSummaryQueryOptions(range: { from?: string; to?: string }) {
+export function usageSummaryQueryOptions(filter: UsageSummaryFilter) {
   return queryOptions({
-    queryKey: usageKeys.summary(range),
-    queryFn: ({ signal }) => getUsageSummary(range, signal),
+    queryKey: usageKeys.summary(filter),
+    queryFn: ({ signal }) => getUsageSummary(filter, signal),
     placeholderData: keepPreviousData,
   });
 }
-export function useUsageSummary(range: { from?: string; to?: string }) {
-  return useQuery(usageSummaryQueryOptions(range));
+export function useUsageSummary(filter: UsageSummaryFilter) {
+  return useQuery(usageSummaryQueryOptions(filter));
 }
 
 /** GET /v1/usage/events: newest first, filtered, cursor-paged. */

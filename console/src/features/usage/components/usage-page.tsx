@@ -1,4 +1,4 @@
-import { useMemo } from 'react';
+import { useMemo, useState } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { Card } from '@/components/ui/card';
 import { CursorPager } from '@/components/ui/cursor-pager';
@@ -15,7 +15,7 @@ import {
   type UsageEvent,
   type UsageSummary,
 } from '../api/usage';
-import { daysBetween, filterFromParams, rangeFromParams } from '../filters';
+import { daysBetween, filterFromParams, ignoredParams, summaryFromParams } from '../filters';
 import { CallsChart, toDayBars } from './calls-chart';
 import { firstPageParams } from '@/lib/pagination';
 
@@ -74,13 +74,23 @@ export function UsagePage({ keys = NO_KEYS }: { keys?: UsageKeyLabel[] }) {
   const keyMap = useMemo(() => new Map(keys.map((k) => [k.id, k])), [keys]);
   const columns = useMemo(() => eventColumns(keyMap), [keyMap]);
   const chosenKey = params.get('keyId') ?? '';
-  const range = rangeFromParams(params);
+  const summaryFilter = summaryFromParams(params);
   const filter = filterFromParams(params);
-  const summary = useUsageSummary(range);
+  const summary = useUsageSummary(summaryFilter);
   const events = useUsageEvents(filter);
+  const ignored = ignoredParams(params);
+  const narrowed = ['endpoint', 'status', 'keyId'].some((k) => k in summaryFilter);
+  const [rangeError, setRangeError] = useState<string | null>(null);
 
   const applyFilters = (form: HTMLFormElement) => {
     const data = new FormData(form);
+    const from = data.get('from');
+    const to = data.get('to');
+    if (typeof from === 'string' && typeof to === 'string' && from && to && from > to) {
+      setRangeError(`“From” (${from}) is after “To” (${to}): pick a From day on or before it.`);
+      return;
+    }
+    setRangeError(null);
     const next = firstPageParams(params);
     for (const name of ['from', 'to', 'endpoint', 'status', 'keyId']) {
       const value = data.get(name);
@@ -183,9 +193,15 @@ export function UsagePage({ keys = NO_KEYS }: { keys?: UsageKeyLabel[] }) {
         </div>
       </form>
 
+      {rangeError ? <Notice tone="fault">{rangeError}</Notice> : null}
+      {ignored.length ? (
+        <Notice tone="caution">
+          Left out of the filters from this page’s address: {ignored.join('; ')}.
+        </Notice>
+      ) : null}
       <Card aria-labelledby="usage-chart-heading">
         <h2 id="usage-chart-heading" className="text-title font-semibold">
-          Calls by day
+          Calls by day{narrowed ? ' (filtered)' : ''}
         </h2>
         {summary.isPending ? (
           <PageLoading />
