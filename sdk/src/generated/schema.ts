@@ -200,7 +200,10 @@ export interface paths {
     };
     get?: never;
     put?: never;
-    /** Cancel the subscription now; the organisation moves to the free plan. */
+    /**
+     * Cancel the subscription now; the organisation moves to the free plan.
+     * @description Never refused for seats: members beyond the free plan's seats keep their access, but nobody new can be invited or join until the members fit (GET /v1/team/members says how many seats are used). The same holds for any plan change the payments service reports.
+     */
     post: operations['cancelSubscription'];
     delete?: never;
     options?: never;
@@ -217,7 +220,10 @@ export interface paths {
     };
     get?: never;
     put?: never;
-    /** Start a hosted checkout to move to a paid plan (upgrade or downgrade). */
+    /**
+     * Start a hosted checkout to move to a paid plan (upgrade or downgrade).
+     * @description A plan with fewer seats than the organisation has members is refused with a 409 problem: `limit: "seats"`, `limitValue` (the new plan's seats), `members`, `removeMembers` (how many to remove first) and `planCode` (the plan asked for). Pending invitations do not block the change; beyond the new seats they cannot be accepted.
+     */
     post: operations['createCheckout'];
     delete?: never;
     options?: never;
@@ -534,7 +540,10 @@ export interface paths {
     };
     get?: never;
     put?: never;
-    /** Accept an invitation as a new or existing account, and sign in. */
+    /**
+     * Accept an invitation as a new or existing account, and sign in.
+     * @description Joining takes a seat: when the members already fill the plan's seats (e.g. the plan was lowered after the invitation was sent) the answer is a 409 problem with `limit: "seats"` and nothing is written (no account, no membership); the invitation stays valid, so the link works once a seat is free.
+     */
     post: operations['acceptInvite'];
     delete?: never;
     options?: never;
@@ -758,7 +767,7 @@ export interface paths {
       path?: never;
       cookie?: never;
     };
-    /** Your organisation's plan and this month's calls against it. */
+    /** Your organisation's plan, this month's calls and the seats used against it. */
     get: operations['getCurrentPlan'];
     put?: never;
     post?: never;
@@ -883,7 +892,10 @@ export interface paths {
     /** Invitations, newest first. */
     get: operations['listInvites'];
     put?: never;
-    /** Invite someone by e-mail with a role (the link is valid for 7 days). */
+    /**
+     * Invite someone by e-mail with a role (the link is valid for 7 days).
+     * @description A pending invitation holds one of the plan's seats until it is accepted, canceled or expires. When members plus pending invitations already fill the seats, the answer is a 409 problem with `limit: "seats"`, `limitValue` (the plan's seats), `count` (seats used), `members`, `pendingInvites` and `planCode`.
+     */
     post: operations['createInvite'];
     delete?: never;
     options?: never;
@@ -917,7 +929,10 @@ export interface paths {
     };
     get?: never;
     put?: never;
-    /** Send the invitation again with a new link and another 7 days. */
+    /**
+     * Send the invitation again with a new link and another 7 days.
+     * @description An expired invitation takes a seat again when re-sent: with no free seat the answer is the same 409 as for a new invitation (`limit: "seats"`).
+     */
     post: operations['resendInvite'];
     delete?: never;
     options?: never;
@@ -932,7 +947,7 @@ export interface paths {
       path?: never;
       cookie?: never;
     };
-    /** Members of the organisation and their roles. */
+    /** Members of the organisation, their roles, and the seats used against the plan's. */
     get: operations['listMembers'];
     put?: never;
     post?: never;
@@ -1637,7 +1652,7 @@ export interface components {
            */
           savedSetups: number | null;
           /**
-           * @description Team members.
+           * @description Seats: members plus pending invitations. Invitations and acceptances beyond them get a 409 problem with limit "seats".
            * @example 10
            */
           seats: number;
@@ -1704,6 +1719,21 @@ export interface components {
          * @example 1498
          */
         liveCallsCounted: number;
+        /**
+         * @description Members of the organisation.
+         * @example 2
+         */
+        members: number;
+        /**
+         * @description Invitations that can still be accepted.
+         * @example 1
+         */
+        pendingInvites: number;
+        /**
+         * @description Seats taken against plan.features.seats: members plus pending invitations (not accepted, canceled or expired). It can exceed the seats after a move to a smaller plan; then nobody new can be invited or join until it is under them.
+         * @example 3
+         */
+        seatsUsed: number;
         /**
          * @description Calls with test keys this month, failures included.
          * @example 310
@@ -2565,6 +2595,8 @@ export interface components {
     };
     MemberListResponseDto: {
       data: components['schemas']['MemberResponseDto'][];
+      /** @description Seats used against the plan. After a move to a smaller plan (e.g. a subscription ended), members may exceed the limit: everyone keeps access, but nobody new can be invited or join until members + pending invitations are under the limit. */
+      seats: components['schemas']['SeatsResponseDto'];
     };
     MemberResponseDto: {
       /** @example corvin@kestrelmoor.test */
@@ -2709,7 +2741,7 @@ export interface components {
            */
           savedSetups: number | null;
           /**
-           * @description Team members.
+           * @description Seats: members plus pending invitations. Invitations and acceptances beyond them get a 409 problem with limit "seats".
            * @example 10
            */
           seats: number;
@@ -3140,6 +3172,32 @@ export interface components {
       windowEnd: string | null;
       /** @description Shooting window start, ISO 8601 with offset. */
       windowStart: string | null;
+    };
+    SeatsResponseDto: {
+      /**
+       * @description The plan's seats (plan.features.seats).
+       * @example 10
+       */
+      limit: number;
+      /**
+       * @description Members of the organisation.
+       * @example 2
+       */
+      members: number;
+      /**
+       * @description Invitations that can still be accepted (expired ones free their seat).
+       * @example 1
+       */
+      pendingInvites: number;
+      /** @example studio */
+      planCode: string;
+      /** @example Studio */
+      planName: string;
+      /**
+       * @description Seats taken: members plus pending invitations (not accepted, canceled or expired). A new invitation needs used < limit.
+       * @example 3
+       */
+      used: number;
     };
     SetupRequestDto: {
       /**
@@ -4831,6 +4889,13 @@ export interface operations {
           'application/json': components['schemas']['CheckoutResponseDto'];
         };
       };
+      /** @description Already on that plan, or the plan has fewer seats than the members (`limit: "seats"`). */
+      409: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content?: never;
+      };
     };
   };
   listInvoices: {
@@ -6420,6 +6485,13 @@ export interface operations {
           'application/json': components['schemas']['MeResponseDto'];
         };
       };
+      /** @description No free seat in the organisation (`limit: "seats"`). */
+      409: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content?: never;
+      };
     };
   };
   previewInvite: {
@@ -7373,6 +7445,13 @@ export interface operations {
           'application/json': components['schemas']['InviteResponseDto'];
         };
       };
+      /** @description Already a member, already invited, or no free seat (`limit: "seats"`: remove a member, cancel an invitation or change plan). */
+      409: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content?: never;
+      };
     };
   };
   cancelInvite: {
@@ -7414,6 +7493,13 @@ export interface operations {
         content: {
           'application/json': components['schemas']['InviteResponseDto'];
         };
+      };
+      /** @description Already accepted or canceled, or (expired invitations) no free seat. */
+      409: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content?: never;
       };
     };
   };

@@ -1,5 +1,6 @@
 // Demo scenario: an invented dusk-portrait studio with one member per role, a few keys and some
-// history. Idempotent (fixed ids, ON CONFLICT DO NOTHING); prints nothing secret.
+// history. Idempotent (fixed ids, ON CONFLICT DO NOTHING); prints nothing secret. Four members need
+// more than the free plan's seats, so the studio is on the Studio plan.
 import type { DataSource, EntityManager } from 'typeorm';
 import { newPublicId, newSecret } from '../api-keys/key-format.js';
 import type { Seeder } from '../database/seeds/index.js';
@@ -8,6 +9,8 @@ import { sha256Hex } from './tokens.js';
 
 export const DEMO_ORG_ID = '5eed0000-0000-4000-8000-000000000001';
 export const DEMO_PASSWORD = 'kestrel-dusk-demo';
+/** The demo studio's plan: its seats hold the four members. */
+export const DEMO_PLAN = 'studio';
 
 export const DEMO_MEMBERS = [
   {
@@ -77,9 +80,18 @@ async function run(ds: DataSource): Promise<void> {
 
 async function seed(ds: EntityManager): Promise<void> {
   const created: unknown[] = await ds.query(
-    `INSERT INTO organizations (id, name) VALUES ($1, 'Kestrelmoor Evening Portraits')
+    `INSERT INTO organizations (id, name, plan_code)
+     VALUES ($1, 'Kestrelmoor Evening Portraits', $2)
      ON CONFLICT (id) DO NOTHING RETURNING id`,
-    [DEMO_ORG_ID],
+    [DEMO_ORG_ID, DEMO_PLAN],
+  );
+  // A demo seeded before seats were enforced sits on the free plan: move it up, unless its plan
+  // came from billing (a subscription, even a cancelled one, is the owner's own choice).
+  await ds.query(
+    `UPDATE organizations o SET plan_code = $2, updated_at = now()
+      WHERE o.id = $1 AND o.plan_code = 'free'
+        AND NOT EXISTS (SELECT 1 FROM billing_subscriptions s WHERE s.organization_id = o.id)`,
+    [DEMO_ORG_ID, DEMO_PLAN],
   );
   const existing = new Set(
     (

@@ -2,6 +2,7 @@ import { Body, Controller, Get, Headers, HttpCode, Param, Post, Req } from '@nes
 import {
   ApiAcceptedResponse,
   ApiBadRequestResponse,
+  ApiConflictResponse,
   ApiCreatedResponse,
   ApiExcludeEndpoint,
   ApiOkResponse,
@@ -47,8 +48,14 @@ export class BillingController {
   @SessionAuth('owner')
   @ApiOperation({
     summary: 'Start a hosted checkout to move to a paid plan (upgrade or downgrade).',
+    description:
+      'A plan with fewer seats than the organisation has members is refused with a 409 problem: `limit: "seats"`, `limitValue` (the new plan\'s seats), `members`, `removeMembers` (how many to remove first) and `planCode` (the plan asked for). Pending invitations do not block the change; beyond the new seats they cannot be accepted.',
   })
   @ApiCreatedResponse({ type: CheckoutResponseDto })
+  @ApiConflictResponse({
+    description:
+      'Already on that plan, or the plan has fewer seats than the members (`limit: "seats"`).',
+  })
   async createCheckout(@Req() req: RequestWithPrincipal, @Body() body: CheckoutRequestDto) {
     const c = await this.billing.startCheckout(req.principal!, body.planCode);
     return { ...toCheckoutDto(c), change: c.change };
@@ -59,6 +66,8 @@ export class BillingController {
   @HttpCode(202)
   @ApiOperation({
     summary: 'Cancel the subscription now; the organisation moves to the free plan.',
+    description:
+      "Never refused for seats: members beyond the free plan's seats keep their access, but nobody new can be invited or join until the members fit (GET /v1/team/members says how many seats are used). The same holds for any plan change the payments service reports.",
   })
   @ApiAcceptedResponse({ type: CancelResponseDto })
   cancelSubscription(@Req() req: RequestWithPrincipal) {

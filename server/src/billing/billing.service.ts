@@ -9,6 +9,7 @@ import { DomainError } from '../common/errors/domain-error.js';
 import type { Principal } from '../common/guards/access.guard.js';
 import { APP_CONFIG, AppConfig } from '../config/config.js';
 import { PlansService } from '../plans/plans.service.js';
+import { assertSeatsForPlan, seatUsage } from '../team/seats.js';
 import {
   BillingAccountEntity,
   BillingCheckoutEntity,
@@ -97,6 +98,9 @@ export class BillingService {
     if (current.code === planCode && subscription?.status === 'active') {
       throw new DomainError('conflict', `The organisation is already on ${target.name}.`);
     }
+    // A smaller plan must leave every member a seat: asked for here, it is refused up front. (A
+    // change the payments service reports by webhook always applies; see webhook.service.ts.)
+    assertSeatsForPlan(await seatUsage(this.ds, p.organizationId), target);
     await this.ensureWebhook();
     const customerId = await this.customerFor(p);
     const base = this.config.publicUrl;

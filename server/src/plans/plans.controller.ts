@@ -11,6 +11,9 @@ import {
 import { PlansService } from './plans.service.js';
 import { monthBounds } from './quota.service.js';
 import { UsageService } from '../usage/usage.service.js';
+import { seatUsage } from '../team/seats.js';
+import { InjectDataSource } from '@nestjs/typeorm';
+import { DataSource } from 'typeorm';
 
 @ApiTags('plans')
 @Controller('plans')
@@ -18,6 +21,7 @@ export class PlansController {
   constructor(
     private readonly plans: PlansService,
     private readonly usage: UsageService,
+    @InjectDataSource() private readonly ds: DataSource,
   ) {}
 
   @Get()
@@ -30,18 +34,28 @@ export class PlansController {
 
   @Get('current')
   @SessionAuth()
-  @ApiOperation({ summary: "Your organisation's plan and this month's calls against it." })
+  @ApiOperation({
+    summary: "Your organisation's plan, this month's calls and the seats used against it.",
+  })
   @ApiOkResponse({ type: CurrentPlanResponseDto })
   async getCurrentPlan(@Req() req: RequestWithPrincipal) {
     const orgId = req.principal!.organizationId;
     const plan = await this.plans.forOrganization(orgId);
     const { start, reset } = monthBounds(new Date());
-    const month = await this.usage.monthTotals(orgId, start);
+    const [month, seats] = await Promise.all([
+      this.usage.monthTotals(orgId, start),
+      seatUsage(this.ds, orgId),
+    ]);
     return {
       plan: toPlanDto(plan),
       periodStart: start,
       resetsAt: reset.toISOString(),
-      usage: month,
+      usage: {
+        ...month,
+        seatsUsed: seats.used,
+        members: seats.members,
+        pendingInvites: seats.pendingInvites,
+      },
     };
   }
 }

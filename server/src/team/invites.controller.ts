@@ -1,5 +1,11 @@
 import { Body, Controller, HttpCode, Post, Req } from '@nestjs/common';
-import { ApiNotFoundResponse, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
+import {
+  ApiConflictResponse,
+  ApiNotFoundResponse,
+  ApiOkResponse,
+  ApiOperation,
+  ApiTags,
+} from '@nestjs/swagger';
 import type { FastifyRequest } from 'fastify';
 import { MeResponseDto } from '../auth/dto/auth.dto.js';
 import { toMeDto } from '../auth/me.mapper.js';
@@ -31,8 +37,13 @@ export class InvitesController {
   @Post('accept')
   @Public()
   @HttpCode(200)
-  @ApiOperation({ summary: 'Accept an invitation as a new or existing account, and sign in.' })
+  @ApiOperation({
+    summary: 'Accept an invitation as a new or existing account, and sign in.',
+    description:
+      'Joining takes a seat: when the members already fill the plan\'s seats (e.g. the plan was lowered after the invitation was sent) the answer is a 409 problem with `limit: "seats"` and nothing is written (no account, no membership); the invitation stays valid, so the link works once a seat is free.',
+  })
   @ApiOkResponse({ type: MeResponseDto })
+  @ApiConflictResponse({ description: 'No free seat in the organisation (`limit: "seats"`).' })
   async acceptInvite(
     @Body() body: AcceptInviteRequestDto,
     @Req() req: FastifyRequest,

@@ -17,6 +17,7 @@ import { MembershipEntity } from '../organizations/membership.entity.js';
 import { OrganizationEntity } from '../organizations/organization.entity.js';
 import { UserEntity } from '../users/user.entity.js';
 import { InviteEntity } from './invite.entity.js';
+import { assertSeatForAccept, assertSeatForInvite, seatUsage } from './seats.js';
 
 export const INVITE_TTL_MS = 7 * 24 * 3600 * 1000;
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
@@ -63,43 +64,49 @@ export class InvitesService {
         { field: 'email', reason: 'is already a member' },
       ]);
     }
-    // Expired invitations to the same address make way for the new one.
-    await this.invites.update(
-      {
+    const token = newLinkToken();
+    const saved = await this.ds.transaction(async (m) => {
+      // The organisation's row is locked first: concurrent invitations take seats one by one.
+      const seats = await seatUsage(m, p.organizationId, { lock: true });
+      // Expired invitations to the same address make way for the new one.
+      await m.update(
+        InviteEntity,
+        {
+          organizationId: p.organizationId,
+          email,
+          acceptedAt: IsNull(),
+          canceledAt: IsNull(),
+          expiresAt: LessThanOrEqual(new Date()),
+        },
+        { canceledAt: new Date() },
+      );
+      const pending = await m.findOneBy(InviteEntity, {
         organizationId: p.organizationId,
         email,
         acceptedAt: IsNull(),
         canceledAt: IsNull(),
-        expiresAt: LessThanOrEqual(new Date()),
-      },
-      { canceledAt: new Date() },
-    );
-    const pending = await this.invites.findOneBy({
-      organizationId: p.organizationId,
-      email,
-      acceptedAt: IsNull(),
-      canceledAt: IsNull(),
-    });
-    if (pending) {
-      throw new DomainError(
-        'conflict',
-        'This address already has a pending invitation; re-send it instead.',
-        [{ field: 'email', reason: 'already has a pending invitation' }],
+      });
+      if (pending) {
+        throw new DomainError(
+          'conflict',
+          'This address already has a pending invitation; re-send it instead.',
+          [{ field: 'email', reason: 'already has a pending invitation' }],
+        );
+      }
+      assertSeatForInvite(seats);
+      const now = new Date();
+      return m.save(
+        m.create(InviteEntity, {
+          organizationId: p.organizationId,
+          email,
+          role,
+          tokenHash: sha256Hex(token),
+          invitedByUserId: p.userId,
+          expiresAt: new Date(now.getTime() + INVITE_TTL_MS),
+          lastSentAt: now,
+        }),
       );
-    }
-    const token = newLinkToken();
-    const now = new Date();
-    const saved = await this.invites.save(
-      this.invites.create({
-        organizationId: p.organizationId,
-        email,
-        role,
-        tokenHash: sha256Hex(token),
-        invitedByUserId: p.userId,
-        expiresAt: new Date(now.getTime() + INVITE_TTL_MS),
-        lastSentAt: now,
-      }),
-    );
+    });
     await this.sendMail(saved, token, p.userId);
     await this.record(p, 'invite.created', saved, meta);
     return this.get(p.organizationId, saved.id);
@@ -113,15 +120,23 @@ export class InvitesService {
       throw new DomainError('forbidden', 'Only an owner can re-send an owner invitation.');
     }
     const token = newLinkToken();
-    const now = new Date();
-    await this.invites.update(
-      { id: invite.id },
-      {
-        tokenHash: sha256Hex(token),
-        lastSentAt: now,
-        expiresAt: new Date(now.getTime() + INVITE_TTL_MS),
-      },
-    );
+    await this.ds.transaction(async (m) => {
+      // A pending invitation already holds its seat; an expired one takes a seat again.
+      const seats = await seatUsage(m, p.organizationId, { lock: true, exceptInviteId: invite.id });
+      const current = await m.findOneByOrFail(InviteEntity, { id: invite.id });
+      this.assertOpen(current);
+      if (current.expiresAt <= new Date()) assertSeatForInvite(seats);
+      const now = new Date();
+      await m.update(
+        InviteEntity,
+        { id: invite.id },
+        {
+          tokenHash: sha256Hex(token),
+          lastSentAt: now,
+          expiresAt: new Date(now.getTime() + INVITE_TTL_MS),
+        },
+      );
+    });
     const fresh = await this.get(p.organizationId, id);
     await this.sendMail(fresh, token, p.userId);
     await this.record(p, 'invite.resent', fresh, meta);
@@ -181,6 +196,7 @@ export class InvitesService {
         ]);
       }
     }
+    let account: { name: string; passwordHash: string } | null = null;
     if (!user) {
       const problems = [
         ...(!input.name ? [{ field: 'name', reason: 'is required for a new account' }] : []),
@@ -191,15 +207,11 @@ export class InvitesService {
       if (problems.length)
         throw new DomainError('invalid_input', 'Choose a name and a password.', problems);
       assertPassword(input.password!, { email: invite.email, name: input.name! });
-      user = await this.users.save(
-        this.users.create({
-          email: invite.email,
-          name: input.name!,
-          passwordHash: await hashPassword(input.password!),
-        }),
-      );
+      account = { name: input.name!, passwordHash: await hashPassword(input.password!) };
     }
-    const joined = await this.join(invite, user.id);
+    // One transaction: the new account, the used invitation and the membership, or none of them.
+    const joined = await this.join(invite, user?.id ?? null, account);
+    user = await this.users.findOneByOrFail({ id: joined.userId });
     if (signedInAs === user.id) await this.sessions.switchOrganization(req, invite.organizationId);
     else await this.sessions.start(req, user.id, invite.organizationId);
     const org = await this.orgs.findOneByOrFail({ id: invite.organizationId });
@@ -224,27 +236,55 @@ export class InvitesService {
     return { user, organization: org, role: joined.role };
   }
 
-  private async join(invite: InviteEntity, userId: string): Promise<MembershipEntity> {
+  private async join(
+    invite: InviteEntity,
+    existingUserId: string | null,
+    account: { name: string; passwordHash: string } | null,
+  ): Promise<{ userId: string; role: Role }> {
     return this.ds.transaction(async (m) => {
+      // The organisation's row first: two acceptances racing for the last seat take turns.
+      const seats = await seatUsage(m, invite.organizationId, { lock: true });
       // Single use: only one acceptance can flip accepted_at.
       const r: unknown[] = await m.query(
-        `UPDATE invites SET accepted_at = now() WHERE id = $1 AND accepted_at IS NULL AND canceled_at IS NULL RETURNING id`,
+        `UPDATE invites SET accepted_at = now()
+          WHERE id = $1 AND accepted_at IS NULL AND canceled_at IS NULL AND expires_at > now()
+          RETURNING id`,
         [invite.id],
       );
       const rows = Array.isArray(r[0]) ? (r[0] as unknown[]) : r;
       if (!rows.length) throw invalid();
-      const current = await m.findOneBy(MembershipEntity, {
+      const current = existingUserId
+        ? await m.findOneBy(MembershipEntity, {
+            organizationId: invite.organizationId,
+            userId: existingUserId,
+          })
+        : null;
+      // Already a member: keep the existing role; no new seat is taken.
+      if (current) return { userId: current.userId, role: current.role };
+      const org = await m.findOneByOrFail(OrganizationEntity, { id: invite.organizationId });
+      assertSeatForAccept(seats, org.name, invite.expiresAt);
+      let userId = existingUserId;
+      if (!userId) {
+        const created: { id: string }[] = await m.query(
+          `INSERT INTO users (email, name, password_hash) VALUES ($1, $2, $3)
+           ON CONFLICT DO NOTHING RETURNING id`,
+          [invite.email, account!.name, account!.passwordHash],
+        );
+        if (!created[0]) {
+          throw new DomainError(
+            'conflict',
+            'An account with this address was created meanwhile; sign in with it and accept again.',
+            [{ field: 'token', reason: 'belongs to an address that now has an account' }],
+          );
+        }
+        userId = created[0].id;
+      }
+      await m.insert(MembershipEntity, {
         organizationId: invite.organizationId,
         userId,
+        role: invite.role,
       });
-      if (current) return current; // already a member: keep the existing role
-      return m.save(
-        m.create(MembershipEntity, {
-          organizationId: invite.organizationId,
-          userId,
-          role: invite.role,
-        }),
-      );
+      return { userId, role: invite.role };
     });
   }
 

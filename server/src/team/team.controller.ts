@@ -19,7 +19,7 @@ import {
   MemberResponseDto,
 } from './dto/team.dto.js';
 import { InvitesService } from './invites.service.js';
-import { toInviteDto, toMemberDto } from './team.mapper.js';
+import { toInviteDto, toMemberDto, toSeatsDto } from './team.mapper.js';
 import { TeamService } from './team.service.js';
 
 @ApiTags('team')
@@ -32,10 +32,16 @@ export class TeamController {
 
   @Get('members')
   @SessionAuth(...can('team:manage'))
-  @ApiOperation({ summary: 'Members of the organisation and their roles.' })
+  @ApiOperation({
+    summary: "Members of the organisation, their roles, and the seats used against the plan's.",
+  })
   @ApiOkResponse({ type: MemberListResponseDto })
   async listMembers(@CurrentPrincipal() p: SessionPrincipal): Promise<MemberListResponseDto> {
-    return { data: (await this.team.listMembers(p.organizationId)).map(toMemberDto) };
+    const [members, seats] = await Promise.all([
+      this.team.listMembers(p.organizationId),
+      this.team.seats(p.organizationId),
+    ]);
+    return { data: members.map(toMemberDto), seats: toSeatsDto(seats) };
   }
 
   @Patch('members/:userId')
@@ -78,8 +84,16 @@ export class TeamController {
 
   @Post('invites')
   @SessionAuth(...can('team:manage'))
-  @ApiOperation({ summary: 'Invite someone by e-mail with a role (the link is valid for 7 days).' })
+  @ApiOperation({
+    summary: 'Invite someone by e-mail with a role (the link is valid for 7 days).',
+    description:
+      'A pending invitation holds one of the plan\'s seats until it is accepted, canceled or expires. When members plus pending invitations already fill the seats, the answer is a 409 problem with `limit: "seats"`, `limitValue` (the plan\'s seats), `count` (seats used), `members`, `pendingInvites` and `planCode`.',
+  })
   @ApiCreatedResponse({ type: InviteResponseDto })
+  @ApiConflictResponse({
+    description:
+      'Already a member, already invited, or no free seat (`limit: "seats"`: remove a member, cancel an invitation or change plan).',
+  })
   async createInvite(
     @CurrentPrincipal() p: SessionPrincipal,
     @Body() body: CreateInviteRequestDto,
@@ -91,8 +105,15 @@ export class TeamController {
   @Post('invites/:id/resend')
   @SessionAuth(...can('team:manage'))
   @HttpCode(200)
-  @ApiOperation({ summary: 'Send the invitation again with a new link and another 7 days.' })
+  @ApiOperation({
+    summary: 'Send the invitation again with a new link and another 7 days.',
+    description:
+      'An expired invitation takes a seat again when re-sent: with no free seat the answer is the same 409 as for a new invitation (`limit: "seats"`).',
+  })
   @ApiOkResponse({ type: InviteResponseDto })
+  @ApiConflictResponse({
+    description: 'Already accepted or canceled, or (expired invitations) no free seat.',
+  })
   async resendInvite(
     @CurrentPrincipal() p: SessionPrincipal,
     @Param('id') id: string,

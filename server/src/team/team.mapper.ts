@@ -1,6 +1,7 @@
 import type { MembershipEntity } from '../organizations/membership.entity.js';
-import type { InviteResponseDto, MemberResponseDto } from './dto/team.dto.js';
+import type { InviteResponseDto, MemberResponseDto, SeatsResponseDto } from './dto/team.dto.js';
 import type { InviteEntity } from './invite.entity.js';
+import type { SeatUsage } from './seats.js';
 
 export function inviteStatus(i: InviteEntity, now = new Date()): InviteResponseDto['status'] {
   if (i.acceptedAt) return 'accepted';
@@ -25,4 +26,13 @@ export const toMemberDto = (m: MembershipEntity): MemberResponseDto => ({
   email: m.user?.email ?? '',
   role: m.role,
   joinedAt: m.createdAt.toISOString(),
+});
+
+export const toSeatsDto = (u: SeatUsage): SeatsResponseDto => ({
+  limit: u.seats,
+  used: u.used,
+  members: u.members,
+  pendingInvites: u.pendingInvites,
+  planCode: u.planCode,
+  planName: u.planName,
 });

@@ -6,6 +6,7 @@ import type { RequestMeta, SessionPrincipal } from '../auth/request-context.js';
 import type { Role } from '../common/decorators/access.decorator.js';
 import { DomainError } from '../common/errors/domain-error.js';
 import { MembershipEntity } from '../organizations/membership.entity.js';
+import { seatUsage, type SeatUsage } from './seats.js';
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
@@ -23,6 +24,11 @@ export class TeamService {
       relations: { user: true },
       order: { createdAt: 'ASC' },
     });
+  }
+
+  /** Members and pending invitations against the plan's seats. */
+  seats(organizationId: string): Promise<SeatUsage> {
+    return seatUsage(this.ds, organizationId);
   }
 
   /** Only owners grant or take away the owner role; an organisation always keeps an owner. */

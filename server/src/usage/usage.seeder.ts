@@ -12,7 +12,7 @@ import { EventBatch, UPSERT_DAILY } from './usage-writer.service.js';
 /** Days of history (the demo keys are seeded 20 days old; calls stay inside each key's life). */
 const DAYS = 19;
 export const DEMO_TRAFFIC_KEYS: DemoKey[] = [
-  // Booking site (production): a small studio's site on the free plan, under its 2,000 calls.
+  // Booking site (production): a small studio's site, under even the free plan's 2,000 calls.
   {
     id: DEMO_KEY_IDS.bookingSite,
     environment: 'live',

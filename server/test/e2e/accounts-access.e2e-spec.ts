@@ -7,6 +7,7 @@ import { bootApp, TestApp } from '../setup/app.js';
 import {
   addMember,
   MailInbox,
+  setPlan,
   signUp,
   SignedInAgent,
   startMaildev,
@@ -96,6 +97,7 @@ describe('accounts: access decisions', () => {
 
     beforeAll(async () => {
       members.owner = await signUp(t.url);
+      await setPlan(members.owner.organizationId, 'studio'); // four members and an invitation
       members.admin = await addMember(t.url, members.owner, 'admin', inviteToken);
       members.developer = await addMember(t.url, members.owner, 'developer', inviteToken);
       members.photographer = await addMember(t.url, members.owner, 'photographer', inviteToken);

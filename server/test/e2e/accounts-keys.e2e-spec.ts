@@ -6,6 +6,7 @@ import { openDataSource } from '../setup/db.js';
 import {
   addMember,
   MailInbox,
+  setPlan,
   signUp,
   SignedInAgent,
   startMaildev,
@@ -28,6 +29,7 @@ describe('accounts: API keys', () => {
     t2 = await bootApp({ SMTP_URL: mail.smtpUrl });
     db = await openDataSource();
     owner = await signUp(t.url);
+    await setPlan(owner.organizationId, 'studio'); // one member per role
   }, 90000);
   afterAll(async () => {
     await db?.destroy();

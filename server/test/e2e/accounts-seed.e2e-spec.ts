@@ -6,6 +6,7 @@ import {
   DEMO_MEMBERS,
   DEMO_ORG_ID,
   DEMO_PASSWORD,
+  DEMO_PLAN,
 } from '../../src/auth/accounts.seeder.js';
 import { bootApp, TestApp } from '../setup/app.js';
 import { openDataSource } from '../setup/db.js';
@@ -37,6 +38,13 @@ describe('accounts: demo seed', () => {
     await accountsSeeder.run(db);
     expect(await count()).toEqual(first);
     expect(first).toEqual({ m: 4, k: 3, a: 12 });
+    // The four members fit the demo studio's plan, with seats to spare for invitations.
+    const [plan] = await db.query(
+      `SELECT p.code, p.seats FROM organizations o JOIN plans p ON p.code = o.plan_code WHERE o.id = $1`,
+      [DEMO_ORG_ID],
+    );
+    expect(plan).toEqual({ code: DEMO_PLAN, seats: 10 });
+    expect(first.m).toBeLessThan(plan.seats);
     for (const m of DEMO_MEMBERS) {
       expect(m.email.endsWith('.test')).toBe(true);
       const res = await request(t.url)

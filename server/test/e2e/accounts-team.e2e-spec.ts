@@ -5,6 +5,7 @@ import {
   addMember,
   MailInbox,
   PASSWORD,
+  setPlan,
   signUp,
   SignedInAgent,
   startMaildev,
@@ -24,6 +25,7 @@ describe('accounts: team', () => {
     mail = await startMaildev();
     t = await bootApp({ SMTP_URL: mail.smtpUrl, PUBLIC_URL: 'http://127.0.0.1:3999' });
     owner = await signUp(t.url, { name: 'Mira Owner', organizationName: 'Lanternfield Studio' });
+    await setPlan(owner.organizationId, 'studio'); // more people than the free plan's seats
   }, 90000);
   afterAll(async () => {
     await t?.close();

@@ -3,6 +3,7 @@ import { randomUUID } from 'node:crypto';
 import request from 'supertest';
 import type TestAgent from 'supertest/lib/agent.js';
 import type { Role } from '../../src/common/decorators/access.decorator.js';
+import { openDataSource } from '../setup/db.js';
 
 export const PASSWORD = 'violet-hour-over-the-pier';
 
@@ -45,6 +46,22 @@ export async function signUp(
     organizationId: res.body.organization.id,
     role: 'owner',
   };
+}
+
+/**
+ * Puts an organisation on a plan straight in the database, as a payments webhook would (the free
+ * plan's 2 seats are too few for tests that need one member per role).
+ */
+export async function setPlan(organizationId: string, planCode: string): Promise<void> {
+  const ds = await openDataSource();
+  try {
+    await ds.query(`UPDATE organizations SET plan_code = $2 WHERE id = $1`, [
+      organizationId,
+      planCode,
+    ]);
+  } finally {
+    await ds.destroy();
+  }
 }
 
 /** Reads the token out of the first link in a text body (`…?token=…`). */

@@ -86,9 +86,43 @@ export class MemberResponseDto {
   joinedAt: string;
 }
 
+export class SeatsResponseDto {
+  @ApiProperty({ description: "The plan's seats (plan.features.seats).", example: 10 })
+  limit: number;
+
+  @ApiProperty({
+    description:
+      'Seats taken: members plus pending invitations (not accepted, canceled or expired). A new invitation needs used < limit.',
+    example: 3,
+  })
+  used: number;
+
+  @ApiProperty({ description: 'Members of the organisation.', example: 2 })
+  members: number;
+
+  @ApiProperty({
+    description: 'Invitations that can still be accepted (expired ones free their seat).',
+    example: 1,
+  })
+  pendingInvites: number;
+
+  @ApiProperty({ example: 'studio' })
+  planCode: string;
+
+  @ApiProperty({ example: 'Studio' })
+  planName: string;
+}
+
 export class MemberListResponseDto {
   @ApiProperty({ type: [MemberResponseDto] })
   data: MemberResponseDto[];
+
+  @ApiProperty({
+    type: SeatsResponseDto,
+    description:
+      'Seats used against the plan. After a move to a smaller plan (e.g. a subscription ended), members may exceed the limit: everyone keeps access, but nobody new can be invited or join until members + pending invitations are under the limit.',
+  })
+  seats: SeatsResponseDto;
 }
 
 export class InviteResponseDto {

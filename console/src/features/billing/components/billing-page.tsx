@@ -50,6 +50,13 @@ function changeLabel(plan: Plan, current: Plan | undefined): string {
   return plan.monthlyPriceCents > current.monthlyPriceCents ? 'Upgrade' : 'Downgrade';
 }
 
+/** What cancelling means, seats included: members beyond them stay, but nobody new can join. */
+function cancelDescription(free: Plan | undefined): string {
+  const base = 'Your studio moves to the free plan now, with its lower limits.';
+  if (!free) return base;
+  return `${base} It has ${free.features.seats} seats: members beyond them keep their access, but nobody new can be invited or join until the team fits.`;
+}
+
 export function BillingPage() {
   const plans = usePlans();
   const billing = useBilling();
@@ -179,7 +186,9 @@ export function BillingPage() {
       <ConfirmDialog
         open={confirmCancel}
         title="Cancel the subscription?"
-        description="Your studio moves to the free plan now, with its lower limits."
+        description={cancelDescription(
+          plans.data?.data.find((plan) => plan.monthlyPriceCents === 0),
+        )}
         confirmLabel="Cancel subscription"
         pending={cancel.isPending}
         error={cancel.isError ? problemMessage(cancel.error) : null}

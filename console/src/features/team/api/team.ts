@@ -6,6 +6,7 @@ export type Member = components['schemas']['MemberResponseDto'];
 export type Invite = components['schemas']['InviteResponseDto'];
 export type TeamRole = Member['role'];
 export type CreateInviteBody = components['schemas']['CreateInviteRequestDto'];
+export type Seats = components['schemas']['SeatsResponseDto'];
 
 /** Query keys for the team; every mutation invalidates `teamKeys.all`. */
 export const teamKeys = {
@@ -50,11 +51,21 @@ function useTeamMutation<TInput, TResult>(fn: (input: TInput) => Promise<TResult
   });
 }
 
-/** POST /v1/team/invites: e-mails an invitation valid for 7 days. */
+/** POST /v1/team/invites: e-mails an invitation valid for 7 days; 409 when the seats are full. */
 export function createInvite(body: CreateInviteBody): Promise<Invite> {
   return unwrap(client.POST('/v1/team/invites', { body }));
 }
-export const useCreateInvite = () => useTeamMutation(createInvite);
+/** A refusal refreshes the team too: the seats may have been taken from another tab or person. */
+export function useCreateInvite() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: createInvite,
+    onSettled: () => queryClient.invalidateQueries({ queryKey: teamKeys.all }),
+  });
+}
+
+/** Every seat is taken: members plus pending invitations reach the plan's seats. */
+export const seatsFull = (seats: Seats) => seats.used >= seats.limit;
 
 /** POST /v1/team/invites/{id}/resend: a fresh link and a fresh 7 days. */
 export function resendInvite(id: string): Promise<Invite> {

@@ -1,5 +1,5 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useState } from 'react';
+import { useId, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
 import { Button } from '@/components/ui/button';
@@ -7,8 +7,9 @@ import { Notice } from '@/components/ui/notice';
 import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
 import { applyServerErrors } from '@/lib/form-errors';
-import { useCreateInvite } from '../api/team';
+import { seatsFull, useCreateInvite, type Seats } from '../api/team';
 import { roleOptions } from './roles';
+import { SeatsFullNotice } from './seats-notice';
 
 export const inviteSchema = z.object({
   email: z.email('Enter the address to send the invitation to'),
@@ -16,8 +17,16 @@ export const inviteSchema = z.object({
 });
 type InviteValues = z.infer<typeof inviteSchema>;
 
-export function InviteForm({ canGrantOwner }: { canGrantOwner: boolean }) {
+interface InviteFormProps {
+  canGrantOwner: boolean;
+  /** The plan's seats and how many are taken; while unknown the server alone decides. */
+  seats?: Seats;
+}
+
+export function InviteForm({ canGrantOwner, seats }: InviteFormProps) {
   const create = useCreateInvite();
+  const fullId = useId();
+  const full = seats ? seatsFull(seats) : false;
   const [formError, setFormError] = useState<string | null>(null);
   const [sentTo, setSentTo] = useState<string | null>(null);
   const {
@@ -56,9 +65,19 @@ export function InviteForm({ canGrantOwner }: { canGrantOwner: boolean }) {
         error={errors.role?.message}
         {...register('role')}
       />
-      <Button type="submit" disabled={isSubmitting} className="sm:mt-6">
+      <Button
+        type="submit"
+        disabled={isSubmitting || full}
+        aria-describedby={full ? fullId : undefined}
+        className="sm:mt-6"
+      >
         Send invitation
       </Button>
+      {seats && full ? (
+        <div className="sm:col-span-3">
+          <SeatsFullNotice seats={seats} id={fullId} />
+        </div>
+      ) : null}
       {formError ? (
         <Notice tone="fault" className="sm:col-span-3">
           {formError}

@@ -21,6 +21,7 @@ import {
 } from '../api/team';
 import { InviteForm } from './invite-form';
 import { roleOptions } from './roles';
+import { SeatsSummary } from './seats-notice';
 
 export function TeamPage() {
   const session = useSession();
@@ -144,9 +145,14 @@ export function TeamPage() {
     <div className="flex flex-col gap-8">
       {actionError ? <Notice tone="fault">{actionError}</Notice> : null}
       <section aria-labelledby="members-heading">
-        <h2 id="members-heading" className="mb-3 text-title font-semibold">
+        <h2 id="members-heading" className="mb-1 text-title font-semibold">
           Members
         </h2>
+        {members.data ? (
+          <div className="mb-3">
+            <SeatsSummary seats={members.data.seats} />
+          </div>
+        ) : null}
         {members.isPending ? (
           <PageLoading />
         ) : members.isError ? (
@@ -165,7 +171,7 @@ export function TeamPage() {
           Invite someone
         </h2>
         <Card>
-          <InviteForm canGrantOwner={isOwner} />
+          <InviteForm canGrantOwner={isOwner} seats={members.data?.seats} />
         </Card>
       </section>
       <section aria-labelledby="invites-heading">
