@@ -144,7 +144,8 @@ describe('team page seats', () => {
     const alert = await screen.findByRole('alert');
     expect(alert.textContent).toBe(refusal.detail);
     expect(posts).toHaveLength(1);
-    expect(posts[0]).toMatchObject({ email: 'ash@studio.test' });
+    // The role left as it opened: photographer, never the first option (owner).
+    expect(posts[0]).toMatchObject({ email: 'ash@studio.test', role: 'photographer' });
     await screen.findByText('2 of 2 seats used');
     await waitFor(() => expect((sendButton() as HTMLButtonElement).disabled).toBe(true));
     const memberCalls = mock.mock.calls.filter(([input]) =>

@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useId, useState } from 'react';
-import { useForm } from 'react-hook-form';
+import { useForm, useWatch } from 'react-hook-form';
 import { z } from 'zod';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -31,6 +31,7 @@ export function InviteForm({ canGrantOwner, seats }: InviteFormProps) {
   const [sentTo, setSentTo] = useState<string | null>(null);
   const {
     register,
+    control,
     handleSubmit,
     setError,
     reset,
@@ -39,6 +40,8 @@ export function InviteForm({ canGrantOwner, seats }: InviteFormProps) {
     resolver: zodResolver(inviteSchema),
     defaultValues: { email: '', role: 'photographer' },
   });
+
+  const role = useWatch({ control, name: 'role' });
 
   const onSubmit = handleSubmit(async (values) => {
     setFormError(null);
@@ -63,6 +66,8 @@ export function InviteForm({ canGrantOwner, seats }: InviteFormProps) {
         label="Role"
         options={roleOptions(canGrantOwner)}
         error={errors.role?.message}
+        // Held by value, so the select can never drift to its first option (owner) unseen.
+        value={role}
         {...register('role')}
       />
       <Button
