@@ -154,3 +154,72 @@ describe('team page seats', () => {
     expect(memberCalls.length).toBeGreaterThanOrEqual(2);
   });
 });
+
+describe('team page members', () => {
+  const admin = {
+    userId: 'u-admin',
+    name: 'Demo Admin',
+    email: 'admin@studio.test',
+    role: 'admin',
+    joinedAt: '2026-02-01T00:00:00Z',
+  };
+  const shooter = {
+    userId: 'u-shooter',
+    name: 'Demo Shooter',
+    email: 'shooter@studio.test',
+    role: 'photographer',
+    joinedAt: '2026-03-01T00:00:00Z',
+  };
+
+  function stubMembers(session: typeof demoSession) {
+    const patches: { path: string; body: unknown }[] = [];
+    const mock = stubApi(
+      async (path, _init, request) => {
+        if (path.startsWith('/v1/team/members/') && request.method === 'PATCH') {
+          patches.push({ path, body: await request.clone().json() });
+          return jsonResponse({ ...shooter, role: 'admin' });
+        }
+        if (path === '/v1/team/members')
+          return jsonResponse({ data: [owner, admin, shooter], seats: seats(10, 3, 0) });
+        if (path === '/v1/team/invites') return jsonResponse({ data: [] });
+        return jsonResponse({ title: 'Not Found', status: 404 }, 404, 'application/problem+json');
+      },
+      undefined,
+      session,
+    );
+    return { mock, patches };
+  }
+
+  it('asks before changing a role, and changes nothing when the question is cancelled', async () => {
+    const { patches } = stubMembers(demoSession);
+    renderApp('/team');
+    const select = await screen.findByLabelText('Role of Demo Shooter');
+    fireEvent.change(select, { target: { value: 'admin' } });
+    let dialog = await screen.findByRole('dialog');
+    expect(within(dialog).getByText('Make Demo Shooter an admin?')).toBeTruthy();
+    expect(dialog.textContent).toContain('From photographer to admin');
+    fireEvent.click(within(dialog).getByRole('button', { name: 'Cancel' }));
+    await waitFor(() => expect(screen.queryByRole('dialog')).toBeNull());
+    expect(patches).toHaveLength(0);
+    expect((screen.getByLabelText('Role of Demo Shooter') as HTMLSelectElement).value).toBe(
+      'photographer',
+    );
+
+    fireEvent.change(screen.getByLabelText('Role of Demo Shooter'), {
+      target: { value: 'admin' },
+    });
+    dialog = await screen.findByRole('dialog');
+    fireEvent.click(within(dialog).getByRole('button', { name: 'Change role' }));
+    await waitFor(() => expect(patches).toHaveLength(1));
+    expect(patches[0]).toEqual({ path: '/v1/team/members/u-shooter', body: { role: 'admin' } });
+  });
+
+  it('offers an admin no way to change or remove the owner', async () => {
+    stubMembers({ ...demoSession, role: 'admin', user: { ...demoSession.user, id: 'u-admin' } });
+    renderApp('/team');
+    await screen.findByLabelText('Role of Demo Shooter');
+    expect(screen.queryByLabelText('Role of Demo Owner')).toBeNull();
+    expect(screen.queryByRole('button', { name: 'Remove Demo Owner' })).toBeNull();
+    expect(screen.getByRole('button', { name: 'Remove Demo Shooter' })).toBeTruthy();
+  });
+});

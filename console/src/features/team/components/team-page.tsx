@@ -20,12 +20,15 @@ import {
   type TeamRole,
 } from '../api/team';
 import { InviteForm } from './invite-form';
-import { roleOptions } from './roles';
+import { ROLE_LABELS, roleOptions } from './roles';
 import { SeatsSummary } from './seats-notice';
+
+const article = (role: TeamRole | undefined) => (role === 'owner' || role === 'admin' ? 'an' : 'a');
 
 export function TeamPage() {
   const session = useSession();
   const isOwner = session?.role === 'owner';
+  const myId = session?.user.id;
   const members = useMembers();
   const invites = useInvites();
   const changeRole = useChangeMemberRole();
@@ -33,6 +36,8 @@ export function TeamPage() {
   const resend = useResendInvite();
   const cancel = useCancelInvite();
   const [removing, setRemoving] = useState<Member | null>(null);
+  // A role change is asked first: it widens or narrows what someone may do at once.
+  const [changing, setChanging] = useState<{ member: Member; role: TeamRole } | null>(null);
   const [actionError, setActionError] = useState<string | null>(null);
   const onError = (error: unknown) => setActionError(problemMessage(error));
 
@@ -55,10 +60,7 @@ export function TeamPage() {
               className="rounded-control border border-edge-strong bg-panel px-2 py-1 text-small text-ink"
               onChange={(event) => {
                 setActionError(null);
-                changeRole.mutate(
-                  { userId: member.userId, role: event.target.value as TeamRole },
-                  { onError },
-                );
+                setChanging({ member, role: event.target.value as TeamRole });
               }}
             >
               {roleOptions(isOwner).map((option) => (
@@ -75,8 +77,11 @@ export function TeamPage() {
         id: 'actions',
         header: () => <span className="sr-only">Actions</span>,
         cell: ({ row }) =>
-          row.original.userId === session?.user.id ? (
+          row.original.userId === myId ? (
             <span className="text-ink-muted">You</span>
+          ) : row.original.role === 'owner' && !isOwner ? (
+            // Only owners may remove an owner; the server refuses it too.
+            <span className="text-ink-muted">Owner</span>
           ) : (
             <Button
               variant="danger"
@@ -90,7 +95,7 @@ export function TeamPage() {
       },
     ],
     // eslint-disable-next-line react-hooks/exhaustive-deps -- mutations are stable enough; rebuild on role/user
-    [isOwner, session?.user.id],
+    [isOwner, myId],
   );
 
   const inviteColumns = useMemo<DataColumn<Invite>[]>(
@@ -135,6 +140,11 @@ export function TeamPage() {
     // eslint-disable-next-line react-hooks/exhaustive-deps -- the mutation objects are stable
     [],
   );
+
+  const closeChange = () => {
+    setChanging(null);
+    changeRole.reset();
+  };
 
   const closeRemove = () => {
     setRemoving(null);
@@ -201,6 +211,28 @@ export function TeamPage() {
         error={remove.isError ? problemMessage(remove.error) : null}
         onClose={closeRemove}
         onConfirm={() => removing && remove.mutate(removing.userId, { onSuccess: closeRemove })}
+      />
+      <ConfirmDialog
+        open={changing !== null}
+        title={`Make ${changing?.member.name ?? ''} ${article(changing?.role)} ${changing?.role ?? ''}?`}
+        description={
+          changing ? (
+            <>
+              From {changing.member.role} to {changing.role}, at once. {ROLE_LABELS[changing.role]}.
+            </>
+          ) : null
+        }
+        confirmLabel="Change role"
+        pending={changeRole.isPending}
+        error={changeRole.isError ? problemMessage(changeRole.error) : null}
+        onClose={closeChange}
+        onConfirm={() =>
+          changing &&
+          changeRole.mutate(
+            { userId: changing.member.userId, role: changing.role },
+            { onSuccess: closeChange },
+          )
+        }
       />
     </div>
   );
