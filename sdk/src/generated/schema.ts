@@ -7674,6 +7674,8 @@ export interface operations {
           | 'frames';
         /** @description Only this HTTP status. */
         status?: string;
+        /** @description Only failed calls (4xx or 5xx: "error") or the others ("ok"). */
+        outcome?: 'ok' | 'error';
         /** @description From this instant (inclusive), ISO 8601 or YYYY-MM-DD (UTC). */
         from?: string;
         /** @description Before this instant (exclusive), ISO 8601 or YYYY-MM-DD (UTC). */
@@ -7716,6 +7718,8 @@ export interface operations {
           | 'frames';
         /** @description Only this HTTP status. */
         status?: string;
+        /** @description Only failed calls (4xx or 5xx: "error") or the others ("ok"). */
+        outcome?: 'ok' | 'error';
         /** @description From this instant (inclusive), ISO 8601 or YYYY-MM-DD (UTC). */
         from?: string;
         /** @description Before this instant (exclusive), ISO 8601 or YYYY-MM-DD (UTC). */
@@ -7763,6 +7767,8 @@ export interface operations {
           | 'frames';
         /** @description Only calls answered with this HTTP status. */
         status?: string;
+        /** @description Only failed calls (4xx or 5xx: "error") or the others ("ok"). */
+        outcome?: 'ok' | 'error';
       };
       header?: never;
       path?: never;

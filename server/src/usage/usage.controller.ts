@@ -32,6 +32,7 @@ function filters(q: Q): EventFilters {
     keyId: q.keyId?.toLowerCase(),
     endpoint: q.endpoint,
     status: q.status ? Number(q.status) : undefined,
+    outcome: q.outcome as EventFilters['outcome'],
     from: instant('from', q.from),
     to: instant('to', q.to),
   };
@@ -71,6 +72,7 @@ export class UsageController {
       keyId: q.keyId,
       endpoint: q.endpoint,
       status: q.status === undefined ? undefined : Number(q.status),
+      outcome: q.outcome as EventFilters['outcome'],
     });
   }
 

@@ -32,6 +32,9 @@ export const summaryQuerySchema: ObjectSchema = {
     keyId: str('Only calls made with this API key.', undefined, { pattern: UUID }),
     endpoint: str('Only calls to this endpoint.', 'balance', { enum: ENDPOINTS }),
     status: str('Only calls answered with this HTTP status.', '429', { pattern: '^[1-5]\\d\\d$' }),
+    outcome: str('Only failed calls (4xx or 5xx: "error") or the others ("ok").', 'error', {
+      enum: ['ok', 'error'],
+    }),
   },
 };
 
@@ -42,6 +45,9 @@ export const eventsQuerySchema: ObjectSchema = {
     keyId: str('Only this API key.', undefined, { pattern: UUID }),
     endpoint: str('Only this endpoint.', 'balance', { enum: ENDPOINTS }),
     status: str('Only this HTTP status.', '429', { pattern: '^[1-5]\\d\\d$' }),
+    outcome: str('Only failed calls (4xx or 5xx: "error") or the others ("ok").', 'error', {
+      enum: ['ok', 'error'],
+    }),
     from: str('From this instant (inclusive), ISO 8601 or YYYY-MM-DD (UTC).', '2026-12-01', {
       pattern: INSTANT,
     }),

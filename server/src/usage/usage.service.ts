@@ -8,6 +8,8 @@ export interface EventFilters {
   keyId?: string;
   endpoint?: string;
   status?: number;
+  /** 'error': status 400 and above; 'ok': below 400. */
+  outcome?: 'ok' | 'error';
   from?: Date;
   to?: Date;
 }
@@ -72,7 +74,7 @@ export class UsageService {
     orgId: string,
     from: string,
     to: string,
-    only: { keyId?: string; endpoint?: string; status?: number } = {},
+    only: { keyId?: string; endpoint?: string; status?: number; outcome?: 'ok' | 'error' } = {},
   ) {
     const args: unknown[] = [orgId, from, to];
     let where = `organization_id = $1 AND day BETWEEN $2::date AND $3::date`;
@@ -85,6 +87,8 @@ export class UsageService {
       args.push(value);
       where += ` AND ${column} = $${args.length}`;
     }
+    if (only.outcome)
+      where += only.outcome === 'error' ? ' AND status >= 400' : ' AND status < 400';
     const agg = `SUM(calls)::int AS calls, SUM(billable_units)::int AS "billableUnits",
       (SUM(calls) FILTER (WHERE status >= 400))::int AS errors,
       ROUND((SUM(latency_ms_sum) / NULLIF(SUM(calls), 0))::numeric, 2)::float8 AS "meanLatencyMs"`;
@@ -154,6 +158,7 @@ export class UsageService {
     if (f.keyId) add('key_id = ?', f.keyId);
     if (f.endpoint) add('endpoint = ?', f.endpoint);
     if (f.status !== undefined) add('status = ?', f.status);
+    if (f.outcome) cond.push(f.outcome === 'error' ? 'status >= 400' : 'status < 400');
     if (f.from) add('occurred_at >= ?', f.from);
     if (f.to) add('occurred_at < ?', f.to);
     if (cursor) {

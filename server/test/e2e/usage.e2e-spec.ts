@@ -68,12 +68,15 @@ describe('usage API', () => {
           .query({ ...q, limit: '200' })
           .expect(200)
       ).body.data as unknown[];
-    for (const q of [
+    const filters: Record<string, string>[] = [
       { keyId: org.test.id },
       { endpoint: 'flash' },
       { status: '422' },
       { endpoint: 'balance', keyId: org.live.id },
-    ]) {
+      { outcome: 'error' },
+      { outcome: 'ok', endpoint: 'flash' },
+    ];
+    for (const q of filters) {
       const s = await summary(q);
       expect(s.totals.calls).toBe((await events(q)).length);
       expect(s.byDay.reduce((a: number, d: { calls: number }) => a + d.calls, 0)).toBe(
@@ -82,6 +85,10 @@ describe('usage API', () => {
     }
     expect((await summary({ keyId: org.test.id })).totals.calls).toBe(3);
     expect((await summary({ status: '422' })).totals).toMatchObject({ calls: 1, errors: 1 });
+    // outcome=error lists only 4xx/5xx, newest first: the overview's "Recent errors".
+    const failed = (await events({ outcome: 'error' })) as { status: number }[];
+    expect(failed.map((e) => e.status)).toEqual([422]);
+    expect((await summary({ outcome: 'ok' })).totals).toMatchObject({ calls: 10, errors: 0 });
     const bad = await org.owner.agent
       .get('/v1/usage/summary')
       .query({ from: '2026-12-10', to: '2026-12-01' })

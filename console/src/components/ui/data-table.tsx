@@ -15,7 +15,11 @@ interface DataTableProps<Row extends RowData> {
   footer?: React.ReactNode;
 }
 
-/** The one table of the console: TanStack Table for the model, our own semantic markup. */
+/**
+ * The one table of the console: TanStack Table for the model, our own semantic markup. On a phone
+ * each row becomes a card of "label  value" lines (labels from the column headers), so actions in
+ * the last column are in view without scrolling sideways.
+ */
 export function DataTable<Row extends RowData>({
   caption,
   columns,
@@ -35,9 +39,9 @@ export function DataTable<Row extends RowData>({
     <div>
       {/* relative: keeps sr-only cells (absolutely positioned) inside the scroll box on phones */}
       <div className="relative overflow-x-auto rounded-card border border-edge">
-        <table className="w-full border-collapse text-left text-small">
+        <table className="w-full border-collapse text-left text-small max-sm:block">
           <caption className="sr-only">{caption}</caption>
-          <thead className="bg-raised">
+          <thead className="bg-raised max-sm:sr-only">
             {table.getHeaderGroups().map((group) => (
               <tr key={group.id}>
                 {group.headers.map((header) => (
@@ -52,18 +56,25 @@ export function DataTable<Row extends RowData>({
               </tr>
             ))}
           </thead>
-          <tbody>
+          <tbody className="max-sm:block">
             {rows.length === 0 ? (
-              <tr>
-                <td colSpan={columns.length} className="px-3 py-4 text-ink-muted">
+              <tr className="max-sm:block">
+                <td colSpan={columns.length} className="px-3 py-4 text-ink-muted max-sm:block">
                   {empty}
                 </td>
               </tr>
             ) : (
               rows.map((row) => (
-                <tr key={row.id} className="border-b border-edge last:border-b-0">
+                <tr
+                  key={row.id}
+                  className="border-b border-edge last:border-b-0 max-sm:block max-sm:py-2"
+                >
                   {row.getAllCells().map((cell) => (
-                    <td key={cell.id} className="px-3 py-2 align-top text-ink tabular-nums">
+                    <td
+                      key={cell.id}
+                      data-label={headerText(cell.column.columnDef.header)}
+                      className="px-3 py-2 align-top text-ink tabular-nums max-sm:flex max-sm:justify-between max-sm:gap-4 max-sm:py-1 max-sm:text-right max-sm:before:text-left max-sm:before:font-semibold max-sm:before:content-[attr(data-label)]"
+                    >
                       <table.FlexRender cell={cell} />
                     </td>
                   ))}
@@ -76,4 +87,9 @@ export function DataTable<Row extends RowData>({
       {footer}
     </div>
   );
+}
+
+/** A column's header as plain text for the phone layout's labels ('' for rendered headers). */
+function headerText(header: unknown): string {
+  return typeof header === 'string' ? header : '';
 }

@@ -68,6 +68,12 @@ describe('usage filters from the URL', () => {
       'from “2026-11-31” is not a YYYY-MM-DD day',
     ]);
     expect(ignoredParams(new URLSearchParams('from=2026-11-30&endpoint=flash'))).toEqual([]);
+    const failed = new URLSearchParams('outcome=error');
+    expect(summaryFromParams(failed)).toEqual({ outcome: 'error' });
+    expect(filterFromParams(failed)).toEqual({ limit: '50', outcome: 'error' });
+    expect(ignoredParams(new URLSearchParams('outcome=maybe'))).toEqual([
+      'outcome “maybe” is neither ok nor error',
+    ]);
   });
 
   it('daysBetween lists every day inclusive', () => {

@@ -18,6 +18,7 @@ function validDay(value: string | null): value is string {
 function readParams(params: URLSearchParams) {
   const endpoint = params.get('endpoint');
   const status = params.get('status');
+  const outcome = params.get('outcome');
   let from = params.get('from');
   let to = params.get('to');
   if (!validDay(from)) from = null;
@@ -30,6 +31,7 @@ function readParams(params: URLSearchParams) {
         ? (endpoint as Endpoint)
         : undefined,
     status: status && STATUS.test(status) ? status : undefined,
+    outcome: outcome === 'ok' || outcome === 'error' ? (outcome as 'ok' | 'error') : undefined,
     keyId: params.get('keyId') || undefined,
     from: from ?? undefined,
     to: to ?? undefined,
@@ -48,6 +50,7 @@ export function filterFromParams(params: URLSearchParams, pageSize = 50): UsageE
     limit: String(pageSize),
     endpoint: p.endpoint,
     status: p.status,
+    outcome: p.outcome,
     keyId: p.keyId,
     from: p.from,
     to: p.to === undefined ? undefined : nextDay(p.to),
@@ -63,6 +66,7 @@ export function summaryFromParams(params: URLSearchParams): UsageSummaryFilter {
     to: p.to,
     endpoint: p.endpoint,
     status: p.status,
+    outcome: p.outcome,
     keyId: p.keyId,
   });
 }
@@ -75,6 +79,9 @@ export function ignoredParams(params: URLSearchParams): string[] {
     out.push(`endpoint “${endpoint}” is not one of ours`);
   const status = params.get('status');
   if (status && !STATUS.test(status)) out.push(`status “${status}” is not an HTTP status`);
+  const outcome = params.get('outcome');
+  if (outcome && outcome !== 'ok' && outcome !== 'error')
+    out.push(`outcome “${outcome}” is neither ok nor error`);
   const from = params.get('from');
   const to = params.get('to');
   if (from && !validDay(from)) out.push(`from “${from}” is not a YYYY-MM-DD day`);

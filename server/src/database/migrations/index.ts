@@ -6,6 +6,7 @@ import { Frames1764892800000 } from './1764892800000-Frames.js';
 import { GearSetups1764979200000 } from './1764979200000-GearSetups.js';
 import { Billing1765065600000 } from './1765065600000-Billing.js';
 import { UserPreferences1765152000000 } from './1765152000000-UserPreferences.js';
+import { UsageErrorIndex1765238400000 } from './1765238400000-UsageErrorIndex.js';
 
 export const MIGRATIONS = [
   Init1764633600000,
@@ -15,4 +16,5 @@ export const MIGRATIONS = [
   GearSetups1764979200000,
   Billing1765065600000,
   UserPreferences1765152000000,
+  UsageErrorIndex1765238400000,
 ];

@@ -48,7 +48,7 @@ export function Playground() {
       <TabGroup selectedIndex={selected} onChange={select}>
         <TabList
           aria-label="Calculations"
-          className="mb-4 flex gap-1 overflow-x-auto border-b border-edge pb-px"
+          className="mb-4 flex flex-wrap gap-1 border-b border-edge pb-px"
         >
           {available.map((calculation) => (
             <Tab

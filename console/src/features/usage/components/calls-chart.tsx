@@ -9,7 +9,7 @@ export interface DayBar {
 
 const WIDTH = 720;
 const HEIGHT = 220;
-const PAD = { top: 12, right: 12, bottom: 28, left: 48 };
+const PAD = { top: 12, right: 12, bottom: 32, left: 64 };
 
 /** Calls per day as bars, the errors part of each bar in the fault colour. */
 export function CallsChart({ days, title }: { days: DayBar[]; title: string }) {
@@ -48,7 +48,7 @@ export function CallsChart({ days, title }: { days: DayBar[]; title: string }) {
               x={PAD.left - 6}
               y={y(tick) + 4}
               textAnchor="end"
-              className="fill-ink-muted text-[11px] tabular-nums"
+              className="fill-ink-muted text-[11px] tabular-nums max-sm:text-[20px]"
             >
               {formatCount(tick)}
             </text>
@@ -81,7 +81,7 @@ export function CallsChart({ days, title }: { days: DayBar[]; title: string }) {
                   x={x + barW / 2}
                   y={HEIGHT - 8}
                   textAnchor="middle"
-                  className="fill-ink-muted text-[11px]"
+                  className="fill-ink-muted text-[11px] max-sm:text-[20px]"
                 >
                   {d.day.slice(5)}
                 </text>

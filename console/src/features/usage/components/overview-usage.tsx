@@ -12,12 +12,13 @@ import { CallsChart, toDayBars } from './calls-chart';
 export function OverviewUsage({ usageHref }: { usageHref: string }) {
   const plan = useCurrentPlan();
   const summary = useUsageSummary({});
-  const recent = useUsageEvents({ limit: '200' });
+  // The latest failed calls, however many successful ones came after them.
+  const recent = useUsageEvents({ limit: '8', outcome: 'error' });
 
   const included = plan.data?.plan.includedCallsPerMonth ?? 0;
   const used = plan.data?.usage.billableUnits ?? 0;
   const share = included > 0 ? Math.min(1, used / included) : 0;
-  const errors = (recent.data?.data ?? []).filter((event) => event.status >= 400).slice(0, 8);
+  const errors = recent.data?.data ?? [];
 
   return (
     <div className="grid gap-4 lg:grid-cols-3">
@@ -97,7 +98,7 @@ export function OverviewUsage({ usageHref }: { usageHref: string }) {
         ) : recent.isError ? (
           <Notice tone="fault">{problemMessage(recent.error)}</Notice>
         ) : errors.length === 0 ? (
-          <p className="mt-2 text-ink-muted">No errors among the latest 200 calls.</p>
+          <p className="mt-2 text-ink-muted">No failed calls recorded.</p>
         ) : (
           <ul className="mt-2 divide-y divide-edge">
             {errors.map((event) => (
@@ -112,6 +113,7 @@ export function OverviewUsage({ usageHref }: { usageHref: string }) {
           </ul>
         )}
         <p className="mt-3 text-small">
+          <Link to={`${usageHref}?outcome=error`}>All failed calls</Link> ·{' '}
           <Link to={usageHref}>All usage</Link>
         </p>
       </Card>

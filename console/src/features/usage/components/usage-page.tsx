@@ -79,7 +79,7 @@ export function UsagePage({ keys = NO_KEYS }: { keys?: UsageKeyLabel[] }) {
   const summary = useUsageSummary(summaryFilter);
   const events = useUsageEvents(filter);
   const ignored = ignoredParams(params);
-  const narrowed = ['endpoint', 'status', 'keyId'].some((k) => k in summaryFilter);
+  const narrowed = ['endpoint', 'status', 'outcome', 'keyId'].some((k) => k in summaryFilter);
   const [rangeError, setRangeError] = useState<string | null>(null);
 
   const applyFilters = (form: HTMLFormElement) => {
@@ -92,7 +92,7 @@ export function UsagePage({ keys = NO_KEYS }: { keys?: UsageKeyLabel[] }) {
     }
     setRangeError(null);
     const next = firstPageParams(params);
-    for (const name of ['from', 'to', 'endpoint', 'status', 'keyId']) {
+    for (const name of ['from', 'to', 'endpoint', 'status', 'outcome', 'keyId']) {
       const value = data.get(name);
       if (typeof value === 'string' && value.trim()) next.set(name, value.trim());
       else next.delete(name);
@@ -105,7 +105,7 @@ export function UsagePage({ keys = NO_KEYS }: { keys?: UsageKeyLabel[] }) {
       <form
         aria-label="Usage filters"
         key={params.toString()}
-        className="grid gap-3 sm:grid-cols-3 lg:grid-cols-6 lg:items-end"
+        className="grid gap-3 sm:grid-cols-3 lg:grid-cols-7 lg:items-end"
         onSubmit={(event) => {
           event.preventDefault();
           applyFilters(event.currentTarget);
@@ -154,6 +154,18 @@ export function UsagePage({ keys = NO_KEYS }: { keys?: UsageKeyLabel[] }) {
             defaultValue={params.get('status') ?? ''}
             className={controlClass}
           />
+        </label>
+        <label className="flex flex-col gap-1 text-small font-medium">
+          Result
+          <select
+            name="outcome"
+            defaultValue={summaryFilter.outcome ?? ''}
+            className={controlClass}
+          >
+            <option value="">All</option>
+            <option value="error">Failed (4xx, 5xx)</option>
+            <option value="ok">Answered</option>
+          </select>
         </label>
         {keys.length ? (
           <label className="flex flex-col gap-1 text-small font-medium">
