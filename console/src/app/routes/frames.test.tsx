@@ -1,4 +1,4 @@
-import { screen, within } from '@testing-library/react';
+import { fireEvent, screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { stubApi } from '@/test/api-stub';
 import { renderApp } from '@/test/render';
@@ -49,5 +49,44 @@ describe('test frames page', () => {
     await screen.findByText('Drop a test frame here, or choose a file');
     expect(document.querySelector('input[type="file"]')).not.toBeNull();
     expect(screen.queryByText(/aren’t in the/)).toBeNull();
+  });
+
+  it('refuses a file named as a JPEG that is not one, before any preview', async () => {
+    stub(true, 'Studio');
+    renderApp('/frames');
+    await screen.findByText('Drop a test frame here, or choose a file');
+    const input = document.querySelector('input[type="file"]') as HTMLInputElement;
+    const fake = new File(['just some notes, not pixels'], 'notes.jpg', { type: 'image/jpeg' });
+    fireEvent.change(input, { target: { files: [fake] } });
+    expect(
+      await screen.findByText('“notes.jpg” is named as an image but is not a JPEG or PNG inside.'),
+    ).toBeTruthy();
+    expect(screen.queryByText('Mark the neutral patch')).toBeNull();
+  });
+
+  it('shows the preview for a real PNG and holds back a white balance the server would refuse', async () => {
+    stub(true, 'Studio');
+    renderApp('/frames');
+    await screen.findByText('Drop a test frame here, or choose a file');
+    const input = document.querySelector('input[type="file"]') as HTMLInputElement;
+    // The 8-byte PNG signature (PNG specification, section 5.2) and nothing else is enough here.
+    const png = new File(
+      [new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a])],
+      'card.png',
+      {
+        type: 'image/png',
+      },
+    );
+    fireEvent.change(input, { target: { files: [png] } });
+    await screen.findByText('Mark the neutral patch');
+    fireEvent.change(screen.getByLabelText('Camera white balance (K, optional)'), {
+      target: { value: '1000' },
+    });
+    expect(
+      screen.getByText('Enter whole kelvin from 1500 to 20000, or leave it empty.'),
+    ).toBeTruthy();
+    expect(
+      (screen.getByRole('button', { name: 'Upload and measure' }) as HTMLButtonElement).disabled,
+    ).toBe(true);
   });
 });

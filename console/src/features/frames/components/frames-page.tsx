@@ -23,7 +23,54 @@ function UploadError({ error }: { error: unknown }) {
       </Notice>
     );
   }
-  return <Notice tone="fault">{problemMessage(error)}</Notice>;
+  const fields = error instanceof ApiProblem ? (error.problem.errors ?? []) : [];
+  return (
+    <Notice tone="fault">
+      {problemMessage(error)}
+      {fields.length ? (
+        <ul className="mt-1 list-disc pl-5">
+          {fields.map((f, i) => {
+            const name = f.field ?? f.path ?? '';
+            return (
+              <li key={i}>
+                {FIELD_LABELS[name] ?? name}: {f.reason ?? f.message}
+              </li>
+            );
+          })}
+        </ul>
+      ) : null}
+    </Notice>
+  );
+}
+
+/** The upload's multipart fields as this page names them. */
+const FIELD_LABELS: Record<string, string> = {
+  file: 'File',
+  cameraKelvin: 'Camera white balance',
+  patchX: 'Neutral patch',
+  patchY: 'Neutral patch',
+  patchWidth: 'Neutral patch',
+  patchHeight: 'Neutral patch',
+};
+
+/** The server's range for the camera white balance (frames/upload-reader.ts): whole kelvin. */
+const KELVIN_RANGE = [1500, 20000] as const;
+
+/** An inline error for the white-balance box, or null when it is empty or fine. */
+export function kelvinProblem(value: string): string | null {
+  if (value.trim() === '') return null;
+  const n = Number(value);
+  if (!Number.isInteger(n) || n < KELVIN_RANGE[0] || n > KELVIN_RANGE[1])
+    return `Enter whole kelvin from ${KELVIN_RANGE[0]} to ${KELVIN_RANGE[1]}, or leave it empty.`;
+  return null;
+}
+
+/** JPEG starts FF D8 FF, PNG 89 50 4E 47 0D 0A 1A 0A (the formats' own signatures). */
+export async function looksLikeImage(file: Blob): Promise<boolean> {
+  const head = new Uint8Array(await file.slice(0, 8).arrayBuffer());
+  const jpeg = head[0] === 0xff && head[1] === 0xd8 && head[2] === 0xff;
+  const png = [0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a].every((b, i) => head[i] === b);
+  return jpeg || png;
 }
 
 /** The studio's plan as far as uploads go (composed by the app from the plan query). */
@@ -51,9 +98,11 @@ export function FramesPage({ plan }: { plan?: FramesPlan }) {
     return () => URL.revokeObjectURL(preview);
   }, [preview]);
 
-  const choose = (chosen: File | undefined) => {
+  const choose = async (chosen: File | undefined) => {
     if (!chosen) return;
-    const problem = checkFile(chosen);
+    let problem = checkFile(chosen);
+    if (!problem && !(await looksLikeImage(chosen)))
+      problem = `“${chosen.name}” is named as an image but is not a JPEG or PNG inside.`;
     setFileError(problem);
     setResult(null);
     upload.reset();
@@ -64,8 +113,9 @@ export function FramesPage({ plan }: { plan?: FramesPlan }) {
     setPreview(URL.createObjectURL(chosen));
   };
 
+  const kelvinError = kelvinProblem(kelvin);
   const submit = () => {
-    if (!file) return;
+    if (!file || kelvinError) return;
     const cameraKelvin = Number(kelvin);
     upload.mutate(
       {
@@ -97,7 +147,7 @@ export function FramesPage({ plan }: { plan?: FramesPlan }) {
             onDrop={(event) => {
               event.preventDefault();
               setDragging(false);
-              choose(event.dataTransfer.files[0]);
+              void choose(event.dataTransfer.files[0]);
             }}
             className={`flex cursor-pointer flex-col items-center justify-center gap-2 rounded-card border-2 border-dashed p-8 text-center ${dragging ? 'border-accent bg-raised' : 'border-edge-strong'}`}
           >
@@ -110,7 +160,7 @@ export function FramesPage({ plan }: { plan?: FramesPlan }) {
               type="file"
               accept="image/jpeg,image/png"
               className="sr-only"
-              onChange={(event) => choose(event.target.files?.[0])}
+              onChange={(event) => void choose(event.target.files?.[0])}
             />
           </label>
         )}
@@ -148,9 +198,11 @@ export function FramesPage({ plan }: { plan?: FramesPlan }) {
             <TextField
               label="Camera white balance (K, optional)"
               type="number"
-              min={2000}
-              max={12000}
+              min={KELVIN_RANGE[0]}
+              max={KELVIN_RANGE[1]}
+              step={1}
               value={kelvin}
+              error={kelvinError ?? undefined}
               onChange={(event) => setKelvin(event.target.value)}
               hint="What the camera was set to; otherwise it is assumed."
             />
@@ -159,7 +211,7 @@ export function FramesPage({ plan }: { plan?: FramesPlan }) {
                 Clear patch
               </Button>
             ) : null}
-            <Button onClick={submit} disabled={upload.isPending}>
+            <Button onClick={submit} disabled={upload.isPending || !!kelvinError}>
               {upload.isPending ? 'Measuring…' : 'Upload and measure'}
             </Button>
           </div>
