@@ -32,3 +32,4 @@ export * from './setup/dusk-setup.js';
 export * from './setup/cautions.js';
 
 export { METRES_PER_FOOT, toMetres, fromMetres, type LengthUnit } from './units/length.js';
+export { clockIn, clockOf } from './units/time-zone.js';

@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import {
+  clockIn,
+  clockOf,
   LightingInputError,
   ambientAt,
   cctFromXy,
@@ -119,4 +121,32 @@ describe('every exported function rejects bad input with LightingInputError nami
   for (const [name, fn, field] of cases) {
     it(name, () => expect(fieldOf(fn)).toBe(field));
   }
+});
+
+describe('clockOf / clockIn', () => {
+  it('rounds to the nearest minute, 24-hour, across midnight', () => {
+    expect(clockOf('2026-06-20T20:11:29+02:00')).toBe('20:11');
+    expect(clockOf('2026-06-20T20:11:30+02:00')).toBe('20:12');
+    expect(clockOf('2026-06-20T23:59:45+02:00')).toBe('00:00');
+    expect(clockOf('2026-06-20T07:05+02:00')).toBe('07:05');
+  });
+
+  it('agrees with the platform Intl time-zone database for instants seen in a zone', () => {
+    // Reference: ECMA-402 Intl.DateTimeFormat with the IANA tz database (independent of our
+    // offset code), on the instant moved on by 30 s and cut to the minute: the same rounding.
+    const zones = ['Europe/London', 'America/Sao_Paulo', 'Asia/Kolkata', 'Australia/Lord_Howe'];
+    const reference = (ms: number, timeZone: string) =>
+      new Intl.DateTimeFormat('en-GB', {
+        hour: '2-digit',
+        minute: '2-digit',
+        hourCycle: 'h23',
+        timeZone,
+      }).format(new Date(ms + 30_000));
+    for (const timeZone of zones) {
+      for (let ms = Date.UTC(2026, 2, 28, 0, 0, 17); ms < Date.UTC(2026, 3, 6); ms += 3_599_911) {
+        const iso = new Date(ms).toISOString();
+        expect(clockIn(iso, timeZone)).toBe(reference(ms, timeZone));
+      }
+    }
+  });
 });

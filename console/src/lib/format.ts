@@ -1,3 +1,4 @@
+import { clockIn } from '@lumenwright/shared';
 /** Dates and numbers as the console shows them (the visitor's locale and time zone). */
 export function formatDateTime(iso: string | null | undefined, empty = '—'): string {
   if (!iso) return empty;
@@ -33,9 +34,12 @@ export function todayIso(now = new Date()): string {
   return `${y}-${m}-${d}`;
 }
 
-/** A time of day in the given IANA zone (a shoot's own zone, not the visitor's). */
+/**
+ * A time of day in the given IANA zone (a shoot's own zone, not the visitor's): 24-hour, to the
+ * nearest minute, as the playground and the shot sheet print the evening's times.
+ */
 export function formatTimeIn(iso: string, timeZone: string): string {
-  return new Date(iso).toLocaleTimeString(undefined, { timeStyle: 'short', timeZone });
+  return clockIn(iso, timeZone);
 }
 
 /** "today", "tomorrow", "in 3 days", "yesterday"… from `today` to a calendar day (YYYY-MM-DD). */

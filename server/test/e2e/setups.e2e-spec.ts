@@ -2,7 +2,7 @@
 // pagination, duplicate, the plan's saved-setups limit and the printable shot sheet.
 import request from 'supertest';
 import type { DataSource } from 'typeorm';
-import { planDuskSetup, type DuskSetupInput } from '@lumenwright/shared';
+import { clockOf, planDuskSetup, type DuskSetupInput } from '@lumenwright/shared';
 import { bootApp, TestApp } from '../setup/app.js';
 import { openDataSource } from '../setup/db.js';
 import { signUp, type SignedInAgent } from '../factories/accounts.js';
@@ -326,7 +326,7 @@ describe('saved setups', () => {
     // Plan values: first suggested minute, key power, gels and compensation.
     const plan = s.plan as unknown as ReturnType<typeof planDuskSetup>;
     const first = plan.suggestedMinutes[0]!;
-    expect(html).toContain(first.time.slice(11, 16));
+    expect(html).toContain(clockOf(first.time)); // nearest minute, as the console prints it
     expect(html).toContain(first.keyFlash.powerLabel);
     for (const g of plan.gels.gels) expect(html).toContain(g.name);
     expect(html).toMatch(/raise flash power/);

@@ -108,3 +108,19 @@ export function requireInstant(field: string, value: unknown): number {
   }
   return ms;
 }
+
+/**
+ * "20:12" from a local ISO 8601 time with offset ("2026-06-20T20:11:42+02:00"), rounded to the
+ * nearest minute (30 s and over go up), 24-hour: one way to print the evening's times everywhere.
+ */
+export function clockOf(iso: string): string {
+  const m = /T(\d{2}):(\d{2})(?::(\d{2}))?/.exec(iso);
+  if (!m) throw new LightingInputError('time', 'must be an ISO 8601 time');
+  const total = (Number(m[1]) * 60 + Number(m[2]) + (Number(m[3] ?? 0) >= 30 ? 1 : 0)) % 1440;
+  return `${String(Math.floor(total / 60)).padStart(2, '0')}:${String(total % 60).padStart(2, '0')}`;
+}
+
+/** {@link clockOf} for an instant ("…Z" or any offset) as seen in `timeZone`. */
+export function clockIn(iso: string, timeZone: string): string {
+  return clockOf(toLocalIso(requireInstant('time', iso), timeZone));
+}

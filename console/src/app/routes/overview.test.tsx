@@ -60,8 +60,9 @@ describe('overview', () => {
     expect(items).toHaveLength(2);
     expect(items[0]!.textContent).toContain('Harbour wall portraits');
     expect(items[0]!.textContent).toContain('North pier');
-    // Tokyo's local hours (4:45 PM), not the UTC ones (7:45 AM).
-    expect(items[0]!.textContent).toMatch(/4:45/);
+    // Tokyo's local hours (16:45, 24-hour as everywhere in the console), not the UTC ones (07:45).
+    expect(items[0]!.textContent).toMatch(/16:45–17:10/);
+    expect(items[0]!.textContent).not.toMatch(/07:45/);
     expect(items[0]!.textContent).not.toMatch(/7:45/);
     expect(items[1]!.textContent).toContain('No shooting window that day (polar day or night)');
     const open = within(items[0]!).getByRole('link', {

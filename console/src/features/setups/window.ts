@@ -7,18 +7,15 @@ interface WithWindow {
 }
 
 /**
- * The shooting window as times of day in the shoot's own zone, e.g. "4:15 PM – 4:47 PM GMT";
+ * The shooting window as times of day in the shoot's own zone, e.g. "16:15–16:47 GMT";
  * null when the day has none (polar day or night).
  */
 export function shootingWindow(s: WithWindow): string | null {
   if (!s.windowStart || !s.windowEnd) return null;
-  const end = new Date(s.windowEnd).toLocaleTimeString(undefined, {
-    timeStyle: 'short',
-    timeZone: s.timeZone,
-  });
+  const end = formatTimeIn(s.windowEnd, s.timeZone);
   const zone =
     new Intl.DateTimeFormat(undefined, { timeZone: s.timeZone, timeZoneName: 'short' })
       .formatToParts(new Date(s.windowEnd))
       .find((p) => p.type === 'timeZoneName')?.value ?? s.timeZone;
-  return `${formatTimeIn(s.windowStart, s.timeZone)} – ${end} ${zone}`;
+  return `${formatTimeIn(s.windowStart, s.timeZone)}–${end} ${zone}`;
 }

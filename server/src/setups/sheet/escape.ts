@@ -1,3 +1,4 @@
+import { clockOf } from '@lumenwright/shared';
 /** Escapes text for HTML and SVG content and attribute values. */
 export function esc(value: unknown): string {
   return String(value ?? '')
@@ -8,10 +9,9 @@ export function esc(value: unknown): string {
     .replace(/'/g, '&#39;');
 }
 
-/** Local clock time from an ISO 8601 string with offset ("…T20:12:08+01:00" → "20:12"). */
+/** Local clock time from an ISO 8601 string with offset, to the nearest minute (shared with the console). */
 export function clock(iso: string | null | undefined): string {
-  const m = iso ? /T(\d{2}:\d{2})/.exec(iso) : null;
-  return m ? m[1]! : '—';
+  return iso && /T\d{2}:\d{2}/.test(iso) ? clockOf(iso) : '—';
 }
 
 export const fmt = (n: number | null | undefined, digits = 1): string =>

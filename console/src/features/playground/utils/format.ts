@@ -1,19 +1,12 @@
+import { clockOf } from '@lumenwright/shared';
 /** Presentation helpers for playground results. No lighting math lives here. */
 
 const MINUS = '\u2212';
 
 /** Wall-clock "HH:MM" of an ISO 8601 local time with offset, rounded to the nearest minute. */
 export function clockTime(iso: string | null | undefined): string {
-  if (!iso) return '—';
-  const match = /T(\d{2}):(\d{2}):?(\d{2})?/.exec(iso);
-  if (!match) return '—';
-  let hours = Number(match[1]);
-  let minutes = Number(match[2]) + (Number(match[3] ?? 0) >= 30 ? 1 : 0);
-  if (minutes === 60) {
-    minutes = 0;
-    hours = (hours + 1) % 24;
-  }
-  return `${String(hours).padStart(2, '0')}:${String(minutes).padStart(2, '0')}`;
+  // The shared rounding (nearest minute, 24-hour), so the console and the shot sheet agree.
+  return iso ? clockOf(iso) : '—';
 }
 
 /** Minutes from `from` to `to` (both ISO instants); negative when `to` is earlier. */
