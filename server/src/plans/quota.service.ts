@@ -15,10 +15,16 @@ import { databaseUnavailable } from './plans.service.js';
 interface Lease {
   orgId: string;
   period: string;
+  /** The period as epoch milliseconds: [startMs, resetMs). */
+  startMs: number;
+  resetMs: number;
+  reset: Date;
   mode: 'live' | 'test';
   remaining: number;
   exhaustedUntil: number;
   acquiring: Promise<void> | null;
+  /** Gives one call back to this lease (a lease never changes period: a new month gets a new one). */
+  refund: () => void;
 }
 
 const RESERVE = `
@@ -65,32 +71,39 @@ export class QuotaService implements BeforeApplicationShutdown {
   async take(plan: PlanEntity, p: Principal, now = new Date()): Promise<(() => void) | null> {
     const q = quotaFor(plan, p);
     if (!q) return null;
-    const { start, reset } = monthBounds(now);
     const key = `${p.organizationId}|${q.mode}`;
     let lease = this.leases.get(key);
-    if (!lease || lease.period !== start) {
-      lease = {
-        orgId: p.organizationId,
-        period: start,
-        mode: q.mode,
-        remaining: 0,
-        exhaustedUntil: 0,
-        acquiring: null,
-      };
-      this.leases.set(key, lease);
+    // The month's bounds are worked out once per lease, not per call (formatting them is slow).
+    const t = now.getTime();
+    if (!lease || t < lease.startMs || t >= lease.resetMs) {
+      const { start, reset } = monthBounds(now);
+      if (!lease || lease.period !== start) {
+        const created: Lease = {
+          orgId: p.organizationId,
+          period: start,
+          startMs: Date.parse(start),
+          resetMs: reset.getTime(),
+          reset,
+          mode: q.mode,
+          remaining: 0,
+          exhaustedUntil: 0,
+          acquiring: null,
+          refund: () => void created.remaining++,
+        };
+        lease = created;
+        this.leases.set(key, lease);
+      }
     }
-    while (lease.remaining <= 0) {
-      if (lease.exhaustedUntil > Date.now()) this.exceeded(q.limit, q.mode, reset);
-      lease.acquiring ??= this.acquire(lease, q.limit).finally(() => {
-        lease.acquiring = null;
-      });
-      await lease.acquiring;
-    }
-    lease.remaining--;
     const l = lease;
-    return () => {
-      if (l.period === start) l.remaining++;
-    };
+    while (l.remaining <= 0) {
+      if (l.exhaustedUntil > Date.now()) this.exceeded(q.limit, q.mode, l.reset);
+      l.acquiring ??= this.acquire(l, q.limit).finally(() => {
+        l.acquiring = null;
+      });
+      await l.acquiring;
+    }
+    l.remaining--;
+    return l.refund;
   }
 
   private async acquire(lease: Lease, limit: number): Promise<void> {

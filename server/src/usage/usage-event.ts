@@ -14,8 +14,25 @@ export interface UsageEvent {
   requestId: string;
 }
 
-/** UTC calendar day, YYYY-MM-DD. */
-export const utcDay = (d: Date) => d.toISOString().slice(0, 10);
+let isoSecond = NaN;
+let isoPrefix = '';
+
+/**
+ * `d.toISOString()` for the dates events carry (years 1970–9999), formatting only the
+ * milliseconds per call: the rest is reused within the same second. Every metered call formats
+ * its timestamp, and Date#toISOString costs about a microsecond here.
+ */
+export function isoTimestamp(d: Date): string {
+  const ms = d.getTime();
+  if (!(ms >= 0 && ms < 253402300800000)) return d.toISOString(); // outside 1970–9999 (or invalid)
+  const second = Math.floor(ms / 1000);
+  if (second !== isoSecond) {
+    isoPrefix = new Date(second * 1000).toISOString().slice(0, 20); // YYYY-MM-DDTHH:MM:SS.
+    isoSecond = second;
+  }
+  const frac = ms - second * 1000;
+  return isoPrefix + (frac < 10 ? '00' : frac < 100 ? '0' : '') + frac + 'Z';
+}
 
 /** What the limits guard leaves on the request for the metering hook. */
 export interface MeteredRequestExtras {

@@ -1,7 +1,8 @@
 import { Writable } from 'node:stream';
+import fc from 'fast-check';
 import type pg from 'pg';
 import type { AppConfig } from '../config/config.js';
-import type { UsageEvent } from './usage-event.js';
+import { isoTimestamp, type UsageEvent } from './usage-event.js';
 import { copyLine, EventBatch, UsageWriter } from './usage-writer.service.js';
 
 /**
@@ -137,5 +138,31 @@ describe('usage batch writer', () => {
     const line = copyLine({ ...ev(1), requestId: 'a\tb\\c\nd' });
     expect(line.endsWith('\ta\\tb\\\\c\\nd\n')).toBe(true);
     expect(line.split('\t')).toHaveLength(10);
+  });
+
+  it('formats event timestamps exactly as Date#toISOString does', () => {
+    // ECMA-262, Date.prototype.toISOString (YYYY-MM-DDTHH:mm:ss.sssZ, UTC): Node's own
+    // implementation is the reference. Consecutive calls share the cached second, so a sequence
+    // of nearby instants (in and out of order) is checked as well as scattered ones.
+    const edges = [
+      0, 1, 999, 1000, 86_399_999, 951_782_400_000, 4_102_444_799_999, 253_402_300_799_999,
+    ];
+    for (const ms of edges) expect(isoTimestamp(new Date(ms))).toBe(new Date(ms).toISOString());
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 0, max: 253_402_300_799_999 }),
+        fc.array(fc.integer({ min: -2500, max: 2500 }), { maxLength: 20 }),
+        (base, steps) => {
+          for (const ms of [base, ...steps.map((s) => Math.max(0, base + s))]) {
+            if (isoTimestamp(new Date(ms)) !== new Date(ms).toISOString()) return false;
+          }
+          return true;
+        },
+      ),
+      { numRuns: 2000 },
+    );
+    // Outside 1970–9999 it defers to Date#toISOString (including its RangeError when invalid).
+    expect(isoTimestamp(new Date(-1))).toBe('1969-12-31T23:59:59.999Z');
+    expect(() => isoTimestamp(new Date(NaN))).toThrow(RangeError);
   });
 });

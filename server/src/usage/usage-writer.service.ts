@@ -12,7 +12,7 @@ import pg from 'pg';
 import { from as copyFrom } from 'pg-copy-streams';
 import { DomainError } from '../common/errors/domain-error.js';
 import { APP_CONFIG, AppConfig } from '../config/config.js';
-import { UsageEvent, utcDay } from './usage-event.js';
+import { isoTimestamp, UsageEvent } from './usage-event.js';
 
 export const USAGE_POOL = Symbol('USAGE_POOL');
 
@@ -30,8 +30,13 @@ export function copyText(v: string | number | null): string {
 
 /** One event as a COPY text row, in COPY_EVENTS' column order. */
 export function copyLine(e: UsageEvent): string {
+  return copyRow(e, isoTimestamp(e.occurredAt));
+}
+
+/** copyLine with the event's timestamp already formatted (`at`). */
+function copyRow(e: UsageEvent, at: string): string {
   return (
-    e.occurredAt.toISOString() +
+    at +
     '\t' +
     copyText(e.organizationId) +
     '\t' +
@@ -78,7 +83,8 @@ export class EventBatch {
   private used = 0;
 
   add(e: UsageEvent): void {
-    const line = copyLine(e);
+    const at = isoTimestamp(e.occurredAt);
+    const line = copyRow(e, at);
     // At most 3 bytes per UTF-16 unit, so a line this short always fits a fresh chunk.
     if (!this.chunk || this.chunk.length - this.used < line.length * 3) {
       this.seal();
@@ -87,7 +93,7 @@ export class EventBatch {
     }
     this.used += this.chunk.write(line, this.used, 'utf8');
     this.count++;
-    const day = utcDay(e.occurredAt);
+    const day = at.slice(0, 10); // the UTC day
     const k = `${e.organizationId}|${day}|${e.keyId}|${e.source}|${e.endpoint}|${e.status}`;
     const agg = this.daily.get(k);
     if (agg) {
