@@ -223,6 +223,13 @@ describe('security', () => {
     await request(t.url).post(`/v1/balance?api_key=${key.secret}`).send(body).expect(401);
     await request(t.url).post(`/v1/balance?access_token=${key.secret}`).send(body).expect(401);
     await request(t.url).post('/v1/balance').set('X-Api-Key', key.secret).send(body).expect(401);
+    // A good key in the header plus a second credential in the query string is ambiguous
+    // (RFC 6750 §2: one method only).
+    await request(t.url)
+      .post(`/v1/balance?access_token=${key.secret}`)
+      .set('Authorization', `Bearer ${key.secret}`)
+      .send(body)
+      .expect(401);
     await request(t.url)
       .post('/v1/balance')
       .set('Authorization', `Basic ${Buffer.from(`${key.secret}:`).toString('base64')}`)
