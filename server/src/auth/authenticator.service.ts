@@ -2,20 +2,16 @@
 import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import type { FastifyRequest } from 'fastify';
+import passport from 'passport';
 import { DataSource } from 'typeorm';
-import { bearerToken } from '../api-keys/bearer-token.js';
-import { KeyVerifier } from '../api-keys/key-verifier.service.js';
+import { BEARER_STRATEGY } from '../api-keys/bearer.strategy.js';
 import type { Role } from '../common/decorators/access.decorator.js';
 import type { Authenticator, Principal } from '../common/guards/access.guard.js';
-import type { MaybePromise } from '../common/maybe-promise.js';
 import { SESSION_ABSOLUTE_MS } from './session.plugin.js';
 
 @Injectable()
 export class AccountsAuthenticator implements Authenticator {
-  constructor(
-    @InjectDataSource() private readonly ds: DataSource,
-    private readonly keys: KeyVerifier,
-  ) {}
+  constructor(@InjectDataSource() private readonly ds: DataSource) {}
 
   /** The session's user and organisation; the role is read fresh so changes apply at once. */
   async fromSession(req: FastifyRequest): Promise<Principal | null> {
@@ -41,9 +37,16 @@ export class AccountsAuthenticator implements Authenticator {
     };
   }
 
-  /** The key in the Authorization header, checked by the key verifier (at once when cached). */
-  fromApiKey(req: FastifyRequest): MaybePromise<Principal | null> {
-    const token = bearerToken(req);
-    return token === null ? null : this.keys.verify(token);
+  /** passport-http-bearer (registered through @nestjs/passport) validates the key. */
+  fromApiKey(req: FastifyRequest): Promise<Principal | null> {
+    return new Promise((resolve, reject) => {
+      const run = passport.authenticate(
+        BEARER_STRATEGY,
+        { session: false },
+        (err: unknown, user: Principal | false | null) =>
+          err ? reject(err) : resolve(user || null),
+      ) as (req: unknown, res: unknown, next: (err?: unknown) => void) => void;
+      run(req, {}, (err?: unknown) => (err ? reject(err) : resolve(null)));
+    });
   }
 }

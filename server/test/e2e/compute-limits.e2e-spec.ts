@@ -131,6 +131,8 @@ describe('compute limits and metering', () => {
     expect(res.map((r) => r.status).sort()).toEqual([200, 200, 429]);
   });
 
+  // Booting another app in this process re-registers the bearer strategy in passport's global
+  // registry, so tests that boot their own apps come last (after them `t` cannot verify keys).
   it('loses no usage event under load: rows written equal 2xx responses', async () => {
     const app2 = await bootApp({ USAGE_FLUSH_MS: '50', USAGE_BATCH_SIZE: '200' });
     const org = await keyedOrg(app2.url);

@@ -1,6 +1,7 @@
 // §3 scale: two instances of the BUILT server (separate processes, as behind a load balancer) on
 // one database, with the PostgreSQL-backed rate limiter (RATE_LIMIT_STORE=postgres). Separate
-// processes matter: they share nothing in memory, as separate instances share nothing.
+// processes matter: apps booted in one process share passport's global strategy registry, so
+// "two instances" in-process would verify keys through one instance's cache.
 import { randomBytes } from 'node:crypto';
 import pg from 'pg';
 import type { DataSource } from 'typeorm';
