@@ -1204,12 +1204,12 @@ export interface components {
     };
     BacklightRequestDto: {
       /**
-       * @description Full beam angle of the grid or reflector, degrees (1..180); default 100.
+       * @description Full beam angle of the grid or reflector, degrees; default 100. Range: 1 to 180.
        * @example 40
        */
       beamAngleDeg?: number;
       /**
-       * @description Horizontal distance of the light behind the subject (0.1..50 m, 0.1..164 ft).
+       * @description Horizontal distance of the light behind the subject, in distanceUnit; in metres at most 50 (164 is the limit in feet). Range: 0.1 to 164.
        * @example 3
        */
       distanceBehind: number;
@@ -1220,17 +1220,17 @@ export interface components {
        */
       distanceUnit?: 'm' | 'ft';
       /**
-       * @description Height of the subject’s head; default 1.6 m.
+       * @description Height of the subject’s head, in distanceUnit; in metres at most 10 (33 is the limit in feet); default 1.6 m. Range: 0.1 to 33.
        * @example 1.7
        */
       headHeight?: number;
       /**
-       * @description Height of the light above the ground, in distanceUnit (0..10 m).
+       * @description Height of the light above the ground, in distanceUnit; in metres at most 10 (33 is the limit in feet). Range: 0 to 33.
        * @example 2
        */
       lightHeight: number;
       /**
-       * @description Beam axis elevation, degrees (+ up, − down; -90..90); default aimed at the head.
+       * @description Beam axis elevation, degrees (+ up, − down); default aimed at the head. Range: -90 to 90.
        * @example -5
        */
       tiltDeg?: number;
@@ -1283,17 +1283,17 @@ export interface components {
     };
     BalanceRequestDto: {
       /**
-       * @description Camera white balance, kelvin (1500..20000).
+       * @description Camera white balance, kelvin. Range: 1500 to 20000.
        * @example 3800
        */
       cameraKelvin: number;
       /**
-       * @description Camera tint, CC units (-60..60; + = toward magenta); default 0.
+       * @description Camera tint, CC units (+ = toward magenta); default 0. Range: -60 to 60.
        * @example 0
        */
       cameraTint?: number;
       /**
-       * @description Bare flash colour temperature, kelvin (2500..10000); default 5500.
+       * @description Bare flash colour temperature, kelvin; default 5500. Range: 2500 to 10000.
        * @example 5600
        */
       flashKelvin?: number;
@@ -1305,17 +1305,17 @@ export interface components {
       /** @description The gels to choose from; default: the built-in catalogue of common CTO/CTB cuts. */
       gels?: {
         /**
-         * @description Green shift, CC units (-60..60; + = plus-green); default 0.
+         * @description Green shift, CC units (+ = plus-green); default 0. Range: -60 to 60.
          * @example 0
          */
         greenShift?: number;
         /**
-         * @description Light the gel absorbs, stops (0..6).
+         * @description Light the gel absorbs, stops. Range: 0 to 6.
          * @example 0.33
          */
         lossStops: number;
         /**
-         * @description Mired shift of the gel (-400..400; + = warmer, CTO; − = cooler, CTB).
+         * @description Mired shift of the gel (+ = warmer, CTO; − = cooler, CTB). Range: -400 to 400.
          * @example 81
          */
         miredShift: number;
@@ -1326,17 +1326,17 @@ export interface components {
         name: string;
       }[];
       /**
-       * @description Most gels in one stack (0..4); default 3.
+       * @description Most gels in one stack; default 3. Whole number, 0 to 4.
        * @example 2
        */
       maxGels?: number;
       /**
-       * @description Mireds of error accepted to use fewer gels (0..50); default 0 (closest stack). Any stack within this of the required shift is a match; the match with the fewest gels, then the least light loss, is chosen.
+       * @description Mireds of error accepted to use fewer gels; default 0 (closest stack). Any stack within this of the required shift is a match; the match with the fewest gels, then the least light loss, is chosen. Range: 0 to 50.
        * @example 10
        */
       miredTolerance?: number;
       /**
-       * @description Extra warmth wanted on the subject, mireds (-200..200; + = warmer). With the camera white balance it must name real light: 10⁶ / cameraKelvin + offset within 1500..20000 K.
+       * @description Extra warmth wanted on the subject, mireds (+ = warmer). With the camera white balance it must name real light: 10⁶ / cameraKelvin + offset within 1500..20000 K. Range: -200 to 200.
        * @example 10
        */
       targetMiredOffset?: number;
@@ -1765,53 +1765,53 @@ export interface components {
     };
     ExposureRequestDto: {
       /**
-       * @description f-number (0.7..128).
+       * @description f-number. Range: 0.7 to 128.
        * @example 4
        */
       aperture?: number;
-      /** @description Background mode: narrowest f-number when aperture is solved (default 22). */
+      /** @description Background mode: narrowest f-number when aperture is solved, at least apertureMin (default 22, or apertureMin when that is higher). Range: 0.7 to 128. */
       apertureMax?: number;
-      /** @description Background mode: widest f-number when aperture is solved (default 1.4). */
+      /** @description Background mode: widest f-number when aperture is solved (default 1.4). Range: 0.7 to 128. */
       apertureMin?: number;
       /**
-       * @description Background mode: stops brighter (+) or darker (-) than metered, -6..6.
+       * @description Background mode: stops brighter (+) or darker (-) than metered. Range: -6 to 6.
        * @example -1
        */
       biasStops?: number;
       /**
-       * @description Scene or incident exposure value at ISO 100, EV (-10..25).
+       * @description Scene or incident exposure value at ISO 100, EV. Range: -10 to 25.
        * @example 9
        */
       ev100?: number;
       /**
-       * @description Background mode: flash sync speed, s (e.g. 0.005 for 1/200).
+       * @description Background mode: flash sync speed, s (e.g. 0.005 for 1/200). Range: 1/16000 to 1.
        * @example 0.005
        */
       flashSyncSeconds?: number;
       /**
-       * @description ISO speed (3..409600).
+       * @description ISO speed. Range: 3 to 409600.
        * @example 400
        */
       iso?: number;
       /**
-       * @description Background mode: highest ISO the solver may use (default 6400).
+       * @description Background mode: highest ISO the solver may use, at least isoMin (default 6400, or isoMin when that is higher). Range: 3 to 409600.
        * @example 3200
        */
       isoMax?: number;
       /**
-       * @description Background mode: lowest ISO the solver may use (default 100).
+       * @description Background mode: lowest ISO the solver may use (default 100). Range: 3 to 409600.
        * @example 100
        */
       isoMin?: number;
       /** @description Background mode: estimate the ambient EV100 here (USNO Circular 171 model). */
       place?: {
         /**
-         * @description Degrees, -90..90.
+         * @description Degrees, north positive. Range: -90 to 90.
          * @example 51.5
          */
         latitude: number;
         /**
-         * @description Degrees, -180..180.
+         * @description Degrees, east positive. Range: -180 to 180.
          * @example -0.1
          */
         longitude: number;
@@ -1828,13 +1828,13 @@ export interface components {
         time: string;
       };
       /**
-       * @description Shutter time, seconds (1/64000..3600); plain mode only.
+       * @description Shutter time, seconds; plain mode only. Range: 1/64000 to 3600.
        * @example 0.0125
        */
       shutterSeconds?: number;
-      /** @description Background mode: slowest hand-held shutter, s (default 1/60). */
+      /** @description Background mode: slowest hand-held shutter, s (default 1/60). Range: 1/8000 to 30. */
       slowestHandheldSeconds?: number;
-      /** @description Background mode: slowest tripod shutter, s (default 30). */
+      /** @description Background mode: slowest tripod shutter, s (default 30). Range: 1/8000 to 3600. */
       slowestTripodSeconds?: number;
       /**
        * @description Background mode: camera support.
@@ -1931,7 +1931,7 @@ export interface components {
     };
     FalloffRequestDto: {
       /**
-       * @description Light-to-background distance in distanceUnit.
+       * @description Light-to-background distance in distanceUnit. Range: 0.05 to 1000.
        * @example 9
        */
       backgroundDistance?: number;
@@ -1942,27 +1942,27 @@ export interface components {
        */
       distanceUnit?: 'm' | 'ft';
       /**
-       * @description Start of the chart series, in distanceUnit; default subjectDistance / 2.
+       * @description Start of the chart series, in distanceUnit; default subjectDistance / 2. Range: 0.05 to 1000.
        * @example 1
        */
       from?: number;
       /**
-       * @description Light-to-nearest-ground-in-frame distance in distanceUnit.
+       * @description Light-to-nearest-ground-in-frame distance in distanceUnit. Range: 0.05 to 1000.
        * @example 2.2
        */
       groundDistance?: number;
       /**
-       * @description Series points (2..500); default 40, log-spaced.
+       * @description Series points; default 40, log-spaced. Whole number, 2 to 500.
        * @example 40
        */
       points?: number;
       /**
-       * @description Light-to-subject distance in distanceUnit (0.05..1000).
+       * @description Light-to-subject distance in distanceUnit. Range: 0.05 to 1000.
        * @example 2.5
        */
       subjectDistance: number;
       /**
-       * @description End of the chart series, in distanceUnit; default 3 × the farthest mark.
+       * @description End of the chart series, in distanceUnit, at least from; default 3 × the farthest mark, at most 1000. Range: 0.05 to 1000.
        * @example 20
        */
       to?: number;
@@ -2007,12 +2007,12 @@ export interface components {
     };
     FlashRequestDto: {
       /**
-       * @description f-number (0.7..128).
+       * @description f-number. Range: 0.7 to 128.
        * @example 5.6
        */
       aperture: number;
       /**
-       * @description Light-to-subject distance in distanceUnit (0.05..1000).
+       * @description Light-to-subject distance in distanceUnit. Range: 0.05 to 1000.
        * @example 3
        */
       distance: number;
@@ -2023,17 +2023,17 @@ export interface components {
        */
       distanceUnit?: 'm' | 'ft';
       /**
-       * @description Exposure this light should give on its own, stops relative to a correct exposure at aperture and iso (-6..6); default 0. -1 when the ambient already gives half the exposure on the subject; +1 for a rim one stop brighter.
+       * @description Exposure this light should give on its own, stops relative to a correct exposure at aperture and iso; default 0. -1 when the ambient already gives half the exposure on the subject; +1 for a rim one stop brighter. Range: -6 to 6.
        * @example 0
        */
       exposureStops?: number;
       /**
-       * @description Light lost in gels, stops (0..8).
+       * @description Light lost in gels, stops. Range: 0 to 8.
        * @example 0.67
        */
       gelLossStops?: number;
       /**
-       * @description Guide number at ISO 100 and full power, in guideNumberUnit (1..500).
+       * @description Guide number at ISO 100 and full power, in guideNumberUnit. Range: 1 to 500.
        * @example 60
        */
       guideNumber: number;
@@ -2044,17 +2044,17 @@ export interface components {
        */
       guideNumberUnit?: 'm' | 'ft';
       /**
-       * @description ISO speed (3..409600); default 100.
+       * @description ISO speed; default 100. Range: 3 to 409600.
        * @example 200
        */
       iso?: number;
       /**
-       * @description Lowest power the light can go to, as a fraction of full; default 1/256.
+       * @description Lowest power the light can go to, as a fraction of full; default 1/256. Range: 1/4096 to 1.
        * @example 0.00390625
        */
       minPowerFraction?: number;
       /**
-       * @description Light lost in the modifier, stops (0..8).
+       * @description Light lost in the modifier, stops. Range: 0 to 8.
        * @example 1.5
        */
       modifierLossStops?: number;
@@ -2828,44 +2828,44 @@ export interface components {
     };
     SavedSetupInputsDto: {
       /**
-       * @description Key-light-to-background distance, in key.distanceUnit.
+       * @description Key-light-to-background distance, in key.distanceUnit. Range: 0.05 to 1000.
        * @example 12
        */
       backgroundDistance?: number;
       /** @description Camera limits and taste. */
       camera?: {
         /**
-         * @description Working f-number; default 5.6.
+         * @description Working f-number; default 5.6. Range: 0.7 to 128.
          * @example 4
          */
         aperture?: number;
         /**
-         * @description Background bias, stops (taste); default −1.
+         * @description Background bias, stops (taste); default −1. Range: -6 to 6.
          * @example -1
          */
         biasStops?: number;
         /**
-         * @description Flash sync speed, seconds; default 1/200.
+         * @description Flash sync speed, seconds; default 1/200. Range: 1/16000 to 1.
          * @example 0.005
          */
         flashSyncSeconds?: number;
         /**
-         * @description ISO ceiling; default 6400.
+         * @description ISO ceiling, at least isoMin; default 6400 (or isoMin when that is higher). Range: 3 to 409600.
          * @example 3200
          */
         isoMax?: number;
         /**
-         * @description Lowest ISO to use.
+         * @description Lowest ISO to use; default 100. Range: 3 to 409600.
          * @example 100
          */
         isoMin?: number;
         /**
-         * @description Camera white balance, kelvin; default 3800.
+         * @description Camera white balance, kelvin; default 3800. Range: 1500 to 20000.
          * @example 3800
          */
         kelvin?: number;
         /**
-         * @description Slowest handheld shutter time, seconds.
+         * @description Slowest handheld shutter time, seconds; default 1/60. Range: 1/8000 to 30.
          * @example 0.0167
          */
         slowestHandheldSeconds?: number;
@@ -2876,7 +2876,7 @@ export interface components {
          */
         support?: 'handheld' | 'tripod';
         /**
-         * @description Camera tint, CC units.
+         * @description Camera tint, CC units (+ = toward magenta); default 0. Range: -60 to 60.
          * @example 0
          */
         tint?: number;
@@ -2904,7 +2904,7 @@ export interface components {
          */
         nearWater?: boolean;
         /**
-         * @description Wind speed, km/h.
+         * @description Wind speed, km/h. Range: 0 to 400.
          * @example 15
          */
         windKmh?: number;
@@ -2916,12 +2916,12 @@ export interface components {
        */
       date: string;
       /**
-       * @description Observer height above the visible horizon, metres (0..9000).
+       * @description Observer height above the visible horizon, metres. Range: 0 to 9000.
        * @example 0
        */
       elevation?: number;
       /**
-       * @description Bare flash colour temperature, kelvin (2500..10000); default 5500.
+       * @description Bare flash colour temperature, kelvin; default 5500. Range: 2500 to 10000.
        * @example 5600
        */
       flashKelvin?: number;
@@ -2933,17 +2933,17 @@ export interface components {
       /** @description The gels to choose from; default: the built-in catalogue of common CTO/CTB cuts. */
       gels?: {
         /**
-         * @description Green shift, CC units (-60..60; + = plus-green); default 0.
+         * @description Green shift, CC units (+ = plus-green); default 0. Range: -60 to 60.
          * @example 0
          */
         greenShift?: number;
         /**
-         * @description Light the gel absorbs, stops (0..6).
+         * @description Light the gel absorbs, stops. Range: 0 to 6.
          * @example 0.33
          */
         lossStops: number;
         /**
-         * @description Mired shift of the gel (-400..400; + = warmer, CTO; − = cooler, CTB).
+         * @description Mired shift of the gel (+ = warmer, CTO; − = cooler, CTB). Range: -400 to 400.
          * @example 81
          */
         miredShift: number;
@@ -2956,12 +2956,12 @@ export interface components {
       /** @description The key light. Name a light and modifier of your gear by id, or give the values. */
       key: {
         /**
-         * @description Angle of the key from the camera axis, degrees; default 60.
+         * @description Angle of the key from the camera axis, degrees; default 60. Range: 0 to 180.
          * @example 45
          */
         angleFromCameraDeg?: number;
         /**
-         * @description Light-to-subject distance in distanceUnit.
+         * @description Light-to-subject distance in distanceUnit. Range: 0.1 to 160.
          * @example 2.5
          */
         distance: number;
@@ -2972,7 +2972,7 @@ export interface components {
          */
         distanceUnit?: 'm' | 'ft';
         /**
-         * @description Guide number at ISO 100, full power, in guideNumberUnit.
+         * @description Guide number at ISO 100, full power, in guideNumberUnit. Range: 1 to 500.
          * @example 60
          */
         guideNumber?: number;
@@ -2995,45 +2995,45 @@ export interface components {
          */
         modifierId?: string;
         /**
-         * @description Light lost in the modifier, stops.
+         * @description Light lost in the modifier, stops. Range: 0 to 8.
          * @example 1.3
          */
         modifierLossStops?: number;
         /**
-         * @description Modifier size in distanceUnit.
+         * @description Modifier size in distanceUnit. Range: 0.01 to 33.
          * @example 0.9
          */
         modifierSize?: number;
       };
       /**
-       * @description Degrees, north positive (-90..90).
+       * @description Degrees, north positive. Range: -90 to 90.
        * @example 51.507
        */
       latitude: number;
       /**
-       * @description Degrees, east positive (-180..180).
+       * @description Degrees, east positive. Range: -180 to 180.
        * @example -0.1
        */
       longitude: number;
       /**
-       * @description Most gels in one stack (0..4); default 3.
+       * @description Most gels in one stack; default 3. Whole number, 0 to 4.
        * @example 2
        */
       maxGels?: number;
       /**
-       * @description Mireds of error accepted to use fewer gels (0..50); default 0 (closest stack). Any stack within this of the required shift is a match; the match with the fewest gels, then the least light loss, is chosen.
+       * @description Mireds of error accepted to use fewer gels; default 0 (closest stack). Any stack within this of the required shift is a match; the match with the fewest gels, then the least light loss, is chosen. Range: 0 to 50.
        * @example 10
        */
       miredTolerance?: number;
       /** @description An optional rim light behind the subject. Name a light and modifier of your gear by id, or give the values. */
       rim?: {
         /**
-         * @description Full beam angle, degrees.
+         * @description Full beam angle, degrees; default 100. Range: 1 to 180.
          * @example 40
          */
         beamAngleDeg?: number;
         /**
-         * @description Horizontal distance behind the subject.
+         * @description Horizontal distance behind the subject, in distanceUnit; in metres at most 50 (164 is the limit in feet). Range: 0.1 to 164.
          * @example 3
          */
         distanceBehind: number;
@@ -3049,7 +3049,7 @@ export interface components {
          */
         gelled?: boolean;
         /**
-         * @description Guide number at ISO 100, full power.
+         * @description Guide number at ISO 100, full power, in guideNumberUnit. Range: 1 to 500.
          * @example 45
          */
         guideNumber?: number;
@@ -3060,7 +3060,7 @@ export interface components {
          */
         guideNumberUnit?: 'm' | 'ft';
         /**
-         * @description Height of the light above the ground.
+         * @description Height of the light above the ground, in distanceUnit; in metres at most 10 (33 is the limit in feet). Range: 0 to 33.
          * @example 2
          */
         lightHeight: number;
@@ -3075,12 +3075,12 @@ export interface components {
          */
         modifierId?: string;
         /**
-         * @description Light lost in the modifier, stops.
+         * @description Light lost in the modifier, stops. Range: 0 to 8.
          * @example 0
          */
         modifierLossStops?: number;
         /**
-         * @description Rim brighter than the lit side (key plus ambient, as a meter reads it), stops; default 1.
+         * @description Rim brighter than the lit side (key plus ambient, as a meter reads it), stops; default 1. Range: -6 to 6.
          * @example 1
          */
         rimOverKeyStops?: number;
@@ -3092,17 +3092,17 @@ export interface components {
        */
       sky?: 'clear' | 'partly-cloudy' | 'overcast';
       /**
-       * @description Ambient timeline step, minutes (0.5..60); default 2.
+       * @description Ambient timeline step, minutes; default 2. Range: 0.5 to 60.
        * @example 5
        */
       stepMinutes?: number;
       /**
-       * @description How many suggested minutes (1..10); default 3.
+       * @description How many suggested minutes; default 3. Whole number, 1 to 10.
        * @example 3
        */
       suggestions?: number;
       /**
-       * @description Extra warmth wanted on the subject, mireds (-200..200; + = warmer). With the camera white balance it must name real light: 10⁶ / cameraKelvin + offset within 1500..20000 K.
+       * @description Extra warmth wanted on the subject, mireds (+ = warmer). With the camera white balance it must name real light: 10⁶ / cameraKelvin + offset within 1500..20000 K. Range: -200 to 200.
        * @example 10
        */
       targetMiredOffset?: number;
@@ -3201,44 +3201,44 @@ export interface components {
     };
     SetupRequestDto: {
       /**
-       * @description Key-light-to-background distance, in key.distanceUnit.
+       * @description Key-light-to-background distance, in key.distanceUnit. Range: 0.05 to 1000.
        * @example 12
        */
       backgroundDistance?: number;
       /** @description Camera limits and taste. */
       camera?: {
         /**
-         * @description Working f-number; default 5.6.
+         * @description Working f-number; default 5.6. Range: 0.7 to 128.
          * @example 4
          */
         aperture?: number;
         /**
-         * @description Background bias, stops (taste); default −1.
+         * @description Background bias, stops (taste); default −1. Range: -6 to 6.
          * @example -1
          */
         biasStops?: number;
         /**
-         * @description Flash sync speed, seconds; default 1/200.
+         * @description Flash sync speed, seconds; default 1/200. Range: 1/16000 to 1.
          * @example 0.005
          */
         flashSyncSeconds?: number;
         /**
-         * @description ISO ceiling; default 6400.
+         * @description ISO ceiling, at least isoMin; default 6400 (or isoMin when that is higher). Range: 3 to 409600.
          * @example 3200
          */
         isoMax?: number;
         /**
-         * @description Lowest ISO to use.
+         * @description Lowest ISO to use; default 100. Range: 3 to 409600.
          * @example 100
          */
         isoMin?: number;
         /**
-         * @description Camera white balance, kelvin; default 3800.
+         * @description Camera white balance, kelvin; default 3800. Range: 1500 to 20000.
          * @example 3800
          */
         kelvin?: number;
         /**
-         * @description Slowest handheld shutter time, seconds.
+         * @description Slowest handheld shutter time, seconds; default 1/60. Range: 1/8000 to 30.
          * @example 0.0167
          */
         slowestHandheldSeconds?: number;
@@ -3249,7 +3249,7 @@ export interface components {
          */
         support?: 'handheld' | 'tripod';
         /**
-         * @description Camera tint, CC units.
+         * @description Camera tint, CC units (+ = toward magenta); default 0. Range: -60 to 60.
          * @example 0
          */
         tint?: number;
@@ -3277,7 +3277,7 @@ export interface components {
          */
         nearWater?: boolean;
         /**
-         * @description Wind speed, km/h.
+         * @description Wind speed, km/h. Range: 0 to 400.
          * @example 15
          */
         windKmh?: number;
@@ -3289,12 +3289,12 @@ export interface components {
        */
       date: string;
       /**
-       * @description Observer height above the visible horizon, metres (0..9000).
+       * @description Observer height above the visible horizon, metres. Range: 0 to 9000.
        * @example 0
        */
       elevation?: number;
       /**
-       * @description Bare flash colour temperature, kelvin (2500..10000); default 5500.
+       * @description Bare flash colour temperature, kelvin; default 5500. Range: 2500 to 10000.
        * @example 5600
        */
       flashKelvin?: number;
@@ -3306,17 +3306,17 @@ export interface components {
       /** @description The gels to choose from; default: the built-in catalogue of common CTO/CTB cuts. */
       gels?: {
         /**
-         * @description Green shift, CC units (-60..60; + = plus-green); default 0.
+         * @description Green shift, CC units (+ = plus-green); default 0. Range: -60 to 60.
          * @example 0
          */
         greenShift?: number;
         /**
-         * @description Light the gel absorbs, stops (0..6).
+         * @description Light the gel absorbs, stops. Range: 0 to 6.
          * @example 0.33
          */
         lossStops: number;
         /**
-         * @description Mired shift of the gel (-400..400; + = warmer, CTO; − = cooler, CTB).
+         * @description Mired shift of the gel (+ = warmer, CTO; − = cooler, CTB). Range: -400 to 400.
          * @example 81
          */
         miredShift: number;
@@ -3329,12 +3329,12 @@ export interface components {
       /** @description The key light. Name a light and modifier of your gear by id, or give the values. */
       key: {
         /**
-         * @description Angle of the key from the camera axis, degrees; default 60.
+         * @description Angle of the key from the camera axis, degrees; default 60. Range: 0 to 180.
          * @example 45
          */
         angleFromCameraDeg?: number;
         /**
-         * @description Light-to-subject distance in distanceUnit.
+         * @description Light-to-subject distance in distanceUnit. Range: 0.1 to 160.
          * @example 2.5
          */
         distance: number;
@@ -3345,7 +3345,7 @@ export interface components {
          */
         distanceUnit?: 'm' | 'ft';
         /**
-         * @description Guide number at ISO 100, full power, in guideNumberUnit.
+         * @description Guide number at ISO 100, full power, in guideNumberUnit. Range: 1 to 500.
          * @example 60
          */
         guideNumber?: number;
@@ -3368,45 +3368,45 @@ export interface components {
          */
         modifierId?: string;
         /**
-         * @description Light lost in the modifier, stops.
+         * @description Light lost in the modifier, stops. Range: 0 to 8.
          * @example 1.3
          */
         modifierLossStops?: number;
         /**
-         * @description Modifier size in distanceUnit.
+         * @description Modifier size in distanceUnit. Range: 0.01 to 33.
          * @example 0.9
          */
         modifierSize?: number;
       };
       /**
-       * @description Degrees, north positive (-90..90).
+       * @description Degrees, north positive. Range: -90 to 90.
        * @example 51.507
        */
       latitude: number;
       /**
-       * @description Degrees, east positive (-180..180).
+       * @description Degrees, east positive. Range: -180 to 180.
        * @example -0.1
        */
       longitude: number;
       /**
-       * @description Most gels in one stack (0..4); default 3.
+       * @description Most gels in one stack; default 3. Whole number, 0 to 4.
        * @example 2
        */
       maxGels?: number;
       /**
-       * @description Mireds of error accepted to use fewer gels (0..50); default 0 (closest stack). Any stack within this of the required shift is a match; the match with the fewest gels, then the least light loss, is chosen.
+       * @description Mireds of error accepted to use fewer gels; default 0 (closest stack). Any stack within this of the required shift is a match; the match with the fewest gels, then the least light loss, is chosen. Range: 0 to 50.
        * @example 10
        */
       miredTolerance?: number;
       /** @description An optional rim light behind the subject. Name a light and modifier of your gear by id, or give the values. */
       rim?: {
         /**
-         * @description Full beam angle, degrees.
+         * @description Full beam angle, degrees; default 100. Range: 1 to 180.
          * @example 40
          */
         beamAngleDeg?: number;
         /**
-         * @description Horizontal distance behind the subject.
+         * @description Horizontal distance behind the subject, in distanceUnit; in metres at most 50 (164 is the limit in feet). Range: 0.1 to 164.
          * @example 3
          */
         distanceBehind: number;
@@ -3422,7 +3422,7 @@ export interface components {
          */
         gelled?: boolean;
         /**
-         * @description Guide number at ISO 100, full power.
+         * @description Guide number at ISO 100, full power, in guideNumberUnit. Range: 1 to 500.
          * @example 45
          */
         guideNumber?: number;
@@ -3433,7 +3433,7 @@ export interface components {
          */
         guideNumberUnit?: 'm' | 'ft';
         /**
-         * @description Height of the light above the ground.
+         * @description Height of the light above the ground, in distanceUnit; in metres at most 10 (33 is the limit in feet). Range: 0 to 33.
          * @example 2
          */
         lightHeight: number;
@@ -3448,12 +3448,12 @@ export interface components {
          */
         modifierId?: string;
         /**
-         * @description Light lost in the modifier, stops.
+         * @description Light lost in the modifier, stops. Range: 0 to 8.
          * @example 0
          */
         modifierLossStops?: number;
         /**
-         * @description Rim brighter than the lit side (key plus ambient, as a meter reads it), stops; default 1.
+         * @description Rim brighter than the lit side (key plus ambient, as a meter reads it), stops; default 1. Range: -6 to 6.
          * @example 1
          */
         rimOverKeyStops?: number;
@@ -3465,17 +3465,17 @@ export interface components {
        */
       sky?: 'clear' | 'partly-cloudy' | 'overcast';
       /**
-       * @description Ambient timeline step, minutes (0.5..60); default 2.
+       * @description Ambient timeline step, minutes; default 2. Range: 0.5 to 60.
        * @example 5
        */
       stepMinutes?: number;
       /**
-       * @description How many suggested minutes (1..10); default 3.
+       * @description How many suggested minutes; default 3. Whole number, 1 to 10.
        * @example 3
        */
       suggestions?: number;
       /**
-       * @description Extra warmth wanted on the subject, mireds (-200..200; + = warmer). With the camera white balance it must name real light: 10⁶ / cameraKelvin + offset within 1500..20000 K.
+       * @description Extra warmth wanted on the subject, mireds (+ = warmer). With the camera white balance it must name real light: 10⁶ / cameraKelvin + offset within 1500..20000 K. Range: -200 to 200.
        * @example 10
        */
       targetMiredOffset?: number;
@@ -3897,12 +3897,12 @@ export interface components {
       /** @description Blue-hour band; default −4° to −8° (common practice, no standard). */
       blueHour?: {
         /**
-         * @description Lower sun altitude, degrees (-18..20), below upperDeg.
+         * @description Lower sun altitude, degrees, below upperDeg. Range: -18 to 20.
          * @example -4
          */
         lowerDeg: number;
         /**
-         * @description Upper sun altitude, degrees (-18..20).
+         * @description Upper sun altitude, degrees. Range: -18 to 20.
          * @example 6
          */
         upperDeg: number;
@@ -3914,30 +3914,30 @@ export interface components {
        */
       date: string;
       /**
-       * @description Observer height above the visible horizon, metres (0..9000).
+       * @description Observer height above the visible horizon, metres. Range: 0 to 9000.
        * @example 0
        */
       elevation?: number;
       /** @description Golden-hour band; default +6° to −4° (common practice, no standard). */
       goldenHour?: {
         /**
-         * @description Lower sun altitude, degrees (-18..20), below upperDeg.
+         * @description Lower sun altitude, degrees, below upperDeg. Range: -18 to 20.
          * @example -4
          */
         lowerDeg: number;
         /**
-         * @description Upper sun altitude, degrees (-18..20).
+         * @description Upper sun altitude, degrees. Range: -18 to 20.
          * @example 6
          */
         upperDeg: number;
       };
       /**
-       * @description Degrees, north positive (-90..90).
+       * @description Degrees, north positive. Range: -90 to 90.
        * @example 51.507
        */
       latitude: number;
       /**
-       * @description Degrees, east positive (-180..180).
+       * @description Degrees, east positive. Range: -180 to 180.
        * @example -0.1
        */
       longitude: number;
@@ -3948,7 +3948,7 @@ export interface components {
        */
       sky?: 'clear' | 'partly-cloudy' | 'overcast';
       /**
-       * @description Ambient timeline step, minutes (0.5..60); default 2.
+       * @description Ambient timeline step, minutes; default 2. Range: 0.5 to 60.
        * @example 5
        */
       stepMinutes?: number;
