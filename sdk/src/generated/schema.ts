@@ -4509,6 +4509,44 @@ export interface operations {
           'application/json': components['schemas']['AuditPageResponseDto'];
         };
       };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   confirmEmailChange: {
@@ -4529,6 +4567,71 @@ export interface operations {
           [name: string]: unknown;
         };
         content?: never;
+      };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The new address has meanwhile been taken by another account. */
+      409: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
       };
     };
   };
@@ -4553,6 +4656,62 @@ export interface operations {
           'application/json': components['schemas']['AcceptedResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   confirmPasswordReset: {
@@ -4573,6 +4732,62 @@ export interface operations {
           [name: string]: unknown;
         };
         content?: never;
+      };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
       };
     };
   };
@@ -4597,19 +4812,81 @@ export interface operations {
           'application/json': components['schemas']['MeResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description Wrong e-mail or password (the answer does not say which). */
       401: {
         headers: {
           [name: string]: unknown;
         };
-        content?: never;
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The account no longer belongs to any organisation. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
       };
       /** @description Too many failures; see Retry-After. */
       429: {
         headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
-        content?: never;
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
       };
     };
   };
@@ -4628,6 +4905,26 @@ export interface operations {
         };
         content?: never;
       };
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   signOutEverywhere: {
@@ -4644,6 +4941,35 @@ export interface operations {
           [name: string]: unknown;
         };
         content?: never;
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
       };
     };
   };
@@ -4668,12 +4994,81 @@ export interface operations {
           'application/json': components['schemas']['MeResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description The e-mail address is already registered. */
       409: {
         headers: {
           [name: string]: unknown;
         };
-        content?: never;
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Too many new accounts from this address; wait for Retry-After. */
+      429: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
       };
     };
   };
@@ -4698,7 +5093,7 @@ export interface operations {
           'application/json': components['schemas']['BacklightResponseDto'];
         };
       };
-      /** @description The body is not JSON. */
+      /** @description The body is not valid JSON. */
       400: {
         headers: {
           [name: string]: unknown;
@@ -4707,7 +5102,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description No API key or session, or the key is unknown, revoked or expired. */
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -4716,7 +5111,16 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description The body is larger than 100 kB. */
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
       413: {
         headers: {
           [name: string]: unknown;
@@ -4725,7 +5129,16 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). */
       422: {
         headers: {
           [name: string]: unknown;
@@ -4734,18 +5147,26 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt). */
+      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt and Retry-After). */
       429: {
         headers: {
+          /** @description Calls left in the window and seconds until it refills, e.g. `"key";r=0;t=1`. */
+          RateLimit?: string;
+          /** @description The limit: burst size and window in seconds, e.g. `"key";q=100;w=2`. */
+          'RateLimit-Policy'?: string;
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Temporarily unavailable; retry after Retry-After seconds. */
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
       503: {
         headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -4775,7 +5196,7 @@ export interface operations {
           'application/json': components['schemas']['BalanceResponseDto'];
         };
       };
-      /** @description The body is not JSON. */
+      /** @description The body is not valid JSON. */
       400: {
         headers: {
           [name: string]: unknown;
@@ -4784,7 +5205,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description No API key or session, or the key is unknown, revoked or expired. */
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -4793,7 +5214,25 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description The body is larger than 100 kB. */
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A gear id is not one of your organisation's; `errors` names the field. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
       413: {
         headers: {
           [name: string]: unknown;
@@ -4802,7 +5241,16 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). */
       422: {
         headers: {
           [name: string]: unknown;
@@ -4811,18 +5259,26 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt). */
+      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt and Retry-After). */
       429: {
         headers: {
+          /** @description Calls left in the window and seconds until it refills, e.g. `"key";r=0;t=1`. */
+          RateLimit?: string;
+          /** @description The limit: burst size and window in seconds, e.g. `"key";q=100;w=2`. */
+          'RateLimit-Policy'?: string;
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Temporarily unavailable; retry after Retry-After seconds. */
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
       503: {
         headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -4847,6 +5303,35 @@ export interface operations {
         };
         content?: never;
       };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   cancelSubscription: {
@@ -4864,6 +5349,44 @@ export interface operations {
         };
         content: {
           'application/json': components['schemas']['CancelResponseDto'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description There is no subscription to cancel. */
+      409: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };
@@ -4889,12 +5412,79 @@ export interface operations {
           'application/json': components['schemas']['CheckoutResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description Already on that plan, or the plan has fewer seats than the members (`limit: "seats"`). */
       409: {
         headers: {
           [name: string]: unknown;
         };
-        content?: never;
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
       };
     };
   };
@@ -4913,6 +5503,35 @@ export interface operations {
         };
         content: {
           'application/json': components['schemas']['InvoiceListResponseDto'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };
@@ -4934,6 +5553,44 @@ export interface operations {
         };
         content: {
           'application/json': components['schemas']['InvoiceResponseDto'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };
@@ -4959,7 +5616,7 @@ export interface operations {
           'application/json': components['schemas']['ExposureResponseDto'];
         };
       };
-      /** @description The body is not JSON. */
+      /** @description The body is not valid JSON. */
       400: {
         headers: {
           [name: string]: unknown;
@@ -4968,7 +5625,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description No API key or session, or the key is unknown, revoked or expired. */
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -4977,7 +5634,16 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description The body is larger than 100 kB. */
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
       413: {
         headers: {
           [name: string]: unknown;
@@ -4986,7 +5652,16 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). */
       422: {
         headers: {
           [name: string]: unknown;
@@ -4995,18 +5670,26 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt). */
+      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt and Retry-After). */
       429: {
         headers: {
+          /** @description Calls left in the window and seconds until it refills, e.g. `"key";r=0;t=1`. */
+          RateLimit?: string;
+          /** @description The limit: burst size and window in seconds, e.g. `"key";q=100;w=2`. */
+          'RateLimit-Policy'?: string;
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Temporarily unavailable; retry after Retry-After seconds. */
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
       503: {
         headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -5036,7 +5719,7 @@ export interface operations {
           'application/json': components['schemas']['FalloffResponseDto'];
         };
       };
-      /** @description The body is not JSON. */
+      /** @description The body is not valid JSON. */
       400: {
         headers: {
           [name: string]: unknown;
@@ -5045,7 +5728,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description No API key or session, or the key is unknown, revoked or expired. */
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -5054,7 +5737,16 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description The body is larger than 100 kB. */
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
       413: {
         headers: {
           [name: string]: unknown;
@@ -5063,7 +5755,16 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). */
       422: {
         headers: {
           [name: string]: unknown;
@@ -5072,18 +5773,26 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt). */
+      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt and Retry-After). */
       429: {
         headers: {
+          /** @description Calls left in the window and seconds until it refills, e.g. `"key";r=0;t=1`. */
+          RateLimit?: string;
+          /** @description The limit: burst size and window in seconds, e.g. `"key";q=100;w=2`. */
+          'RateLimit-Policy'?: string;
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Temporarily unavailable; retry after Retry-After seconds. */
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
       503: {
         headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -5113,7 +5822,7 @@ export interface operations {
           'application/json': components['schemas']['FlashResponseDto'];
         };
       };
-      /** @description The body is not JSON. */
+      /** @description The body is not valid JSON. */
       400: {
         headers: {
           [name: string]: unknown;
@@ -5122,7 +5831,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description No API key or session, or the key is unknown, revoked or expired. */
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -5131,7 +5840,16 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description The body is larger than 100 kB. */
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
       413: {
         headers: {
           [name: string]: unknown;
@@ -5140,7 +5858,16 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). */
       422: {
         headers: {
           [name: string]: unknown;
@@ -5149,18 +5876,26 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt). */
+      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt and Retry-After). */
       429: {
         headers: {
+          /** @description Calls left in the window and seconds until it refills, e.g. `"key";r=0;t=1`. */
+          RateLimit?: string;
+          /** @description The limit: burst size and window in seconds, e.g. `"key";q=100;w=2`. */
+          'RateLimit-Policy'?: string;
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Temporarily unavailable; retry after Retry-After seconds. */
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
       503: {
         headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -5189,6 +5924,35 @@ export interface operations {
         };
         content: {
           'application/json': components['schemas']['FrameListResponseDto'];
+        };
+      };
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };
@@ -5230,7 +5994,16 @@ export interface operations {
           'application/json': components['schemas']['FrameResponseDto'];
         };
       };
-      /** @description The plan does not include uploads (type …/plan-feature-missing), or the role may not. */
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The plan does not include uploads (type …/plan-feature-missing), or the role may not. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -5266,9 +6039,26 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt). */
+      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt and Retry-After). */
       429: {
         headers: {
+          /** @description Calls left in the window and seconds until it refills, e.g. `"key";r=0;t=1`. */
+          RateLimit?: string;
+          /** @description The limit: burst size and window in seconds, e.g. `"key";q=100;w=2`. */
+          'RateLimit-Policy'?: string;
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -5296,9 +6086,38 @@ export interface operations {
           'application/json': components['schemas']['FrameResponseDto'];
         };
       };
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description No such frame in your organisation. */
       404: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The id is not a UUID; `errors` names it. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -5325,9 +6144,38 @@ export interface operations {
         };
         content?: never;
       };
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description No such frame in your organisation. */
       404: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The id is not a UUID; `errors` names it. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -5371,6 +6219,17 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   createGelKit: {
@@ -5394,6 +6253,15 @@ export interface operations {
           'application/json': components['schemas']['GelKitResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description Not signed in. */
       401: {
         headers: {
@@ -5403,7 +6271,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -5421,9 +6289,38 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
       422: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -5478,6 +6375,17 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   deleteGelKit: {
@@ -5507,7 +6415,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -5519,6 +6427,17 @@ export interface operations {
       /** @description No such item in your organisation; `errors` names the field. */
       404: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -5550,6 +6469,15 @@ export interface operations {
           'application/json': components['schemas']['GelKitResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description Not signed in. */
       401: {
         headers: {
@@ -5559,7 +6487,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -5586,9 +6514,38 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
       422: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -5620,6 +6577,15 @@ export interface operations {
           'application/json': components['schemas']['GelPieceResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description Not signed in. */
       401: {
         headers: {
@@ -5629,7 +6595,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -5656,9 +6622,38 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
       422: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -5695,7 +6690,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -5707,6 +6702,17 @@ export interface operations {
       /** @description No such item in your organisation; `errors` names the field. */
       404: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -5739,6 +6745,15 @@ export interface operations {
           'application/json': components['schemas']['GelPieceResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description Not signed in. */
       401: {
         headers: {
@@ -5748,7 +6763,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -5775,9 +6790,38 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
       422: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -5821,6 +6865,17 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   createLight: {
@@ -5844,6 +6899,15 @@ export interface operations {
           'application/json': components['schemas']['LightResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description Not signed in. */
       401: {
         headers: {
@@ -5853,7 +6917,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -5871,9 +6935,38 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
       422: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -5928,6 +7021,17 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   deleteLight: {
@@ -5957,7 +7061,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -5969,6 +7073,17 @@ export interface operations {
       /** @description No such item in your organisation; `errors` names the field. */
       404: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -6000,6 +7115,15 @@ export interface operations {
           'application/json': components['schemas']['LightResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description Not signed in. */
       401: {
         headers: {
@@ -6009,7 +7133,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -6036,9 +7160,38 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
       422: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -6082,6 +7235,17 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   createModifier: {
@@ -6105,6 +7269,15 @@ export interface operations {
           'application/json': components['schemas']['ModifierResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description Not signed in. */
       401: {
         headers: {
@@ -6114,7 +7287,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -6132,9 +7305,38 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
       422: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -6189,6 +7391,17 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   deleteModifier: {
@@ -6218,7 +7431,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -6230,6 +7443,17 @@ export interface operations {
       /** @description No such item in your organisation; `errors` names the field. */
       404: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -6261,6 +7485,15 @@ export interface operations {
           'application/json': components['schemas']['ModifierResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description Not signed in. */
       401: {
         headers: {
@@ -6270,7 +7503,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -6297,9 +7530,38 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
       422: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -6390,6 +7652,8 @@ export interface operations {
        */
       503: {
         headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -6460,6 +7724,7 @@ export interface operations {
              */
             status?: 'error' | 'shutting_down';
           };
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };
@@ -6485,12 +7750,90 @@ export interface operations {
           'application/json': components['schemas']['MeResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The invitation is invalid, already used, canceled or expired. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description No free seat in the organisation (`limit: "seats"`). */
       409: {
         headers: {
           [name: string]: unknown;
         };
-        content?: never;
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Too many wrong passwords for the invited account; wait for Retry-After. */
+      429: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
       };
     };
   };
@@ -6515,12 +7858,70 @@ export interface operations {
           'application/json': components['schemas']['InvitePreviewResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description Invalid, used, canceled or expired. */
       404: {
         headers: {
           [name: string]: unknown;
         };
-        content?: never;
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
       };
     };
   };
@@ -6543,6 +7944,44 @@ export interface operations {
         };
         content: {
           'application/json': components['schemas']['ApiKeyPageResponseDto'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };
@@ -6568,6 +8007,71 @@ export interface operations {
           'application/json': components['schemas']['ApiKeyCreatedResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   getApiKey: {
@@ -6589,12 +8093,43 @@ export interface operations {
           'application/json': components['schemas']['ApiKeyResponseDto'];
         };
       };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description No such key in your organisation, or not yours to manage. */
       404: {
         headers: {
           [name: string]: unknown;
         };
-        content?: never;
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
       };
     };
   };
@@ -6615,6 +8150,44 @@ export interface operations {
         };
         content: {
           'application/json': components['schemas']['ApiKeyResponseDto'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };
@@ -6642,6 +8215,89 @@ export interface operations {
           'application/json': components['schemas']['ApiKeyCreatedResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A revoked or expired key cannot be rotated; create a new key. */
+      409: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   getMe: {
@@ -6659,6 +8315,26 @@ export interface operations {
         };
         content: {
           'application/json': components['schemas']['MeResponseDto'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };
@@ -6684,6 +8360,71 @@ export interface operations {
           'application/json': components['schemas']['MeResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   requestEmailChange: {
@@ -6705,6 +8446,80 @@ export interface operations {
         };
         content: {
           'application/json': components['schemas']['AcceptedResponseDto'];
+        };
+      };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description An account with the new address already exists; `errors` names newEmail. */
+      409: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };
@@ -6730,6 +8545,80 @@ export interface operations {
           'application/json': components['schemas']['MeResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description You are not a member of that organisation. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   listMyOrganizations: {
@@ -6747,6 +8636,26 @@ export interface operations {
         };
         content: {
           'application/json': components['schemas']['MyOrganizationsResponseDto'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };
@@ -6770,6 +8679,71 @@ export interface operations {
         };
         content?: never;
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   getOrganization: {
@@ -6787,6 +8761,26 @@ export interface operations {
         };
         content: {
           'application/json': components['schemas']['OrganizationResponseDto'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };
@@ -6809,6 +8803,80 @@ export interface operations {
           [name: string]: unknown;
         };
         content?: never;
+      };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Other records still refer to this organisation. */
+      409: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
       };
     };
   };
@@ -6833,6 +8901,71 @@ export interface operations {
           'application/json': components['schemas']['OrganizationResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   transferOwnership: {
@@ -6854,6 +8987,80 @@ export interface operations {
         };
         content?: never;
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such member in this organisation. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   listPlans: {
@@ -6873,6 +9080,17 @@ export interface operations {
           'application/json': components['schemas']['PlanListResponseDto'];
         };
       };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   getCurrentPlan: {
@@ -6890,6 +9108,26 @@ export interface operations {
         };
         content: {
           'application/json': components['schemas']['CurrentPlanResponseDto'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };
@@ -6915,7 +9153,7 @@ export interface operations {
           'application/json': components['schemas']['SetupResponseDto'];
         };
       };
-      /** @description The body is not JSON. */
+      /** @description The body is not valid JSON. */
       400: {
         headers: {
           [name: string]: unknown;
@@ -6924,7 +9162,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description No API key or session, or the key is unknown, revoked or expired. */
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -6933,7 +9171,25 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description The body is larger than 100 kB. */
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A gear id is not one of your organisation's; `errors` names the field. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
       413: {
         headers: {
           [name: string]: unknown;
@@ -6942,7 +9198,16 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). */
       422: {
         headers: {
           [name: string]: unknown;
@@ -6951,18 +9216,26 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt). */
+      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt and Retry-After). */
       429: {
         headers: {
+          /** @description Calls left in the window and seconds until it refills, e.g. `"key";r=0;t=1`. */
+          RateLimit?: string;
+          /** @description The limit: burst size and window in seconds, e.g. `"key";q=100;w=2`. */
+          'RateLimit-Policy'?: string;
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Temporarily unavailable; retry after Retry-After seconds. */
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
       503: {
         headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -7012,6 +9285,26 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   createSetup: {
@@ -7035,6 +9328,15 @@ export interface operations {
           'application/json': components['schemas']['SavedSetupResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description Not signed in. */
       401: {
         headers: {
@@ -7044,7 +9346,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -7071,9 +9373,38 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
       422: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -7113,6 +9444,26 @@ export interface operations {
       /** @description Your role does not allow this. */
       403: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -7167,6 +9518,17 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   deleteSetup: {
@@ -7196,7 +9558,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -7208,6 +9570,17 @@ export interface operations {
       /** @description No such item in your organisation; `errors` names the field. */
       404: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -7239,6 +9612,15 @@ export interface operations {
           'application/json': components['schemas']['SavedSetupResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description Not signed in. */
       401: {
         headers: {
@@ -7248,7 +9630,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -7275,9 +9657,38 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
       422: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -7309,6 +9720,15 @@ export interface operations {
           'application/json': components['schemas']['SavedSetupResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description Not signed in. */
       401: {
         headers: {
@@ -7318,7 +9738,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -7345,9 +9765,38 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
       422: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -7403,6 +9852,17 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   listInvites: {
@@ -7420,6 +9880,35 @@ export interface operations {
         };
         content: {
           'application/json': components['schemas']['InviteListResponseDto'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };
@@ -7445,12 +9934,79 @@ export interface operations {
           'application/json': components['schemas']['InviteResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description Already a member, already invited, or no free seat (`limit: "seats"`: remove a member, cancel an invitation or change plan). */
       409: {
         headers: {
           [name: string]: unknown;
         };
-        content?: never;
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
       };
     };
   };
@@ -7471,6 +10027,44 @@ export interface operations {
         };
         content: {
           'application/json': components['schemas']['InviteResponseDto'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };
@@ -7494,12 +10088,52 @@ export interface operations {
           'application/json': components['schemas']['InviteResponseDto'];
         };
       };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description Already accepted or canceled, or (expired invitations) no free seat. */
       409: {
         headers: {
           [name: string]: unknown;
         };
-        content?: never;
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
       };
     };
   };
@@ -7518,6 +10152,35 @@ export interface operations {
         };
         content: {
           'application/json': components['schemas']['MemberListResponseDto'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };
@@ -7539,12 +10202,52 @@ export interface operations {
         };
         content?: never;
       };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description That would leave the organisation without an owner. */
       409: {
         headers: {
           [name: string]: unknown;
         };
-        content?: never;
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
       };
     };
   };
@@ -7571,12 +10274,88 @@ export interface operations {
           'application/json': components['schemas']['MemberResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description That would leave the organisation without an owner. */
       409: {
         headers: {
           [name: string]: unknown;
         };
-        content?: never;
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
       };
     };
   };
@@ -7601,7 +10380,7 @@ export interface operations {
           'application/json': components['schemas']['TwilightResponseDto'];
         };
       };
-      /** @description The body is not JSON. */
+      /** @description The body is not valid JSON. */
       400: {
         headers: {
           [name: string]: unknown;
@@ -7610,7 +10389,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description No API key or session, or the key is unknown, revoked or expired. */
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -7619,7 +10398,16 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description The body is larger than 100 kB. */
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
       413: {
         headers: {
           [name: string]: unknown;
@@ -7628,7 +10416,16 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). */
       422: {
         headers: {
           [name: string]: unknown;
@@ -7637,18 +10434,26 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt). */
+      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt and Retry-After). */
       429: {
         headers: {
+          /** @description Calls left in the window and seconds until it refills, e.g. `"key";r=0;t=1`. */
+          RateLimit?: string;
+          /** @description The limit: burst size and window in seconds, e.g. `"key";q=100;w=2`. */
+          'RateLimit-Policy'?: string;
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Temporarily unavailable; retry after Retry-After seconds. */
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
       503: {
         headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -7699,6 +10504,44 @@ export interface operations {
           'application/json': components['schemas']['UsageEventPageResponseDto'];
         };
       };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   exportUsageEvents: {
@@ -7744,6 +10587,44 @@ export interface operations {
           'text/csv': string;
         };
       };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   getUsageSummary: {
@@ -7784,6 +10665,44 @@ export interface operations {
           'application/json': components['schemas']['UsageSummaryResponseDto'];
         };
       };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   getWhoAmI: {
@@ -7801,6 +10720,26 @@ export interface operations {
         };
         content: {
           'application/json': components['schemas']['WhoAmIResponseDto'];
+        };
+      };
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };

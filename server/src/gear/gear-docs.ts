@@ -1,13 +1,8 @@
 // Documented problem responses shared by the gear and setups routes.
 import { applyDecorators } from '@nestjs/common';
-import { ApiResponse } from '@nestjs/swagger';
+import { problem } from '../common/decorators/problem-responses.js';
 
-export const problem = (status: number, description: string) =>
-  ApiResponse({
-    status,
-    description,
-    content: { 'application/problem+json': { schema: { $ref: '#/components/schemas/Problem' } } },
-  });
+export { problem };
 
 /** 401/403 for every management route; 404 when `withId`; 422 (+409) on writes. */
 export function GearProblems(opts: { withId?: boolean; write?: boolean } = {}) {
