@@ -87,7 +87,12 @@ describe('documented refusals (problem+json) of every operation', () => {
           missing.push(`${method} ${path} 403 without the CSRF refusal`);
         }
       }
-      if (rule.kind !== 'public' && rule.roles.length < 4) want.push('403');
+      if (rule.kind !== 'public' && rule.roles.length < 4) {
+        want.push('403');
+        if (!op.responses['403']?.description?.includes('Your role does not allow this.')) {
+          missing.push(`${method} ${path} 403 without the role refusal`);
+        }
+      }
       for (const s of want) {
         if (!op.responses[s]) missing.push(`${method.toUpperCase()} ${path} ${s}`);
       }
@@ -171,7 +176,9 @@ describe('documented refusals (problem+json) of every operation', () => {
       '503',
     ]);
     expect(post['409']!.description).toBe('The name is taken.');
-    expect(post['403']!.description).toMatch(/^Owners only\. .*CSRF/);
+    expect(post['403']!.description).toMatch(
+      /^Owners only\. Your role does not allow this\. .*CSRF/,
+    );
     expect(post['201']!.content).toBeUndefined();
   });
 });

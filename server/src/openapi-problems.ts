@@ -63,12 +63,23 @@ interface DocOperation {
 const UNSAFE = new Set(['post', 'put', 'patch', 'delete']);
 const CSRF =
   'A write carrying the session cookie from a foreign Origin is refused (CSRF protection).';
+const ROLE = 'Your role does not allow this.';
 
 const UNAUTHENTICATED: Record<Exclude<AccessRule['kind'], 'public'>, string> = {
   session: 'Not signed in: this route takes a console session (API keys cannot use it).',
   'api-key-or-session':
     'No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer).',
 };
+
+/** Why the access rule or the CSRF check may refuse the operation (403). */
+function forbiddenReasons(method: string, rule: AccessRule | undefined): string[] {
+  const out: string[] = [];
+  if (rule && rule.kind !== 'public' && ROLES.some((r) => !rule.roles.includes(r))) {
+    out.push(ROLE);
+  }
+  if (UNSAFE.has(method)) out.push(CSRF);
+  return out;
+}
 
 /** The standard refusals of one operation, in status order. */
 function standardProblems(
@@ -81,11 +92,7 @@ function standardProblems(
   const where = (kind: string) => (op.parameters ?? []).some((p) => p.in === kind);
   if (json) out.push([400, 'The body is not valid JSON.']);
   if (rule && rule.kind !== 'public') out.push([401, UNAUTHENTICATED[rule.kind]]);
-  const forbidden: string[] = [];
-  if (rule && rule.kind !== 'public' && ROLES.some((r) => !rule.roles.includes(r))) {
-    forbidden.push('Your role does not allow this.');
-  }
-  if (UNSAFE.has(method)) forbidden.push(CSRF);
+  const forbidden = forbiddenReasons(method, rule);
   if (forbidden.length) out.push([403, forbidden.join(' ')]);
   if (where('path')) out.push([404, 'No such item in your organisation.']);
   if (json) {
@@ -109,10 +116,13 @@ export function documentStandardProblems(doc: OpenAPIObject, rules: Map<string, 
       for (const [status, description] of standardProblems(method, op, rule)) {
         op.responses[String(status)] ??= { description };
       }
-      // A route's own 403 (a plan feature, an owner-only change) does not end the CSRF refusal.
+      // A route's own 403 (a plan limit, an owner-only change) adds to the role and CSRF ones.
       const forbidden = op.responses['403'];
-      if (UNSAFE.has(method) && forbidden && !forbidden.description?.includes('CSRF')) {
-        forbidden.description = `${forbidden.description ?? ''} ${CSRF}`.trim();
+      if (forbidden) {
+        for (const reason of forbiddenReasons(method, rule)) {
+          if (forbidden.description?.includes(reason)) continue;
+          forbidden.description = `${forbidden.description ?? ''} ${reason}`.trim();
+        }
       }
       for (const [status, res] of Object.entries(op.responses)) {
         if (Number(status) < 400) continue;

@@ -6003,7 +6003,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description The plan does not include uploads (type …/plan-feature-missing), or the role may not. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      /** @description The plan does not include uploads (type …/plan-feature-missing). A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -6201,17 +6201,8 @@ export interface operations {
           'application/json': components['schemas']['GelKitListResponseDto'];
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/problem+json': components['schemas']['Problem'];
-        };
-      };
-      /** @description Your role does not allow this. */
-      403: {
         headers: {
           [name: string]: unknown;
         };
@@ -6262,7 +6253,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -6348,17 +6339,8 @@ export interface operations {
           'application/json': components['schemas']['GelKitResponseDto'];
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/problem+json': components['schemas']['Problem'];
-        };
-      };
-      /** @description Your role does not allow this. */
-      403: {
         headers: {
           [name: string]: unknown;
         };
@@ -6406,7 +6388,7 @@ export interface operations {
         };
         content?: never;
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -6478,7 +6460,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -6586,7 +6568,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -6681,7 +6663,7 @@ export interface operations {
         };
         content?: never;
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -6754,7 +6736,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -6847,17 +6829,8 @@ export interface operations {
           'application/json': components['schemas']['LightListResponseDto'];
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/problem+json': components['schemas']['Problem'];
-        };
-      };
-      /** @description Your role does not allow this. */
-      403: {
         headers: {
           [name: string]: unknown;
         };
@@ -6908,7 +6881,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -6994,17 +6967,8 @@ export interface operations {
           'application/json': components['schemas']['LightResponseDto'];
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/problem+json': components['schemas']['Problem'];
-        };
-      };
-      /** @description Your role does not allow this. */
-      403: {
         headers: {
           [name: string]: unknown;
         };
@@ -7052,7 +7016,7 @@ export interface operations {
         };
         content?: never;
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -7124,7 +7088,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -7217,17 +7181,8 @@ export interface operations {
           'application/json': components['schemas']['ModifierListResponseDto'];
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/problem+json': components['schemas']['Problem'];
-        };
-      };
-      /** @description Your role does not allow this. */
-      403: {
         headers: {
           [name: string]: unknown;
         };
@@ -7278,7 +7233,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -7364,17 +7319,8 @@ export interface operations {
           'application/json': components['schemas']['ModifierResponseDto'];
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/problem+json': components['schemas']['Problem'];
-        };
-      };
-      /** @description Your role does not allow this. */
-      403: {
         headers: {
           [name: string]: unknown;
         };
@@ -7422,7 +7368,7 @@ export interface operations {
         };
         content?: never;
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -7494,7 +7440,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -9267,17 +9213,8 @@ export interface operations {
           'application/json': components['schemas']['SavedSetupPageResponseDto'];
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/problem+json': components['schemas']['Problem'];
-        };
-      };
-      /** @description Your role does not allow this. */
-      403: {
         headers: {
           [name: string]: unknown;
         };
@@ -9337,7 +9274,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -9346,7 +9283,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      /** @description The plan’s saved-setups limit is reached (`limit: "savedSetups"`, `limitValue`, `count`, `planCode`). Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -9432,17 +9369,8 @@ export interface operations {
           'application/json': components['schemas']['UpcomingSetupsResponseDto'];
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/problem+json': components['schemas']['Problem'];
-        };
-      };
-      /** @description Your role does not allow this. */
-      403: {
         headers: {
           [name: string]: unknown;
         };
@@ -9491,17 +9419,8 @@ export interface operations {
           'application/json': components['schemas']['SavedSetupResponseDto'];
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/problem+json': components['schemas']['Problem'];
-        };
-      };
-      /** @description Your role does not allow this. */
-      403: {
         headers: {
           [name: string]: unknown;
         };
@@ -9549,7 +9468,7 @@ export interface operations {
         };
         content?: never;
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -9621,7 +9540,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -9729,7 +9648,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -9738,7 +9657,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      /** @description The plan’s saved-setups limit is reached (`limit: "savedSetups"`, `limitValue`, `count`, `planCode`). Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -9825,17 +9744,8 @@ export interface operations {
           'text/html': string;
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/problem+json': components['schemas']['Problem'];
-        };
-      };
-      /** @description Your role does not allow this. */
-      403: {
         headers: {
           [name: string]: unknown;
         };

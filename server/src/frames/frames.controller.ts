@@ -80,10 +80,7 @@ export class FramesController {
     },
   })
   @ApiResponse({ status: 201, type: FrameResponseDto })
-  @problem(
-    403,
-    'The plan does not include uploads (type …/plan-feature-missing), or the role may not.',
-  )
+  @problem(403, 'The plan does not include uploads (type …/plan-feature-missing).')
   @problem(413, 'The file is larger than 25 MB.')
   @meteredTooManyRequests()
   @problem(415, 'Not multipart, or the file is not JPEG or PNG (HEIC is not accepted).')

@@ -4,11 +4,12 @@ import { problem } from '../common/decorators/problem-responses.js';
 
 export { problem };
 
-/** 401/403 for every management route; 404 when `withId`; 422 (+409) on writes. */
+/**
+ * 404 when `withId`; 422 (+409) on writes. 401, and 403 where the role or the CSRF check can
+ * refuse, come from the access rule (src/openapi-problems.ts).
+ */
 export function GearProblems(opts: { withId?: boolean; write?: boolean } = {}) {
   return applyDecorators(
-    problem(401, 'Not signed in.'),
-    problem(403, 'Your role does not allow this.'),
     ...(opts.withId
       ? [problem(404, 'No such item in your organisation; `errors` names the field.')]
       : []),
