@@ -1,8 +1,10 @@
-// The OpenAPI document: deterministic (sorted keys, operationId = handler name).
+// The OpenAPI document: deterministic (sorted keys, operationId = handler name), with the
+// refusals every operation can answer (src/openapi-problems.ts).
 import type { INestApplication } from '@nestjs/common';
 import { DocumentBuilder, OpenAPIObject, SwaggerModule } from '@nestjs/swagger';
 import type { JsonSchema } from './compute/validation/json-schema.js';
 import { SCHEMA_DTOS, SCHEMA_REFS } from './compute/validation/schema-dto.js';
+import { accessRulesByHandler, documentStandardProblems } from './openapi-problems.js';
 
 const PROBLEM_SCHEMA = {
   type: 'object',
@@ -116,6 +118,7 @@ export function buildOpenApiDocument(app: INestApplication): OpenAPIObject {
   doc.components = doc.components ?? {};
   doc.components.schemas = { ...(doc.components.schemas ?? {}), Problem: PROBLEM_SCHEMA };
   restoreNestedRequired(doc);
+  documentStandardProblems(doc, accessRulesByHandler(app));
   for (const [name, schema] of SCHEMA_DTOS) {
     referToDtos(schema, doc.components.schemas[name] as DocSchema | undefined);
   }

@@ -1204,12 +1204,12 @@ export interface components {
     };
     BacklightRequestDto: {
       /**
-       * @description Full beam angle of the grid or reflector, degrees (1..180); default 100.
+       * @description Full beam angle of the grid or reflector, degrees; default 100. Range: 1 to 180.
        * @example 40
        */
       beamAngleDeg?: number;
       /**
-       * @description Horizontal distance of the light behind the subject (0.1..50 m, 0.1..164 ft).
+       * @description Horizontal distance of the light behind the subject, in distanceUnit; in metres at most 50 (164 is the limit in feet). Range: 0.1 to 164.
        * @example 3
        */
       distanceBehind: number;
@@ -1220,17 +1220,17 @@ export interface components {
        */
       distanceUnit?: 'm' | 'ft';
       /**
-       * @description Height of the subject’s head; default 1.6 m.
+       * @description Height of the subject’s head, in distanceUnit; in metres at most 10 (33 is the limit in feet); default 1.6 m. Range: 0.1 to 33.
        * @example 1.7
        */
       headHeight?: number;
       /**
-       * @description Height of the light above the ground, in distanceUnit (0..10 m).
+       * @description Height of the light above the ground, in distanceUnit; in metres at most 10 (33 is the limit in feet). Range: 0 to 33.
        * @example 2
        */
       lightHeight: number;
       /**
-       * @description Beam axis elevation, degrees (+ up, − down; -90..90); default aimed at the head.
+       * @description Beam axis elevation, degrees (+ up, − down); default aimed at the head. Range: -90 to 90.
        * @example -5
        */
       tiltDeg?: number;
@@ -1283,17 +1283,17 @@ export interface components {
     };
     BalanceRequestDto: {
       /**
-       * @description Camera white balance, kelvin (1500..20000).
+       * @description Camera white balance, kelvin. Range: 1500 to 20000.
        * @example 3800
        */
       cameraKelvin: number;
       /**
-       * @description Camera tint, CC units (-60..60; + = toward magenta); default 0.
+       * @description Camera tint, CC units (+ = toward magenta); default 0. Range: -60 to 60.
        * @example 0
        */
       cameraTint?: number;
       /**
-       * @description Bare flash colour temperature, kelvin (2500..10000); default 5500.
+       * @description Bare flash colour temperature, kelvin; default 5500. Range: 2500 to 10000.
        * @example 5600
        */
       flashKelvin?: number;
@@ -1305,17 +1305,17 @@ export interface components {
       /** @description The gels to choose from; default: the built-in catalogue of common CTO/CTB cuts. */
       gels?: {
         /**
-         * @description Green shift, CC units (-60..60; + = plus-green); default 0.
+         * @description Green shift, CC units (+ = plus-green); default 0. Range: -60 to 60.
          * @example 0
          */
         greenShift?: number;
         /**
-         * @description Light the gel absorbs, stops (0..6).
+         * @description Light the gel absorbs, stops. Range: 0 to 6.
          * @example 0.33
          */
         lossStops: number;
         /**
-         * @description Mired shift of the gel (-400..400; + = warmer, CTO; − = cooler, CTB).
+         * @description Mired shift of the gel (+ = warmer, CTO; − = cooler, CTB). Range: -400 to 400.
          * @example 81
          */
         miredShift: number;
@@ -1326,17 +1326,17 @@ export interface components {
         name: string;
       }[];
       /**
-       * @description Most gels in one stack (0..4); default 3.
+       * @description Most gels in one stack; default 3. Whole number, 0 to 4.
        * @example 2
        */
       maxGels?: number;
       /**
-       * @description Mireds of error accepted to use fewer gels (0..50); default 0 (closest stack). Any stack within this of the required shift is a match; the match with the fewest gels, then the least light loss, is chosen.
+       * @description Mireds of error accepted to use fewer gels; default 0 (closest stack). Any stack within this of the required shift is a match; the match with the fewest gels, then the least light loss, is chosen. Range: 0 to 50.
        * @example 10
        */
       miredTolerance?: number;
       /**
-       * @description Extra warmth wanted on the subject, mireds (-200..200; + = warmer). With the camera white balance it must name real light: 10⁶ / cameraKelvin + offset within 1500..20000 K.
+       * @description Extra warmth wanted on the subject, mireds (+ = warmer). With the camera white balance it must name real light: 10⁶ / cameraKelvin + offset within 1500..20000 K. Range: -200 to 200.
        * @example 10
        */
       targetMiredOffset?: number;
@@ -1765,53 +1765,53 @@ export interface components {
     };
     ExposureRequestDto: {
       /**
-       * @description f-number (0.7..128).
+       * @description f-number. Range: 0.7 to 128.
        * @example 4
        */
       aperture?: number;
-      /** @description Background mode: narrowest f-number when aperture is solved (default 22). */
+      /** @description Background mode: narrowest f-number when aperture is solved, at least apertureMin (default 22, or apertureMin when that is higher). Range: 0.7 to 128. */
       apertureMax?: number;
-      /** @description Background mode: widest f-number when aperture is solved (default 1.4). */
+      /** @description Background mode: widest f-number when aperture is solved (default 1.4). Range: 0.7 to 128. */
       apertureMin?: number;
       /**
-       * @description Background mode: stops brighter (+) or darker (-) than metered, -6..6.
+       * @description Background mode: stops brighter (+) or darker (-) than metered. Range: -6 to 6.
        * @example -1
        */
       biasStops?: number;
       /**
-       * @description Scene or incident exposure value at ISO 100, EV (-10..25).
+       * @description Scene or incident exposure value at ISO 100, EV. Range: -10 to 25.
        * @example 9
        */
       ev100?: number;
       /**
-       * @description Background mode: flash sync speed, s (e.g. 0.005 for 1/200).
+       * @description Background mode: flash sync speed, s (e.g. 0.005 for 1/200). Range: 1/16000 to 1.
        * @example 0.005
        */
       flashSyncSeconds?: number;
       /**
-       * @description ISO speed (3..409600).
+       * @description ISO speed. Range: 3 to 409600.
        * @example 400
        */
       iso?: number;
       /**
-       * @description Background mode: highest ISO the solver may use (default 6400).
+       * @description Background mode: highest ISO the solver may use, at least isoMin (default 6400, or isoMin when that is higher). Range: 3 to 409600.
        * @example 3200
        */
       isoMax?: number;
       /**
-       * @description Background mode: lowest ISO the solver may use (default 100).
+       * @description Background mode: lowest ISO the solver may use (default 100). Range: 3 to 409600.
        * @example 100
        */
       isoMin?: number;
       /** @description Background mode: estimate the ambient EV100 here (USNO Circular 171 model). */
       place?: {
         /**
-         * @description Degrees, -90..90.
+         * @description Degrees, north positive. Range: -90 to 90.
          * @example 51.5
          */
         latitude: number;
         /**
-         * @description Degrees, -180..180.
+         * @description Degrees, east positive. Range: -180 to 180.
          * @example -0.1
          */
         longitude: number;
@@ -1828,13 +1828,13 @@ export interface components {
         time: string;
       };
       /**
-       * @description Shutter time, seconds (1/64000..3600); plain mode only.
+       * @description Shutter time, seconds; plain mode only. Range: 1/64000 to 3600.
        * @example 0.0125
        */
       shutterSeconds?: number;
-      /** @description Background mode: slowest hand-held shutter, s (default 1/60). */
+      /** @description Background mode: slowest hand-held shutter, s (default 1/60). Range: 1/8000 to 30. */
       slowestHandheldSeconds?: number;
-      /** @description Background mode: slowest tripod shutter, s (default 30). */
+      /** @description Background mode: slowest tripod shutter, s (default 30). Range: 1/8000 to 3600. */
       slowestTripodSeconds?: number;
       /**
        * @description Background mode: camera support.
@@ -1931,7 +1931,7 @@ export interface components {
     };
     FalloffRequestDto: {
       /**
-       * @description Light-to-background distance in distanceUnit.
+       * @description Light-to-background distance in distanceUnit. Range: 0.05 to 1000.
        * @example 9
        */
       backgroundDistance?: number;
@@ -1942,27 +1942,27 @@ export interface components {
        */
       distanceUnit?: 'm' | 'ft';
       /**
-       * @description Start of the chart series, in distanceUnit; default subjectDistance / 2.
+       * @description Start of the chart series, in distanceUnit; default subjectDistance / 2. Range: 0.05 to 1000.
        * @example 1
        */
       from?: number;
       /**
-       * @description Light-to-nearest-ground-in-frame distance in distanceUnit.
+       * @description Light-to-nearest-ground-in-frame distance in distanceUnit. Range: 0.05 to 1000.
        * @example 2.2
        */
       groundDistance?: number;
       /**
-       * @description Series points (2..500); default 40, log-spaced.
+       * @description Series points; default 40, log-spaced. Whole number, 2 to 500.
        * @example 40
        */
       points?: number;
       /**
-       * @description Light-to-subject distance in distanceUnit (0.05..1000).
+       * @description Light-to-subject distance in distanceUnit. Range: 0.05 to 1000.
        * @example 2.5
        */
       subjectDistance: number;
       /**
-       * @description End of the chart series, in distanceUnit; default 3 × the farthest mark.
+       * @description End of the chart series, in distanceUnit, at least from; default 3 × the farthest mark, at most 1000. Range: 0.05 to 1000.
        * @example 20
        */
       to?: number;
@@ -2007,12 +2007,12 @@ export interface components {
     };
     FlashRequestDto: {
       /**
-       * @description f-number (0.7..128).
+       * @description f-number. Range: 0.7 to 128.
        * @example 5.6
        */
       aperture: number;
       /**
-       * @description Light-to-subject distance in distanceUnit (0.05..1000).
+       * @description Light-to-subject distance in distanceUnit. Range: 0.05 to 1000.
        * @example 3
        */
       distance: number;
@@ -2023,17 +2023,17 @@ export interface components {
        */
       distanceUnit?: 'm' | 'ft';
       /**
-       * @description Exposure this light should give on its own, stops relative to a correct exposure at aperture and iso (-6..6); default 0. -1 when the ambient already gives half the exposure on the subject; +1 for a rim one stop brighter.
+       * @description Exposure this light should give on its own, stops relative to a correct exposure at aperture and iso; default 0. -1 when the ambient already gives half the exposure on the subject; +1 for a rim one stop brighter. Range: -6 to 6.
        * @example 0
        */
       exposureStops?: number;
       /**
-       * @description Light lost in gels, stops (0..8).
+       * @description Light lost in gels, stops. Range: 0 to 8.
        * @example 0.67
        */
       gelLossStops?: number;
       /**
-       * @description Guide number at ISO 100 and full power, in guideNumberUnit (1..500).
+       * @description Guide number at ISO 100 and full power, in guideNumberUnit. Range: 1 to 500.
        * @example 60
        */
       guideNumber: number;
@@ -2044,17 +2044,17 @@ export interface components {
        */
       guideNumberUnit?: 'm' | 'ft';
       /**
-       * @description ISO speed (3..409600); default 100.
+       * @description ISO speed; default 100. Range: 3 to 409600.
        * @example 200
        */
       iso?: number;
       /**
-       * @description Lowest power the light can go to, as a fraction of full; default 1/256.
+       * @description Lowest power the light can go to, as a fraction of full; default 1/256. Range: 1/4096 to 1.
        * @example 0.00390625
        */
       minPowerFraction?: number;
       /**
-       * @description Light lost in the modifier, stops (0..8).
+       * @description Light lost in the modifier, stops. Range: 0 to 8.
        * @example 1.5
        */
       modifierLossStops?: number;
@@ -2828,44 +2828,44 @@ export interface components {
     };
     SavedSetupInputsDto: {
       /**
-       * @description Key-light-to-background distance, in key.distanceUnit.
+       * @description Key-light-to-background distance, in key.distanceUnit. Range: 0.05 to 1000.
        * @example 12
        */
       backgroundDistance?: number;
       /** @description Camera limits and taste. */
       camera?: {
         /**
-         * @description Working f-number; default 5.6.
+         * @description Working f-number; default 5.6. Range: 0.7 to 128.
          * @example 4
          */
         aperture?: number;
         /**
-         * @description Background bias, stops (taste); default −1.
+         * @description Background bias, stops (taste); default −1. Range: -6 to 6.
          * @example -1
          */
         biasStops?: number;
         /**
-         * @description Flash sync speed, seconds; default 1/200.
+         * @description Flash sync speed, seconds; default 1/200. Range: 1/16000 to 1.
          * @example 0.005
          */
         flashSyncSeconds?: number;
         /**
-         * @description ISO ceiling; default 6400.
+         * @description ISO ceiling, at least isoMin; default 6400 (or isoMin when that is higher). Range: 3 to 409600.
          * @example 3200
          */
         isoMax?: number;
         /**
-         * @description Lowest ISO to use.
+         * @description Lowest ISO to use; default 100. Range: 3 to 409600.
          * @example 100
          */
         isoMin?: number;
         /**
-         * @description Camera white balance, kelvin; default 3800.
+         * @description Camera white balance, kelvin; default 3800. Range: 1500 to 20000.
          * @example 3800
          */
         kelvin?: number;
         /**
-         * @description Slowest handheld shutter time, seconds.
+         * @description Slowest handheld shutter time, seconds; default 1/60. Range: 1/8000 to 30.
          * @example 0.0167
          */
         slowestHandheldSeconds?: number;
@@ -2876,7 +2876,7 @@ export interface components {
          */
         support?: 'handheld' | 'tripod';
         /**
-         * @description Camera tint, CC units.
+         * @description Camera tint, CC units (+ = toward magenta); default 0. Range: -60 to 60.
          * @example 0
          */
         tint?: number;
@@ -2904,7 +2904,7 @@ export interface components {
          */
         nearWater?: boolean;
         /**
-         * @description Wind speed, km/h.
+         * @description Wind speed, km/h. Range: 0 to 400.
          * @example 15
          */
         windKmh?: number;
@@ -2916,12 +2916,12 @@ export interface components {
        */
       date: string;
       /**
-       * @description Observer height above the visible horizon, metres (0..9000).
+       * @description Observer height above the visible horizon, metres. Range: 0 to 9000.
        * @example 0
        */
       elevation?: number;
       /**
-       * @description Bare flash colour temperature, kelvin (2500..10000); default 5500.
+       * @description Bare flash colour temperature, kelvin; default 5500. Range: 2500 to 10000.
        * @example 5600
        */
       flashKelvin?: number;
@@ -2933,17 +2933,17 @@ export interface components {
       /** @description The gels to choose from; default: the built-in catalogue of common CTO/CTB cuts. */
       gels?: {
         /**
-         * @description Green shift, CC units (-60..60; + = plus-green); default 0.
+         * @description Green shift, CC units (+ = plus-green); default 0. Range: -60 to 60.
          * @example 0
          */
         greenShift?: number;
         /**
-         * @description Light the gel absorbs, stops (0..6).
+         * @description Light the gel absorbs, stops. Range: 0 to 6.
          * @example 0.33
          */
         lossStops: number;
         /**
-         * @description Mired shift of the gel (-400..400; + = warmer, CTO; − = cooler, CTB).
+         * @description Mired shift of the gel (+ = warmer, CTO; − = cooler, CTB). Range: -400 to 400.
          * @example 81
          */
         miredShift: number;
@@ -2956,12 +2956,12 @@ export interface components {
       /** @description The key light. Name a light and modifier of your gear by id, or give the values. */
       key: {
         /**
-         * @description Angle of the key from the camera axis, degrees; default 60.
+         * @description Angle of the key from the camera axis, degrees; default 60. Range: 0 to 180.
          * @example 45
          */
         angleFromCameraDeg?: number;
         /**
-         * @description Light-to-subject distance in distanceUnit.
+         * @description Light-to-subject distance in distanceUnit. Range: 0.1 to 160.
          * @example 2.5
          */
         distance: number;
@@ -2972,7 +2972,7 @@ export interface components {
          */
         distanceUnit?: 'm' | 'ft';
         /**
-         * @description Guide number at ISO 100, full power, in guideNumberUnit.
+         * @description Guide number at ISO 100, full power, in guideNumberUnit. Range: 1 to 500.
          * @example 60
          */
         guideNumber?: number;
@@ -2995,45 +2995,45 @@ export interface components {
          */
         modifierId?: string;
         /**
-         * @description Light lost in the modifier, stops.
+         * @description Light lost in the modifier, stops. Range: 0 to 8.
          * @example 1.3
          */
         modifierLossStops?: number;
         /**
-         * @description Modifier size in distanceUnit.
+         * @description Modifier size in distanceUnit. Range: 0.01 to 33.
          * @example 0.9
          */
         modifierSize?: number;
       };
       /**
-       * @description Degrees, north positive (-90..90).
+       * @description Degrees, north positive. Range: -90 to 90.
        * @example 51.507
        */
       latitude: number;
       /**
-       * @description Degrees, east positive (-180..180).
+       * @description Degrees, east positive. Range: -180 to 180.
        * @example -0.1
        */
       longitude: number;
       /**
-       * @description Most gels in one stack (0..4); default 3.
+       * @description Most gels in one stack; default 3. Whole number, 0 to 4.
        * @example 2
        */
       maxGels?: number;
       /**
-       * @description Mireds of error accepted to use fewer gels (0..50); default 0 (closest stack). Any stack within this of the required shift is a match; the match with the fewest gels, then the least light loss, is chosen.
+       * @description Mireds of error accepted to use fewer gels; default 0 (closest stack). Any stack within this of the required shift is a match; the match with the fewest gels, then the least light loss, is chosen. Range: 0 to 50.
        * @example 10
        */
       miredTolerance?: number;
       /** @description An optional rim light behind the subject. Name a light and modifier of your gear by id, or give the values. */
       rim?: {
         /**
-         * @description Full beam angle, degrees.
+         * @description Full beam angle, degrees; default 100. Range: 1 to 180.
          * @example 40
          */
         beamAngleDeg?: number;
         /**
-         * @description Horizontal distance behind the subject.
+         * @description Horizontal distance behind the subject, in distanceUnit; in metres at most 50 (164 is the limit in feet). Range: 0.1 to 164.
          * @example 3
          */
         distanceBehind: number;
@@ -3049,7 +3049,7 @@ export interface components {
          */
         gelled?: boolean;
         /**
-         * @description Guide number at ISO 100, full power.
+         * @description Guide number at ISO 100, full power, in guideNumberUnit. Range: 1 to 500.
          * @example 45
          */
         guideNumber?: number;
@@ -3060,7 +3060,7 @@ export interface components {
          */
         guideNumberUnit?: 'm' | 'ft';
         /**
-         * @description Height of the light above the ground.
+         * @description Height of the light above the ground, in distanceUnit; in metres at most 10 (33 is the limit in feet). Range: 0 to 33.
          * @example 2
          */
         lightHeight: number;
@@ -3075,12 +3075,12 @@ export interface components {
          */
         modifierId?: string;
         /**
-         * @description Light lost in the modifier, stops.
+         * @description Light lost in the modifier, stops. Range: 0 to 8.
          * @example 0
          */
         modifierLossStops?: number;
         /**
-         * @description Rim brighter than the lit side (key plus ambient, as a meter reads it), stops; default 1.
+         * @description Rim brighter than the lit side (key plus ambient, as a meter reads it), stops; default 1. Range: -6 to 6.
          * @example 1
          */
         rimOverKeyStops?: number;
@@ -3092,17 +3092,17 @@ export interface components {
        */
       sky?: 'clear' | 'partly-cloudy' | 'overcast';
       /**
-       * @description Ambient timeline step, minutes (0.5..60); default 2.
+       * @description Ambient timeline step, minutes; default 2. Range: 0.5 to 60.
        * @example 5
        */
       stepMinutes?: number;
       /**
-       * @description How many suggested minutes (1..10); default 3.
+       * @description How many suggested minutes; default 3. Whole number, 1 to 10.
        * @example 3
        */
       suggestions?: number;
       /**
-       * @description Extra warmth wanted on the subject, mireds (-200..200; + = warmer). With the camera white balance it must name real light: 10⁶ / cameraKelvin + offset within 1500..20000 K.
+       * @description Extra warmth wanted on the subject, mireds (+ = warmer). With the camera white balance it must name real light: 10⁶ / cameraKelvin + offset within 1500..20000 K. Range: -200 to 200.
        * @example 10
        */
       targetMiredOffset?: number;
@@ -3201,44 +3201,44 @@ export interface components {
     };
     SetupRequestDto: {
       /**
-       * @description Key-light-to-background distance, in key.distanceUnit.
+       * @description Key-light-to-background distance, in key.distanceUnit. Range: 0.05 to 1000.
        * @example 12
        */
       backgroundDistance?: number;
       /** @description Camera limits and taste. */
       camera?: {
         /**
-         * @description Working f-number; default 5.6.
+         * @description Working f-number; default 5.6. Range: 0.7 to 128.
          * @example 4
          */
         aperture?: number;
         /**
-         * @description Background bias, stops (taste); default −1.
+         * @description Background bias, stops (taste); default −1. Range: -6 to 6.
          * @example -1
          */
         biasStops?: number;
         /**
-         * @description Flash sync speed, seconds; default 1/200.
+         * @description Flash sync speed, seconds; default 1/200. Range: 1/16000 to 1.
          * @example 0.005
          */
         flashSyncSeconds?: number;
         /**
-         * @description ISO ceiling; default 6400.
+         * @description ISO ceiling, at least isoMin; default 6400 (or isoMin when that is higher). Range: 3 to 409600.
          * @example 3200
          */
         isoMax?: number;
         /**
-         * @description Lowest ISO to use.
+         * @description Lowest ISO to use; default 100. Range: 3 to 409600.
          * @example 100
          */
         isoMin?: number;
         /**
-         * @description Camera white balance, kelvin; default 3800.
+         * @description Camera white balance, kelvin; default 3800. Range: 1500 to 20000.
          * @example 3800
          */
         kelvin?: number;
         /**
-         * @description Slowest handheld shutter time, seconds.
+         * @description Slowest handheld shutter time, seconds; default 1/60. Range: 1/8000 to 30.
          * @example 0.0167
          */
         slowestHandheldSeconds?: number;
@@ -3249,7 +3249,7 @@ export interface components {
          */
         support?: 'handheld' | 'tripod';
         /**
-         * @description Camera tint, CC units.
+         * @description Camera tint, CC units (+ = toward magenta); default 0. Range: -60 to 60.
          * @example 0
          */
         tint?: number;
@@ -3277,7 +3277,7 @@ export interface components {
          */
         nearWater?: boolean;
         /**
-         * @description Wind speed, km/h.
+         * @description Wind speed, km/h. Range: 0 to 400.
          * @example 15
          */
         windKmh?: number;
@@ -3289,12 +3289,12 @@ export interface components {
        */
       date: string;
       /**
-       * @description Observer height above the visible horizon, metres (0..9000).
+       * @description Observer height above the visible horizon, metres. Range: 0 to 9000.
        * @example 0
        */
       elevation?: number;
       /**
-       * @description Bare flash colour temperature, kelvin (2500..10000); default 5500.
+       * @description Bare flash colour temperature, kelvin; default 5500. Range: 2500 to 10000.
        * @example 5600
        */
       flashKelvin?: number;
@@ -3306,17 +3306,17 @@ export interface components {
       /** @description The gels to choose from; default: the built-in catalogue of common CTO/CTB cuts. */
       gels?: {
         /**
-         * @description Green shift, CC units (-60..60; + = plus-green); default 0.
+         * @description Green shift, CC units (+ = plus-green); default 0. Range: -60 to 60.
          * @example 0
          */
         greenShift?: number;
         /**
-         * @description Light the gel absorbs, stops (0..6).
+         * @description Light the gel absorbs, stops. Range: 0 to 6.
          * @example 0.33
          */
         lossStops: number;
         /**
-         * @description Mired shift of the gel (-400..400; + = warmer, CTO; − = cooler, CTB).
+         * @description Mired shift of the gel (+ = warmer, CTO; − = cooler, CTB). Range: -400 to 400.
          * @example 81
          */
         miredShift: number;
@@ -3329,12 +3329,12 @@ export interface components {
       /** @description The key light. Name a light and modifier of your gear by id, or give the values. */
       key: {
         /**
-         * @description Angle of the key from the camera axis, degrees; default 60.
+         * @description Angle of the key from the camera axis, degrees; default 60. Range: 0 to 180.
          * @example 45
          */
         angleFromCameraDeg?: number;
         /**
-         * @description Light-to-subject distance in distanceUnit.
+         * @description Light-to-subject distance in distanceUnit. Range: 0.1 to 160.
          * @example 2.5
          */
         distance: number;
@@ -3345,7 +3345,7 @@ export interface components {
          */
         distanceUnit?: 'm' | 'ft';
         /**
-         * @description Guide number at ISO 100, full power, in guideNumberUnit.
+         * @description Guide number at ISO 100, full power, in guideNumberUnit. Range: 1 to 500.
          * @example 60
          */
         guideNumber?: number;
@@ -3368,45 +3368,45 @@ export interface components {
          */
         modifierId?: string;
         /**
-         * @description Light lost in the modifier, stops.
+         * @description Light lost in the modifier, stops. Range: 0 to 8.
          * @example 1.3
          */
         modifierLossStops?: number;
         /**
-         * @description Modifier size in distanceUnit.
+         * @description Modifier size in distanceUnit. Range: 0.01 to 33.
          * @example 0.9
          */
         modifierSize?: number;
       };
       /**
-       * @description Degrees, north positive (-90..90).
+       * @description Degrees, north positive. Range: -90 to 90.
        * @example 51.507
        */
       latitude: number;
       /**
-       * @description Degrees, east positive (-180..180).
+       * @description Degrees, east positive. Range: -180 to 180.
        * @example -0.1
        */
       longitude: number;
       /**
-       * @description Most gels in one stack (0..4); default 3.
+       * @description Most gels in one stack; default 3. Whole number, 0 to 4.
        * @example 2
        */
       maxGels?: number;
       /**
-       * @description Mireds of error accepted to use fewer gels (0..50); default 0 (closest stack). Any stack within this of the required shift is a match; the match with the fewest gels, then the least light loss, is chosen.
+       * @description Mireds of error accepted to use fewer gels; default 0 (closest stack). Any stack within this of the required shift is a match; the match with the fewest gels, then the least light loss, is chosen. Range: 0 to 50.
        * @example 10
        */
       miredTolerance?: number;
       /** @description An optional rim light behind the subject. Name a light and modifier of your gear by id, or give the values. */
       rim?: {
         /**
-         * @description Full beam angle, degrees.
+         * @description Full beam angle, degrees; default 100. Range: 1 to 180.
          * @example 40
          */
         beamAngleDeg?: number;
         /**
-         * @description Horizontal distance behind the subject.
+         * @description Horizontal distance behind the subject, in distanceUnit; in metres at most 50 (164 is the limit in feet). Range: 0.1 to 164.
          * @example 3
          */
         distanceBehind: number;
@@ -3422,7 +3422,7 @@ export interface components {
          */
         gelled?: boolean;
         /**
-         * @description Guide number at ISO 100, full power.
+         * @description Guide number at ISO 100, full power, in guideNumberUnit. Range: 1 to 500.
          * @example 45
          */
         guideNumber?: number;
@@ -3433,7 +3433,7 @@ export interface components {
          */
         guideNumberUnit?: 'm' | 'ft';
         /**
-         * @description Height of the light above the ground.
+         * @description Height of the light above the ground, in distanceUnit; in metres at most 10 (33 is the limit in feet). Range: 0 to 33.
          * @example 2
          */
         lightHeight: number;
@@ -3448,12 +3448,12 @@ export interface components {
          */
         modifierId?: string;
         /**
-         * @description Light lost in the modifier, stops.
+         * @description Light lost in the modifier, stops. Range: 0 to 8.
          * @example 0
          */
         modifierLossStops?: number;
         /**
-         * @description Rim brighter than the lit side (key plus ambient, as a meter reads it), stops; default 1.
+         * @description Rim brighter than the lit side (key plus ambient, as a meter reads it), stops; default 1. Range: -6 to 6.
          * @example 1
          */
         rimOverKeyStops?: number;
@@ -3465,17 +3465,17 @@ export interface components {
        */
       sky?: 'clear' | 'partly-cloudy' | 'overcast';
       /**
-       * @description Ambient timeline step, minutes (0.5..60); default 2.
+       * @description Ambient timeline step, minutes; default 2. Range: 0.5 to 60.
        * @example 5
        */
       stepMinutes?: number;
       /**
-       * @description How many suggested minutes (1..10); default 3.
+       * @description How many suggested minutes; default 3. Whole number, 1 to 10.
        * @example 3
        */
       suggestions?: number;
       /**
-       * @description Extra warmth wanted on the subject, mireds (-200..200; + = warmer). With the camera white balance it must name real light: 10⁶ / cameraKelvin + offset within 1500..20000 K.
+       * @description Extra warmth wanted on the subject, mireds (+ = warmer). With the camera white balance it must name real light: 10⁶ / cameraKelvin + offset within 1500..20000 K. Range: -200 to 200.
        * @example 10
        */
       targetMiredOffset?: number;
@@ -3897,12 +3897,12 @@ export interface components {
       /** @description Blue-hour band; default −4° to −8° (common practice, no standard). */
       blueHour?: {
         /**
-         * @description Lower sun altitude, degrees (-18..20), below upperDeg.
+         * @description Lower sun altitude, degrees, below upperDeg. Range: -18 to 20.
          * @example -4
          */
         lowerDeg: number;
         /**
-         * @description Upper sun altitude, degrees (-18..20).
+         * @description Upper sun altitude, degrees. Range: -18 to 20.
          * @example 6
          */
         upperDeg: number;
@@ -3914,30 +3914,30 @@ export interface components {
        */
       date: string;
       /**
-       * @description Observer height above the visible horizon, metres (0..9000).
+       * @description Observer height above the visible horizon, metres. Range: 0 to 9000.
        * @example 0
        */
       elevation?: number;
       /** @description Golden-hour band; default +6° to −4° (common practice, no standard). */
       goldenHour?: {
         /**
-         * @description Lower sun altitude, degrees (-18..20), below upperDeg.
+         * @description Lower sun altitude, degrees, below upperDeg. Range: -18 to 20.
          * @example -4
          */
         lowerDeg: number;
         /**
-         * @description Upper sun altitude, degrees (-18..20).
+         * @description Upper sun altitude, degrees. Range: -18 to 20.
          * @example 6
          */
         upperDeg: number;
       };
       /**
-       * @description Degrees, north positive (-90..90).
+       * @description Degrees, north positive. Range: -90 to 90.
        * @example 51.507
        */
       latitude: number;
       /**
-       * @description Degrees, east positive (-180..180).
+       * @description Degrees, east positive. Range: -180 to 180.
        * @example -0.1
        */
       longitude: number;
@@ -3948,7 +3948,7 @@ export interface components {
        */
       sky?: 'clear' | 'partly-cloudy' | 'overcast';
       /**
-       * @description Ambient timeline step, minutes (0.5..60); default 2.
+       * @description Ambient timeline step, minutes; default 2. Range: 0.5 to 60.
        * @example 5
        */
       stepMinutes?: number;
@@ -4509,6 +4509,44 @@ export interface operations {
           'application/json': components['schemas']['AuditPageResponseDto'];
         };
       };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   confirmEmailChange: {
@@ -4529,6 +4567,71 @@ export interface operations {
           [name: string]: unknown;
         };
         content?: never;
+      };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The new address has meanwhile been taken by another account. */
+      409: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
       };
     };
   };
@@ -4553,6 +4656,62 @@ export interface operations {
           'application/json': components['schemas']['AcceptedResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   confirmPasswordReset: {
@@ -4573,6 +4732,62 @@ export interface operations {
           [name: string]: unknown;
         };
         content?: never;
+      };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
       };
     };
   };
@@ -4597,19 +4812,81 @@ export interface operations {
           'application/json': components['schemas']['MeResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description Wrong e-mail or password (the answer does not say which). */
       401: {
         headers: {
           [name: string]: unknown;
         };
-        content?: never;
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The account no longer belongs to any organisation. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
       };
       /** @description Too many failures; see Retry-After. */
       429: {
         headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
-        content?: never;
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
       };
     };
   };
@@ -4628,6 +4905,26 @@ export interface operations {
         };
         content?: never;
       };
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   signOutEverywhere: {
@@ -4644,6 +4941,35 @@ export interface operations {
           [name: string]: unknown;
         };
         content?: never;
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
       };
     };
   };
@@ -4668,12 +4994,81 @@ export interface operations {
           'application/json': components['schemas']['MeResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description The e-mail address is already registered. */
       409: {
         headers: {
           [name: string]: unknown;
         };
-        content?: never;
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Too many new accounts from this address; wait for Retry-After. */
+      429: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
       };
     };
   };
@@ -4698,7 +5093,7 @@ export interface operations {
           'application/json': components['schemas']['BacklightResponseDto'];
         };
       };
-      /** @description The body is not JSON. */
+      /** @description The body is not valid JSON. */
       400: {
         headers: {
           [name: string]: unknown;
@@ -4707,7 +5102,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description No API key or session, or the key is unknown, revoked or expired. */
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -4716,7 +5111,16 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description The body is larger than 100 kB. */
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
       413: {
         headers: {
           [name: string]: unknown;
@@ -4725,7 +5129,16 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). */
       422: {
         headers: {
           [name: string]: unknown;
@@ -4734,18 +5147,26 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt). */
+      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt and Retry-After). */
       429: {
         headers: {
+          /** @description Calls left in the window and seconds until it refills, e.g. `"key";r=0;t=1`. */
+          RateLimit?: string;
+          /** @description The limit: burst size and window in seconds, e.g. `"key";q=100;w=2`. */
+          'RateLimit-Policy'?: string;
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Temporarily unavailable; retry after Retry-After seconds. */
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
       503: {
         headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -4775,7 +5196,7 @@ export interface operations {
           'application/json': components['schemas']['BalanceResponseDto'];
         };
       };
-      /** @description The body is not JSON. */
+      /** @description The body is not valid JSON. */
       400: {
         headers: {
           [name: string]: unknown;
@@ -4784,7 +5205,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description No API key or session, or the key is unknown, revoked or expired. */
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -4793,7 +5214,25 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description The body is larger than 100 kB. */
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A gear id is not one of your organisation's; `errors` names the field. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
       413: {
         headers: {
           [name: string]: unknown;
@@ -4802,7 +5241,16 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). */
       422: {
         headers: {
           [name: string]: unknown;
@@ -4811,18 +5259,26 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt). */
+      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt and Retry-After). */
       429: {
         headers: {
+          /** @description Calls left in the window and seconds until it refills, e.g. `"key";r=0;t=1`. */
+          RateLimit?: string;
+          /** @description The limit: burst size and window in seconds, e.g. `"key";q=100;w=2`. */
+          'RateLimit-Policy'?: string;
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Temporarily unavailable; retry after Retry-After seconds. */
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
       503: {
         headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -4847,6 +5303,35 @@ export interface operations {
         };
         content?: never;
       };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   cancelSubscription: {
@@ -4864,6 +5349,44 @@ export interface operations {
         };
         content: {
           'application/json': components['schemas']['CancelResponseDto'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description There is no subscription to cancel. */
+      409: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };
@@ -4889,12 +5412,79 @@ export interface operations {
           'application/json': components['schemas']['CheckoutResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description Already on that plan, or the plan has fewer seats than the members (`limit: "seats"`). */
       409: {
         headers: {
           [name: string]: unknown;
         };
-        content?: never;
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
       };
     };
   };
@@ -4913,6 +5503,35 @@ export interface operations {
         };
         content: {
           'application/json': components['schemas']['InvoiceListResponseDto'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };
@@ -4934,6 +5553,44 @@ export interface operations {
         };
         content: {
           'application/json': components['schemas']['InvoiceResponseDto'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };
@@ -4959,7 +5616,7 @@ export interface operations {
           'application/json': components['schemas']['ExposureResponseDto'];
         };
       };
-      /** @description The body is not JSON. */
+      /** @description The body is not valid JSON. */
       400: {
         headers: {
           [name: string]: unknown;
@@ -4968,7 +5625,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description No API key or session, or the key is unknown, revoked or expired. */
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -4977,7 +5634,16 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description The body is larger than 100 kB. */
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
       413: {
         headers: {
           [name: string]: unknown;
@@ -4986,7 +5652,16 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). */
       422: {
         headers: {
           [name: string]: unknown;
@@ -4995,18 +5670,26 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt). */
+      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt and Retry-After). */
       429: {
         headers: {
+          /** @description Calls left in the window and seconds until it refills, e.g. `"key";r=0;t=1`. */
+          RateLimit?: string;
+          /** @description The limit: burst size and window in seconds, e.g. `"key";q=100;w=2`. */
+          'RateLimit-Policy'?: string;
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Temporarily unavailable; retry after Retry-After seconds. */
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
       503: {
         headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -5036,7 +5719,7 @@ export interface operations {
           'application/json': components['schemas']['FalloffResponseDto'];
         };
       };
-      /** @description The body is not JSON. */
+      /** @description The body is not valid JSON. */
       400: {
         headers: {
           [name: string]: unknown;
@@ -5045,7 +5728,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description No API key or session, or the key is unknown, revoked or expired. */
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -5054,7 +5737,16 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description The body is larger than 100 kB. */
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
       413: {
         headers: {
           [name: string]: unknown;
@@ -5063,7 +5755,16 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). */
       422: {
         headers: {
           [name: string]: unknown;
@@ -5072,18 +5773,26 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt). */
+      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt and Retry-After). */
       429: {
         headers: {
+          /** @description Calls left in the window and seconds until it refills, e.g. `"key";r=0;t=1`. */
+          RateLimit?: string;
+          /** @description The limit: burst size and window in seconds, e.g. `"key";q=100;w=2`. */
+          'RateLimit-Policy'?: string;
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Temporarily unavailable; retry after Retry-After seconds. */
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
       503: {
         headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -5113,7 +5822,7 @@ export interface operations {
           'application/json': components['schemas']['FlashResponseDto'];
         };
       };
-      /** @description The body is not JSON. */
+      /** @description The body is not valid JSON. */
       400: {
         headers: {
           [name: string]: unknown;
@@ -5122,7 +5831,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description No API key or session, or the key is unknown, revoked or expired. */
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -5131,7 +5840,16 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description The body is larger than 100 kB. */
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
       413: {
         headers: {
           [name: string]: unknown;
@@ -5140,7 +5858,16 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). */
       422: {
         headers: {
           [name: string]: unknown;
@@ -5149,18 +5876,26 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt). */
+      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt and Retry-After). */
       429: {
         headers: {
+          /** @description Calls left in the window and seconds until it refills, e.g. `"key";r=0;t=1`. */
+          RateLimit?: string;
+          /** @description The limit: burst size and window in seconds, e.g. `"key";q=100;w=2`. */
+          'RateLimit-Policy'?: string;
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Temporarily unavailable; retry after Retry-After seconds. */
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
       503: {
         headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -5189,6 +5924,35 @@ export interface operations {
         };
         content: {
           'application/json': components['schemas']['FrameListResponseDto'];
+        };
+      };
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };
@@ -5230,7 +5994,16 @@ export interface operations {
           'application/json': components['schemas']['FrameResponseDto'];
         };
       };
-      /** @description The plan does not include uploads (type …/plan-feature-missing), or the role may not. */
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The plan does not include uploads (type …/plan-feature-missing). A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -5266,9 +6039,26 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt). */
+      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt and Retry-After). */
       429: {
         headers: {
+          /** @description Calls left in the window and seconds until it refills, e.g. `"key";r=0;t=1`. */
+          RateLimit?: string;
+          /** @description The limit: burst size and window in seconds, e.g. `"key";q=100;w=2`. */
+          'RateLimit-Policy'?: string;
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -5296,9 +6086,38 @@ export interface operations {
           'application/json': components['schemas']['FrameResponseDto'];
         };
       };
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description No such frame in your organisation. */
       404: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The id is not a UUID; `errors` names it. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -5325,9 +6144,38 @@ export interface operations {
         };
         content?: never;
       };
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description No such frame in your organisation. */
       404: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The id is not a UUID; `errors` names it. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -5353,7 +6201,7 @@ export interface operations {
           'application/json': components['schemas']['GelKitListResponseDto'];
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -5362,9 +6210,11 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
-      403: {
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
         headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -5394,7 +6244,16 @@ export interface operations {
           'application/json': components['schemas']['GelKitResponseDto'];
         };
       };
-      /** @description Not signed in. */
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -5403,7 +6262,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -5421,9 +6280,38 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
       422: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -5451,17 +6339,8 @@ export interface operations {
           'application/json': components['schemas']['GelKitResponseDto'];
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/problem+json': components['schemas']['Problem'];
-        };
-      };
-      /** @description Your role does not allow this. */
-      403: {
         headers: {
           [name: string]: unknown;
         };
@@ -5472,6 +6351,17 @@ export interface operations {
       /** @description No such item in your organisation; `errors` names the field. */
       404: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -5498,7 +6388,7 @@ export interface operations {
         };
         content?: never;
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -5507,7 +6397,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -5519,6 +6409,17 @@ export interface operations {
       /** @description No such item in your organisation; `errors` names the field. */
       404: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -5550,7 +6451,16 @@ export interface operations {
           'application/json': components['schemas']['GelKitResponseDto'];
         };
       };
-      /** @description Not signed in. */
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -5559,7 +6469,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -5586,9 +6496,38 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
       422: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -5620,7 +6559,16 @@ export interface operations {
           'application/json': components['schemas']['GelPieceResponseDto'];
         };
       };
-      /** @description Not signed in. */
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -5629,7 +6577,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -5656,9 +6604,38 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
       422: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -5686,7 +6663,7 @@ export interface operations {
         };
         content?: never;
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -5695,7 +6672,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -5707,6 +6684,17 @@ export interface operations {
       /** @description No such item in your organisation; `errors` names the field. */
       404: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -5739,7 +6727,16 @@ export interface operations {
           'application/json': components['schemas']['GelPieceResponseDto'];
         };
       };
-      /** @description Not signed in. */
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -5748,7 +6745,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -5775,9 +6772,38 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
       422: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -5803,7 +6829,7 @@ export interface operations {
           'application/json': components['schemas']['LightListResponseDto'];
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -5812,9 +6838,11 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
-      403: {
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
         headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -5844,7 +6872,16 @@ export interface operations {
           'application/json': components['schemas']['LightResponseDto'];
         };
       };
-      /** @description Not signed in. */
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -5853,7 +6890,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -5871,9 +6908,38 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
       422: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -5901,17 +6967,8 @@ export interface operations {
           'application/json': components['schemas']['LightResponseDto'];
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/problem+json': components['schemas']['Problem'];
-        };
-      };
-      /** @description Your role does not allow this. */
-      403: {
         headers: {
           [name: string]: unknown;
         };
@@ -5922,6 +6979,17 @@ export interface operations {
       /** @description No such item in your organisation; `errors` names the field. */
       404: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -5948,7 +7016,7 @@ export interface operations {
         };
         content?: never;
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -5957,7 +7025,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -5969,6 +7037,17 @@ export interface operations {
       /** @description No such item in your organisation; `errors` names the field. */
       404: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -6000,7 +7079,16 @@ export interface operations {
           'application/json': components['schemas']['LightResponseDto'];
         };
       };
-      /** @description Not signed in. */
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -6009,7 +7097,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -6036,9 +7124,38 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
       422: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -6064,7 +7181,7 @@ export interface operations {
           'application/json': components['schemas']['ModifierListResponseDto'];
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -6073,9 +7190,11 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
-      403: {
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
         headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -6105,7 +7224,16 @@ export interface operations {
           'application/json': components['schemas']['ModifierResponseDto'];
         };
       };
-      /** @description Not signed in. */
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -6114,7 +7242,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -6132,9 +7260,38 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
       422: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -6162,17 +7319,8 @@ export interface operations {
           'application/json': components['schemas']['ModifierResponseDto'];
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/problem+json': components['schemas']['Problem'];
-        };
-      };
-      /** @description Your role does not allow this. */
-      403: {
         headers: {
           [name: string]: unknown;
         };
@@ -6183,6 +7331,17 @@ export interface operations {
       /** @description No such item in your organisation; `errors` names the field. */
       404: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -6209,7 +7368,7 @@ export interface operations {
         };
         content?: never;
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -6218,7 +7377,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -6230,6 +7389,17 @@ export interface operations {
       /** @description No such item in your organisation; `errors` names the field. */
       404: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -6261,7 +7431,16 @@ export interface operations {
           'application/json': components['schemas']['ModifierResponseDto'];
         };
       };
-      /** @description Not signed in. */
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -6270,7 +7449,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -6297,9 +7476,38 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
       422: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -6390,6 +7598,8 @@ export interface operations {
        */
       503: {
         headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -6460,6 +7670,7 @@ export interface operations {
              */
             status?: 'error' | 'shutting_down';
           };
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };
@@ -6485,12 +7696,90 @@ export interface operations {
           'application/json': components['schemas']['MeResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The invitation is invalid, already used, canceled or expired. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description No free seat in the organisation (`limit: "seats"`). */
       409: {
         headers: {
           [name: string]: unknown;
         };
-        content?: never;
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Too many wrong passwords for the invited account; wait for Retry-After. */
+      429: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
       };
     };
   };
@@ -6515,12 +7804,70 @@ export interface operations {
           'application/json': components['schemas']['InvitePreviewResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description Invalid, used, canceled or expired. */
       404: {
         headers: {
           [name: string]: unknown;
         };
-        content?: never;
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
       };
     };
   };
@@ -6543,6 +7890,44 @@ export interface operations {
         };
         content: {
           'application/json': components['schemas']['ApiKeyPageResponseDto'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };
@@ -6568,6 +7953,71 @@ export interface operations {
           'application/json': components['schemas']['ApiKeyCreatedResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   getApiKey: {
@@ -6589,12 +8039,43 @@ export interface operations {
           'application/json': components['schemas']['ApiKeyResponseDto'];
         };
       };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description No such key in your organisation, or not yours to manage. */
       404: {
         headers: {
           [name: string]: unknown;
         };
-        content?: never;
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
       };
     };
   };
@@ -6615,6 +8096,44 @@ export interface operations {
         };
         content: {
           'application/json': components['schemas']['ApiKeyResponseDto'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };
@@ -6642,6 +8161,89 @@ export interface operations {
           'application/json': components['schemas']['ApiKeyCreatedResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A revoked or expired key cannot be rotated; create a new key. */
+      409: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   getMe: {
@@ -6659,6 +8261,26 @@ export interface operations {
         };
         content: {
           'application/json': components['schemas']['MeResponseDto'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };
@@ -6684,6 +8306,71 @@ export interface operations {
           'application/json': components['schemas']['MeResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   requestEmailChange: {
@@ -6705,6 +8392,80 @@ export interface operations {
         };
         content: {
           'application/json': components['schemas']['AcceptedResponseDto'];
+        };
+      };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description An account with the new address already exists; `errors` names newEmail. */
+      409: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };
@@ -6730,6 +8491,80 @@ export interface operations {
           'application/json': components['schemas']['MeResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description You are not a member of that organisation. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   listMyOrganizations: {
@@ -6747,6 +8582,26 @@ export interface operations {
         };
         content: {
           'application/json': components['schemas']['MyOrganizationsResponseDto'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };
@@ -6770,6 +8625,71 @@ export interface operations {
         };
         content?: never;
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   getOrganization: {
@@ -6787,6 +8707,26 @@ export interface operations {
         };
         content: {
           'application/json': components['schemas']['OrganizationResponseDto'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };
@@ -6809,6 +8749,80 @@ export interface operations {
           [name: string]: unknown;
         };
         content?: never;
+      };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Other records still refer to this organisation. */
+      409: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
       };
     };
   };
@@ -6833,6 +8847,71 @@ export interface operations {
           'application/json': components['schemas']['OrganizationResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   transferOwnership: {
@@ -6854,6 +8933,80 @@ export interface operations {
         };
         content?: never;
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such member in this organisation. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   listPlans: {
@@ -6873,6 +9026,17 @@ export interface operations {
           'application/json': components['schemas']['PlanListResponseDto'];
         };
       };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   getCurrentPlan: {
@@ -6890,6 +9054,26 @@ export interface operations {
         };
         content: {
           'application/json': components['schemas']['CurrentPlanResponseDto'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };
@@ -6915,7 +9099,7 @@ export interface operations {
           'application/json': components['schemas']['SetupResponseDto'];
         };
       };
-      /** @description The body is not JSON. */
+      /** @description The body is not valid JSON. */
       400: {
         headers: {
           [name: string]: unknown;
@@ -6924,7 +9108,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description No API key or session, or the key is unknown, revoked or expired. */
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -6933,7 +9117,25 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description The body is larger than 100 kB. */
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A gear id is not one of your organisation's; `errors` names the field. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
       413: {
         headers: {
           [name: string]: unknown;
@@ -6942,7 +9144,16 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). */
       422: {
         headers: {
           [name: string]: unknown;
@@ -6951,18 +9162,26 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt). */
+      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt and Retry-After). */
       429: {
         headers: {
+          /** @description Calls left in the window and seconds until it refills, e.g. `"key";r=0;t=1`. */
+          RateLimit?: string;
+          /** @description The limit: burst size and window in seconds, e.g. `"key";q=100;w=2`. */
+          'RateLimit-Policy'?: string;
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Temporarily unavailable; retry after Retry-After seconds. */
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
       503: {
         headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -6994,7 +9213,7 @@ export interface operations {
           'application/json': components['schemas']['SavedSetupPageResponseDto'];
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -7003,9 +9222,20 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
-      403: {
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -7035,7 +9265,16 @@ export interface operations {
           'application/json': components['schemas']['SavedSetupResponseDto'];
         };
       };
-      /** @description Not signed in. */
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -7044,7 +9283,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description The plan’s saved-setups limit is reached (`limit: "savedSetups"`, `limitValue`, `count`, `planCode`). Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -7071,9 +9310,38 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
       422: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -7101,7 +9369,7 @@ export interface operations {
           'application/json': components['schemas']['UpcomingSetupsResponseDto'];
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -7110,9 +9378,20 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
-      403: {
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -7140,17 +9419,8 @@ export interface operations {
           'application/json': components['schemas']['SavedSetupResponseDto'];
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/problem+json': components['schemas']['Problem'];
-        };
-      };
-      /** @description Your role does not allow this. */
-      403: {
         headers: {
           [name: string]: unknown;
         };
@@ -7161,6 +9431,17 @@ export interface operations {
       /** @description No such item in your organisation; `errors` names the field. */
       404: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -7187,7 +9468,7 @@ export interface operations {
         };
         content?: never;
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -7196,7 +9477,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -7208,6 +9489,17 @@ export interface operations {
       /** @description No such item in your organisation; `errors` names the field. */
       404: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -7239,7 +9531,16 @@ export interface operations {
           'application/json': components['schemas']['SavedSetupResponseDto'];
         };
       };
-      /** @description Not signed in. */
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -7248,7 +9549,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -7275,9 +9576,38 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
       422: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -7309,7 +9639,16 @@ export interface operations {
           'application/json': components['schemas']['SavedSetupResponseDto'];
         };
       };
-      /** @description Not signed in. */
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -7318,7 +9657,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. */
+      /** @description The plan’s saved-setups limit is reached (`limit: "savedSetups"`, `limitValue`, `count`, `planCode`). Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -7345,9 +9684,38 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
       422: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -7376,17 +9744,8 @@ export interface operations {
           'text/html': string;
         };
       };
-      /** @description Not signed in. */
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
       401: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/problem+json': components['schemas']['Problem'];
-        };
-      };
-      /** @description Your role does not allow this. */
-      403: {
         headers: {
           [name: string]: unknown;
         };
@@ -7397,6 +9756,17 @@ export interface operations {
       /** @description No such item in your organisation; `errors` names the field. */
       404: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -7422,6 +9792,35 @@ export interface operations {
           'application/json': components['schemas']['InviteListResponseDto'];
         };
       };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   createInvite: {
@@ -7445,12 +9844,79 @@ export interface operations {
           'application/json': components['schemas']['InviteResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description Already a member, already invited, or no free seat (`limit: "seats"`: remove a member, cancel an invitation or change plan). */
       409: {
         headers: {
           [name: string]: unknown;
         };
-        content?: never;
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
       };
     };
   };
@@ -7471,6 +9937,44 @@ export interface operations {
         };
         content: {
           'application/json': components['schemas']['InviteResponseDto'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };
@@ -7494,12 +9998,52 @@ export interface operations {
           'application/json': components['schemas']['InviteResponseDto'];
         };
       };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description Already accepted or canceled, or (expired invitations) no free seat. */
       409: {
         headers: {
           [name: string]: unknown;
         };
-        content?: never;
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
       };
     };
   };
@@ -7518,6 +10062,35 @@ export interface operations {
         };
         content: {
           'application/json': components['schemas']['MemberListResponseDto'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };
@@ -7539,12 +10112,52 @@ export interface operations {
         };
         content?: never;
       };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description That would leave the organisation without an owner. */
       409: {
         headers: {
           [name: string]: unknown;
         };
-        content?: never;
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
       };
     };
   };
@@ -7571,12 +10184,88 @@ export interface operations {
           'application/json': components['schemas']['MemberResponseDto'];
         };
       };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such item in your organisation. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description That would leave the organisation without an owner. */
       409: {
         headers: {
           [name: string]: unknown;
         };
-        content?: never;
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
       };
     };
   };
@@ -7601,7 +10290,7 @@ export interface operations {
           'application/json': components['schemas']['TwilightResponseDto'];
         };
       };
-      /** @description The body is not JSON. */
+      /** @description The body is not valid JSON. */
       400: {
         headers: {
           [name: string]: unknown;
@@ -7610,7 +10299,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description No API key or session, or the key is unknown, revoked or expired. */
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -7619,7 +10308,16 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description The body is larger than 100 kB. */
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
       413: {
         headers: {
           [name: string]: unknown;
@@ -7628,7 +10326,16 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). */
       422: {
         headers: {
           [name: string]: unknown;
@@ -7637,18 +10344,26 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt). */
+      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt and Retry-After). */
       429: {
         headers: {
+          /** @description Calls left in the window and seconds until it refills, e.g. `"key";r=0;t=1`. */
+          RateLimit?: string;
+          /** @description The limit: burst size and window in seconds, e.g. `"key";q=100;w=2`. */
+          'RateLimit-Policy'?: string;
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Temporarily unavailable; retry after Retry-After seconds. */
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
       503: {
         headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -7699,6 +10414,44 @@ export interface operations {
           'application/json': components['schemas']['UsageEventPageResponseDto'];
         };
       };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   exportUsageEvents: {
@@ -7744,6 +10497,44 @@ export interface operations {
           'text/csv': string;
         };
       };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   getUsageSummary: {
@@ -7784,6 +10575,44 @@ export interface operations {
           'application/json': components['schemas']['UsageSummaryResponseDto'];
         };
       };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Your role does not allow this. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
     };
   };
   getWhoAmI: {
@@ -7801,6 +10630,26 @@ export interface operations {
         };
         content: {
           'application/json': components['schemas']['WhoAmIResponseDto'];
+        };
+      };
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
         };
       };
     };

@@ -6,6 +6,7 @@ import {
   ApiOperation,
   ApiTags,
 } from '@nestjs/swagger';
+import { problem } from '../common/decorators/problem-responses.js';
 import { PageQueryDto } from '../audit/dto/page-query.dto.js';
 import { can } from '../auth/permissions.js';
 import { CurrentPrincipal, Meta, RequestMeta, SessionPrincipal } from '../auth/request-context.js';
@@ -84,6 +85,7 @@ export class ApiKeysController {
     summary: 'Issue a new secret; the old one works for the grace period you choose.',
   })
   @ApiCreatedResponse({ type: ApiKeyCreatedResponseDto })
+  @problem(409, 'A revoked or expired key cannot be rotated; create a new key.')
   async rotateApiKey(
     @CurrentPrincipal() p: SessionPrincipal,
     @Param('id') id: string,

@@ -10,6 +10,7 @@ import {
   ApiTooManyRequestsResponse,
   ApiUnauthorizedResponse,
 } from '@nestjs/swagger';
+import { problem, tooManyRequests } from '../common/decorators/problem-responses.js';
 import type { FastifyRequest } from 'fastify';
 import { AuditService } from '../audit/audit.service.js';
 import { Public, SessionAuth } from '../common/decorators/access.decorator.js';
@@ -44,6 +45,7 @@ export class AuthController {
   @ApiOperation({ summary: 'Create an account, its organisation (you are the owner) and sign in.' })
   @ApiCreatedResponse({ type: MeResponseDto })
   @ApiConflictResponse({ description: 'The e-mail address is already registered.' })
+  @tooManyRequests('Too many new accounts from this address; wait for Retry-After.')
   async signUp(
     @Body() body: SignUpRequestDto,
     @Req() req: FastifyRequest,
@@ -63,6 +65,7 @@ export class AuthController {
     description: 'Wrong e-mail or password (the answer does not say which).',
   })
   @ApiTooManyRequestsResponse({ description: 'Too many failures; see Retry-After.' })
+  @problem(403, 'The account no longer belongs to any organisation.')
   async signIn(
     @Body() body: SignInRequestDto,
     @Req() req: FastifyRequest,
@@ -142,6 +145,7 @@ export class AuthController {
   @HttpCode(204)
   @ApiOperation({ summary: 'Confirm a new sign-in address with the token e-mailed to it.' })
   @ApiNoContentResponse()
+  @problem(409, 'The new address has meanwhile been taken by another account.')
   async confirmEmailChange(
     @Body() body: TokenRequestDto,
     @Meta() meta: RequestMeta,

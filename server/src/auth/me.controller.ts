@@ -6,6 +6,7 @@ import {
   ApiOperation,
   ApiTags,
 } from '@nestjs/swagger';
+import { problem } from '../common/decorators/problem-responses.js';
 import type { FastifyRequest } from 'fastify';
 import { SessionAuth } from '../common/decorators/access.decorator.js';
 import { DomainError } from '../common/errors/domain-error.js';
@@ -90,6 +91,7 @@ export class MeController {
     summary: 'Ask to change your sign-in address; a confirmation link goes to the new one.',
   })
   @ApiAcceptedResponse({ type: AcceptedResponseDto })
+  @problem(409, 'An account with the new address already exists; `errors` names newEmail.')
   async requestEmailChange(
     @CurrentPrincipal() p: SessionPrincipal,
     @Body() body: EmailChangeRequestDto,
@@ -123,6 +125,7 @@ export class MeController {
   @HttpCode(200)
   @ApiOperation({ summary: 'Make this session act for another organisation you belong to.' })
   @ApiOkResponse({ type: MeResponseDto })
+  @problem(404, 'You are not a member of that organisation.')
   async switchOrganization(
     @CurrentPrincipal() p: SessionPrincipal,
     @Body() body: SwitchOrganizationRequestDto,

@@ -9,6 +9,7 @@ import {
   ApiOperation,
   ApiTags,
 } from '@nestjs/swagger';
+import { problem } from '../common/decorators/problem-responses.js';
 import type { FastifyRequest } from 'fastify';
 import { Public, SessionAuth } from '../common/decorators/access.decorator.js';
 import type { RequestWithPrincipal } from '../common/guards/access.guard.js';
@@ -70,6 +71,7 @@ export class BillingController {
       "Never refused for seats: members beyond the free plan's seats keep their access, but nobody new can be invited or join until the members fit (GET /v1/team/members says how many seats are used). The same holds for any plan change the payments service reports.",
   })
   @ApiAcceptedResponse({ type: CancelResponseDto })
+  @problem(409, 'There is no subscription to cancel.')
   cancelSubscription(@Req() req: RequestWithPrincipal) {
     return this.billing.cancel(req.principal!.organizationId);
   }

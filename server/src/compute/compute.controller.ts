@@ -87,6 +87,7 @@ export class ComputeController {
     'Gels for the flash to match the camera white balance, in mireds.',
     gearAware.BalanceRequestDto,
     balance.BalanceResponseDto,
+    { gearIds: true },
   )
   solveBalance(
     @Req() req: RequestWithPrincipal,
@@ -100,6 +101,7 @@ export class ComputeController {
     'The whole dusk setup: timing, background exposure, key and rim power, gels, cautions.',
     gearAware.SetupRequestDto,
     setup.SetupResponseDto,
+    { gearIds: true },
   )
   planSetup(
     @Req() req: RequestWithPrincipal,

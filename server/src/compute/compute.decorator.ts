@@ -1,24 +1,20 @@
 // What every compute route shares: POST, 200, API key or console session, metering, limits and
-// the documented problem responses.
+// the documented problem responses (the ones every JSON route shares are added to the document
+// in src/openapi-problems.ts; these are the compute routes' own).
 import { applyDecorators, HttpCode, Post, UseGuards } from '@nestjs/common';
 import { RouteConfig } from '@nestjs/platform-fastify';
-import { ApiBody, ApiOkResponse, ApiOperation, ApiResponse } from '@nestjs/swagger';
+import { ApiBody, ApiOkResponse, ApiOperation } from '@nestjs/swagger';
 import { ApiKeyAuth } from '../common/decorators/access.decorator.js';
+import { meteredTooManyRequests, problem } from '../common/decorators/problem-responses.js';
 import { MeteredCallGuard } from '../plans/metered-call.guard.js';
 import type { MeterRouteConfig } from '../usage/metering.hook.js';
-
-const problem = (status: number, description: string) =>
-  ApiResponse({
-    status,
-    description,
-    content: { 'application/problem+json': { schema: { $ref: '#/components/schemas/Problem' } } },
-  });
 
 export function ComputeRoute(
   endpoint: string,
   summary: string,
   body: new () => object,
   response: new () => object,
+  opts: { gearIds?: boolean } = {},
 ) {
   return applyDecorators(
     Post(endpoint),
@@ -29,15 +25,14 @@ export function ComputeRoute(
     ApiOperation({ summary }),
     ApiBody({ type: body }),
     ApiOkResponse({ type: response }),
-    problem(400, 'The body is not JSON.'),
-    problem(401, 'No API key or session, or the key is unknown, revoked or expired.'),
-    problem(413, 'The body is larger than 100 kB.'),
-    problem(422, 'A field is missing, of the wrong type or out of range; `errors` names each.'),
+    ...(opts.gearIds
+      ? [problem(404, "A gear id is not one of your organisation's; `errors` names the field.")]
+      : []),
     problem(
-      429,
-      'Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the ' +
-        'monthly quota is used up (type …/quota-exceeded, with resetAt).',
+      422,
+      'A field is missing, of the wrong type or outside the range the schema gives; `errors` ' +
+        'names each (array items as `gels[1].lossStops`, nested fields as `key.distance`).',
     ),
-    problem(503, 'Temporarily unavailable; retry after Retry-After seconds.'),
+    meteredTooManyRequests(),
   );
 }

@@ -11,6 +11,7 @@ import {
 } from '@nestjs/swagger';
 import type { FastifyReply } from 'fastify';
 import { ApiKeyAuth } from '../common/decorators/access.decorator.js';
+import { meteredTooManyRequests, problem } from '../common/decorators/problem-responses.js';
 import type { RequestWithPrincipal } from '../common/guards/access.guard.js';
 import { ApiQueryFromSchema, SchemaPipe } from '../compute/validation/schema-dto.js';
 import { MeteredCallGuard } from '../plans/metered-call.guard.js';
@@ -19,13 +20,6 @@ import { FrameListResponseDto, FrameResponseDto } from './dto/frame.dto.js';
 import { toFrameDto } from './frame.mapper.js';
 import { FramesService } from './frames.service.js';
 import { UuidParamPipe } from './uuid-param.pipe.js';
-
-const problem = (status: number, description: string) =>
-  ApiResponse({
-    status,
-    description,
-    content: { 'application/problem+json': { schema: { $ref: '#/components/schemas/Problem' } } },
-  });
 
 const listQuery = {
   type: 'object' as const,
@@ -86,16 +80,9 @@ export class FramesController {
     },
   })
   @ApiResponse({ status: 201, type: FrameResponseDto })
-  @problem(
-    403,
-    'The plan does not include uploads (type …/plan-feature-missing), or the role may not.',
-  )
+  @problem(403, 'The plan does not include uploads (type …/plan-feature-missing).')
   @problem(413, 'The file is larger than 25 MB.')
-  @problem(
-    429,
-    'Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the ' +
-      'monthly quota is used up (type …/quota-exceeded, with resetAt).',
-  )
+  @meteredTooManyRequests()
   @problem(415, 'Not multipart, or the file is not JPEG or PNG (HEIC is not accepted).')
   @problem(422, 'A field is invalid, the patch is outside the image, or the file is corrupt.')
   async uploadFrame(@Req() req: RequestWithPrincipal) {
@@ -124,6 +111,7 @@ export class FramesController {
   @ApiOperation({ summary: 'One test frame and its analysis.' })
   @ApiOkResponse({ type: FrameResponseDto })
   @problem(404, 'No such frame in your organisation.')
+  @problem(422, 'The id is not a UUID; `errors` names it.')
   async getFrame(@Req() req: RequestWithPrincipal, @Param('id', new UuidParamPipe()) id: string) {
     return toFrameDto(await this.frames.get(req.principal!.organizationId, id));
   }
@@ -134,6 +122,7 @@ export class FramesController {
   @ApiProduces('image/jpeg')
   @ApiOkResponse({ description: 'JPEG image.' })
   @problem(404, 'No such frame in your organisation.')
+  @problem(422, 'The id is not a UUID; `errors` names it.')
   async getFrameThumbnail(
     @Req() req: RequestWithPrincipal,
     @Param('id', new UuidParamPipe()) id: string,

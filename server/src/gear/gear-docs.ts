@@ -1,19 +1,15 @@
 // Documented problem responses shared by the gear and setups routes.
 import { applyDecorators } from '@nestjs/common';
-import { ApiResponse } from '@nestjs/swagger';
+import { problem } from '../common/decorators/problem-responses.js';
 
-export const problem = (status: number, description: string) =>
-  ApiResponse({
-    status,
-    description,
-    content: { 'application/problem+json': { schema: { $ref: '#/components/schemas/Problem' } } },
-  });
+export { problem };
 
-/** 401/403 for every management route; 404 when `withId`; 422 (+409) on writes. */
+/**
+ * 404 when `withId`; 422 (+409) on writes. 401, and 403 where the role or the CSRF check can
+ * refuse, come from the access rule (src/openapi-problems.ts).
+ */
 export function GearProblems(opts: { withId?: boolean; write?: boolean } = {}) {
   return applyDecorators(
-    problem(401, 'Not signed in.'),
-    problem(403, 'Your role does not allow this.'),
     ...(opts.withId
       ? [problem(404, 'No such item in your organisation; `errors` names the field.')]
       : []),

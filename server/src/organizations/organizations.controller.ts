@@ -1,5 +1,6 @@
 import { Body, Controller, Delete, Get, HttpCode, Patch, Post, Req } from '@nestjs/common';
 import { ApiNoContentResponse, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
+import { problem } from '../common/decorators/problem-responses.js';
 import type { FastifyRequest } from 'fastify';
 import { OrganizationResponseDto } from '../auth/dto/auth.dto.js';
 import { toOrganizationDto } from '../auth/me.mapper.js';
@@ -51,6 +52,7 @@ export class OrganizationsController {
     summary: 'Delete the organisation with its members, keys, invitations and history.',
   })
   @ApiNoContentResponse()
+  @problem(409, 'Other records still refer to this organisation.')
   async deleteOrganization(
     @CurrentPrincipal() p: SessionPrincipal,
     @Body() body: DeleteOrganizationRequestDto,
@@ -65,6 +67,7 @@ export class OrganizationsController {
   @HttpCode(204)
   @ApiOperation({ summary: 'Make another member owner; you become admin.' })
   @ApiNoContentResponse()
+  @problem(404, 'No such member in this organisation.')
   async transferOwnership(
     @CurrentPrincipal() p: SessionPrincipal,
     @Body() body: TransferOwnershipRequestDto,

@@ -64,6 +64,10 @@ export class SetupsController {
   })
   @ApiCreatedResponse({ type: SavedSetupResponseDto })
   @GearProblems({ write: true })
+  @problem(
+    403,
+    'The plan’s saved-setups limit is reached (`limit: "savedSetups"`, `limitValue`, `count`, `planCode`).',
+  )
   @problem(404, 'A gear id in the inputs is not in your organisation; `errors` names the field.')
   async createSetup(
     @CurrentPrincipal() p: SessionPrincipal,
@@ -114,6 +118,10 @@ export class SetupsController {
   @ApiOperation({ summary: 'Copy a saved setup (counts against the plan’s saved-setups limit).' })
   @ApiCreatedResponse({ type: SavedSetupResponseDto })
   @GearProblems({ withId: true, write: true })
+  @problem(
+    403,
+    'The plan’s saved-setups limit is reached (`limit: "savedSetups"`, `limitValue`, `count`, `planCode`).',
+  )
   async duplicateSetup(
     @CurrentPrincipal() p: SessionPrincipal,
     @Param('id') id: string,

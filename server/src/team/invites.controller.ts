@@ -6,6 +6,7 @@ import {
   ApiOperation,
   ApiTags,
 } from '@nestjs/swagger';
+import { problem, tooManyRequests } from '../common/decorators/problem-responses.js';
 import type { FastifyRequest } from 'fastify';
 import { MeResponseDto } from '../auth/dto/auth.dto.js';
 import { toMeDto } from '../auth/me.mapper.js';
@@ -44,6 +45,8 @@ export class InvitesController {
   })
   @ApiOkResponse({ type: MeResponseDto })
   @ApiConflictResponse({ description: 'No free seat in the organisation (`limit: "seats"`).' })
+  @problem(404, 'The invitation is invalid, already used, canceled or expired.')
+  @tooManyRequests('Too many wrong passwords for the invited account; wait for Retry-After.')
   async acceptInvite(
     @Body() body: AcceptInviteRequestDto,
     @Req() req: FastifyRequest,

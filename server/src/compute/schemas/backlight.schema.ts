@@ -1,5 +1,5 @@
 import { schemaDto, type ObjectSchema } from '../validation/schema-dto.js';
-import { bool, lengthUnit, nullableNum, num, outNum, str, WARNINGS } from './common.js';
+import { bool, lengthUnit, nullableNum, outNum, ranged, str, WARNINGS } from './common.js';
 
 export const backlightRequestSchema: ObjectSchema = {
   type: 'object',
@@ -9,19 +9,37 @@ export const backlightRequestSchema: ObjectSchema = {
     'spill on the ground. Stands behind people at dusk: weight them against wind.',
   required: ['lightHeight', 'distanceBehind'],
   properties: {
-    lightHeight: num('Height of the light above the ground, in distanceUnit (0..10 m).', 2),
-    distanceBehind: num(
-      'Horizontal distance of the light behind the subject (0.1..50 m, 0.1..164 ft).',
+    lightHeight: ranged(
+      'Height of the light above the ground, in distanceUnit; in metres at most 10 (33 is the limit in feet).',
+      0,
+      33,
+      2,
+    ),
+    distanceBehind: ranged(
+      'Horizontal distance of the light behind the subject, in distanceUnit; in metres at most ' +
+        '50 (164 is the limit in feet).',
+      0.1,
+      164,
       3,
     ),
-    headHeight: num('Height of the subject’s head; default 1.6 m.', 1.7),
+    headHeight: ranged(
+      'Height of the subject’s head, in distanceUnit; in metres at most 10 (33 is the limit in ' +
+        'feet); default 1.6 m.',
+      0.1,
+      33,
+      1.7,
+    ),
     distanceUnit: lengthUnit('Unit of every distance.'),
-    tiltDeg: num(
-      'Beam axis elevation, degrees (+ up, − down; -90..90); default aimed at the head.',
+    tiltDeg: ranged(
+      'Beam axis elevation, degrees (+ up, − down); default aimed at the head.',
+      -90,
+      90,
       -5,
     ),
-    beamAngleDeg: num(
-      'Full beam angle of the grid or reflector, degrees (1..180); default 100.',
+    beamAngleDeg: ranged(
+      'Full beam angle of the grid or reflector, degrees; default 100.',
+      1,
+      180,
       40,
     ),
   },

@@ -1,6 +1,6 @@
 import type { JsonSchema } from '../validation/json-schema.js';
 import { schemaDto, type ObjectSchema } from '../validation/schema-dto.js';
-import { num, outNum, str, WARNINGS } from './common.js';
+import { outNum, ranged, rangedInt, str, WARNINGS } from './common.js';
 
 export const balanceRequestSchema: ObjectSchema = {
   type: 'object',
@@ -10,14 +10,14 @@ export const balanceRequestSchema: ObjectSchema = {
     'working in mireds (10⁶ / kelvin).',
   required: ['cameraKelvin'],
   properties: {
-    cameraKelvin: num('Camera white balance, kelvin (1500..20000).', 3800, { exclusiveMinimum: 0 }),
-    cameraTint: num('Camera tint, CC units (-60..60; + = toward magenta); default 0.', 0),
-    flashKelvin: num('Bare flash colour temperature, kelvin (2500..10000); default 5500.', 5600, {
-      exclusiveMinimum: 0,
-    }),
-    targetMiredOffset: num(
-      'Extra warmth wanted on the subject, mireds (-200..200; + = warmer). With the camera ' +
-        'white balance it must name real light: 10⁶ / cameraKelvin + offset within 1500..20000 K.',
+    cameraKelvin: ranged('Camera white balance, kelvin.', 1500, 20000, 3800),
+    cameraTint: ranged('Camera tint, CC units (+ = toward magenta); default 0.', -60, 60, 0),
+    flashKelvin: ranged('Bare flash colour temperature, kelvin; default 5500.', 2500, 10000, 5600),
+    targetMiredOffset: ranged(
+      'Extra warmth wanted on the subject, mireds (+ = warmer). With the camera white balance ' +
+        'it must name real light: 10⁶ / cameraKelvin + offset within 1500..20000 K.',
+      -200,
+      200,
       10,
     ),
     gels: {
@@ -31,28 +31,25 @@ export const balanceRequestSchema: ObjectSchema = {
         required: ['name', 'miredShift', 'lossStops'],
         properties: {
           name: str('Your name for the gel.', 'Half warming', { minLength: 1, maxLength: 60 }),
-          miredShift: num(
-            'Mired shift of the gel (-400..400; + = warmer, CTO; − = cooler, CTB).',
+          miredShift: ranged(
+            'Mired shift of the gel (+ = warmer, CTO; − = cooler, CTB).',
+            -400,
+            400,
             81,
           ),
-          greenShift: num('Green shift, CC units (-60..60; + = plus-green); default 0.', 0),
-          lossStops: num('Light the gel absorbs, stops (0..6).', 0.33),
+          greenShift: ranged('Green shift, CC units (+ = plus-green); default 0.', -60, 60, 0),
+          lossStops: ranged('Light the gel absorbs, stops.', 0, 6, 0.33),
         },
       },
     },
-    maxGels: {
-      type: 'integer',
-      minimum: 0,
-      maximum: 4,
-      description: 'Most gels in one stack (0..4); default 3.',
-      example: 2,
-    },
-    miredTolerance: num(
-      'Mireds of error accepted to use fewer gels (0..50); default 0 (closest stack). Any stack ' +
-        'within this of the required shift is a match; the match with the fewest gels, then the ' +
-        'least light loss, is chosen.',
+    maxGels: rangedInt('Most gels in one stack; default 3.', 0, 4, 2),
+    miredTolerance: ranged(
+      'Mireds of error accepted to use fewer gels; default 0 (closest stack). Any stack within ' +
+        'this of the required shift is a match; the match with the fewest gels, then the least ' +
+        'light loss, is chosen.',
+      0,
+      50,
       10,
-      { minimum: 0, maximum: 50 },
     ),
   },
 };

@@ -1,5 +1,5 @@
 import { schemaDto, type ObjectSchema } from '../validation/schema-dto.js';
-import { bool, nullableNum, num, object, outNum, str, WARNINGS } from './common.js';
+import { bool, nullableNum, object, outNum, ranged, str, WARNINGS } from './common.js';
 
 export const exposureRequestSchema: ObjectSchema = {
   type: 'object',
@@ -13,33 +13,59 @@ export const exposureRequestSchema: ObjectSchema = {
     'high-speed-sync warnings. Give ev100 or place.',
   required: [],
   properties: {
-    ev100: num('Scene or incident exposure value at ISO 100, EV (-10..25).', 9),
-    aperture: num('f-number (0.7..128).', 4),
-    shutterSeconds: num('Shutter time, seconds (1/64000..3600); plain mode only.', 0.0125, {
-      exclusiveMinimum: 0,
-    }),
-    iso: num('ISO speed (3..409600).', 400),
+    ev100: ranged('Scene or incident exposure value at ISO 100, EV.', -10, 25, 9),
+    aperture: ranged('f-number.', 0.7, 128, 4),
+    shutterSeconds: ranged('Shutter time, seconds; plain mode only.', 1 / 64000, 3600, 0.0125),
+    iso: ranged('ISO speed.', 3, 409600, 400),
     place: {
       type: 'object',
       additionalProperties: false,
       description: 'Background mode: estimate the ambient EV100 here (USNO Circular 171 model).',
       required: ['latitude', 'longitude', 'time'],
       properties: {
-        latitude: num('Degrees, -90..90.', 51.5),
-        longitude: num('Degrees, -180..180.', -0.1),
+        latitude: ranged('Degrees, north positive.', -90, 90, 51.5),
+        longitude: ranged('Degrees, east positive.', -180, 180, -0.1),
         time: str('ISO 8601 instant with offset.', '2026-06-21T21:40:00+01:00'),
         sky: str('Sky condition.', 'clear', { enum: ['clear', 'partly-cloudy', 'overcast'] }),
       },
     },
-    biasStops: num('Background mode: stops brighter (+) or darker (-) than metered, -6..6.', -1),
-    isoMin: num('Background mode: lowest ISO the solver may use (default 100).', 100),
-    isoMax: num('Background mode: highest ISO the solver may use (default 6400).', 3200),
-    apertureMin: num('Background mode: widest f-number when aperture is solved (default 1.4).'),
-    apertureMax: num('Background mode: narrowest f-number when aperture is solved (default 22).'),
+    biasStops: ranged('Background mode: stops brighter (+) or darker (-) than metered.', -6, 6, -1),
+    isoMin: ranged('Background mode: lowest ISO the solver may use (default 100).', 3, 409600, 100),
+    isoMax: ranged(
+      'Background mode: highest ISO the solver may use, at least isoMin (default 6400, or isoMin ' +
+        'when that is higher).',
+      3,
+      409600,
+      3200,
+    ),
+    apertureMin: ranged(
+      'Background mode: widest f-number when aperture is solved (default 1.4).',
+      0.7,
+      128,
+    ),
+    apertureMax: ranged(
+      'Background mode: narrowest f-number when aperture is solved, at least apertureMin ' +
+        '(default 22, or apertureMin when that is higher).',
+      0.7,
+      128,
+    ),
     support: str('Background mode: camera support.', 'handheld', { enum: ['handheld', 'tripod'] }),
-    slowestHandheldSeconds: num('Background mode: slowest hand-held shutter, s (default 1/60).'),
-    slowestTripodSeconds: num('Background mode: slowest tripod shutter, s (default 30).'),
-    flashSyncSeconds: num('Background mode: flash sync speed, s (e.g. 0.005 for 1/200).', 0.005),
+    slowestHandheldSeconds: ranged(
+      'Background mode: slowest hand-held shutter, s (default 1/60).',
+      1 / 8000,
+      30,
+    ),
+    slowestTripodSeconds: ranged(
+      'Background mode: slowest tripod shutter, s (default 30).',
+      1 / 8000,
+      3600,
+    ),
+    flashSyncSeconds: ranged(
+      'Background mode: flash sync speed, s (e.g. 0.005 for 1/200).',
+      1 / 16000,
+      1,
+      0.005,
+    ),
   },
 };
 

@@ -1,5 +1,5 @@
 import { schemaDto, type ObjectSchema } from '../validation/schema-dto.js';
-import { lengthUnit, nullableNum, num, outNum, str } from './common.js';
+import { lengthUnit, nullableNum, outNum, ranged, rangedInt, str } from './common.js';
 
 export const falloffRequestSchema: ObjectSchema = {
   type: 'object',
@@ -7,19 +7,29 @@ export const falloffRequestSchema: ObjectSchema = {
   description: 'Inverse-square falloff from the subject to the background and ground.',
   required: ['subjectDistance'],
   properties: {
-    subjectDistance: num('Light-to-subject distance in distanceUnit (0.05..1000).', 2.5),
-    backgroundDistance: num('Light-to-background distance in distanceUnit.', 9),
-    groundDistance: num('Light-to-nearest-ground-in-frame distance in distanceUnit.', 2.2),
+    subjectDistance: ranged('Light-to-subject distance in distanceUnit.', 0.05, 1000, 2.5),
+    backgroundDistance: ranged('Light-to-background distance in distanceUnit.', 0.05, 1000, 9),
+    groundDistance: ranged(
+      'Light-to-nearest-ground-in-frame distance in distanceUnit.',
+      0.05,
+      1000,
+      2.2,
+    ),
     distanceUnit: lengthUnit('Unit of every distance.'),
-    from: num('Start of the chart series, in distanceUnit; default subjectDistance / 2.', 1),
-    to: num('End of the chart series, in distanceUnit; default 3 × the farthest mark.', 20),
-    points: {
-      type: 'integer',
-      minimum: 2,
-      maximum: 500,
-      description: 'Series points (2..500); default 40, log-spaced.',
-      example: 40,
-    },
+    from: ranged(
+      'Start of the chart series, in distanceUnit; default subjectDistance / 2.',
+      0.05,
+      1000,
+      1,
+    ),
+    to: ranged(
+      'End of the chart series, in distanceUnit, at least from; default 3 × the farthest mark, ' +
+        'at most 1000.',
+      0.05,
+      1000,
+      20,
+    ),
+    points: rangedInt('Series points; default 40, log-spaced.', 2, 500, 40),
   },
 };
 

@@ -1,5 +1,5 @@
 import { schemaDto, type ObjectSchema } from '../validation/schema-dto.js';
-import { bool, lengthUnit, num, outNum, str, WARNINGS } from './common.js';
+import { bool, lengthUnit, outNum, ranged, str, WARNINGS } from './common.js';
 
 export const flashRequestSchema: ObjectSchema = {
   type: 'object',
@@ -9,22 +9,26 @@ export const flashRequestSchema: ObjectSchema = {
     'GN = distance × f-number at ISO 100, full power).',
   required: ['guideNumber', 'distance', 'aperture'],
   properties: {
-    guideNumber: num('Guide number at ISO 100 and full power, in guideNumberUnit (1..500).', 60),
+    guideNumber: ranged('Guide number at ISO 100 and full power, in guideNumberUnit.', 1, 500, 60),
     guideNumberUnit: lengthUnit('Unit of the guide number.'),
-    distance: num('Light-to-subject distance in distanceUnit (0.05..1000).', 3),
+    distance: ranged('Light-to-subject distance in distanceUnit.', 0.05, 1000, 3),
     distanceUnit: lengthUnit('Unit of the distance.'),
-    aperture: num('f-number (0.7..128).', 5.6),
-    iso: num('ISO speed (3..409600); default 100.', 200),
-    modifierLossStops: num('Light lost in the modifier, stops (0..8).', 1.5),
-    gelLossStops: num('Light lost in gels, stops (0..8).', 0.67),
-    minPowerFraction: num(
+    aperture: ranged('f-number.', 0.7, 128, 5.6),
+    iso: ranged('ISO speed; default 100.', 3, 409600, 200),
+    modifierLossStops: ranged('Light lost in the modifier, stops.', 0, 8, 1.5),
+    gelLossStops: ranged('Light lost in gels, stops.', 0, 8, 0.67),
+    minPowerFraction: ranged(
       'Lowest power the light can go to, as a fraction of full; default 1/256.',
+      1 / 4096,
+      1,
       0.00390625,
     ),
-    exposureStops: num(
+    exposureStops: ranged(
       'Exposure this light should give on its own, stops relative to a correct exposure at ' +
-        'aperture and iso (-6..6); default 0. -1 when the ambient already gives half the ' +
-        'exposure on the subject; +1 for a rim one stop brighter.',
+        'aperture and iso; default 0. -1 when the ambient already gives half the exposure on ' +
+        'the subject; +1 for a rim one stop brighter.',
+      -6,
+      6,
       0,
     ),
   },

@@ -4,7 +4,7 @@ import { backlightResponseSchema } from './backlight.schema.js';
 import { balanceRequestSchema, balanceResponseSchema, SCENE_SWATCH } from './balance.schema.js';
 import { exposureResponseSchema } from './exposure.schema.js';
 import { flashResponseSchema } from './flash.schema.js';
-import { bool, lengthUnit, num, object, outNum, str, WARNINGS } from './common.js';
+import { bool, lengthUnit, object, outNum, ranged, rangedInt, str, WARNINGS } from './common.js';
 import { twilightRequestSchema, twilightResponseSchema } from './twilight.schema.js';
 
 const closed = (
@@ -38,52 +38,80 @@ export const setupRequestSchema: ObjectSchema = {
     sky: tw.sky!,
     stepMinutes: tw.stepMinutes!,
     camera: closed('Camera limits and taste.', {
-      aperture: num('Working f-number; default 5.6.', 4),
-      isoMin: num('Lowest ISO to use.', 100),
-      isoMax: num('ISO ceiling; default 6400.', 3200),
+      aperture: ranged('Working f-number; default 5.6.', 0.7, 128, 4),
+      isoMin: ranged('Lowest ISO to use; default 100.', 3, 409600, 100),
+      isoMax: ranged(
+        'ISO ceiling, at least isoMin; default 6400 (or isoMin when that is higher).',
+        3,
+        409600,
+        3200,
+      ),
       support: str(
         'Handheld (the shutter stops at 1/60 s before ISO rises) or on a tripod (it may go to ' +
           '1/15 s, where a person starts to ghost).',
         'handheld',
         { enum: ['handheld', 'tripod'] },
       ),
-      slowestHandheldSeconds: num('Slowest handheld shutter time, seconds.', 0.0167),
-      flashSyncSeconds: num('Flash sync speed, seconds; default 1/200.', 0.005),
-      biasStops: num('Background bias, stops (taste); default −1.', -1),
-      kelvin: num('Camera white balance, kelvin; default 3800.', 3800),
-      tint: num('Camera tint, CC units.', 0),
+      slowestHandheldSeconds: ranged(
+        'Slowest handheld shutter time, seconds; default 1/60.',
+        1 / 8000,
+        30,
+        0.0167,
+      ),
+      flashSyncSeconds: ranged('Flash sync speed, seconds; default 1/200.', 1 / 16000, 1, 0.005),
+      biasStops: ranged('Background bias, stops (taste); default −1.', -6, 6, -1),
+      kelvin: ranged('Camera white balance, kelvin; default 3800.', 1500, 20000, 3800),
+      tint: ranged('Camera tint, CC units (+ = toward magenta); default 0.', -60, 60, 0),
     }),
     key: closed(
       'The key light.',
       {
-        guideNumber: num('Guide number at ISO 100, full power, in guideNumberUnit.', 60),
+        guideNumber: ranged('Guide number at ISO 100, full power, in guideNumberUnit.', 1, 500, 60),
         guideNumberUnit: lengthUnit('Unit of the guide number.'),
-        distance: num('Light-to-subject distance in distanceUnit.', 2.5),
+        distance: ranged('Light-to-subject distance in distanceUnit.', 0.1, 160, 2.5),
         distanceUnit: lengthUnit('Unit of the distances.'),
-        angleFromCameraDeg: num('Angle of the key from the camera axis, degrees; default 60.', 45),
+        angleFromCameraDeg: ranged(
+          'Angle of the key from the camera axis, degrees; default 60.',
+          0,
+          180,
+          45,
+        ),
         modifier: str('Modifier kind (see the math library’s modifier list).', undefined, {
           maxLength: 40,
         }),
-        modifierSize: num('Modifier size in distanceUnit.', 0.9),
-        modifierLossStops: num('Light lost in the modifier, stops.', 1.3),
+        modifierSize: ranged('Modifier size in distanceUnit.', 0.01, 33, 0.9),
+        modifierLossStops: ranged('Light lost in the modifier, stops.', 0, 8, 1.3),
       },
       ['guideNumber', 'distance'],
     ),
     rim: closed(
       'An optional rim light behind the subject.',
       {
-        guideNumber: num('Guide number at ISO 100, full power.', 45),
+        guideNumber: ranged('Guide number at ISO 100, full power, in guideNumberUnit.', 1, 500, 45),
         guideNumberUnit: lengthUnit('Unit of the guide number.'),
-        distanceBehind: num('Horizontal distance behind the subject.', 3),
-        lightHeight: num('Height of the light above the ground.', 2),
+        distanceBehind: ranged(
+          'Horizontal distance behind the subject, in distanceUnit; in metres at most 50 (164 is ' +
+            'the limit in feet).',
+          0.1,
+          164,
+          3,
+        ),
+        lightHeight: ranged(
+          'Height of the light above the ground, in distanceUnit; in metres at most 10 (33 is the limit in feet).',
+          0,
+          33,
+          2,
+        ),
         distanceUnit: lengthUnit('Unit of the distances.'),
-        beamAngleDeg: num('Full beam angle, degrees.', 40),
-        rimOverKeyStops: num(
+        beamAngleDeg: ranged('Full beam angle, degrees; default 100.', 1, 180, 40),
+        rimOverKeyStops: ranged(
           'Rim brighter than the lit side (key plus ambient, as a meter reads it), stops; default 1.',
+          -6,
+          6,
           1,
         ),
         gelled: bool('Gel the rim like the key (default true).', true),
-        modifierLossStops: num('Light lost in the modifier, stops.', 0),
+        modifierLossStops: ranged('Light lost in the modifier, stops.', 0, 8, 0),
       },
       ['guideNumber', 'distanceBehind', 'lightHeight'],
     ),
@@ -92,21 +120,20 @@ export const setupRequestSchema: ObjectSchema = {
     gels: bal.gels!,
     maxGels: bal.maxGels!,
     miredTolerance: bal.miredTolerance!,
-    backgroundDistance: num('Key-light-to-background distance, in key.distanceUnit.', 12),
+    backgroundDistance: ranged(
+      'Key-light-to-background distance, in key.distanceUnit.',
+      0.05,
+      1000,
+      12,
+    ),
     conditions: closed('Site conditions; they add safety cautions.', {
-      windKmh: num('Wind speed, km/h.', 15),
+      windKmh: ranged('Wind speed, km/h.', 0, 400, 15),
       nearRoad: bool('Working near a road.', false),
       nearWater: bool('Working near water.', true),
       coldFogOrHaze: bool('Using cold fog or haze.', false),
       modellingLamps: bool('Using hot modelling lamps.', false),
     }),
-    suggestions: {
-      type: 'integer',
-      minimum: 1,
-      maximum: 10,
-      description: 'How many suggested minutes (1..10); default 3.',
-      example: 3,
-    },
+    suggestions: rangedInt('How many suggested minutes; default 3.', 1, 10, 3),
   },
 };
 

@@ -1,7 +1,7 @@
 import { MISSING_REASONS } from '@lumenwright/shared';
 import type { JsonSchema } from '../validation/json-schema.js';
 import { schemaDto, type ObjectSchema } from '../validation/schema-dto.js';
-import { num, object, outNum, str } from './common.js';
+import { object, outNum, ranged, str } from './common.js';
 
 const band = (description: string): JsonSchema => ({
   type: 'object',
@@ -9,8 +9,8 @@ const band = (description: string): JsonSchema => ({
   description,
   required: ['upperDeg', 'lowerDeg'],
   properties: {
-    upperDeg: num('Upper sun altitude, degrees (-18..20).', 6),
-    lowerDeg: num('Lower sun altitude, degrees (-18..20), below upperDeg.', -4),
+    upperDeg: ranged('Upper sun altitude, degrees.', -18, 20, 6),
+    lowerDeg: ranged('Lower sun altitude, degrees, below upperDeg.', -18, 20, -4),
   },
 });
 
@@ -20,14 +20,14 @@ export const twilightRequestSchema: ObjectSchema = {
   description: 'Sun events, evening windows and the ambient-light timeline for one local date.',
   required: ['latitude', 'longitude', 'date', 'timeZone'],
   properties: {
-    latitude: num('Degrees, north positive (-90..90).', 51.507, { minimum: -90, maximum: 90 }),
-    longitude: num('Degrees, east positive (-180..180).', -0.1, { minimum: -180, maximum: 180 }),
+    latitude: ranged('Degrees, north positive.', -90, 90, 51.507),
+    longitude: ranged('Degrees, east positive.', -180, 180, -0.1),
     date: str('Local calendar date, YYYY-MM-DD (1900..2100).', '2026-06-20', { format: 'date' }),
     timeZone: str('IANA time zone name.', 'Europe/London', { minLength: 1, maxLength: 64 }),
-    elevation: num('Observer height above the visible horizon, metres (0..9000).', 0),
+    elevation: ranged('Observer height above the visible horizon, metres.', 0, 9000, 0),
     goldenHour: band('Golden-hour band; default +6° to −4° (common practice, no standard).'),
     blueHour: band('Blue-hour band; default −4° to −8° (common practice, no standard).'),
-    stepMinutes: num('Ambient timeline step, minutes (0.5..60); default 2.', 5),
+    stepMinutes: ranged('Ambient timeline step, minutes; default 2.', 0.5, 60, 5),
     sky: str('Sky condition for the ambient estimate; default clear.', 'clear', {
       enum: ['clear', 'partly-cloudy', 'overcast'],
     }),

@@ -45,7 +45,16 @@ describe('compiled JSON-schema validator', () => {
 
   it('enforces bounds, integers, enums, closed objects and calendar dates', () => {
     expect(balance({ cameraKelvin: 0 })).toEqual([
-      { field: 'cameraKelvin', reason: 'must be greater than 0' },
+      { field: 'cameraKelvin', reason: 'must be at least 1500' },
+    ]);
+    expect(balance({ cameraKelvin: 20001 })).toEqual([
+      { field: 'cameraKelvin', reason: 'must be at most 20000' },
+    ]);
+    const open = compileSchema({ type: 'number', exclusiveMinimum: 0, exclusiveMaximum: 1 });
+    expect([open(0), open(1), open(0.5)]).toEqual([
+      [{ field: 'body', reason: 'must be greater than 0' }],
+      [{ field: 'body', reason: 'must be less than 1' }],
+      [],
     ]);
     expect(balance({ cameraKelvin: 3800, maxGels: 1.5 })).toEqual([
       { field: 'maxGels', reason: 'must be a whole number' },
