@@ -146,3 +146,33 @@ describe('planDuskSetup', () => {
     expect(JSON.parse(JSON.stringify(p))).toEqual(p);
   });
 });
+
+describe('planDuskSetup names fields as its input does', () => {
+  // Field paths are the caller's: the balance solver's own names must not leak out.
+  const base = {
+    latitude: 54.21,
+    longitude: -2.47,
+    date: '2026-09-12',
+    timeZone: 'Europe/London',
+    key: { guideNumber: 40, distance: 3 },
+  };
+  const fieldOf = (input: unknown) => {
+    try {
+      planDuskSetup(input as never);
+    } catch (e) {
+      return (e as { field?: string }).field;
+    }
+    return undefined;
+  };
+  it('camera.tint, not cameraTint', () => {
+    expect(fieldOf({ ...base, camera: { tint: 99 } })).toBe('camera.tint');
+  });
+  it('rim.rimOverKeyStops, not rim.exposureStops, even on a polar night with no minute', () => {
+    const rim = { guideNumber: 40, distanceBehind: 2.5, lightHeight: 1.2, rimOverKeyStops: 9 };
+    expect(fieldOf({ ...base, rim })).toBe('rim.rimOverKeyStops');
+    // 78° N in December: the sun stays far below the horizon all day (polar night).
+    expect(fieldOf({ ...base, latitude: 78.2, longitude: 15.6, date: '2026-12-15', rim })).toBe(
+      'rim.rimOverKeyStops',
+    );
+  });
+});

@@ -1,3 +1,4 @@
+import { LightingInputError } from '../errors.js';
 import { cautionsFor, type Caution } from './cautions.js';
 import { prefixed, readSetup, type DuskSetupInput } from './setup-input.js';
 import { solveBalance, type BalanceResult } from '../color/balance.js';
@@ -151,7 +152,7 @@ function minuteAt(s: Setup, p: AmbientPoint, gelLoss: number): SuggestedMinute {
 
 function rimPower(s: Setup, bg: BackgroundExposureResult, gelLoss: number): FlashResult {
   const r = s.rim as Record<string, unknown>;
-  const over = typeof r.rimOverKeyStops === 'number' ? r.rimOverKeyStops : 1;
+  const over = s.rimOverKeyStops;
   const geometry = prefixed('rim', () => computeBacklight(r as never));
   return prefixed('rim', () =>
     computeFlash({
@@ -178,6 +179,17 @@ function pickSuggestions(all: SuggestedMinute[], n: number): SuggestedMinute[] {
   );
 }
 
+/** Run `fn`, naming a field of the inner call as the setup's input names it. */
+function renamed<T>(names: Record<string, string>, fn: () => T): T {
+  try {
+    return fn();
+  } catch (e) {
+    if (e instanceof LightingInputError && names[e.field] !== undefined)
+      throw new LightingInputError(names[e.field] as string, e.reason);
+    throw e;
+  }
+}
+
 /**
  * The whole dusk shot plan: window and best minutes, background exposure at each, white
  * balance and gels, key and rim power and placement, the expected look and the cautions.
@@ -194,15 +206,17 @@ export function planDuskSetup(input: DuskSetupInput): DuskSetupPlan {
     sky: o.sky,
     stepMinutes: o.stepMinutes,
   } as never);
-  const balance = solveBalance({
-    cameraKelvin: s.kelvin,
-    cameraTint: s.cam.tint,
-    flashKelvin: o.flashKelvin,
-    targetMiredOffset: o.targetMiredOffset,
-    gels: o.gels,
-    maxGels: o.maxGels,
-    miredTolerance: o.miredTolerance,
-  } as never);
+  const balance = renamed({ cameraTint: 'camera.tint', cameraKelvin: 'camera.kelvin' }, () =>
+    solveBalance({
+      cameraKelvin: s.kelvin,
+      cameraTint: s.cam.tint,
+      flashKelvin: o.flashKelvin,
+      targetMiredOffset: o.targetMiredOffset,
+      gels: o.gels,
+      maxGels: o.maxGels,
+      miredTolerance: o.miredTolerance,
+    } as never),
+  );
   const win = windowPoints(tw);
   const minutes = win.points.map((p) => minuteAt(s, p, balance.gelLossStops));
   const usable = minutes.filter((m) => m.usable);

@@ -97,13 +97,19 @@ export function readSetup(input: DuskSetupInput) {
   const cam = o.camera === undefined ? {} : requireObject('camera', o.camera);
   const key = requireObject('key', o.key);
   const cond = o.conditions === undefined ? {} : requireObject('conditions', o.conditions);
+  const rim = o.rim === undefined ? undefined : requireObject('rim', o.rim);
   const modifier = requireOneOf('key.modifier', key.modifier, MODIFIER_NAMES, 'softbox');
   const preset = MODIFIERS[modifier];
   return {
     o,
     cam,
     key,
-    rim: o.rim === undefined ? undefined : requireObject('rim', o.rim),
+    rim,
+    // Checked here, not only when a minute is planned: a polar night plans no minute.
+    rimOverKeyStops: optionalNumber('rim.rimOverKeyStops', rim?.rimOverKeyStops, 1, {
+      min: -6,
+      max: 6,
+    }),
     modifier,
     modifierLoss: optionalNumber('key.modifierLossStops', key.modifierLossStops, preset.lossStops, {
       min: 0,
