@@ -156,16 +156,8 @@ const CROSS_FIELD = new Set([
   'twilight blueHour.lowerDeg max',
 ]);
 
-/**
- * Fields the library names differently from the request when it refuses them, because the setup
- * planner hands them on under another name (setup/dusk-setup.ts: camera.tint goes to the balance
- * solver as cameraTint, rim.rimOverKeyStops to the rim's flash as exposureStops). The route still
- * answers with the request's own name: the schema refuses these before the library sees them.
- */
-const LIBRARY_NAME: Record<string, string> = {
-  'setup camera.tint': 'cameraTint',
-  'setup rim.rimOverKeyStops': 'rim.exposureStops',
-};
+/** Fields the library names differently from the request when it refuses them: none now. */
+const LIBRARY_NAME: Record<string, string> = {};
 
 interface NumericField {
   path: string;
