@@ -243,6 +243,23 @@ describe('the console in a real browser', () => {
       const width = await phone.page.evaluate(() => document.documentElement.scrollWidth);
       expect(width).toBeLessThanOrEqual(390);
       await screenshot(phone.page, 'phone-setups');
+      // The owner's other pages fit too, and each table's row actions are in view (rows become
+      // cards on a phone): the Keys page's Revoke and the Team page's role select.
+      for (const [route, heading] of [
+        ['/team', 'Team'],
+        ['/usage', 'Usage'],
+        ['/keys', 'Keys'],
+        ['/playground', 'Playground'],
+      ] as const) {
+        await phone.page.goto(`${baseUrl}${route}`);
+        await phone.page.getByRole('heading', { level: 1, name: heading }).waitFor();
+        const wide = await phone.page.evaluate(() => document.documentElement.scrollWidth);
+        expect({ route, wide }).toEqual({ route, wide: 390 });
+      }
+      // Every calculation tab is on screen (they wrap), the Dusk setup one included.
+      const tab = phone.page.getByRole('tab', { name: 'Dusk setup' });
+      const box = await tab.boundingBox();
+      expect(box && box.x >= 0 && box.x + box.width <= 390).toBe(true);
       expect(phone.errors).toEqual([]);
     } finally {
       await phone.close();

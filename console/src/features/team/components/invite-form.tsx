@@ -59,10 +59,11 @@ export function InviteForm({ canGrantOwner, seats }: InviteFormProps) {
     <form
       noValidate
       onSubmit={onSubmit}
-      className="grid gap-4 sm:grid-cols-[2fr_1fr_auto] sm:items-start"
+      className="grid grid-cols-[minmax(0,1fr)] gap-4 sm:grid-cols-[2fr_minmax(0,1fr)_auto] sm:items-start"
     >
       <TextField label="Email" type="email" error={errors.email?.message} {...register('email')} />
       <SelectField
+        className="min-w-0"
         label="Role"
         options={roleOptions(canGrantOwner)}
         error={errors.role?.message}
