@@ -86,7 +86,10 @@ describe('a dusk portrait planned on a phone', () => {
     await fill(place, 'Time zone', 'Europe/Rome');
 
     // Site conditions only change the cautions: by the water, with a breeze.
-    await page.locator('summary', { hasText: 'Site conditions' }).click();
+    // Open from the start: the safety questions come before any plan.
+    await expect(
+      page.locator('details', { hasText: 'Site conditions' }).getAttribute('open'),
+    ).resolves.toBe('');
     await page.getByLabel('Near water').check();
     await page.getByLabel('Forecast wind (km/h)').fill('30');
 

@@ -1,6 +1,6 @@
 import { getPosition } from 'suncalc';
 import { describe, expect, it } from 'vitest';
-import { computeFlash, planDuskSetup } from '../src/index.js';
+import { CAUTION_DEFERENCE, cautionAdvice, computeFlash, planDuskSetup } from '../src/index.js';
 
 const input = {
   latitude: 40.7128,
@@ -112,6 +112,11 @@ describe('planDuskSetup', () => {
     for (const c of plan.cautions) expect(c.text).toMatch(/local codes, venue rules/);
     expect(plan.cautions.find((c) => c.id === 'stands-wind')?.text).toMatch(/strike/);
     expect(plan.cautions.find((c) => c.id === 'cold-fog-haze')?.text).toMatch(/frostbite/);
+    // Lists that state the deference once show each caution's advice without it.
+    for (const c of plan.cautions) {
+      expect(`${cautionAdvice(c)} ${CAUTION_DEFERENCE}`).toBe(c.text);
+      expect(cautionAdvice(c)).not.toMatch(/local codes/);
+    }
   });
   it('shows the look as swatches, including the rim bare and gelled', () => {
     const ids = plan.look.map((s) => s.id);

@@ -21,6 +21,17 @@ export interface CautionConditions {
 const DEFER =
   ' Follow local codes, venue rules and permit conditions, and the instructions of the equipment maker; where they say more, they win.';
 
+/** The sentence every caution ends with: local rules and the makers' instructions come first. */
+export const CAUTION_DEFERENCE = DEFER.trim();
+
+/**
+ * A caution's own advice without the closing deference, for lists that state the deference once
+ * (the console, the shot sheet). API answers keep it on every caution, so each stands alone.
+ */
+export function cautionAdvice(c: Caution): string {
+  return c.text.endsWith(DEFER) ? c.text.slice(0, -DEFER.length) : c.text;
+}
+
 /** Gusts above this speed, km/h: take light stands and large modifiers down. Common practice, no source. */
 export const WIND_STRIKE_KMH = 30;
 

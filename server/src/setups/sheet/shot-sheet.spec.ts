@@ -1,6 +1,12 @@
 // The shot sheet says which end of a light's range a minute falls off: a key too weak for the
 // distance is "over full power", one too strong for the closest setting is "below the lowest power".
-import { planDuskSetup, type DuskSetupInput } from '@lumenwright/shared';
+import {
+  CAUTION_DEFERENCE,
+  cautionAdvice,
+  planDuskSetup,
+  type DuskSetupInput,
+} from '@lumenwright/shared';
+import { esc } from './escape.js';
 import { renderShotSheet } from './shot-sheet.js';
 
 const BASE: DuskSetupInput = {
@@ -62,5 +68,27 @@ describe('shot sheet power column', () => {
       const marked = row.includes('power)</span>');
       expect(marked).toBe(!plan.suggestedMinutes[i]!.keyFlash.feasible);
     });
+  });
+});
+
+describe('shot sheet cautions', () => {
+  it('says the deference to local rules once, not after every caution', () => {
+    const plan = planDuskSetup({ ...BASE, conditions: { nearRoad: true, nearWater: true } });
+    const html = renderShotSheet({
+      name: 'Cautions check',
+      venue: null,
+      notes: null,
+      date: BASE.date,
+      timeZone: BASE.timeZone,
+      author: null,
+      plan,
+      resolvedInputs: BASE as unknown as Record<string, unknown>,
+    });
+    const section = /<section class="cautions"[\s\S]*?<\/section>/.exec(html)?.[0] ?? '';
+    expect(section.split(esc(CAUTION_DEFERENCE)).length - 1).toBe(0);
+    expect(section).toMatch(/Local codes, venue rules/);
+    for (const c of plan.cautions) expect(section).toContain(esc(cautionAdvice(c)));
+    // Every caution in the API answer still carries it, so each stands alone.
+    for (const c of plan.cautions) expect(c.text.endsWith(CAUTION_DEFERENCE)).toBe(true);
   });
 });

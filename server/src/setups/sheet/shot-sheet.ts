@@ -1,6 +1,6 @@
 // The printable shot sheet: the plan, a top-down diagram, gels and compensation, and the safety
 // cautions (those the conditions call for, then the general ones for any dusk shoot).
-import { cautionsFor, type Caution, type DuskSetupPlan } from '@lumenwright/shared';
+import { cautionAdvice, cautionsFor, type Caution, type DuskSetupPlan } from '@lumenwright/shared';
 import { topDownDiagram } from './diagram.js';
 import { clock, esc, fmt } from './escape.js';
 import { SHEET_CSS } from './sheet-style.js';
@@ -167,11 +167,12 @@ function colour(p: DuskSetupPlan): string {
 
 function cautions(p: DuskSetupPlan): string {
   const shown = new Set(p.cautions.map((c) => c.id));
-  const listed = p.cautions
-    .map((c) => `<li><strong>${esc(c.title)}.</strong> ${esc(c.text)}</li>`)
-    .join('');
+  // The deference is said once, above the list, not after every caution.
+  const item = (c: Caution) =>
+    `<li><strong>${esc(c.title)}.</strong> ${esc(cautionAdvice(c))}</li>`;
+  const listed = p.cautions.map(item).join('');
   const also = ALL_CAUTIONS.filter((c) => !shown.has(c.id))
-    .map((c) => `<li><strong>${esc(c.title)}.</strong> ${esc(c.text)}</li>`)
+    .map(item)
     .join('');
   return `<section class="cautions" id="cautions"><h2>Safety</h2>
     <p>${esc(DEFER_NOTE)}</p><ul>${listed}</ul>

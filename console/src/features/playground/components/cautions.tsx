@@ -1,4 +1,4 @@
-import type { Caution } from '@lumenwright/shared';
+import { CAUTION_DEFERENCE, cautionAdvice, type Caution } from '@lumenwright/shared';
 
 interface CautionsProps {
   /** From shared's `cautionsFor` (or a setup plan's `cautions`), so API and console agree. */
@@ -24,13 +24,13 @@ export function Cautions({ cautions, className = '' }: CautionsProps) {
         {cautions.map((caution) => (
           <li key={caution.id} data-caution={caution.id}>
             <strong className="font-semibold text-ink">{caution.title}.</strong>{' '}
-            <span className="text-ink-muted">{caution.text}</span>
+            <span className="text-ink-muted">{cautionAdvice(caution)}</span>
           </li>
         ))}
       </ul>
       <p className="mt-3 text-caption text-ink-muted">
-        General reminders, not a safety assessment: local codes, venue rules and licensed practice
-        take precedence.
+        General reminders, not a safety assessment. {CAUTION_DEFERENCE} Electrical work, rigging and
+        special effects are for licensed practice.
       </p>
     </aside>
   );

@@ -7,11 +7,14 @@ const flags = [
   { key: 'modellingLamps', label: 'Modelling lamps on' },
 ] as const;
 
-/** Where the shoot is: this only changes the cautions shown with each result. */
+/**
+ * Where the shoot is: this only changes the cautions shown with each result. Open at first, so
+ * the safety questions are seen before any plan; it can be folded away.
+ */
 export function SiteConditions() {
   const { conditions, setConditions } = usePlaygroundScene();
   return (
-    <details className="rounded-card border border-edge bg-panel p-4">
+    <details open className="rounded-card border border-edge bg-panel p-4">
       <summary className="cursor-pointer text-small font-semibold">
         Site conditions <span className="font-normal text-ink-muted">(for the cautions)</span>
       </summary>
