@@ -18,18 +18,24 @@ const BASE: DuskSetupInput = {
   key: { guideNumber: 40, distance: 3, modifier: 'softbox' },
 };
 
-function sheetFor(key: DuskSetupInput['key']) {
-  const plan = planDuskSetup({ ...BASE, key });
+/** The plan for `input` and its printed sheet. */
+function render(input: DuskSetupInput) {
+  const plan = planDuskSetup(input);
   const html = renderShotSheet({
-    name: 'Range check',
+    name: 'Sheet check',
     venue: null,
     notes: null,
-    date: BASE.date,
-    timeZone: BASE.timeZone,
+    date: input.date,
+    timeZone: input.timeZone,
     author: null,
     plan,
-    resolvedInputs: { ...BASE, key },
+    resolvedInputs: input as unknown as Record<string, unknown>,
   });
+  return { plan, html };
+}
+
+function sheetFor(key: DuskSetupInput['key']) {
+  const { plan, html } = render({ ...BASE, key });
   const table = /<table class="minutes">[\s\S]*?<\/table>/.exec(html)?.[0] ?? '';
   return { plan, table };
 }
@@ -73,17 +79,7 @@ describe('shot sheet power column', () => {
 
 describe('shot sheet cautions', () => {
   it('says the deference to local rules once, not after every caution', () => {
-    const plan = planDuskSetup({ ...BASE, conditions: { nearRoad: true, nearWater: true } });
-    const html = renderShotSheet({
-      name: 'Cautions check',
-      venue: null,
-      notes: null,
-      date: BASE.date,
-      timeZone: BASE.timeZone,
-      author: null,
-      plan,
-      resolvedInputs: BASE as unknown as Record<string, unknown>,
-    });
+    const { plan, html } = render({ ...BASE, conditions: { nearRoad: true, nearWater: true } });
     const section = /<section class="cautions"[\s\S]*?<\/section>/.exec(html)?.[0] ?? '';
     expect(section.split(esc(CAUTION_DEFERENCE)).length - 1).toBe(0);
     expect(section).toMatch(/Local codes, venue rules/);
