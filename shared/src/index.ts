@@ -33,3 +33,4 @@ export * from './setup/cautions.js';
 
 export { METRES_PER_FOOT, toMetres, fromMetres, type LengthUnit } from './units/length.js';
 export { clockIn, clockOf } from './units/time-zone.js';
+export { countOf } from './units/math.js';

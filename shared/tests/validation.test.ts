@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import {
+  countOf,
   clockIn,
   clockOf,
   LightingInputError,
@@ -148,5 +149,14 @@ describe('clockOf / clockIn', () => {
         expect(clockIn(iso, timeZone)).toBe(reference(ms, timeZone));
       }
     }
+  });
+});
+
+describe('countOf', () => {
+  it('is singular only for exactly one (English grammar)', () => {
+    expect(countOf(1, 'stop')).toBe('1 stop');
+    expect(countOf(-1, 'step')).toBe('-1 step');
+    expect(countOf(1.5, 'stop')).toBe('1.5 stops');
+    expect(countOf(0, 'stop')).toBe('0 stops');
   });
 });

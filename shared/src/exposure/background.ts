@@ -3,7 +3,7 @@ import { describeSettings, type ExposureResult, type Warning } from './solve-exp
 import { shutterLabel } from './scales.js';
 import { ambientAt, type AmbientAtInput } from '../twilight/ambient-at.js';
 import { LightingInputError } from '../errors.js';
-import { round } from '../units/math.js';
+import { countOf, round } from '../units/math.js';
 import { maybeNumber, optionalNumber, requireObject, requireOneOf } from '../units/validate.js';
 
 /** Extra flash loss when switching to high-speed sync, stops. Common practice, no source. */
@@ -153,7 +153,7 @@ export function solveBackgroundExposure(input: BackgroundExposureInput): Backgro
   if (shortfall > 0.05) {
     warnings.push({
       code: 'too-dark',
-      message: `Even at the limits the background stays ${round(shortfall, 1)} stops darker than wanted.`,
+      message: `Even at the limits the background stays ${countOf(round(shortfall, 1), 'stop')} darker than wanted.`,
     });
   }
   if (needsTripod && p.support === 'handheld') {
@@ -173,7 +173,7 @@ export function solveBackgroundExposure(input: BackgroundExposureInput): Backgro
   if (exceedsSync) {
     warnings.push({
       code: 'exceeds-sync',
-      message: `${shutterLabel(t)} is faster than sync ${shutterLabel(p.sync as number)}: stop down, add ND, or use high-speed sync and lose about ${round(hssLoss as number, 1)} stops of flash.`,
+      message: `${shutterLabel(t)} is faster than sync ${shutterLabel(p.sync as number)}: stop down, add ND, or use high-speed sync and lose about ${countOf(round(hssLoss as number, 1), 'stop')} of flash.`,
     });
   }
   return {

@@ -7,7 +7,7 @@ import {
   nearestStop,
   shutterLabel,
 } from './scales.js';
-import { round } from '../units/math.js';
+import { countOf, round } from '../units/math.js';
 import { maybeNumber, requireNumber, requireObject } from '../units/validate.js';
 
 /** A warning attached to a result: a stable code plus a sentence for people. */
@@ -95,7 +95,7 @@ export function describeSettings(
   if (Math.abs(offBy) > 0.05) {
     warnings.push({
       code: offBy > 0 ? 'overexposed' : 'underexposed',
-      message: `These settings are ${round(Math.abs(offBy), 1)} stops ${offBy > 0 ? 'over' : 'under'} the metered exposure.`,
+      message: `These settings are ${countOf(round(Math.abs(offBy), 1), 'stop')} ${offBy > 0 ? 'over' : 'under'} the metered exposure.`,
     });
   }
   if (t > 30) {

@@ -1,4 +1,4 @@
-import { DEG, round } from '../units/math.js';
+import { countOf, DEG, round } from '../units/math.js';
 import { fromMetres, requireLengthUnit, toMetres, type LengthUnit } from '../units/length.js';
 import { maybeNumber, optionalNumber, requireNumber, requireObject } from '../units/validate.js';
 
@@ -83,7 +83,7 @@ export function computeBacklight(input: BacklightInput): BacklightResult {
     if (groundVsRim > 0) {
       warnings.push({
         code: 'ground-outshines-rim',
-        message: `The ground in the beam gets ${groundVsRim} stops more light than the rim on the head and will pull the eye from the face: aim higher, add a grid, or raise the light.`,
+        message: `The ground in the beam gets ${countOf(groundVsRim, 'stop')} more light than the rim on the head and will pull the eye from the face: aim higher, add a grid, or raise the light.`,
       });
     }
   }

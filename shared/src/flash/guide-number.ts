@@ -1,6 +1,6 @@
 import { MIN_SCALE_FRACTION, decimalScale, fractionLabel, stopsBelowFull } from './power-scale.js';
 import { apertureLabel } from '../exposure/scales.js';
-import { round } from '../units/math.js';
+import { countOf, round } from '../units/math.js';
 import { fromMetres, requireLengthUnit, toMetres, type LengthUnit } from '../units/length.js';
 import { optionalNumber, requireNumber, requireObject } from '../units/validate.js';
 
@@ -122,7 +122,7 @@ export function computeFlash(input: FlashInput): FlashResult {
     };
     warnings.push({
       code: 'over-full-power',
-      message: `Needs ${round(excess, 1)} stops more than full power.`,
+      message: `Needs ${countOf(round(excess, 1), 'stop')} more than full power.`,
     });
   } else if (tooLittle) {
     const surplus = Math.log2(p.minFraction / fraction);
@@ -132,7 +132,7 @@ export function computeFlash(input: FlashInput): FlashResult {
     };
     warnings.push({
       code: 'below-min-power',
-      message: `Needs ${round(surplus, 1)} stops less than the lowest power: move back, stop down, lower ISO or add ND/diffusion.`,
+      message: `Needs ${countOf(round(surplus, 1), 'stop')} less than the lowest power: move back, stop down, lower ISO or add ND/diffusion.`,
     });
   }
   return {

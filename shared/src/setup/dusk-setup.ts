@@ -15,7 +15,7 @@ import { computeFlash, type FlashResult } from '../flash/guide-number.js';
 import { computeKeyLight, type KeyLightResult } from '../flash/key-light.js';
 import { computeTwilight, type TwilightResult } from '../twilight/compute-twilight.js';
 import type { AmbientPoint } from '../twilight/timeline.js';
-import { round } from '../units/math.js';
+import { countOf, round } from '../units/math.js';
 
 export type { DuskSetupInput } from './setup-input.js';
 
@@ -129,7 +129,7 @@ function minuteAt(s: Setup, p: AmbientPoint, gelLoss: number): SuggestedMinute {
   if (share.overStops > 0.01) {
     keyFlash.warnings.push({
       code: 'ambient-dominates',
-      message: `The ambient alone gives ${Math.round(share.ambient * 100)}% of a correct exposure on the subject; with the key at its least share the lit side comes out ${round(share.overStops, 1)} stops over. Lower the background bias for the key to shape the light.`,
+      message: `The ambient alone gives ${Math.round(share.ambient * 100)}% of a correct exposure on the subject; with the key at its least share the lit side comes out ${countOf(round(share.overStops, 1), 'stop')} over. Lower the background bias for the key to shape the light.`,
     });
   }
   const rimFlash = s.rim ? rimPower(s, background, gelLoss) : null;
@@ -311,7 +311,7 @@ function planWarnings(
     out.push({ code: `rim-${w.code}`, message: w.message });
   out.push({
     code: 'ambient-model',
-    message: `Ambient light is modelled (USNO Circular 171), \u00b1${tw.ambient.uncertaintyStops} stops or more: meter on the night.`,
+    message: `Ambient light is modelled (USNO Circular 171), \u00b1${countOf(tw.ambient.uncertaintyStops, 'stop')} or more: meter on the night.`,
   });
   return out;
 }

@@ -1,6 +1,12 @@
 // The printable shot sheet: the plan, a top-down diagram, gels and compensation, and the safety
 // cautions (those the conditions call for, then the general ones for any dusk shoot).
-import { cautionAdvice, cautionsFor, type Caution, type DuskSetupPlan } from '@lumenwright/shared';
+import {
+  cautionAdvice,
+  cautionsFor,
+  countOf,
+  type Caution,
+  type DuskSetupPlan,
+} from '@lumenwright/shared';
 import { topDownDiagram } from './diagram.js';
 import { clock, esc, fmt } from './escape.js';
 import { SHEET_CSS } from './sheet-style.js';
@@ -159,7 +165,7 @@ function colour(p: DuskSetupPlan): string {
   return `<section><h2>White balance and gels</h2><div class="grid"><dl>
     ${row('Camera white balance', `${fmt(p.whiteBalance.cameraKelvin, 0)} K`)}
     ${row('Flash through the gels', `${fmt(g.resultingFlashKelvin, 0)} K (residual ${fmt(g.residualMired)} mired)`)}
-    ${row('Fine-tune to cancel it', `${fmt(ft.amberBlueSteps, 0)} amber/blue steps${ft.tintCC ? `, tint ${fmt(ft.tintCC)} CC` : ''}`)}
+    ${row('Fine-tune to cancel it', `${countOf(Number(fmt(ft.amberBlueSteps, 0)), 'amber/blue step')}${ft.tintCC ? `, tint ${fmt(ft.tintCC)} CC` : ''}`)}
     ${row('Gel loss', `${fmt(g.gelLossStops, 2)} stops`)}
     ${row('Compensation', `raise flash power ${fmt(g.powerCompensationStops, 2)} stops (already in the powers above)`)}
   </dl><table><thead><tr><th>Gel stack</th><th>Mired</th><th>Loss (stops)</th></tr></thead><tbody>${gels}</tbody></table></div></section>`;
@@ -219,6 +225,6 @@ ${timing(p)}${minutes(p)}${lights(p, s.resolvedInputs)}${colour(p)}${diagram(p, 
 ${warnings ? `<section><h2>Check before the shoot</h2><ul>${warnings}</ul></section>` : ''}
 ${s.notes ? `<section><h2>Notes</h2><p class="notes">${esc(s.notes)}</p></section>` : ''}
 ${cautions(p)}
-<footer>Ambient light is modelled (±${fmt(p.twilight.ambientUncertaintyStops)} stops or more): meter on the night and adjust. Lumenwright shot sheet.</footer>
+<footer>Ambient light is modelled (±${countOf(Number(fmt(p.twilight.ambientUncertaintyStops)), 'stop')} or more): meter on the night and adjust. Lumenwright shot sheet.</footer>
 </main></body></html>`;
 }

@@ -70,7 +70,8 @@ export function FrameResult({ frame }: { frame: Frame }) {
           <li>
             Or set the camera to {colour.whiteBalance.kelvin} K (
             {signed(colour.whiteBalance.miredShift)} mired, about{' '}
-            {signed(colour.whiteBalance.amberBlueSteps)} amber–blue steps).
+            {signed(colour.whiteBalance.amberBlueSteps)} amber–blue step
+            {Math.abs(Number(colour.whiteBalance.amberBlueSteps.toFixed(1))) === 1 ? '' : 's'}).
           </li>
         ) : null}
         {!colour.gel && !colour.whiteBalance ? <li>No correction could be worked out.</li> : null}

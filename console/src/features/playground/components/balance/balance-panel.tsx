@@ -150,7 +150,7 @@ export function BalancePanel() {
                       value:
                         result.whiteBalanceFineTune.amberBlueSteps === 0
                           ? 'none'
-                          : `${signed(result.whiteBalanceFineTune.amberBlueSteps, 0)} steps`,
+                          : `${signed(result.whiteBalanceFineTune.amberBlueSteps, 0)} step${Math.abs(result.whiteBalanceFineTune.amberBlueSteps) === 1 ? '' : 's'}`,
                       hint:
                         result.whiteBalanceFineTune.amberBlueSteps === 0
                           ? undefined
