@@ -59,6 +59,14 @@ function retryAfter(res: Response): number | null {
   return Number.isNaN(at) ? null : Math.max(0, (at - Date.now()) / 1000);
 }
 
+/**
+ * The API's root from a base URL: the spec's paths start with /v1, so a base URL given with /v1
+ * (a common way to write it) would double it and get 404s. Trailing slashes go too.
+ */
+export function apiRoot(baseUrl: string): string {
+  return baseUrl.replace(/\/+$/, '').replace(/\/v1$/, '');
+}
+
 export class Lumenwright {
   private readonly client: Client<paths>;
   private readonly timeoutMs: number;
@@ -71,7 +79,7 @@ export class Lumenwright {
       throw new TypeError('Lumenwright: baseUrl must be an absolute http(s) URL');
     const userFetch = opts.fetch;
     this.client = createClient<paths>({
-      baseUrl: opts.baseUrl.replace(/\/$/, ''),
+      baseUrl: apiRoot(opts.baseUrl),
       // Read the global fetch per call so it can be swapped (tests) after the client is made.
       fetch: (r: Request) => (userFetch ? userFetch(r) : globalThis.fetch(r)),
       headers: { Authorization: `Bearer ${opts.apiKey}` },
@@ -163,7 +171,7 @@ export function createApiClient(opts: {
 }) {
   const userFetch = opts.fetch;
   return createClient<paths>({
-    baseUrl: opts.baseUrl.replace(/\/$/, ''),
+    baseUrl: apiRoot(opts.baseUrl),
     fetch: (r: Request) => (userFetch ? userFetch(r) : globalThis.fetch(r)),
     headers: opts.headers,
     credentials: 'include',

@@ -2,7 +2,7 @@
 // retries on 429 honouring Retry-After, and timeouts.
 import { randomUUID } from 'node:crypto';
 import { beforeAll, describe, expect, inject, it } from 'vitest';
-import { createApiClient, Lumenwright, LumenwrightError } from '../src/index.js';
+import { apiRoot, createApiClient, Lumenwright, LumenwrightError } from '../src/index.js';
 
 const baseUrl = inject('baseUrl');
 
@@ -69,6 +69,15 @@ describe('Lumenwright SDK', () => {
       key: { guideNumber: 60, distance: 2.5 },
     });
     expect(Array.isArray(s.suggestedMinutes)).toBe(true);
+  });
+
+  it('takes a base URL written with /v1 or a trailing slash as the same API', async () => {
+    expect(apiRoot('https://api.example.test/v1/')).toBe('https://api.example.test');
+    expect(apiRoot('https://api.example.test/v1')).toBe('https://api.example.test');
+    expect(apiRoot('https://api.example.test/v1beta')).toBe('https://api.example.test/v1beta');
+    const withV1 = new Lumenwright({ apiKey: await newKey('live'), baseUrl: `${baseUrl}/v1/` });
+    const r = await withV1.balance({ cameraKelvin: 3200 });
+    expect(r.resultingFlashKelvin).toBeGreaterThan(0);
   });
 
   it('throws a LumenwrightError carrying the problem for bad input', async () => {

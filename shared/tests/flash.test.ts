@@ -231,4 +231,14 @@ describe('falloff series', () => {
     expect(d[0]).toBeCloseTo(10, 6);
     for (let i = 1; i < d.length; i++) expect(d[i]).toBeGreaterThan(d[i - 1] as number);
   });
+  it('refuses a series whose end is not beyond its start, naming `to`', () => {
+    expect(() => computeFalloff({ subjectDistance: 2, from: 5, to: 5 })).toThrow(
+      expect.objectContaining({ field: 'to', reason: 'must be beyond from (5)' }),
+    );
+    // From at its largest still leaves room for the default end (1000).
+    expect(computeFalloff({ subjectDistance: 2, from: 999 }).series.at(-1)?.distance).toBeCloseTo(
+      1000,
+      6,
+    );
+  });
 });

@@ -1942,7 +1942,7 @@ export interface components {
        */
       distanceUnit?: 'm' | 'ft';
       /**
-       * @description Start of the chart series, in distanceUnit; default subjectDistance / 2. Range: 0.05 to 1000.
+       * @description Start of the chart series, in distanceUnit; default subjectDistance / 2. Range: 0.05 to 999.
        * @example 1
        */
       from?: number;
@@ -1962,7 +1962,7 @@ export interface components {
        */
       subjectDistance: number;
       /**
-       * @description End of the chart series, in distanceUnit, at least from; default 3 × the farthest mark, at most 1000. Range: 0.05 to 1000.
+       * @description End of the chart series, in distanceUnit, beyond from; default 3 × the farthest mark, at most 1000. Range: 0.05 to 1000.
        * @example 20
        */
       to?: number;
@@ -2073,7 +2073,7 @@ export interface components {
        */
       feasible: boolean;
       /** @description When not feasible: each single change that would fix it (distances in distanceUnit). */
-      fixes?: {
+      fixes: {
         /** @description Distance to move back to (below minimum power). */
         moveBackTo?: number;
         /** @description Distance to move the light to. */
@@ -2112,7 +2112,7 @@ export interface components {
        */
       totalLossStops?: number;
       /** @description Things to look at: a stable code and a sentence for people. */
-      warnings?: {
+      warnings: {
         /** @description Stable warning code. */
         code: string;
         /** @description Explanation. */

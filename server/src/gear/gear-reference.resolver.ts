@@ -86,6 +86,19 @@ export class GearReferenceResolver implements GearResolver {
     const { modifierId, ...rest } = out;
     const m = await this.modifiers.get(org, modifierId as string, `${p}.modifierId`);
     const resolved: Obj = { ...rest, modifierLossStops: m.lossStops };
+    // The saved modifier says what kind it is; a different kind beside it is a contradiction.
+    if (m.kind && rest.modifier !== undefined && rest.modifier !== m.kind) {
+      throw new DomainError(
+        'invalid_input',
+        `${p}.modifier (${String(rest.modifier)}) differs from the kind of ${p}.modifierId (${m.kind}).`,
+        [
+          {
+            field: `${p}.modifier`,
+            reason: `must match ${p}.modifierId's kind (${m.kind}) or be left out`,
+          },
+        ],
+      );
+    }
     if (m.kind && rest.modifier === undefined) resolved.modifier = m.kind;
     if (m.size !== null && rest.modifierSize === undefined) {
       const unit = rest.distanceUnit === 'ft' ? 'ft' : 'm';

@@ -172,6 +172,11 @@ describe('gear by id', () => {
       [{ gelKitId: kit.id, gels: inlineGels(kit) }, 'inputs.gelKitId'],
       [{ gelKitId: 'studio-kit' }, 'inputs.gelKitId'],
       [{ key: { lightId: 42, distance: 2 } }, 'inputs.key.lightId'],
+      // A modifier id with another kind beside it: which one was meant cannot be guessed.
+      [
+        { key: { guideNumber: 60, distance: 2, modifierId: octa.id, modifier: 'umbrella' } },
+        'inputs.key.modifier',
+      ],
     ];
     for (const [patch, field] of cases) {
       const res = await owner.agent

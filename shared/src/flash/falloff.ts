@@ -1,3 +1,4 @@
+import { LightingInputError } from '../errors.js';
 import { round } from '../units/math.js';
 import { requireLengthUnit, type LengthUnit } from '../units/length.js';
 import { maybeNumber, optionalNumber, requireNumber, requireObject } from '../units/validate.js';
@@ -50,11 +51,10 @@ export function computeFalloff(input: FalloffInput): FalloffResult {
   const background = maybeNumber('backgroundDistance', o.backgroundDistance, D_RANGE);
   const ground = maybeNumber('groundDistance', o.groundDistance, D_RANGE);
   const far = Math.max(subject, background ?? 0, ground ?? 0);
-  const from = optionalNumber('from', o.from, subject / 2, D_RANGE);
-  const to = optionalNumber('to', o.to, Math.min(1000, Math.max(far * 3, from * 2)), {
-    min: from,
-    max: 1000,
-  });
+  // The series runs from `from` to a farther `to` (equal ends would chart one point 40 times).
+  const from = optionalNumber('from', o.from, subject / 2, { min: D_RANGE.min, max: 999 });
+  const to = optionalNumber('to', o.to, Math.min(1000, Math.max(far * 3, from * 2)), D_RANGE);
+  if (to <= from) throw new LightingInputError('to', `must be beyond from (${from})`);
   const n = optionalNumber('points', o.points, 40, { min: 2, max: 500, integer: true });
   const rel = (d: number): number => round(-stopsBetween(subject, d), 3);
   const marks: FalloffMark[] = [{ id: 'subject', distance: subject, stopsRelativeToSubject: 0 }];

@@ -19,11 +19,11 @@ export const falloffRequestSchema: ObjectSchema = {
     from: ranged(
       'Start of the chart series, in distanceUnit; default subjectDistance / 2.',
       0.05,
-      1000,
+      999,
       1,
     ),
     to: ranged(
-      'End of the chart series, in distanceUnit, at least from; default 3 × the farthest mark, ' +
+      'End of the chart series, in distanceUnit, beyond from; default 3 × the farthest mark, ' +
         'at most 1000.',
       0.05,
       1000,

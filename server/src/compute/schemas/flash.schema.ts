@@ -36,7 +36,7 @@ export const flashRequestSchema: ObjectSchema = {
 
 export const flashResponseSchema: ObjectSchema = {
   type: 'object',
-  required: ['powerFraction', 'stopsBelowFull', 'feasible'],
+  required: ['powerFraction', 'stopsBelowFull', 'feasible', 'fixes', 'warnings'],
   properties: {
     powerFraction: outNum('Fraction of full power needed (above 1 when not feasible).', 0.125),
     powerLabel: str('Power on the 1/1..1/256 third-stop scale, e.g. "1/8 +0.3".', '1/8'),

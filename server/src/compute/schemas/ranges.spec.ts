@@ -146,10 +146,12 @@ const UNIT_RANGES: Record<
 
 /**
  * Bounds no input can sit on because of a rule between two fields (compute-twilight.ts: a band's
- * lowerDeg must be below its upperDeg, both within -18..20): the library refuses them with that
- * rule, never with the range, which the checks below still confirm.
+ * lowerDeg must be below its upperDeg, both within -18..20; falloff.ts: the series' `to` must lie
+ * beyond `from`, at least 0.05): the library refuses them with that rule, never with the range,
+ * which the checks below still confirm.
  */
 const CROSS_FIELD = new Set([
+  'falloff to min',
   'twilight goldenHour.upperDeg min',
   'twilight goldenHour.lowerDeg max',
   'twilight blueHour.upperDeg min',
