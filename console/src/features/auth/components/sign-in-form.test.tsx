@@ -61,6 +61,33 @@ describe('sign-up form', () => {
   });
 });
 
+describe('sign-in form', () => {
+  it('puts focus back on the password, selected, after a refused sign-in', async () => {
+    stubApi();
+    stubApiOverride('/v1/me', () =>
+      jsonResponse({ title: 'Unauthorized', status: 401 }, 401, 'application/problem+json'),
+    );
+    stubApiOverride('/v1/auth/sign-in', () =>
+      jsonResponse(
+        { title: 'Unauthorized', status: 401, detail: 'Wrong e-mail or password.' },
+        401,
+        'application/problem+json',
+      ),
+    );
+    renderApp('/sign-in');
+    fireEvent.change(await screen.findByLabelText('Email'), {
+      target: { value: 'wren@studio.test' },
+    });
+    const password = screen.getByLabelText('Password') as HTMLInputElement;
+    fireEvent.change(password, { target: { value: 'not-the-password' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Sign in' }));
+    expect(await screen.findByText('Wrong e-mail or password.')).toBeTruthy();
+    await waitFor(() => expect(document.activeElement).toBe(password));
+    expect(password.selectionStart).toBe(0);
+    expect(password.selectionEnd).toBe('not-the-password'.length);
+  });
+});
+
 describe('session gate', () => {
   it('sends a visitor without a session to sign in, remembering where they were going', async () => {
     stubApi();

@@ -21,6 +21,7 @@ export function SignInForm() {
     register,
     handleSubmit,
     setError,
+    setFocus,
     formState: { errors, isSubmitting },
   } = useForm<SignInValues>({ resolver: zodResolver(signInSchema) });
 
@@ -30,7 +31,11 @@ export function SignInForm() {
       await signIn.mutateAsync(values);
       await navigate(safeNext(params.get('next')), { replace: true });
     } catch (error) {
-      setFormError(applyServerErrors(error, ['email', 'password'], setError).formMessage);
+      const result = applyServerErrors(error, ['email', 'password'], setError);
+      setFormError(result.formMessage);
+      // Back to the password (selected) for another try, rather than nowhere: the submit
+      // button was disabled while waiting, which drops focus to the page.
+      if (!result.placed.includes('email')) setFocus('password', { shouldSelect: true });
     }
   });
 
