@@ -288,7 +288,7 @@ describe('accounts and billing in a real browser', () => {
     }
     const quota = studio!.includedCallsPerMonth.toLocaleString('en-US');
     await studioCard.getByText(`${quota} live calls a month`).waitFor();
-    await page.getByText(/^Subscription active; current period ends/).waitFor();
+    await page.getByText(/^Subscription active. The current billing period ends/).waitFor();
 
     await page.goto(`${baseUrl}/`);
     await page.getByRole('heading', { level: 1, name: 'Overview' }).waitFor();

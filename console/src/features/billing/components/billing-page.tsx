@@ -57,6 +57,21 @@ function cancelDescription(free: Plan | undefined): string {
   return `${base} It has ${free.features.seats} seats: members beyond them keep their access, but nobody new can be invited or join until the team fits.`;
 }
 
+/** The payment provider's subscription states in words (its own status names as keys). */
+function subscriptionState(status: string): string {
+  const words: Record<string, string> = {
+    active: 'Subscription active.',
+    trialing: 'Subscription in its trial.',
+    past_due: 'A payment is overdue: update the card on the payments page to keep the plan.',
+    unpaid: 'Payments failed: the plan stays until the provider gives up retrying.',
+    incomplete: 'The first payment is still being confirmed.',
+    incomplete_expired: 'The first payment was never confirmed; no plan was started.',
+    canceled: 'Subscription cancelled.',
+    paused: 'Subscription paused.',
+  };
+  return words[status] ?? `Subscription ${status.replace(/_/g, ' ')}.`;
+}
+
 export function BillingPage() {
   const plans = usePlans();
   const billing = useBilling();
@@ -157,7 +172,7 @@ export function BillingPage() {
         )}
         {billing.data?.subscription ? (
           <p className="mt-3 text-small text-ink-muted">
-            Subscription {billing.data.subscription.status}; current period ends{' '}
+            {subscriptionState(billing.data.subscription.status)} The current billing period ends{' '}
             {formatDate(billing.data.subscription.currentPeriodEnd)}.
           </p>
         ) : null}
