@@ -94,7 +94,6 @@ export function TeamPage() {
           ),
       },
     ],
-    // eslint-disable-next-line react-hooks/exhaustive-deps -- mutations are stable enough; rebuild on role/user
     [isOwner, myId],
   );
 
