@@ -19,7 +19,7 @@ import type { MeterRouteConfig } from '../usage/metering.hook.js';
 import { FrameListResponseDto, FrameResponseDto } from './dto/frame.dto.js';
 import { toFrameDto } from './frame.mapper.js';
 import { FramesService } from './frames.service.js';
-import { UuidParamPipe } from './uuid-param.pipe.js';
+import { FrameIdPipe } from './frame-id.pipe.js';
 
 const listQuery = {
   type: 'object' as const,
@@ -112,7 +112,7 @@ export class FramesController {
   @ApiOkResponse({ type: FrameResponseDto })
   @problem(404, 'No such frame in your organisation.')
   @problem(422, 'The id is not a UUID; `errors` names it.')
-  async getFrame(@Req() req: RequestWithPrincipal, @Param('id', new UuidParamPipe()) id: string) {
+  async getFrame(@Req() req: RequestWithPrincipal, @Param('id', new FrameIdPipe()) id: string) {
     return toFrameDto(await this.frames.get(req.principal!.organizationId, id));
   }
 
@@ -125,7 +125,7 @@ export class FramesController {
   @problem(422, 'The id is not a UUID; `errors` names it.')
   async getFrameThumbnail(
     @Req() req: RequestWithPrincipal,
-    @Param('id', new UuidParamPipe()) id: string,
+    @Param('id', new FrameIdPipe()) id: string,
     @Res() reply: FastifyReply,
   ) {
     const obj = await this.frames.thumbnail(req.principal!.organizationId, id);

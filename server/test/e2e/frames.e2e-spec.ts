@@ -172,8 +172,11 @@ describe('frames', () => {
     await stranger.agent.get(`/v1/frames/${ids[0]}`).expect(404);
     const theirs = await stranger.agent.get('/v1/frames').expect(200);
     expect(theirs.body.data).toEqual([]);
-    const bad = await studio.agent.get('/v1/frames/not-a-uuid').expect(422);
-    expect(bad.body.errors).toEqual([{ field: 'id', reason: 'must be a UUID' }]);
+    // A malformed id names no frame: the same 404 naming `id` as other routes give.
+    const bad = await studio.agent.get('/v1/frames/not-a-uuid').expect(404);
+    expect(bad.body.errors).toEqual([
+      { field: 'id', reason: 'is not a test frame of your organisation (ids are UUIDs)' },
+    ]);
     // Every row has its two objects, and there is no object without a row.
     expect(await objectsOf(studio.organizationId)).toHaveLength(
       2 * (await rowsOf(studio.organizationId)),
