@@ -1,8 +1,10 @@
+import { useContext } from 'react';
 import { ApiProblem } from '@/lib/api';
 import { useConfirmCalculation } from '../api/confirm-calculation';
 import type { CalculationId } from '../calculations';
 import { useDebouncedValue } from '../hooks/use-debounced-value';
 import { resultDifferences } from '../utils/compare';
+import { VisibleCalculationContext } from './playground-scene';
 
 interface ApiConfirmationProps {
   calculation: CalculationId;
@@ -28,7 +30,10 @@ export function ApiConfirmation({ calculation, input, preview }: ApiConfirmation
   const settled = useDebouncedValue(input, 600);
   const inputKey = JSON.stringify(input);
   const isSettled = JSON.stringify(settled) === inputKey;
-  const query = useConfirmCalculation(calculation, settled, isSettled);
+  // A tab out of sight keeps its inputs but does not call the API until it is shown.
+  const visible = useContext(VisibleCalculationContext);
+  const onScreen = visible === null || visible === calculation;
+  const query = useConfirmCalculation(calculation, settled, isSettled && onScreen);
 
   let state: 'waiting' | 'agrees' | 'differs' | 'failed' = 'waiting';
   let text = 'Checking with the API…';

@@ -89,3 +89,9 @@ export function usePlaygroundScene(): SceneValue {
   if (!value) throw new Error('usePlaygroundScene needs <PlaygroundSceneProvider>');
   return value;
 }
+
+/**
+ * The calculation whose tab is on screen (null outside the tabbed playground): hidden tabs stay
+ * mounted so their inputs survive, but only the visible one asks the API to confirm its result.
+ */
+export const VisibleCalculationContext = createContext<string | null>(null);

@@ -146,6 +146,23 @@ describe('playground', () => {
     expect(status.getAttribute('data-confirmation')).toBe('agrees');
   });
 
+  it('asks the API only about the tab on screen, and about another once it is opened', async () => {
+    const asked: string[] = [];
+    respond = (path, body) => {
+      asked.push(path);
+      return path === '/v1/flash'
+        ? jsonResponse(computeFlash(body as never))
+        : jsonResponse({}, 404);
+    };
+    await openCalculation('flash');
+    await screen.findByText('The API agrees with this result', {}, { timeout: 4000 });
+    // Hidden tabs keep their inputs but ask nothing (they used to ask on every change).
+    expect(new Set(asked)).toEqual(new Set(['/v1/flash']));
+    fireEvent.click(screen.getByRole('tab', { name: 'Falloff' }));
+    await waitFor(() => expect(asked).toContain('/v1/falloff'), { timeout: 4000 });
+    expect(asked.filter((p) => p !== '/v1/flash' && p !== '/v1/falloff')).toEqual([]);
+  });
+
   it('names the fields where the API answer differs, and explains a missing endpoint', async () => {
     respond = (path, body) => jsonResponse({ ...computeFlash(body as never), powerLabel: '1/2' });
     const panel = await openCalculation('flash');

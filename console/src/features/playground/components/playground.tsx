@@ -1,7 +1,7 @@
 import { Tab, TabGroup, TabList, TabPanel, TabPanels } from '@headlessui/react';
 import { useSearchParams } from 'react-router-dom';
 import { calculations, type CalculationId } from '../calculations';
-import { PlaygroundSceneProvider } from './playground-scene';
+import { PlaygroundSceneProvider, VisibleCalculationContext } from './playground-scene';
 import { SiteConditions } from './site-conditions';
 import { BacklightPanel } from './backlight/backlight-panel';
 import { BalancePanel } from './balance/balance-panel';
@@ -39,34 +39,36 @@ export function Playground() {
 
   return (
     <PlaygroundSceneProvider>
-      <div className="mb-4 flex flex-wrap items-center justify-between gap-3">
-        <UnitToggle />
-      </div>
-      <div className="mb-4">
-        <SiteConditions />
-      </div>
-      <TabGroup selectedIndex={selected} onChange={select}>
-        <TabList
-          aria-label="Calculations"
-          className="mb-4 flex flex-wrap gap-1 border-b border-edge pb-px"
-        >
-          {available.map((calculation) => (
-            <Tab
-              key={calculation.id}
-              className="shrink-0 rounded-t-control border-b-2 border-transparent px-3 py-2 text-body font-medium whitespace-nowrap text-ink-muted data-hover:text-ink data-selected:border-accent data-selected:text-ink data-focus:outline-2 data-focus:outline-focus"
-            >
-              {calculation.label}
-            </Tab>
-          ))}
-        </TabList>
-        <TabPanels>
-          {available.map((calculation) => (
-            <TabPanel key={calculation.id} unmount={false} className="focus:outline-none">
-              {panels[calculation.id]?.()}
-            </TabPanel>
-          ))}
-        </TabPanels>
-      </TabGroup>
+      <VisibleCalculationContext.Provider value={available[selected]?.id ?? null}>
+        <div className="mb-4 flex flex-wrap items-center justify-between gap-3">
+          <UnitToggle />
+        </div>
+        <div className="mb-4">
+          <SiteConditions />
+        </div>
+        <TabGroup selectedIndex={selected} onChange={select}>
+          <TabList
+            aria-label="Calculations"
+            className="mb-4 flex flex-wrap gap-1 border-b border-edge pb-px"
+          >
+            {available.map((calculation) => (
+              <Tab
+                key={calculation.id}
+                className="shrink-0 rounded-t-control border-b-2 border-transparent px-3 py-2 text-body font-medium whitespace-nowrap text-ink-muted data-hover:text-ink data-selected:border-accent data-selected:text-ink data-focus:outline-2 data-focus:outline-focus"
+              >
+                {calculation.label}
+              </Tab>
+            ))}
+          </TabList>
+          <TabPanels>
+            {available.map((calculation) => (
+              <TabPanel key={calculation.id} unmount={false} className="focus:outline-none">
+                {panels[calculation.id]?.()}
+              </TabPanel>
+            ))}
+          </TabPanels>
+        </TabGroup>
+      </VisibleCalculationContext.Provider>
     </PlaygroundSceneProvider>
   );
 }
