@@ -67,6 +67,19 @@ function restoreNestedRequired(doc: OpenAPIObject): void {
   }
 }
 
+/**
+ * A DTO's own description and closedness (`additionalProperties: false`, which the validator
+ * enforces: unknown fields are a 422) are not carried by the property decorators either.
+ */
+function restoreTopLevel(doc: OpenAPIObject): void {
+  for (const [name, schema] of SCHEMA_DTOS) {
+    const target = doc.components?.schemas?.[name] as Record<string, unknown> | undefined;
+    if (!target) continue;
+    if (schema.description && !target.description) target.description = schema.description;
+    if (schema.additionalProperties === false) target.additionalProperties = false;
+  }
+}
+
 type DocSchema = {
   properties?: Record<string, DocSchema>;
   items?: DocSchema;
@@ -118,6 +131,7 @@ export function buildOpenApiDocument(app: INestApplication): OpenAPIObject {
   doc.components = doc.components ?? {};
   doc.components.schemas = { ...(doc.components.schemas ?? {}), Problem: PROBLEM_SCHEMA };
   restoreNestedRequired(doc);
+  restoreTopLevel(doc);
   documentStandardProblems(doc, accessRulesByHandler(app));
   for (const [name, schema] of SCHEMA_DTOS) {
     referToDtos(schema, doc.components.schemas[name] as DocSchema | undefined);

@@ -1202,6 +1202,7 @@ export interface components {
       data: components['schemas']['AuditEventResponseDto'][];
       nextCursor: string | null;
     };
+    /** @description Geometry of a rim light behind the subject: is the head in the beam, where does the beam spill on the ground. Stands behind people at dusk: weight them against wind. */
     BacklightRequestDto: {
       /**
        * @description Full beam angle of the grid or reflector, degrees; default 100. Range: 1 to 180.
@@ -1281,6 +1282,7 @@ export interface components {
         message: string;
       }[];
     };
+    /** @description Gel the flash so it matches the camera white balance (plus an optional creative offset), working in mireds (10⁶ / kelvin). */
     BalanceRequestDto: {
       /**
        * @description Camera white balance, kelvin. Range: 1500 to 20000.
@@ -1763,6 +1765,7 @@ export interface components {
       /** @description The current password, to confirm it is you. */
       password: string;
     };
+    /** @description Two modes. Plain APEX: a scene EV at ISO 100 plus any two (or fewer) of aperture, shutter time and ISO; the missing one is solved (with fewer than two given, ISO 100 and then f/8 are assumed). Background: send any of the constraints (place, biasStops, support, ISO or aperture limits, shutter limits, flashSyncSeconds) and the background solver picks settings for the ambient EV100 (given, or estimated for place + time), with tripod, sync-speed and high-speed-sync warnings. Give ev100 or place. */
     ExposureRequestDto: {
       /**
        * @description f-number. Range: 0.7 to 128.
@@ -1929,6 +1932,7 @@ export interface components {
         message: string;
       }[];
     };
+    /** @description Inverse-square falloff from the subject to the background and ground. */
     FalloffRequestDto: {
       /**
        * @description Light-to-background distance in distanceUnit. Range: 0.05 to 1000.
@@ -2005,6 +2009,7 @@ export interface components {
        */
       subjectToBackgroundStops: number | null;
     };
+    /** @description Flash power for a subject at a distance and aperture, from the guide number (ISO 1230: GN = distance × f-number at ISO 100, full power). */
     FlashRequestDto: {
       /**
        * @description f-number. Range: 0.7 to 128.
@@ -2826,6 +2831,7 @@ export interface components {
       /** @example Orla Featherstone */
       name: string;
     };
+    /** @description The whole dusk setup: when to shoot, background exposure minute by minute, key and rim flash power, gels and white balance, with safety cautions for the conditions given. */
     SavedSetupInputsDto: {
       /**
        * @description Key-light-to-background distance, in key.distanceUnit. Range: 0.05 to 1000.
@@ -3199,6 +3205,7 @@ export interface components {
        */
       used: number;
     };
+    /** @description The whole dusk setup: when to shoot, background exposure minute by minute, key and rim flash power, gels and white balance, with safety cautions for the conditions given. */
     SetupRequestDto: {
       /**
        * @description Key-light-to-background distance, in key.distanceUnit. Range: 0.05 to 1000.
@@ -3893,6 +3900,7 @@ export interface components {
        */
       userId: string;
     };
+    /** @description Sun events, evening windows and the ambient-light timeline for one local date. */
     TwilightRequestDto: {
       /** @description Blue-hour band; default −4° to −8° (common practice, no standard). */
       blueHour?: {
