@@ -2967,7 +2967,7 @@ export interface components {
          */
         angleFromCameraDeg?: number;
         /**
-         * @description Light-to-subject distance in distanceUnit. Range: 0.1 to 160.
+         * @description Light-to-subject distance in distanceUnit; in metres at most 50 (164 is the limit in feet). Range: 0.1 to 164.
          * @example 2.5
          */
         distance: number;
@@ -3006,7 +3006,7 @@ export interface components {
          */
         modifierLossStops?: number;
         /**
-         * @description Modifier size in distanceUnit. Range: 0.01 to 33.
+         * @description Modifier size in distanceUnit; in metres at most 10 (33 is the limit in feet). Range: 0.01 to 33.
          * @example 0.9
          */
         modifierSize?: number;
@@ -3341,7 +3341,7 @@ export interface components {
          */
         angleFromCameraDeg?: number;
         /**
-         * @description Light-to-subject distance in distanceUnit. Range: 0.1 to 160.
+         * @description Light-to-subject distance in distanceUnit; in metres at most 50 (164 is the limit in feet). Range: 0.1 to 164.
          * @example 2.5
          */
         distance: number;
@@ -3380,7 +3380,7 @@ export interface components {
          */
         modifierLossStops?: number;
         /**
-         * @description Modifier size in distanceUnit. Range: 0.01 to 33.
+         * @description Modifier size in distanceUnit; in metres at most 10 (33 is the limit in feet). Range: 0.01 to 33.
          * @example 0.9
          */
         modifierSize?: number;

@@ -56,9 +56,14 @@ export function computeKeyLight(input: KeyLightInput): KeyLightResult {
   const o = requireObject('input', input);
   const unit = requireLengthUnit('distanceUnit', o.distanceUnit);
   const angle = requireNumber('angleFromCameraDeg', o.angleFromCameraDeg, { min: 0, max: 180 });
-  const d = toMetres(requireNumber('distance', o.distance, { min: 0.1, max: 160 }), unit);
+  // Limits follow the unit, as the backlight's do: 50 m (164 ft) away, a 10 m (33 ft) modifier.
+  const feet = unit === 'ft';
+  const d = toMetres(
+    requireNumber('distance', o.distance, { min: 0.1, max: feet ? 164 : 50 }),
+    unit,
+  );
   const size = toMetres(
-    requireNumber('modifierSize', o.modifierSize, { min: 0.01, max: 33 }),
+    requireNumber('modifierSize', o.modifierSize, { min: 0.01, max: feet ? 33 : 10 }),
     unit,
   );
   const elev = optionalNumber('elevationDeg', o.elevationDeg, 30, { min: -30, max: 80 });

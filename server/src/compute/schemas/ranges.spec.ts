@@ -126,6 +126,8 @@ const CONTEXT: Record<string, Body> = {
   'setup camera.isoMax': { camera: { isoMin: 3 } },
   'setup rim.lightHeight': { rim: { distanceUnit: 'ft' } },
   'setup rim.distanceBehind': { rim: { distanceUnit: 'ft' } },
+  'setup key.distance': { key: { distanceUnit: 'ft' } },
+  'setup key.modifierSize': { key: { distanceUnit: 'ft' } },
 };
 
 /**
@@ -142,6 +144,9 @@ const UNIT_RANGES: Record<
   'backlight distanceBehind': { unitField: 'distanceUnit', m: [0.1, 50], ft: [0.1, 164] },
   'setup rim.lightHeight': { unitField: 'rim.distanceUnit', m: [0, 10], ft: [0, 33] },
   'setup rim.distanceBehind': { unitField: 'rim.distanceUnit', m: [0.1, 50], ft: [0.1, 164] },
+  // key-light.ts: the key at most 50 m or 164 ft away, its modifier at most 10 m or 33 ft.
+  'setup key.distance': { unitField: 'key.distanceUnit', m: [0.1, 50], ft: [0.1, 164] },
+  'setup key.modifierSize': { unitField: 'key.distanceUnit', m: [0.01, 10], ft: [0.01, 33] },
 };
 
 /**

@@ -68,7 +68,12 @@ export const setupRequestSchema: ObjectSchema = {
       {
         guideNumber: ranged('Guide number at ISO 100, full power, in guideNumberUnit.', 1, 500, 60),
         guideNumberUnit: lengthUnit('Unit of the guide number.'),
-        distance: ranged('Light-to-subject distance in distanceUnit.', 0.1, 160, 2.5),
+        distance: ranged(
+          'Light-to-subject distance in distanceUnit; in metres at most 50 (164 is the limit in feet).',
+          0.1,
+          164,
+          2.5,
+        ),
         distanceUnit: lengthUnit('Unit of the distances.'),
         angleFromCameraDeg: ranged(
           'Angle of the key from the camera axis, degrees; default 60.',
@@ -79,7 +84,12 @@ export const setupRequestSchema: ObjectSchema = {
         modifier: str('Modifier kind (see the math library’s modifier list).', undefined, {
           maxLength: 40,
         }),
-        modifierSize: ranged('Modifier size in distanceUnit.', 0.01, 33, 0.9),
+        modifierSize: ranged(
+          'Modifier size in distanceUnit; in metres at most 10 (33 is the limit in feet).',
+          0.01,
+          33,
+          0.9,
+        ),
         modifierLossStops: ranged('Light lost in the modifier, stops.', 0, 8, 1.3),
       },
       ['guideNumber', 'distance'],
