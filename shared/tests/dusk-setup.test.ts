@@ -180,4 +180,22 @@ describe('planDuskSetup names fields as its input does', () => {
       'rim.rimOverKeyStops',
     );
   });
+  it('checks the key, rim and camera on a polar night too, though no minute is planned', () => {
+    // 89.5° N at the December solstice: the sun stays near -23°, so every minute is too dark and
+    // none is planned (suncalc confirms the altitude below).
+    const polar = { ...base, latitude: 89.5, longitude: 0, date: '2026-12-21' };
+    expect(getPosition(new Date('2026-12-21T12:00:00Z'), 89.5, 0).altitude).toBeLessThan(
+      (-20 * Math.PI) / 180,
+    );
+    expect(planDuskSetup(polar as never).suggestedMinutes).toHaveLength(0);
+    expect(fieldOf(polar)).toBeUndefined();
+    expect(fieldOf({ ...polar, key: { guideNumber: 9999, distance: 3 } })).toBe('key.guideNumber');
+    expect(fieldOf({ ...polar, camera: { isoMax: 1 } })).toBe('camera.isoMax');
+    expect(
+      fieldOf({
+        ...polar,
+        rim: { guideNumber: 40, distanceBehind: 2.5, lightHeight: 1.2, modifierLossStops: 20 },
+      }),
+    ).toBe('rim.modifierLossStops');
+  });
 });

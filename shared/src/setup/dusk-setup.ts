@@ -218,6 +218,18 @@ export function planDuskSetup(input: DuskSetupInput): DuskSetupPlan {
     } as never),
   );
   const win = windowPoints(tw);
+  // With no minute to plan (polar day or night) the camera, key and rim inputs are still checked,
+  // on a stand-in minute whose result is dropped: bad input is refused by name whatever the date.
+  if (win.points.length === 0) {
+    const standIn: AmbientPoint = {
+      time: `${String(o.date)}T12:00:00Z`,
+      sunAltitudeDeg: 0,
+      illuminanceLux: 2.5,
+      ev100: 0,
+      stopsPer10Min: 0,
+    };
+    minuteAt(s, standIn, 0);
+  }
   const minutes = win.points.map((p) => minuteAt(s, p, balance.gelLossStops));
   const usable = minutes.filter((m) => m.usable);
   const suggested = pickSuggestions(minutes, s.suggestions);
