@@ -131,7 +131,13 @@ describe('studio settings page', () => {
   });
 
   it('transfers ownership only after a question naming the person and what changes', async () => {
-    const { sent } = stub(owner);
+    // GET /v1/me reads this object on every call: after the transfer it says admin, as the server would.
+    const session = { ...owner, permissions: [...owner.permissions] };
+    const { sent } = stub(session, (s) => {
+      if (s.path !== '/v1/organization/transfer-ownership') return undefined;
+      Object.assign(session, { role: 'admin', permissions: admin.permissions });
+      return new Response(null, { status: 204 });
+    });
     renderApp('/studio');
     const box = await card('Transfer ownership');
     const select = (await within(box).findByLabelText('New owner')) as HTMLSelectElement;
@@ -156,10 +162,17 @@ describe('studio settings page', () => {
     fireEvent.click(button);
     dialog = await screen.findByRole('dialog');
     fireEvent.click(within(dialog).getByRole('button', { name: 'Make Tam Quillon owner' }));
-    await within(box).findByText('Tam Quillon now owns Demo Studio. You are an admin.');
+    await screen.findByText('Tam Quillon now owns Demo Studio. You are an admin.');
     expect(sent).toEqual([
       { method: 'POST', path: '/v1/organization/transfer-ownership', body: { userId: 'u-tam' } },
     ]);
+    // The session is read again: now an admin, the owner's cards go and the name is read-only.
+    await waitFor(() =>
+      expect(screen.queryByRole('heading', { name: 'Delete studio' })).toBeNull(),
+    );
+    expect(screen.queryByRole('heading', { name: 'Transfer ownership' })).toBeNull();
+    expect(screen.getByText('Only the owner can rename the studio.')).toBeTruthy();
+    expect(screen.getByText('Tam Quillon now owns Demo Studio. You are an admin.')).toBeTruthy();
   });
 
   it('deletes only once the exact name is typed; cancelling sends nothing', async () => {

@@ -29,7 +29,7 @@ export function SignOutEverywhere() {
       </h2>
       <p className="mt-1 text-small text-ink-muted">
         Left the console open on a shared computer or lost a device? Sign out of every browser at
-        once. API keys keep working; revoke them on the Keys page.
+        once. API keys are not sessions: they keep working.
       </p>
       <Button variant="danger" className="mt-4" onClick={() => setOpen(true)}>
         Sign out everywhere

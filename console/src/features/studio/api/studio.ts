@@ -31,14 +31,14 @@ export function useRenameStudio() {
 export function listStudioMembers(signal?: AbortSignal) {
   return unwrap(client.GET('/v1/team/members', { signal }));
 }
-export function useStudioMembers(enabled: boolean) {
-  return useQuery({
-    ...queryOptions({
-      queryKey: studioKeys.members(),
-      queryFn: ({ signal }) => listStudioMembers(signal),
-    }),
-    enabled,
+export function studioMembersQueryOptions() {
+  return queryOptions({
+    queryKey: studioKeys.members(),
+    queryFn: ({ signal }) => listStudioMembers(signal),
   });
+}
+export function useStudioMembers() {
+  return useQuery(studioMembersQueryOptions());
 }
 
 /** POST /v1/organization/transfer-ownership `{userId}` (owner): they become owner, you admin. */

@@ -11,12 +11,20 @@ import { problemMessage } from '@/lib/form-errors';
 import { useStudioMembers, useTransferOwnership } from '../api/studio';
 
 /** The owner hands the studio to another member and becomes an admin, after a named question. */
-export function TransferOwnership({ studioName, myId }: { studioName: string; myId: string }) {
-  const members = useStudioMembers(true);
+export function TransferOwnership({
+  studioName,
+  myId,
+  onTransferred,
+}: {
+  studioName: string;
+  myId: string;
+  /** Told the new owner's name; this card then goes (you are no longer the owner). */
+  onTransferred: (newOwner: string) => void;
+}) {
+  const members = useStudioMembers();
   const transfer = useTransferOwnership();
   const [chosen, setChosen] = useState('');
   const [asking, setAsking] = useState(false);
-  const [done, setDone] = useState<string | null>(null);
 
   const others = (members.data?.data ?? []).filter((m) => m.userId !== myId);
   const target = others.find((m) => m.userId === chosen);
@@ -30,7 +38,7 @@ export function TransferOwnership({ studioName, myId }: { studioName: string; my
     transfer.mutate(target.userId, {
       onSuccess: () => {
         setAsking(false);
-        setDone(target.name);
+        onTransferred(target.name);
       },
     });
   };
@@ -43,11 +51,7 @@ export function TransferOwnership({ studioName, myId }: { studioName: string; my
       <p className="mt-1 text-small text-ink-muted">
         Make another member the owner. You stay in the studio as an admin.
       </p>
-      {done ? (
-        <Notice tone="ok" className="mt-4">
-          {done} now owns {studioName}. You are an admin.
-        </Notice>
-      ) : members.isPending ? (
+      {members.isPending ? (
         <PageLoading />
       ) : members.isError ? (
         <Notice tone="fault" className="mt-4">
