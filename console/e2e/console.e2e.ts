@@ -209,6 +209,34 @@ describe('the console in a real browser', () => {
     await row.getByText(/^42 m/).waitFor();
   });
 
+  it('renames the studio and the owner from the settings pages the user menu links', async () => {
+    await page.goto(`${baseUrl}/`);
+    const menu = page.getByRole('button', { name: new RegExp(owner.name) });
+    await menu.click();
+    await page.getByRole('menuitem', { name: 'Studio settings' }).click();
+    await page.getByRole('heading', { level: 1, name: 'Studio settings' }).waitFor();
+    await page.getByLabel('Studio name').fill('Saltmarsh Evening Studio');
+    await page.getByRole('button', { name: 'Save studio name' }).click();
+    await page.getByText('The studio’s name is saved.').waitFor();
+    await expect(menu.textContent()).resolves.toContain('Saltmarsh Evening Studio');
+
+    await menu.click();
+    await page.getByRole('menuitem', { name: 'Account' }).click();
+    await page.getByRole('heading', { level: 1, name: 'Account' }).waitFor();
+    await page.getByLabel('Your name').fill('Odile Farrow-Lind');
+    await page.getByRole('button', { name: 'Save name' }).click();
+    await page.getByText('Your name is saved.').waitFor();
+    await page.getByRole('button', { name: /Odile Farrow-Lind/ }).waitFor();
+    // Both survive a reload: they came from the server, not from this page's state.
+    await page.reload();
+    const renamed = page.getByRole('button', { name: /Odile Farrow-Lind/ });
+    await renamed.waitFor();
+    await expect(renamed.textContent()).resolves.toContain('Saltmarsh Evening Studio');
+    await page.getByRole('heading', { level: 2, name: 'Your studios' }).waitFor();
+    await page.getByText('Saltmarsh Evening Studio', { exact: true }).waitFor();
+    await screenshot(page, 'account');
+  });
+
   it('reaches the navigation with the keyboard alone', async () => {
     await page.goto(`${baseUrl}/`);
     await page.getByRole('heading', { level: 1, name: 'Overview' }).waitFor();
@@ -249,6 +277,8 @@ describe('the console in a real browser', () => {
         ['/team', 'Team'],
         ['/usage', 'Usage'],
         ['/keys', 'Keys'],
+        ['/account', 'Account'],
+        ['/studio', 'Studio settings'],
         ['/playground', 'Playground'],
       ] as const) {
         await phone.page.goto(`${baseUrl}${route}`);

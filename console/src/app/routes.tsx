@@ -24,6 +24,8 @@ const AcceptInviteRoute = lazy(() => import('./routes/accept-invite'));
 const ConfirmEmailRoute = lazy(() => import('./routes/confirm-email'));
 const AuditRoute = lazy(() => import('./routes/audit'));
 const FramesRoute = lazy(() => import('./routes/frames'));
+const AccountRoute = lazy(() => import('./routes/account'));
+const StudioRoute = lazy(() => import('./routes/studio'));
 
 export const routes: RouteObject[] = [
   {
@@ -54,6 +56,8 @@ export const routes: RouteObject[] = [
       { path: paths.billing, element: <BillingRoute /> },
       { path: paths.audit, element: <AuditRoute /> },
       { path: paths.frames, element: <FramesRoute /> },
+      { path: paths.account, element: <AccountRoute /> },
+      { path: paths.studio, element: <StudioRoute /> },
       { path: '*', element: <NotFoundRoute /> },
     ],
   },

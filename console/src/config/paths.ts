@@ -12,6 +12,8 @@ export const paths = {
   signUp: '/sign-up',
   frames: '/frames',
   audit: '/audit',
+  account: '/account',
+  studio: '/studio',
   forgotPassword: '/forgot-password',
   resetPassword: '/reset-password',
   acceptInvite: '/accept-invite',
@@ -26,6 +28,17 @@ export interface NavEntry {
   /** The server permission needed to see this entry (everyone when absent). */
   permission?: string;
 }
+
+/** Settings of the signed-in person and their studio, linked from the user menu. */
+export const settingsNav: readonly NavEntry[] = [
+  { label: 'Account', to: paths.account, hint: 'Your name, email, password and studios' },
+  {
+    label: 'Studio settings',
+    to: paths.studio,
+    hint: 'Studio name, ownership, deletion',
+    permission: 'organization:read',
+  },
+];
 
 export const primaryNav: readonly NavEntry[] = [
   { label: 'Overview', to: paths.overview, hint: 'Your studio at a glance' },

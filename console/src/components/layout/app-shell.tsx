@@ -1,5 +1,5 @@
 import { Suspense, useId, useState } from 'react';
-import { Outlet } from 'react-router-dom';
+import { Outlet, useLocation } from 'react-router-dom';
 import { PageLoading } from '@/components/ui/page-loading';
 import { Brand } from './brand';
 import { PrimaryNav } from './primary-nav';
@@ -13,7 +13,12 @@ interface AppShellProps {
 }
 
 export function AppShell({ status, userMenu }: AppShellProps) {
-  const [menuOpen, setMenuOpen] = useState(false);
+  // The phone menu belongs to the page it was opened on: any navigation (the nav, or the user
+  // menu's Account link) closes it.
+  const { pathname } = useLocation();
+  const [openOn, setOpenOn] = useState<string | null>(null);
+  const menuOpen = openOn === pathname;
+  const setMenuOpen = (open: boolean) => setOpenOn(open ? pathname : null);
   const navId = useId();
 
   return (
@@ -32,7 +37,7 @@ export function AppShell({ status, userMenu }: AppShellProps) {
             className="rounded-control border border-edge-strong px-3 py-1.5 text-small font-medium text-ink md:hidden"
             aria-expanded={menuOpen}
             aria-controls={navId}
-            onClick={() => setMenuOpen((open) => !open)}
+            onClick={() => setMenuOpen(!menuOpen)}
           >
             {menuOpen ? 'Close menu' : 'Menu'}
           </button>

@@ -1,10 +1,10 @@
 import { Menu, MenuButton, MenuItem, MenuItems } from '@headlessui/react';
-import { useNavigate } from 'react-router-dom';
-import { paths } from '@/config/paths';
+import { Link, useNavigate } from 'react-router-dom';
+import { paths, settingsNav } from '@/config/paths';
 import { useSession } from '@/lib/session';
 import { useSignOut } from '../api/sign-out';
 
-/** The signed-in member, their studio and role, and sign-out. */
+/** The signed-in member, their studio and role, links to their settings, and sign-out. */
 export function UserMenu() {
   const session = useSession();
   const signOut = useSignOut();
@@ -29,7 +29,20 @@ export function UserMenu() {
         anchor="top start"
         className="z-40 w-56 rounded-control border border-edge-strong bg-panel p-1 shadow-lg focus:outline-none"
       >
-        <div className="px-3 py-2 text-caption text-ink-muted">{session.user.email}</div>
+        <div className="px-3 py-2 text-caption break-all text-ink-muted">{session.user.email}</div>
+        {settingsNav
+          .filter((entry) => !entry.permission || session.permissions.includes(entry.permission))
+          .map((entry) => (
+            <MenuItem key={entry.to}>
+              <Link
+                to={entry.to}
+                title={entry.hint}
+                className="block rounded-control px-3 py-2 text-small text-ink no-underline data-focus:bg-raised"
+              >
+                {entry.label}
+              </Link>
+            </MenuItem>
+          ))}
         <MenuItem>
           <button
             type="button"

@@ -1,0 +1,1 @@
+export { AccountPage } from './components/account-page';

@@ -1,0 +1,1 @@
+export { StudioPage } from './components/studio-page';
