@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useMemo, useState } from 'react';
-import { useForm } from 'react-hook-form';
+import { useForm, useWatch } from 'react-hook-form';
 import { Link, useNavigate } from 'react-router-dom';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -58,13 +58,13 @@ function DeleteDialog({
     register,
     handleSubmit,
     setError,
-    watch,
+    control,
     formState: { errors, isSubmitting },
   } = useForm<DeleteStudioValues>({
     resolver: zodResolver(schema),
     defaultValues: { confirmName: '' },
   });
-  const matches = watch('confirmName') === organization.name;
+  const matches = useWatch({ control, name: 'confirmName' }) === organization.name;
 
   const onSubmit = handleSubmit(async ({ confirmName }) => {
     setFormError(null);
