@@ -8785,7 +8785,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Other records still refer to this organisation. */
+      /** @description A subscription is still running (cancel it on the Billing page first, so the payments service stops charging), or other records still refer to this organisation. */
       409: {
         headers: {
           [name: string]: unknown;

@@ -52,7 +52,11 @@ export class OrganizationsController {
     summary: 'Delete the organisation with its members, keys, invitations and history.',
   })
   @ApiNoContentResponse()
-  @problem(409, 'Other records still refer to this organisation.')
+  @problem(
+    409,
+    'A subscription is still running (cancel it on the Billing page first, so the payments ' +
+      'service stops charging), or other records still refer to this organisation.',
+  )
   async deleteOrganization(
     @CurrentPrincipal() p: SessionPrincipal,
     @Body() body: DeleteOrganizationRequestDto,

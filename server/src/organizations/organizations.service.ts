@@ -44,6 +44,21 @@ export class OrganizationsService {
         { field: 'confirmName', reason: "does not match the organisation's name" },
       ]);
     }
+    // A paid subscription would go on being charged by the payments service with nobody left to
+    // stop it: it is cancelled first, on the Billing page, and then the studio can go.
+    const [running] = (await this.ds.query(
+      `SELECT plan_code AS "planCode", status FROM billing_subscriptions
+        WHERE organization_id = $1 AND status NOT IN ('canceled', 'incomplete_expired')
+        ORDER BY started_at DESC LIMIT 1`,
+      [org.id],
+    )) as { planCode: string; status: string }[];
+    if (running) {
+      throw new DomainError(
+        'conflict',
+        `This studio still has a ${running.status.replace(/_/g, ' ')} subscription (${running.planCode} plan). Cancel it on the Billing page first, so the payments service stops charging, then delete the studio.`,
+        [{ field: 'subscription', reason: `is ${running.status}: cancel it first` }],
+      );
+    }
     try {
       await this.ds.transaction(async (m) => {
         await m.delete(OrganizationEntity, { id: org.id });
