@@ -201,6 +201,8 @@ describe('studio settings page', () => {
     expect(sent).toEqual([
       { method: 'DELETE', path: '/v1/organization', body: { confirmName: 'Demo Studio' } },
     ]);
+    // The sign-in page says what happened, rather than appearing with no word.
+    expect(await screen.findByText(/“Demo Studio” was deleted/)).toBeTruthy();
   });
 
   it('shows the server’s 409 detail when the studio cannot be deleted, and stays', async () => {
@@ -222,13 +224,13 @@ describe('studio settings page', () => {
     expect(router.state.location.pathname).toBe('/studio');
   });
 
-  it('warns an owner on a paid plan that deleting does not cancel the subscription', async () => {
+  it('tells an owner on a paid plan to cancel the subscription before deleting', async () => {
     stub({ ...owner, organization: { ...owner.organization, planCode: 'studio' } });
     renderApp('/studio');
     const box = await card('Delete studio');
     fireEvent.click(within(box).getByRole('button', { name: 'Delete studio' }));
     const dialog = await screen.findByRole('dialog');
-    expect(dialog.textContent).toContain('deleting the studio does not cancel it');
+    expect(dialog.textContent).toContain('a studio with a running subscription cannot be deleted');
     expect(within(dialog).getByRole('link', { name: 'Billing' }).getAttribute('href')).toBe(
       '/billing',
     );

@@ -43,6 +43,11 @@ export function SignInForm() {
     <>
       <Card>
         <form noValidate onSubmit={onSubmit} className="flex flex-col gap-4">
+          {params.get('deleted') ? (
+            <Notice tone="ok">
+              {`“${params.get('deleted')}” was deleted. Sign in again to reach any other studio you belong to.`}
+            </Notice>
+          ) : null}
           <TextField
             label="Email"
             type="email"

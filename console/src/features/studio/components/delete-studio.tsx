@@ -70,9 +70,12 @@ function DeleteDialog({
     setFormError(null);
     try {
       await remove.mutateAsync(confirmName);
-      void navigate(paths.signIn, { replace: true });
+      void navigate(`${paths.signIn}?deleted=${encodeURIComponent(organization.name)}`, {
+        replace: true,
+      });
     } catch (error) {
-      // A 409 (records still tied to the studio) has no field: its detail shows above the buttons.
+      // A 409 (a running subscription, or records still tied to the studio) has no form field:
+      // its detail shows above the buttons.
       setFormError(applyServerErrors(error, ['confirmName'], setError).formMessage);
     }
   });
@@ -88,8 +91,8 @@ function DeleteDialog({
         {organization.planCode !== 'free' ? (
           <Notice tone="caution">
             The studio is on the {organization.planCode} plan. Cancel the subscription on the{' '}
-            <Link to={paths.billing}>Billing</Link> page first: deleting the studio does not cancel
-            it.
+            <Link to={paths.billing}>Billing</Link> page first: a studio with a running subscription
+            cannot be deleted.
           </Notice>
         ) : null}
         <TextField
