@@ -43,9 +43,9 @@ export function SignInForm() {
     <>
       <Card>
         <form noValidate onSubmit={onSubmit} className="flex flex-col gap-4">
-          {params.get('deleted') ? (
+          {params.get('deleted') === 'studio' ? (
             <Notice tone="ok">
-              {`“${params.get('deleted')}” was deleted. Sign in again to reach any other studio you belong to.`}
+              The studio was deleted. Sign in again to reach any other studio you belong to.
             </Notice>
           ) : null}
           <TextField

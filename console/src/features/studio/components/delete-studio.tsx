@@ -70,9 +70,8 @@ function DeleteDialog({
     setFormError(null);
     try {
       await remove.mutateAsync(confirmName);
-      void navigate(`${paths.signIn}?deleted=${encodeURIComponent(organization.name)}`, {
-        replace: true,
-      });
+      // A fixed message on the sign-in page: the address never carries text it would show.
+      void navigate(`${paths.signIn}?deleted=studio`, { replace: true });
     } catch (error) {
       // A 409 (a running subscription, or records still tied to the studio) has no form field:
       // its detail shows above the buttons.
