@@ -646,7 +646,8 @@ export interface paths {
       path?: never;
       cookie?: never;
     };
-    get?: never;
+    /** Your sign-in address, and an asked-for change still waiting for its confirmation. */
+    get: operations['getMyEmail'];
     put?: never;
     /** Ask to change your sign-in address; a confirmation link goes to the new one. */
     post: operations['requestEmailChange'];
@@ -1764,6 +1765,20 @@ export interface components {
       newEmail: string;
       /** @description The current password, to confirm it is you. */
       password: string;
+    };
+    EmailStateResponseDto: {
+      /**
+       * @description The address you sign in with now.
+       * @example ilse@kestrelmoor.test
+       */
+      email: string;
+      /**
+       * @description An address asked for and not yet confirmed from its mail (the latest), or null.
+       * @example ilse.m@kestrelmoor.test
+       */
+      pendingEmail: string | null;
+      /** @description When the confirmation link for pendingEmail stops working (ISO 8601), or null. */
+      pendingUntil: string | null;
     };
     /** @description Two modes. Plain APEX: a scene EV at ISO 100 plus any two (or fewer) of aperture, shutter time and ISO; the missing one is solved (with fewer than two given, ISO 100 and then f/8 are assumed). Background: send any of the constraints (place, biasStops, support, ISO or aperture limits, shutter limits, flashSyncSeconds) and the background solver picks settings for the ambient EV100 (given, or estimated for place + time), with tripod, sync-speed and high-speed-sync warnings. Give ev100 or place. */
     ExposureRequestDto: {
@@ -8361,6 +8376,45 @@ export interface operations {
       };
       /** @description A field is missing, of the wrong type or out of range; `errors` names each. */
       422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  getMyEmail: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/json': components['schemas']['EmailStateResponseDto'];
+        };
+      };
+      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      401: {
         headers: {
           [name: string]: unknown;
         };

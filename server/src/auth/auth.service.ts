@@ -286,6 +286,22 @@ export class AuthService {
     await this.auditAllOrgs(userId, 'auth.email_change_requested', meta, { newEmail });
   }
 
+  /** The sign-in address and the latest change still waiting for its confirmation link. */
+  async emailState(userId: string) {
+    const user = await this.users.findOneByOrFail({ id: userId });
+    const pending = await this.tokens
+      .createQueryBuilder('t')
+      .where('t.user_id = :userId AND t.purpose = :purpose', { userId, purpose: 'email_change' })
+      .andWhere('t.used_at IS NULL AND t.expires_at > now()')
+      .orderBy('t.created_at', 'DESC')
+      .getOne();
+    return {
+      email: user.email,
+      pendingEmail: pending?.newEmail ?? null,
+      pendingUntil: pending ? pending.expiresAt.toISOString() : null,
+    };
+  }
+
   async confirmEmailChange(token: string, meta: RequestMeta): Promise<void> {
     const row = await this.takeToken(token, 'email_change');
     if (!row.newEmail) throw invalidToken();

@@ -15,6 +15,7 @@ import {
   AcceptedResponseDto,
   ChangePasswordRequestDto,
   EmailChangeRequestDto,
+  EmailStateResponseDto,
   MeResponseDto,
   MyOrganizationsResponseDto,
   SwitchOrganizationRequestDto,
@@ -82,6 +83,16 @@ export class MeController {
       req.session.sessionId,
       meta,
     );
+  }
+
+  @Get('email')
+  @SessionAuth(...can('profile:manage'))
+  @ApiOperation({
+    summary: 'Your sign-in address, and an asked-for change still waiting for its confirmation.',
+  })
+  @ApiOkResponse({ type: EmailStateResponseDto })
+  getMyEmail(@CurrentPrincipal() p: SessionPrincipal): Promise<EmailStateResponseDto> {
+    return this.auth.emailState(p.userId);
   }
 
   @Post('email')

@@ -271,14 +271,29 @@ describe('accounts: sign-in and sessions', () => {
       .post('/v1/me/email')
       .send({ newEmail: next, password: 'wrong-password!' })
       .expect(422);
+    expect((await a.agent.get('/v1/me/email').expect(200)).body).toEqual({
+      email: a.email,
+      pendingEmail: null,
+      pendingUntil: null,
+    });
     await a.agent.post('/v1/me/email').send({ newEmail: next, password: PASSWORD }).expect(202);
     expect((await a.agent.get('/v1/me').expect(200)).body.user.email).toBe(a.email);
+    // The change waits for its link, and says so (24 hours to confirm).
+    const waiting = (await a.agent.get('/v1/me/email').expect(200)).body;
+    expect(waiting).toMatchObject({ email: a.email, pendingEmail: next });
+    const hours = (Date.parse(waiting.pendingUntil) - Date.now()) / 3_600_000;
+    expect(hours).toBeGreaterThan(23.9);
+    expect(hours).toBeLessThanOrEqual(24);
     const msg = await waitForMail(mail.webUrl, next, /Confirm your new Lumenwright e-mail address/);
     await request(t.url)
       .post('/v1/auth/email-change/confirm')
       .send({ token: tokenFromText(msg.text) })
       .expect(204);
     expect((await a.agent.get('/v1/me').expect(200)).body.user.email).toBe(next);
+    expect((await a.agent.get('/v1/me/email').expect(200)).body).toMatchObject({
+      email: next,
+      pendingEmail: null,
+    });
     await request(t.url)
       .post('/v1/auth/sign-in')
       .send({ email: next, password: PASSWORD })

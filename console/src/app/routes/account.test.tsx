@@ -25,10 +25,21 @@ interface Sent {
 }
 
 /** Records every write; `answer` decides the reply to one (default: a plausible success). */
-function stub(answer?: (sent: Sent) => Response | undefined, session = demoSession) {
+function stub(
+  answer?: (sent: Sent) => Response | undefined,
+  session = demoSession,
+  pendingEmail: string | null = null,
+) {
   const sent: Sent[] = [];
   const mock = stubApi(
     async (path, _init, request) => {
+      if (path === '/v1/me/email' && request.method === 'GET') {
+        return jsonResponse({
+          email: session.user.email,
+          pendingEmail,
+          pendingUntil: pendingEmail ? '2026-12-04T09:00:00.000Z' : null,
+        });
+      }
       if (path === '/v1/me/organizations' && request.method === 'GET') {
         return jsonResponse({
           data: [
@@ -122,6 +133,17 @@ describe('account page', () => {
         body: { newEmail: 'wren@studio.test', password: 'long-dusk-phrase' },
       },
     ]);
+  });
+
+  it('shows a change still waiting for its link on a later visit, from the server', async () => {
+    stub(undefined, demoSession, 'moved@studio.test');
+    renderApp('/account');
+    const email = await section('Email');
+    const notice = await within(email).findByText(/Check your inbox at/);
+    expect(notice.textContent).toContain('moved@studio.test');
+    // Another address can still be asked for.
+    fireEvent.click(within(email).getByRole('button', { name: 'Use another address' }));
+    expect(within(email).getByLabelText('New email')).toBeTruthy();
   });
 
   it('puts the server’s refusal of an e-mail change on the fields it names', async () => {

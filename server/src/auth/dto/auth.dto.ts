@@ -206,6 +206,29 @@ export class MyOrganizationsResponseDto {
   data: MyOrganizationResponseDto[];
 }
 
+export class EmailStateResponseDto {
+  @ApiProperty({
+    description: 'The address you sign in with now.',
+    example: 'ilse@kestrelmoor.test',
+  })
+  email: string;
+
+  @ApiProperty({
+    type: String,
+    nullable: true,
+    description: 'An address asked for and not yet confirmed from its mail (the latest), or null.',
+    example: 'ilse.m@kestrelmoor.test',
+  })
+  pendingEmail: string | null;
+
+  @ApiProperty({
+    type: String,
+    nullable: true,
+    description: 'When the confirmation link for pendingEmail stops working (ISO 8601), or null.',
+  })
+  pendingUntil: string | null;
+}
+
 export class AcceptedResponseDto {
   @ApiProperty({ example: 'If the address belongs to an account, a message is on its way.' })
   message: string;

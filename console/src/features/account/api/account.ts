@@ -26,12 +26,29 @@ export function useUpdateMe() {
   });
 }
 
+export type EmailState = components['schemas']['EmailStateResponseDto'];
+
+/** GET /v1/me/email: the sign-in address and a change still waiting for its link, if any. */
+export function getEmailState(signal?: AbortSignal): Promise<EmailState> {
+  return unwrap(client.GET('/v1/me/email', { signal }));
+}
+export function useEmailState() {
+  return useQuery({
+    queryKey: [...accountKeys.all, 'email'],
+    queryFn: ({ signal }) => getEmailState(signal),
+  });
+}
+
 /** POST /v1/me/email: a confirmation link goes to the new address; nothing changes until it is opened. */
 export function requestEmailChange(body: EmailChangeBody) {
   return unwrap(client.POST('/v1/me/email', { body }));
 }
 export function useRequestEmailChange() {
-  return useMutation({ mutationFn: requestEmailChange });
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: requestEmailChange,
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: [...accountKeys.all, 'email'] }),
+  });
 }
 
 /** POST /v1/me/password: the current password and a new one; the account's other sessions end. */

@@ -6,17 +6,20 @@ import { Card } from '@/components/ui/card';
 import { Notice } from '@/components/ui/notice';
 import { TextField } from '@/components/ui/text-field';
 import { applyServerErrors } from '@/lib/form-errors';
-import { useRequestEmailChange } from '../api/account';
+import { useEmailState, useRequestEmailChange } from '../api/account';
 import { emailChangeSchema, type EmailChangeValues } from '../schemas';
 
 /**
  * A new sign-in address: the server mails a link to it and changes nothing until the link is
- * opened. The server does not report a pending change on GET /v1/me, so "pending" lasts as long as
- * this page knows about it.
+ * opened. A change still waiting for its link comes from GET /v1/me/email, so it is shown on any
+ * visit until it is confirmed or expires.
  */
 export function EmailSection({ currentEmail }: { currentEmail: string }) {
   const request = useRequestEmailChange();
-  const [pending, setPending] = useState<string | null>(null);
+  const state = useEmailState();
+  const [justAsked, setJustAsked] = useState<string | null>(null);
+  const [anotherAddress, setAnotherAddress] = useState(false);
+  const pending = anotherAddress ? null : (justAsked ?? state.data?.pendingEmail ?? null);
   const [formError, setFormError] = useState<string | null>(null);
   const {
     register,
@@ -33,7 +36,8 @@ export function EmailSection({ currentEmail }: { currentEmail: string }) {
     setFormError(null);
     try {
       await request.mutateAsync(values);
-      setPending(values.newEmail);
+      setJustAsked(values.newEmail);
+      setAnotherAddress(false);
       reset({ newEmail: '', password: '' });
     } catch (error) {
       setFormError(applyServerErrors(error, ['newEmail', 'password'], setError).formMessage);
@@ -56,7 +60,13 @@ export function EmailSection({ currentEmail }: { currentEmail: string }) {
             <span className="break-all">{currentEmail}</span>.
           </Notice>
           <div>
-            <Button variant="secondary" onClick={() => setPending(null)}>
+            <Button
+              variant="secondary"
+              onClick={() => {
+                setJustAsked(null);
+                setAnotherAddress(true);
+              }}
+            >
               Use another address
             </Button>
           </div>
