@@ -13,11 +13,10 @@ import { InjectDataSource } from '@nestjs/typeorm';
 import pg from 'pg';
 import { DataSource } from 'typeorm';
 import type { Principal } from '../common/guards/access.guard.js';
-import type { MaybePromise } from '../common/maybe-promise.js';
 import { APP_CONFIG, AppConfig } from '../config/config.js';
 import { sameDigest, sha256Hex } from '../auth/tokens.js';
 import type { KeyEnvironment } from './api-key.entity.js';
-import { parseKey, type ParsedKey } from './key-format.js';
+import { parseKey } from './key-format.js';
 import { LastUsedRecorder } from './last-used.recorder.js';
 
 export const KEY_CHANNEL = 'lw_api_keys';
@@ -106,19 +105,10 @@ export class KeyVerifier implements OnApplicationBootstrap, OnApplicationShutdow
     this.cache.delete(publicId);
   }
 
-  /**
-   * The principal a presented key stands for, or null. Answers at once, without a promise, when
-   * the key's row is cached (every call of a busy key but one per TTL); after the lookup otherwise.
-   */
-  verify(token: string): MaybePromise<Principal | null> {
+  async verify(token: string): Promise<Principal | null> {
     const parsed = parseKey(token);
     if (!parsed) return null;
-    const row = this.cached(parsed.publicId);
-    if (row) return this.check(parsed, row);
-    return this.load(parsed.publicId).then((loaded) => this.check(parsed, loaded));
-  }
-
-  private check(parsed: ParsedKey, row: KeyRow | null): Principal | null {
+    const row = await this.lookup(parsed.publicId);
     if (!row || row.environment !== parsed.environment || row.revokedAt) return null;
     const now = Date.now();
     if (row.expiresAt && row.expiresAt.getTime() <= now) return null;
@@ -142,16 +132,10 @@ export class KeyVerifier implements OnApplicationBootstrap, OnApplicationShutdow
     };
   }
 
-  /** The cached row, while it is fresh and invalidations can reach this instance. */
-  private cached(publicId: string): KeyRow | undefined {
+  private async lookup(publicId: string): Promise<KeyRow | null> {
     const hit = this.cache.get(publicId);
-    if (!hit) return undefined;
-    if (this.listening && Date.now() - hit.loadedAt < TTL_MS) return hit.row;
-    this.cache.delete(publicId);
-    return undefined;
-  }
-
-  private async load(publicId: string): Promise<KeyRow | null> {
+    if (hit && this.listening && Date.now() - hit.loadedAt < TTL_MS) return hit.row;
+    if (hit) this.cache.delete(publicId);
     const gen = this.generation;
     const rows: KeyRow[] = await this.ds.query(
       `SELECT id, organization_id AS "organizationId", environment, secret_hash AS "secretHash",

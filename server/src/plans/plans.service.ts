@@ -57,18 +57,6 @@ export class PlansService {
     return plans.get(cached.code) ?? plans.get('free')!;
   }
 
-  /**
-   * The organisation's plan when it and the catalogue are both cached and fresh, without a
-   * promise (the metered hot path); undefined when forOrganization() has to ask the database.
-   */
-  cachedForOrganization(organizationId: string): PlanEntity | undefined {
-    const now = Date.now();
-    if (!this.plans || now - this.plansLoadedAt > PLAN_CACHE_MS) return undefined;
-    const cached = this.orgPlan.get(organizationId);
-    if (!cached || now - cached.at > PLAN_CACHE_MS) return undefined;
-    return this.plans.get(cached.code) ?? this.plans.get('free');
-  }
-
   forget(organizationId: string): void {
     this.orgPlan.delete(organizationId);
   }

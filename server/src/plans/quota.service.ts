@@ -8,7 +8,6 @@ import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource } from 'typeorm';
 import { DomainError } from '../common/errors/domain-error.js';
 import type { Principal } from '../common/guards/access.guard.js';
-import type { MaybePromise } from '../common/maybe-promise.js';
 import { APP_CONFIG, AppConfig } from '../config/config.js';
 import type { PlanEntity } from './plan.entity.js';
 import { databaseUnavailable } from './plans.service.js';
@@ -68,11 +67,8 @@ export class QuotaService implements BeforeApplicationShutdown {
     @Inject(APP_CONFIG) private readonly config: AppConfig,
   ) {}
 
-  /**
-   * Takes one call from the quota, or throws quota_exceeded. Returns a refund function: at once
-   * while this instance's lease has calls left, after reserving more from the database otherwise.
-   */
-  take(plan: PlanEntity, p: Principal, now = new Date()): MaybePromise<(() => void) | null> {
+  /** Takes one call from the quota, or throws quota_exceeded. Returns a refund function. */
+  async take(plan: PlanEntity, p: Principal, now = new Date()): Promise<(() => void) | null> {
     const q = quotaFor(plan, p);
     if (!q) return null;
     const key = `${p.organizationId}|${q.mode}`;
@@ -98,17 +94,10 @@ export class QuotaService implements BeforeApplicationShutdown {
         this.leases.set(key, lease);
       }
     }
-    if (lease.remaining > 0) {
-      lease.remaining--;
-      return lease.refund;
-    }
-    return this.takeAfterReserving(lease, q.limit);
-  }
-
-  private async takeAfterReserving(l: Lease, limit: number): Promise<() => void> {
+    const l = lease;
     while (l.remaining <= 0) {
-      if (l.exhaustedUntil > Date.now()) this.exceeded(limit, l.mode, l.reset);
-      l.acquiring ??= this.acquire(l, limit).finally(() => {
+      if (l.exhaustedUntil > Date.now()) this.exceeded(q.limit, q.mode, l.reset);
+      l.acquiring ??= this.acquire(l, q.limit).finally(() => {
         l.acquiring = null;
       });
       await l.acquiring;

@@ -72,7 +72,8 @@ export class MeteringHook {
     }
     // Refused before authentication ran (body too large, bad JSON): attribute it if the key is good.
     if (!this.auth || !/^Bearer\s/i.test(req.headers.authorization ?? '') || status === 401) return;
-    Promise.resolve(this.auth.fromApiKey(req as FastifyRequest))
+    this.auth
+      .fromApiKey(req as FastifyRequest)
       .then((p) => {
         if (p) this.writer.record(this.event(p, endpoint, status, latencyMs, occurredAt, req));
       })

@@ -4,7 +4,6 @@ import { Reflector } from '@nestjs/core';
 import type { FastifyRequest } from 'fastify';
 import { ACCESS_KEY, AccessRule, Role } from '../decorators/access.decorator.js';
 import { DomainError } from '../errors/domain-error.js';
-import { isPromise, type MaybePromise } from '../maybe-promise.js';
 
 export interface Principal {
   kind: 'session' | 'api-key';
@@ -18,23 +17,12 @@ export interface Principal {
 /** Resolves the caller from a request; provided by the auth module. */
 export interface Authenticator {
   fromSession(req: FastifyRequest): Promise<Principal | null>;
-  /** A value at once when the key is cached (the metered hot path), a promise otherwise. */
-  fromApiKey(req: FastifyRequest): MaybePromise<Principal | null>;
+  fromApiKey(req: FastifyRequest): Promise<Principal | null>;
 }
 
 export const AUTHENTICATOR = Symbol('AUTHENTICATOR');
 
 export type RequestWithPrincipal = FastifyRequest & { principal?: Principal };
-
-function admitKey(req: RequestWithPrincipal, principal: Principal | null): true {
-  if (!principal) {
-    throw new DomainError('unauthenticated', 'The API key is missing, unknown or revoked.', [], {
-      'WWW-Authenticate': 'Bearer realm="lumenwright", error="invalid_token"',
-    });
-  }
-  req.principal = principal;
-  return true;
-}
 
 @Injectable()
 export class AccessGuard implements CanActivate {
@@ -43,8 +31,7 @@ export class AccessGuard implements CanActivate {
     @Optional() @Inject(AUTHENTICATOR) private readonly auth?: Authenticator,
   ) {}
 
-  /** Synchronous for a cached API key: no promise is made on the metered hot path. */
-  canActivate(ctx: ExecutionContext): MaybePromise<boolean> {
+  async canActivate(ctx: ExecutionContext): Promise<boolean> {
     const rule = this.reflector.getAllAndOverride<AccessRule | undefined>(ACCESS_KEY, [
       ctx.getHandler(),
       ctx.getClass(),
@@ -53,19 +40,23 @@ export class AccessGuard implements CanActivate {
     if (rule.kind === 'public') return true;
     const req = ctx.switchToHttp().getRequest<RequestWithPrincipal>();
     const hasBearer = /^Bearer\s/i.test(req.headers.authorization ?? '');
+    let principal: Principal | null;
     if (rule.kind === 'api-key-or-session' && hasBearer) {
-      const found = this.auth ? this.auth.fromApiKey(req) : null;
-      return isPromise(found) ? found.then((p) => admitKey(req, p)) : admitKey(req, found);
+      principal = (await this.auth?.fromApiKey(req)) ?? null;
+      if (!principal) {
+        throw new DomainError(
+          'unauthenticated',
+          'The API key is missing, unknown or revoked.',
+          [],
+          {
+            'WWW-Authenticate': 'Bearer realm="lumenwright", error="invalid_token"',
+          },
+        );
+      }
+      req.principal = principal;
+      return true;
     }
-    return this.fromSession(req, rule, hasBearer);
-  }
-
-  private async fromSession(
-    req: RequestWithPrincipal,
-    rule: Exclude<AccessRule, { kind: 'public' }>,
-    hasBearer: boolean,
-  ): Promise<boolean> {
-    const principal = (await this.auth?.fromSession(req)) ?? null;
+    principal = (await this.auth?.fromSession(req)) ?? null;
     if (!principal) {
       const headers: Record<string, string> =
         rule.kind === 'api-key-or-session'
