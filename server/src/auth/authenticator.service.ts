@@ -2,16 +2,18 @@
 import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import type { FastifyRequest } from 'fastify';
-import passport from 'passport';
 import { DataSource } from 'typeorm';
-import { BEARER_STRATEGY } from '../api-keys/bearer.strategy.js';
+import { BearerStrategy } from '../api-keys/bearer.strategy.js';
 import type { Role } from '../common/decorators/access.decorator.js';
 import type { Authenticator, Principal } from '../common/guards/access.guard.js';
 import { SESSION_ABSOLUTE_MS } from './session.plugin.js';
 
 @Injectable()
 export class AccountsAuthenticator implements Authenticator {
-  constructor(@InjectDataSource() private readonly ds: DataSource) {}
+  constructor(
+    @InjectDataSource() private readonly ds: DataSource,
+    private readonly bearer: BearerStrategy,
+  ) {}
 
   /** The session's user and organisation; the role is read fresh so changes apply at once. */
   async fromSession(req: FastifyRequest): Promise<Principal | null> {
@@ -39,14 +41,6 @@ export class AccountsAuthenticator implements Authenticator {
 
   /** passport-http-bearer (registered through @nestjs/passport) validates the key. */
   fromApiKey(req: FastifyRequest): Promise<Principal | null> {
-    return new Promise((resolve, reject) => {
-      const run = passport.authenticate(
-        BEARER_STRATEGY,
-        { session: false },
-        (err: unknown, user: Principal | false | null) =>
-          err ? reject(err) : resolve(user || null),
-      ) as (req: unknown, res: unknown, next: (err?: unknown) => void) => void;
-      run(req, {}, (err?: unknown) => (err ? reject(err) : resolve(null)));
-    });
+    return this.bearer.check(req);
   }
 }

@@ -131,8 +131,6 @@ describe('compute limits and metering', () => {
     expect(res.map((r) => r.status).sort()).toEqual([200, 200, 429]);
   });
 
-  // Booting another app in this process re-registers the bearer strategy in passport's global
-  // registry, so tests that boot their own apps come last (after them `t` cannot verify keys).
   it('loses no usage event under load: rows written equal 2xx responses', async () => {
     const app2 = await bootApp({ USAGE_FLUSH_MS: '50', USAGE_BATCH_SIZE: '200' });
     const org = await keyedOrg(app2.url);
@@ -192,5 +190,20 @@ describe('compute limits and metering', () => {
       await a.close();
       await b.close();
     }
+  });
+
+  it('checks keys with its own strategy after other apps in the process have started and stopped', async () => {
+    // Each app holds its own bearer strategy; none is taken from a process-wide registry that a
+    // later app (now closed, its database handle gone) would have overwritten.
+    const org = await keyedOrg(t.url);
+    const res = await burst(t.url, org.live.secret, 1);
+    expect(res[0]!.status).toBe(200);
+    const bad = await fetch(`${t.url}/v1/balance`, {
+      method: 'POST',
+      headers: { authorization: 'Bearer lw_live_nothing', 'content-type': 'application/json' },
+      body: JSON.stringify(DEMO_BODIES.balance),
+    });
+    expect(bad.status).toBe(401);
+    expect(bad.headers.get('www-authenticate')).toMatch(/^Bearer/);
   });
 });

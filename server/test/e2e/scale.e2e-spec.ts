@@ -1,7 +1,6 @@
 // §3 scale: two instances of the BUILT server (separate processes, as behind a load balancer) on
 // one database, with the PostgreSQL-backed rate limiter (RATE_LIMIT_STORE=postgres). Separate
-// processes matter: apps booted in one process share passport's global strategy registry, so
-// "two instances" in-process would verify keys through one instance's cache.
+// processes matter: each has its own key cache, plan cache and usage buffer, and no shared memory.
 import { randomBytes } from 'node:crypto';
 import pg from 'pg';
 import type { DataSource } from 'typeorm';

@@ -347,8 +347,7 @@ export function load(
 /**
  * Like test/setup/app.ts bootApp(), but on a chosen port (PUBLIC_URL and PORT agree, so the
  * payments fake can be told where to deliver, and a restarted app is reachable at the same URL).
- * Note: each app booted in this process re-registers the bearer strategy in passport's global
- * registry, so API-key calls go through the last booted app's key verifier.
+ * Each app checks API keys with its own strategy instance and key cache.
  */
 export async function bootAppOn(port: number, env: Record<string, string> = {}) {
   const { createApp } = await import('../../src/app.factory.js');
