@@ -6224,7 +6224,7 @@ export interface operations {
           'application/json': components['schemas']['GelKitListResponseDto'];
         };
       };
-      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -6362,7 +6362,7 @@ export interface operations {
           'application/json': components['schemas']['GelKitResponseDto'];
         };
       };
-      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -6852,7 +6852,7 @@ export interface operations {
           'application/json': components['schemas']['LightListResponseDto'];
         };
       };
-      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -6990,7 +6990,7 @@ export interface operations {
           'application/json': components['schemas']['LightResponseDto'];
         };
       };
-      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -7204,7 +7204,7 @@ export interface operations {
           'application/json': components['schemas']['ModifierListResponseDto'];
         };
       };
-      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
       401: {
         headers: {
           [name: string]: unknown;
@@ -7342,7 +7342,7 @@ export interface operations {
           'application/json': components['schemas']['ModifierResponseDto'];
         };
       };
-      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
       401: {
         headers: {
           [name: string]: unknown;

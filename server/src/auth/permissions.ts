@@ -8,7 +8,8 @@ export interface PermissionInfo {
 
 /**
  * The permission table. API keys carry no role: a key acts for its organisation on the compute
- * routes (`@ApiKeyAuth`) and can never call a management route (those are `@SessionAuth`).
+ * routes and reads its gear (`@ApiKeyAuth`), and can never call a management route or write
+ * anything (those are `@SessionAuth`).
  */
 export const PERMISSIONS = {
   'organization:read': { roles: ROLES, description: 'See the organisation and its plan' },
@@ -31,7 +32,10 @@ export const PERMISSIONS = {
   'usage:read': { roles: ['owner', 'admin', 'developer'], description: 'Read usage and quotas' },
   'audit:read': { roles: ['owner', 'admin'], description: 'Read the audit log' },
   'gear:manage': { roles: ['owner', 'admin'], description: 'Add and edit the studio gear list' },
-  'gear:read': { roles: ROLES, description: 'Read the studio gear list' },
+  'gear:read': {
+    roles: ROLES,
+    description: 'Read the studio gear list (API keys too, to find the ids compute calls take)',
+  },
   'playground:use': { roles: ROLES, description: 'Run calculations in the console playground' },
   'setups:read': {
     roles: ROLES,

@@ -8,7 +8,7 @@ import {
 } from '@nestjs/swagger';
 import { can } from '../auth/permissions.js';
 import { CurrentPrincipal } from '../auth/request-context.js';
-import { SessionAuth } from '../common/decorators/access.decorator.js';
+import { ApiKeyAuth, SessionAuth } from '../common/decorators/access.decorator.js';
 import type { Principal } from '../common/guards/access.guard.js';
 import {
   CreateGelKitRequestDto,
@@ -29,7 +29,7 @@ export class GelKitsController {
   constructor(private readonly kits: GelKitsService) {}
 
   @Get()
-  @SessionAuth(...can('gear:read'))
+  @ApiKeyAuth(...can('gear:read'))
   @ApiOperation({ summary: "The organisation's gel kits with their pieces." })
   @ApiOkResponse({ type: GelKitListResponseDto })
   @GearProblems()
@@ -47,7 +47,7 @@ export class GelKitsController {
   }
 
   @Get(':id')
-  @SessionAuth(...can('gear:read'))
+  @ApiKeyAuth(...can('gear:read'))
   @ApiOperation({ summary: 'One gel kit with its pieces.' })
   @ApiOkResponse({ type: GelKitResponseDto })
   @GearProblems({ withId: true })

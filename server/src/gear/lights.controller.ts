@@ -8,7 +8,7 @@ import {
 } from '@nestjs/swagger';
 import { can } from '../auth/permissions.js';
 import { CurrentPrincipal } from '../auth/request-context.js';
-import { SessionAuth } from '../common/decorators/access.decorator.js';
+import { ApiKeyAuth, SessionAuth } from '../common/decorators/access.decorator.js';
 import type { Principal } from '../common/guards/access.guard.js';
 import {
   CreateLightRequestDto,
@@ -26,7 +26,7 @@ export class LightsController {
   constructor(private readonly lights: LightsService) {}
 
   @Get()
-  @SessionAuth(...can('gear:read'))
+  @ApiKeyAuth(...can('gear:read'))
   @ApiOperation({ summary: "The organisation's lights, by name." })
   @ApiOkResponse({ type: LightListResponseDto })
   @GearProblems()
@@ -46,7 +46,7 @@ export class LightsController {
   }
 
   @Get(':id')
-  @SessionAuth(...can('gear:read'))
+  @ApiKeyAuth(...can('gear:read'))
   @ApiOperation({ summary: 'One light.' })
   @ApiOkResponse({ type: LightResponseDto })
   @GearProblems({ withId: true })

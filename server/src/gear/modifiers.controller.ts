@@ -8,7 +8,7 @@ import {
 } from '@nestjs/swagger';
 import { can } from '../auth/permissions.js';
 import { CurrentPrincipal } from '../auth/request-context.js';
-import { SessionAuth } from '../common/decorators/access.decorator.js';
+import { ApiKeyAuth, SessionAuth } from '../common/decorators/access.decorator.js';
 import type { Principal } from '../common/guards/access.guard.js';
 import {
   CreateModifierRequestDto,
@@ -26,7 +26,7 @@ export class ModifiersController {
   constructor(private readonly modifiers: ModifiersService) {}
 
   @Get()
-  @SessionAuth(...can('gear:read'))
+  @ApiKeyAuth(...can('gear:read'))
   @ApiOperation({ summary: "The organisation's modifiers, by name." })
   @ApiOkResponse({ type: ModifierListResponseDto })
   @GearProblems()
@@ -46,7 +46,7 @@ export class ModifiersController {
   }
 
   @Get(':id')
-  @SessionAuth(...can('gear:read'))
+  @ApiKeyAuth(...can('gear:read'))
   @ApiOperation({ summary: 'One modifier.' })
   @ApiOkResponse({ type: ModifierResponseDto })
   @GearProblems({ withId: true })

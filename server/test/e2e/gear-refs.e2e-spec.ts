@@ -8,6 +8,7 @@ import { GearReferenceResolver, hasGearRefs } from '../../src/gear/gear-referenc
 import { bootApp, TestApp } from '../setup/app.js';
 import { openDataSource } from '../setup/db.js';
 import { signUp, type SignedInAgent } from '../factories/accounts.js';
+import { createKey } from '../factories/compute.js';
 import { createGelKit, createLight, createModifier, SMALL_KIT_PIECES } from '../factories/gear.js';
 import { LAKESIDE_INPUTS } from '../factories/setups.js';
 
@@ -133,6 +134,53 @@ describe('gear by id', () => {
     expect(hasGearRefs({ cameraKelvin: 3800 })).toBe(false);
     expect(hasGearRefs({ cameraKelvin: 3800, gelKitId: kit.id })).toBe(true);
     expect(hasGearRefs({ key: { lightId: key.id } })).toBe(true);
+  });
+
+  it("an API key reads its organisation's gear (lists and single items) and uses the ids; never another's, never writes", async () => {
+    const secret = (await createKey(owner, 'live')).secret;
+    const otherSecret = (await createKey(other, 'live')).secret;
+    const get = (path: string, token: string) =>
+      fetch(`${t.url}${path}`, { headers: { authorization: `Bearer ${token}` } });
+    for (const [path, ids] of [
+      ['/v1/gear/lights', [key.id, rim.id]],
+      ['/v1/gear/modifiers', [octa.id, grid.id]],
+      ['/v1/gear/gel-kits', [kit.id]],
+    ] as const) {
+      const list = await get(path, secret);
+      expect({ path, status: list.status }).toEqual({ path, status: 200 });
+      const listed = ((await list.json()) as { data: { id: string }[] }).data.map((g) => g.id);
+      expect(listed.sort()).toEqual([...ids].sort());
+      const one = await get(`${path}/${ids[0]}`, secret);
+      expect(((await one.json()) as { id: string }).id).toBe(ids[0]);
+      const theirs = await get(path, otherSecret);
+      expect(((await theirs.json()) as { data: unknown[] }).data).toEqual([]);
+      const borrowed = await get(`${path}/${ids[0]}`, otherSecret);
+      expect({ path, status: borrowed.status }).toEqual({ path, status: 404 });
+    }
+    // The kit id read with the key works in a compute call made with the same key.
+    const body = { cameraKelvin: 3800, flashKelvin: 5600, targetMiredOffset: 10 };
+    const call = (extra: Record<string, unknown>) =>
+      fetch(`${t.url}/v1/balance`, {
+        method: 'POST',
+        headers: { authorization: `Bearer ${secret}`, 'content-type': 'application/json' },
+        body: JSON.stringify({ ...body, ...extra }),
+      }).then(async (r) => ({ status: r.status, body: await r.json() }));
+    const viaId = await call({ gelKitId: kit.id });
+    expect(viaId.status).toBe(200);
+    expect(viaId.body).toEqual((await call({ gels: inlineGels(kit) })).body);
+    // Writing gear stays a console action.
+    const write = await fetch(`${t.url}/v1/gear/lights`, {
+      method: 'POST',
+      headers: { authorization: `Bearer ${secret}`, 'content-type': 'application/json' },
+      body: JSON.stringify({ name: 'Key-made light', guideNumber: 40 }),
+    });
+    expect(write.status).toBe(401);
+    expect(((await write.json()) as { detail: string }).detail).toMatch(/API keys cannot use it/);
+    const [{ n }] = await ds.query(
+      `SELECT count(*)::int AS n FROM gear_lights WHERE organization_id = $1`,
+      [owner.organizationId],
+    );
+    expect(n).toBe(2);
   });
 
   it("another organisation's gear id is a 404 naming the field", async () => {
