@@ -18,7 +18,8 @@ import { findNul, nulProblem, queryNul } from './common/http/nul-text.js';
 import { isMultipart, scopedHooks } from './common/http/scoped-hooks.js';
 import { registerSecurityHeaders } from './common/http/security-headers.js';
 import { createLogger, PinoNestLogger, registerRequestLogging } from './common/logging/logging.js';
-import { toProblem } from './common/filters/problem.filter.js';
+import { noRouteProblem, toProblem } from './common/filters/problem.filter.js';
+import { trackAllowedMethods } from './common/http/allowed-methods.js';
 import { AppConfig } from './config/config.js';
 import { buildOpenApiDocument } from './openapi.js';
 
@@ -67,6 +68,7 @@ export async function createApp(
   app.enableShutdownHooks();
 
   const fastify = app.getHttpAdapter().getInstance();
+  trackAllowedMethods(fastify);
   registerJsonBodies(fastify, config.bodyLimitBytes);
   fastify.addHook('onRequest', (req, reply, done) => {
     void reply.header('X-Request-Id', req.id);
@@ -235,10 +237,11 @@ async function registerConsole(app: NestFastifyApplication, config: AppConfig) {
     const html = indexHtml();
     const asset = p.startsWith('/assets/') || /\.[a-z0-9]{1,8}$/i.test(p);
     if (p.startsWith('/v1/') || p === '/v1' || p.startsWith('/docs') || asset || !html) {
-      const { problem } = toProblem({ statusCode: 404, message: `No route for GET ${p}` });
+      const { problem, headers } = noRouteProblem(req, p);
+      void reply.headers(headers);
       problem.instance = p;
       problem.requestId = String(req.id);
-      return reply.status(404).type('application/problem+json').send(problem);
+      return reply.status(problem.status).type('application/problem+json').send(problem);
     }
     return reply.header('Cache-Control', 'no-cache').type('text/html; charset=utf-8').send(html);
   });

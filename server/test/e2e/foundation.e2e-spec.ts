@@ -37,6 +37,43 @@ describe('foundation', () => {
     expect(res.body.requestId).toBe(res.headers['x-request-id']);
   });
 
+  it('answers a known path with the wrong method with 405 and Allow (RFC 9110 §15.5.6)', async () => {
+    const cases: [string, string, string][] = [
+      ['get', '/v1/balance', 'POST'], // GETs meet the console's catch-all route first
+      ['delete', '/v1/balance', 'POST'],
+      ['put', '/v1/keys/4f0c1b7e-0000-4000-8000-000000000000', 'GET, HEAD, DELETE'],
+      ['patch', '/v1/health', 'GET, HEAD'],
+      ['get', '/v1/keys/4f0c1b7e-0000-4000-8000-000000000000/rotate', 'POST'],
+    ];
+    for (const [method, path, allow] of cases) {
+      const res = await request(t.url)[method as 'get'](path);
+      expect({ method, path, status: res.status, allow: res.headers.allow }).toEqual({
+        method,
+        path,
+        status: 405,
+        allow,
+      });
+      expect(res.headers['content-type']).toMatch(/^application\/problem\+json/);
+      expect(res.body).toMatchObject({
+        type: 'https://lumenwright.test/problems/method-not-allowed',
+        title: 'Method not allowed',
+        status: 405,
+        instance: path,
+      });
+      expect(res.body.detail).toContain(allow);
+      expect(res.body.requestId).toBe(res.headers['x-request-id']);
+    }
+    // An unknown path, and a known path's sibling, stay 404.
+    for (const path of ['/v1/balances', '/v1/keys/a/b/c']) {
+      const res = await request(t.url).delete(path);
+      expect({ path, status: res.status, allow: res.headers.allow }).toEqual({
+        path,
+        status: 404,
+        allow: undefined,
+      });
+    }
+  });
+
   it('refuses bodies over the 100 kB limit with a 413 problem', async () => {
     const big = JSON.stringify({ pad: 'x'.repeat(101 * 1024) });
     const res = await request(t.url)

@@ -6,8 +6,10 @@ import {
   HttpException,
   HttpStatus,
   Logger,
+  NotFoundException,
 } from '@nestjs/common';
 import type { FastifyReply, FastifyRequest } from 'fastify';
+import '../http/allowed-methods.js';
 import { isDatabaseUnavailable } from '../errors/transient.js';
 import { DomainError, FieldProblem, STATUS_BY_CODE } from '../errors/domain-error.js';
 
@@ -159,6 +161,29 @@ export function toProblem(err: unknown): { problem: Problem; headers: Record<str
   };
 }
 
+/**
+ * A request that matched no route: 405 with Allow when the path answers to other methods
+ * (RFC 9110 §15.5.6), else 404.
+ */
+export function noRouteProblem(
+  req: FastifyRequest,
+  path: string,
+): { problem: Problem; headers: Record<string, string> } {
+  const allow = req.server?.allowedMethods?.for(path) ?? [];
+  if (allow.length && !allow.includes(req.method)) {
+    return {
+      problem: {
+        type: PROBLEM_BASE + SLUG[405],
+        title: TITLES[405]!,
+        status: 405,
+        detail: `${path} does not take ${req.method}; it takes ${allow.join(', ')}.`,
+      },
+      headers: { Allow: allow.join(', ') },
+    };
+  }
+  return toProblem({ statusCode: 404, message: `No route for ${req.method} ${path}` });
+}
+
 @Catch()
 export class ProblemFilter implements ExceptionFilter {
   private readonly logger = new Logger('ProblemFilter');
@@ -167,8 +192,12 @@ export class ProblemFilter implements ExceptionFilter {
     const ctx = host.switchToHttp();
     const req = ctx.getRequest<FastifyRequest>();
     const reply = ctx.getResponse<FastifyReply>();
-    const { problem, headers } = toProblem(err);
-    problem.instance = req.url?.split('?')[0];
+    const path = req.url?.split('?')[0] ?? '/';
+    // Nest's handler for requests no route matched throws "Cannot <METHOD> <url>".
+    const noRoute =
+      err instanceof NotFoundException && err.message.startsWith(`Cannot ${req.method} `);
+    const { problem, headers } = noRoute ? noRouteProblem(req, path) : toProblem(err);
+    problem.instance = path;
     problem.requestId = String(req.id);
     if (problem.status >= 500) {
       this.logger.error({ err, requestId: req.id }, 'unhandled error');
