@@ -4,10 +4,13 @@ import { Button } from './button';
 interface CopyButtonProps {
   text: string;
   label?: string;
+  /** The button's accessible name when `label` alone is ambiguous (a copy button per row). */
+  ariaLabel?: string;
+  className?: string;
 }
 
 /** Copies `text` to the clipboard and says so; falls back to asking the user to copy by hand. */
-export function CopyButton({ text, label = 'Copy' }: CopyButtonProps) {
+export function CopyButton({ text, label = 'Copy', ariaLabel, className }: CopyButtonProps) {
   const [state, setState] = useState<'idle' | 'copied' | 'failed'>('idle');
   const copy = async () => {
     try {
@@ -19,7 +22,12 @@ export function CopyButton({ text, label = 'Copy' }: CopyButtonProps) {
   };
   return (
     <span className="inline-flex items-center gap-2">
-      <Button variant="secondary" onClick={() => void copy()}>
+      <Button
+        variant="secondary"
+        className={className}
+        aria-label={ariaLabel}
+        onClick={() => void copy()}
+      >
         {label}
       </Button>
       <span role="status" className="text-small text-ink-muted">

@@ -2,6 +2,7 @@ import { useMemo, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
+import { CopyButton } from '@/components/ui/copy-button';
 import { DataTable, type DataColumn } from '@/components/ui/data-table';
 import { Notice } from '@/components/ui/notice';
 import { PageLoading } from '@/components/ui/page-loading';
@@ -53,8 +54,36 @@ function RowActions({
   );
 }
 
+/** The id API calls take for this item (`key.lightId`, `key.modifierId`, `gelKitId`…). */
+function ApiId({ id, name }: { id: string; name: string }) {
+  return (
+    <span className="inline-flex flex-wrap items-center gap-2">
+      <code className="text-small text-ink-muted" title={id}>
+        {id.slice(0, 8)}…
+      </code>
+      <CopyButton
+        text={id}
+        label="Copy id"
+        ariaLabel={`Copy the API id of ${name}`}
+        className={small}
+      />
+    </span>
+  );
+}
+
+/** A column with each item's API id, for the roles that build against the API. */
+function idColumn<T extends { id: string; name: string }>(): DataColumn<T> {
+  return {
+    id: 'apiId',
+    header: 'API id',
+    cell: ({ row }) => <ApiId id={row.original.id} name={row.original.name} />,
+  };
+}
+
 export function GearPage() {
   const canEdit = useCan('gear:manage');
+  // Keys read the gear list too: developers copy these ids into their calls.
+  const showIds = useCan('keys:manage-own');
   const lights = useLights();
   const modifiers = useModifiers();
   const gelKits = useGelKits();
@@ -85,6 +114,7 @@ export function GearPage() {
       },
       { id: 'notes', header: 'Notes', accessorFn: (l) => l.notes ?? '' },
     ];
+    if (showIds) columns.push(idColumn<Light>());
     if (canEdit) {
       columns.push({
         id: 'actions',
@@ -105,7 +135,7 @@ export function GearPage() {
     }
     return columns;
     // eslint-disable-next-line react-hooks/exhaustive-deps -- mutation objects are stable
-  }, [canEdit]);
+  }, [canEdit, showIds]);
 
   const modifierColumns = useMemo<DataColumn<Modifier>[]>(() => {
     const columns: DataColumn<Modifier>[] = [
@@ -123,6 +153,7 @@ export function GearPage() {
         accessorFn: (m) => (m.beamAngleDeg !== null ? `${m.beamAngleDeg}°` : '—'),
       },
     ];
+    if (showIds) columns.push(idColumn<Modifier>());
     if (canEdit) {
       columns.push({
         id: 'actions',
@@ -143,7 +174,7 @@ export function GearPage() {
     }
     return columns;
     // eslint-disable-next-line react-hooks/exhaustive-deps -- mutation objects are stable
-  }, [canEdit]);
+  }, [canEdit, showIds]);
 
   const pieceColumns = (kit: GelKit): DataColumn<GelPiece>[] => {
     const columns: DataColumn<GelPiece>[] = [
@@ -245,7 +276,10 @@ export function GearPage() {
             {gelKits.data.data.map((kit) => (
               <Card key={kit.id} aria-label={`Gel kit ${kit.name}`}>
                 <div className="mb-3 flex flex-wrap items-center justify-between gap-2">
-                  <h3 className="text-lead font-semibold">{kit.name}</h3>
+                  <div className="flex flex-wrap items-center gap-3">
+                    <h3 className="text-lead font-semibold">{kit.name}</h3>
+                    {showIds ? <ApiId id={kit.id} name={kit.name} /> : null}
+                  </div>
                   {canEdit ? (
                     <div className="flex gap-2">
                       <Button
