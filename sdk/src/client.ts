@@ -1,4 +1,4 @@
-// A thin, typed client over openapi-fetch: one method per compute endpoint, problem+json turned
+// A thin, typed client over openapi-fetch: one method per compute endpoint and gear reads, problem+json turned
 // into LumenwrightError, bounded retries on 429 (rate limited) and 503 honouring Retry-After,
 // and a timeout per attempt.
 import createClient, { type Client } from 'openapi-fetch';
@@ -21,6 +21,12 @@ export type BalanceResponse = Schemas['BalanceResponseDto'];
 export type SetupRequest = Schemas['SetupRequestDto'];
 export type SetupResponse = Schemas['SetupResponseDto'];
 export type PlanList = Schemas['PlanListResponseDto'];
+export type Light = Schemas['LightResponseDto'];
+export type LightList = Schemas['LightListResponseDto'];
+export type Modifier = Schemas['ModifierResponseDto'];
+export type ModifierList = Schemas['ModifierListResponseDto'];
+export type GelKit = Schemas['GelKitResponseDto'];
+export type GelKitList = Schemas['GelKitListResponseDto'];
 
 export type FetchLike = (request: Request) => Promise<Response>;
 
@@ -97,9 +103,40 @@ export class Lumenwright {
   balance = (body: BalanceRequest) => this.compute<BalanceResponse>('/v1/balance', body);
   setup = (body: SetupRequest) => this.compute<SetupResponse>('/v1/setup', body);
 
+  /**
+   * The studio's gear list, read with the key (writing it is a console action). Compute calls
+   * take these ids: `key.lightId`, `key.modifierId`, `rim.lightId`, `gelKitId`…
+   */
+  readonly gear = {
+    lights: (): Promise<LightList> =>
+      this.read((signal) => this.client.GET('/v1/gear/lights', { signal })),
+    light: (id: string): Promise<Light> =>
+      this.read((signal) =>
+        this.client.GET('/v1/gear/lights/{id}', { params: { path: { id } }, signal }),
+      ),
+    modifiers: (): Promise<ModifierList> =>
+      this.read((signal) => this.client.GET('/v1/gear/modifiers', { signal })),
+    modifier: (id: string): Promise<Modifier> =>
+      this.read((signal) =>
+        this.client.GET('/v1/gear/modifiers/{id}', { params: { path: { id } }, signal }),
+      ),
+    gelKits: (): Promise<GelKitList> =>
+      this.read((signal) => this.client.GET('/v1/gear/gel-kits', { signal })),
+    gelKit: (id: string): Promise<GelKit> =>
+      this.read((signal) =>
+        this.client.GET('/v1/gear/gel-kits/{id}', { params: { path: { id } }, signal }),
+      ),
+  };
+
   /** The plans (public). */
   plans = (): Promise<PlanList> =>
     this.attempt(async (signal) => this.client.GET('/v1/plans', { signal })) as Promise<PlanList>;
+
+  private read<T>(
+    call: (signal: AbortSignal) => Promise<{ data?: T; error?: unknown; response: Response }>,
+  ): Promise<T> {
+    return this.attempt(call) as Promise<T>;
+  }
 
   private compute<T>(path: ComputePath, body: unknown): Promise<T> {
     return this.attempt((signal) =>

@@ -7,6 +7,13 @@ import { apiRoot, createApiClient, Lumenwright, LumenwrightError } from '../src/
 const baseUrl = inject('baseUrl');
 
 async function newKey(environment: 'live' | 'test'): Promise<string> {
+  return (await newStudio(environment)).secret;
+}
+
+/** A new studio with a key, and the owner's session cookie for console-only writes. */
+async function newStudio(
+  environment: 'live' | 'test',
+): Promise<{ secret: string; cookie: string }> {
   const api = createApiClient({ baseUrl });
   const email = `sdk-${randomUUID().slice(0, 8)}@sdk-tests.test`;
   const signUp = await fetch(`${baseUrl}/v1/auth/sign-up`, {
@@ -26,7 +33,7 @@ async function newKey(environment: 'live' | 'test'): Promise<string> {
     headers: { cookie },
   });
   expect(created.response.status).toBe(201);
-  return (created.data as { secret: string }).secret;
+  return { secret: (created.data as { secret: string }).secret, cookie };
 }
 
 describe('Lumenwright SDK', () => {
@@ -172,6 +179,39 @@ describe('Lumenwright SDK', () => {
         }),
     });
     await expect(slow.exposure({ ev100: 1 })).rejects.toMatchObject({ kind: 'timeout', status: 0 });
+  });
+
+  it('reads the studio gear with the key and uses a kit id in a balance', async () => {
+    const { secret, cookie } = await newStudio('live');
+    const api = createApiClient({ baseUrl });
+    const light = await api.POST('/v1/gear/lights', {
+      body: { name: 'Garden strobe', guideNumber: 52, guideNumberUnit: 'm' },
+      headers: { cookie },
+    });
+    expect(light.response.status).toBe(201);
+    const kit = await api.POST('/v1/gear/gel-kits', {
+      body: {
+        name: 'Warmers',
+        // CTO: 5500 K → 2900 K, a shift of about +159 mired (1e6/2900 − 1e6/5500), from memory.
+        pieces: [{ name: 'Full CTO', miredShift: 159, greenShift: 0, lossStops: 0.7 }],
+      },
+      headers: { cookie },
+    });
+    expect(kit.response.status).toBe(201);
+    const own = new Lumenwright({ apiKey: secret, baseUrl });
+    const lights = await own.gear.lights();
+    expect(lights.data.map((l) => l.name)).toEqual(['Garden strobe']);
+    expect((await own.gear.light(lights.data[0]!.id)).guideNumberM).toBe(52);
+    expect((await own.gear.modifiers()).data).toEqual([]);
+    const kits = await own.gear.gelKits();
+    const kitId = kits.data[0]!.id;
+    expect((await own.gear.gelKit(kitId)).pieces.map((p) => p.name)).toEqual(['Full CTO']);
+    // 1e6/3200 − 1e6/5500 = 130.7 mired wanted (definition of the mired); the kit's only gel gives 159.
+    const r = await own.balance({ cameraKelvin: 3200, flashKelvin: 5500, gelKitId: kitId });
+    expect(r.requiredMiredShift).toBeCloseTo(130.68, 1);
+    expect(r.gels.map((g) => g.name)).toEqual(['Full CTO']);
+    // Another studio's key reads none of it.
+    await expect(lw.gear.gelKit(kitId)).rejects.toMatchObject({ status: 404 });
   });
 
   it('lists the plans', async () => {

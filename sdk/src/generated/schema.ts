@@ -5967,6 +5967,21 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description With an API key: the key's rate limit, shared with its computations (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy). Reads use no quota. */
+      429: {
+        headers: {
+          /** @description Calls left in the window and seconds until it refills, e.g. `"key";r=0;t=1`. */
+          RateLimit?: string;
+          /** @description The limit: burst size and window in seconds, e.g. `"key";q=100;w=2`. */
+          'RateLimit-Policy'?: string;
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
       503: {
         headers: {
@@ -6136,6 +6151,21 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description With an API key: the key's rate limit, shared with its computations (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy). Reads use no quota. */
+      429: {
+        headers: {
+          /** @description Calls left in the window and seconds until it refills, e.g. `"key";r=0;t=1`. */
+          RateLimit?: string;
+          /** @description The limit: burst size and window in seconds, e.g. `"key";q=100;w=2`. */
+          'RateLimit-Policy'?: string;
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
       503: {
         headers: {
@@ -6194,6 +6224,21 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description With an API key: the key's rate limit, shared with its computations (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy). Reads use no quota. */
+      429: {
+        headers: {
+          /** @description Calls left in the window and seconds until it refills, e.g. `"key";r=0;t=1`. */
+          RateLimit?: string;
+          /** @description The limit: burst size and window in seconds, e.g. `"key";q=100;w=2`. */
+          'RateLimit-Policy'?: string;
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
       503: {
         headers: {
@@ -6227,6 +6272,21 @@ export interface operations {
       /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
       401: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description With an API key: the key's rate limit, shared with its computations (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy). Reads use no quota. */
+      429: {
+        headers: {
+          /** @description Calls left in the window and seconds until it refills, e.g. `"key";r=0;t=1`. */
+          RateLimit?: string;
+          /** @description The limit: burst size and window in seconds, e.g. `"key";q=100;w=2`. */
+          'RateLimit-Policy'?: string;
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -6374,6 +6434,21 @@ export interface operations {
       /** @description No such item in your organisation; `errors` names the field. */
       404: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description With an API key: the key's rate limit, shared with its computations (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy). Reads use no quota. */
+      429: {
+        headers: {
+          /** @description Calls left in the window and seconds until it refills, e.g. `"key";r=0;t=1`. */
+          RateLimit?: string;
+          /** @description The limit: burst size and window in seconds, e.g. `"key";q=100;w=2`. */
+          'RateLimit-Policy'?: string;
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -6861,6 +6936,21 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description With an API key: the key's rate limit, shared with its computations (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy). Reads use no quota. */
+      429: {
+        headers: {
+          /** @description Calls left in the window and seconds until it refills, e.g. `"key";r=0;t=1`. */
+          RateLimit?: string;
+          /** @description The limit: burst size and window in seconds, e.g. `"key";q=100;w=2`. */
+          'RateLimit-Policy'?: string;
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
       503: {
         headers: {
@@ -7002,6 +7092,21 @@ export interface operations {
       /** @description No such item in your organisation; `errors` names the field. */
       404: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description With an API key: the key's rate limit, shared with its computations (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy). Reads use no quota. */
+      429: {
+        headers: {
+          /** @description Calls left in the window and seconds until it refills, e.g. `"key";r=0;t=1`. */
+          RateLimit?: string;
+          /** @description The limit: burst size and window in seconds, e.g. `"key";q=100;w=2`. */
+          'RateLimit-Policy'?: string;
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {
@@ -7213,6 +7318,21 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description With an API key: the key's rate limit, shared with its computations (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy). Reads use no quota. */
+      429: {
+        headers: {
+          /** @description Calls left in the window and seconds until it refills, e.g. `"key";r=0;t=1`. */
+          RateLimit?: string;
+          /** @description The limit: burst size and window in seconds, e.g. `"key";q=100;w=2`. */
+          'RateLimit-Policy'?: string;
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
       503: {
         headers: {
@@ -7354,6 +7474,21 @@ export interface operations {
       /** @description No such item in your organisation; `errors` names the field. */
       404: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description With an API key: the key's rate limit, shared with its computations (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy). Reads use no quota. */
+      429: {
+        headers: {
+          /** @description Calls left in the window and seconds until it refills, e.g. `"key";r=0;t=1`. */
+          RateLimit?: string;
+          /** @description The limit: burst size and window in seconds, e.g. `"key";q=100;w=2`. */
+          'RateLimit-Policy'?: string;
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {

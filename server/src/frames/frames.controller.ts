@@ -15,6 +15,7 @@ import { meteredTooManyRequests, problem } from '../common/decorators/problem-re
 import type { RequestWithPrincipal } from '../common/guards/access.guard.js';
 import { ApiQueryFromSchema, SchemaPipe } from '../compute/validation/schema-dto.js';
 import { MeteredCallGuard } from '../plans/metered-call.guard.js';
+import { KeyReadLimited } from '../plans/key-read.decorator.js';
 import type { MeterRouteConfig } from '../usage/metering.hook.js';
 import { FrameListResponseDto, FrameResponseDto } from './dto/frame.dto.js';
 import { toFrameDto } from './frame.mapper.js';
@@ -91,6 +92,7 @@ export class FramesController {
 
   @Get()
   @ApiKeyAuth()
+  @KeyReadLimited()
   @ApiOperation({ summary: "Your organisation's test frames, newest first." })
   @ApiQueryFromSchema(listQuery)
   @ApiOkResponse({ type: FrameListResponseDto })
@@ -108,6 +110,7 @@ export class FramesController {
 
   @Get(':id')
   @ApiKeyAuth()
+  @KeyReadLimited()
   @ApiOperation({ summary: 'One test frame and its analysis.' })
   @ApiOkResponse({ type: FrameResponseDto })
   @problem(404, 'No such frame in your organisation.')
@@ -118,6 +121,7 @@ export class FramesController {
 
   @Get(':id/thumbnail')
   @ApiKeyAuth()
+  @KeyReadLimited()
   @ApiOperation({ summary: 'The JPEG thumbnail of a test frame (at most 320 px).' })
   @ApiProduces('image/jpeg')
   @ApiOkResponse({ description: 'JPEG image.' })

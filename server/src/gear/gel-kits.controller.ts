@@ -7,6 +7,7 @@ import {
   ApiTags,
 } from '@nestjs/swagger';
 import { can } from '../auth/permissions.js';
+import { KeyReadLimited } from '../plans/key-read.decorator.js';
 import { CurrentPrincipal } from '../auth/request-context.js';
 import { ApiKeyAuth, SessionAuth } from '../common/decorators/access.decorator.js';
 import type { Principal } from '../common/guards/access.guard.js';
@@ -30,6 +31,7 @@ export class GelKitsController {
 
   @Get()
   @ApiKeyAuth(...can('gear:read'))
+  @KeyReadLimited()
   @ApiOperation({ summary: "The organisation's gel kits with their pieces." })
   @ApiOkResponse({ type: GelKitListResponseDto })
   @GearProblems()
@@ -48,6 +50,7 @@ export class GelKitsController {
 
   @Get(':id')
   @ApiKeyAuth(...can('gear:read'))
+  @KeyReadLimited()
   @ApiOperation({ summary: 'One gel kit with its pieces.' })
   @ApiOkResponse({ type: GelKitResponseDto })
   @GearProblems({ withId: true })

@@ -7,6 +7,7 @@ import {
   ApiTags,
 } from '@nestjs/swagger';
 import { can } from '../auth/permissions.js';
+import { KeyReadLimited } from '../plans/key-read.decorator.js';
 import { CurrentPrincipal } from '../auth/request-context.js';
 import { ApiKeyAuth, SessionAuth } from '../common/decorators/access.decorator.js';
 import type { Principal } from '../common/guards/access.guard.js';
@@ -27,6 +28,7 @@ export class ModifiersController {
 
   @Get()
   @ApiKeyAuth(...can('gear:read'))
+  @KeyReadLimited()
   @ApiOperation({ summary: "The organisation's modifiers, by name." })
   @ApiOkResponse({ type: ModifierListResponseDto })
   @GearProblems()
@@ -47,6 +49,7 @@ export class ModifiersController {
 
   @Get(':id')
   @ApiKeyAuth(...can('gear:read'))
+  @KeyReadLimited()
   @ApiOperation({ summary: 'One modifier.' })
   @ApiOkResponse({ type: ModifierResponseDto })
   @GearProblems({ withId: true })

@@ -5,7 +5,7 @@ import { APP_CONFIG, AppConfig } from '../config/config.js';
 import { REDIS } from '../redis/redis.module.js';
 import { UsageModule } from '../usage/usage.module.js';
 import { USAGE_POOL } from '../usage/usage-writer.service.js';
-import { MeteredCallGuard } from './metered-call.guard.js';
+import { KeyReadGuard, MeteredCallGuard } from './metered-call.guard.js';
 import { PlansController } from './plans.controller.js';
 import { PlansService } from './plans.service.js';
 import { QuotaService } from './quota.service.js';
@@ -23,6 +23,7 @@ import {
     PlansService,
     QuotaService,
     MeteredCallGuard,
+    KeyReadGuard,
     {
       provide: RATE_LIMIT_STORAGE,
       inject: [APP_CONFIG, USAGE_POOL, REDIS],
@@ -33,6 +34,13 @@ import {
       },
     },
   ],
-  exports: [PlansService, QuotaService, MeteredCallGuard, RATE_LIMIT_STORAGE, UsageModule],
+  exports: [
+    PlansService,
+    QuotaService,
+    MeteredCallGuard,
+    KeyReadGuard,
+    RATE_LIMIT_STORAGE,
+    UsageModule,
+  ],
 })
 export class PlansModule {}

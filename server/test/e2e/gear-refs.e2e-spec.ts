@@ -183,6 +183,35 @@ describe('gear by id', () => {
     expect(n).toBe(2);
   });
 
+  it("key reads share the key's rate limit and use no quota; the console's reads are not limited", async () => {
+    const reader = await signUp(t.url); // Free plan: bursts of 10
+    const secret = (await createKey(reader, 'live')).secret;
+    const res = await Promise.all(
+      Array.from({ length: 30 }, () =>
+        fetch(`${t.url}/v1/gear/modifiers`, { headers: { authorization: `Bearer ${secret}` } }),
+      ),
+    );
+    const ok = res.filter((r) => r.status === 200);
+    const limited = res.filter((r) => r.status === 429);
+    expect(ok.length).toBeGreaterThanOrEqual(10);
+    expect(ok.length + limited.length).toBe(30);
+    expect(limited.length).toBeGreaterThan(0);
+    expect(ok[0]!.headers.get('ratelimit-policy')).toBe('"key";q=10;w=2');
+    expect(limited[0]!.headers.get('content-type')).toMatch(/problem\+json/);
+    expect(Number(limited[0]!.headers.get('retry-after'))).toBeGreaterThanOrEqual(1);
+    const quota = await ds.query(`SELECT reserved FROM quota_counters WHERE organization_id = $1`, [
+      reader.organizationId,
+    ]);
+    expect(
+      quota.map((q: { reserved: number }) => Number(q.reserved)).filter((n: number) => n > 0),
+    ).toEqual([]);
+    const fromConsole = await Promise.all(
+      Array.from({ length: 30 }, () => reader.agent.get('/v1/gear/modifiers')),
+    );
+    expect(fromConsole.map((r) => r.status)).toEqual(Array(30).fill(200));
+    expect(fromConsole[0]!.headers['ratelimit-policy']).toBeUndefined();
+  });
+
   it("another organisation's gear id is a 404 naming the field", async () => {
     const resolver = t.app.get(GearReferenceResolver);
     const err = await resolver
