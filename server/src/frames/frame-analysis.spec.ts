@@ -108,3 +108,42 @@ describe('analyseFrame recovers published colour temperatures and Duv', () => {
     );
   });
 });
+
+describe('analyseFrame flags patches outside the CCT method range', () => {
+  // Robertson's table (Wyszecki & Stiles, Table 1(3.11)) spans 1667 K to infinite temperature.
+  it('a patch warmer than 1667 K: no CCT, and a warning naming the warm end', async () => {
+    // On the warm side of the 1667 K isotemperature line (CIE 1960 u = 0.33724 there, nearly
+    // vertical; black bodies at 1500 K sit at u = 0.358: from memory) and 0.015 below the locus,
+    // inside the sRGB gamut: CIE 1960 u 0.355, v 0.345, i.e. x 0.5462, y 0.3538.
+    const buf = await renderFrame({ patch: { ...PATCH, cx: 0.5462, cy: 0.3538, Y: 0.15 } });
+    const a = await analyse(buf);
+    expect(a.colour.cctKelvin).toBeNull();
+    expect(a.colour.cctMeaningful).toBe(false);
+    expect(a.colour.gel).toBeNull();
+    expect(a.warnings).toHaveLength(1);
+    expect(a.warnings[0]).toMatch(/warmer than 1667 K/);
+    expect(a.colour.notes).toContain(a.warnings[0]);
+  });
+
+  it('a patch bluer than any black body: no CCT, and a warning naming the blue end', async () => {
+    // The Planckian locus ends at x 0.2399, y 0.2340 as T -> infinity (from memory); x 0.22,
+    // y 0.21 lies beyond it, inside the sRGB gamut.
+    const buf = await renderFrame({ patch: { ...PATCH, cx: 0.22, cy: 0.21, Y: 0.2 } });
+    const a = await analyse(buf);
+    expect(a.colour.cctKelvin).toBeNull();
+    expect(a.colour.cctMeaningful).toBe(false);
+    expect(a.warnings).toHaveLength(1);
+    expect(a.warnings[0]).toMatch(/bluer than any black body/);
+    expect(a.colour.notes).toContain(a.warnings[0]);
+  });
+
+  it('an off-locus patch inside the range keeps the Duv note and no range warning', async () => {
+    // x 0.3, y 0.45 is far above the locus (|Duv| > 0.05, Ohno 2014): a CCT, but not meaningful.
+    const buf = await renderFrame({ patch: { ...PATCH, cx: 0.3, cy: 0.45, Y: 0.2 } });
+    const a = await analyse(buf);
+    expect(a.colour.cctMeaningful).toBe(false);
+    expect(a.colour.duv!).toBeGreaterThan(0.05);
+    expect(a.warnings).toEqual([]);
+    expect(a.colour.notes.join(' ')).toMatch(/too far from the Planckian locus/);
+  });
+});
