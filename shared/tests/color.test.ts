@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import {
   GEL_CATALOGUE,
+  MCCAMY_RANGE_KELVIN,
+  ROBERTSON_RANGE_KELVIN,
   applyMiredShift,
   cctFromXy,
   daylightXy,
@@ -184,8 +186,8 @@ describe('CCT from CIE xy', () => {
   const A = { x: 0.44757, y: 0.40745, k: 2856 };
   const D50 = { x: 0.34567, y: 0.3585, k: 5003 };
   const D65 = { x: 0.31271, y: 0.32902, k: 6504 };
-  it('McCamy within ±15 K for A, D50, D65 (McCamy 1992, stated accuracy)', () => {
-    for (const s of [A, D50, D65]) expect(Math.abs(mccamyCct(s.x, s.y) - s.k)).toBeLessThan(15);
+  it('McCamy within 2 K for A, D50, D65 (McCamy 1992, stated accuracy under 2 K from A to D65; from memory)', () => {
+    for (const s of [A, D50, D65]) expect(Math.abs(mccamyCct(s.x, s.y) - s.k)).toBeLessThan(2);
   });
   it('Robertson within ±10 K for A, D50, D65 (Robertson 1968; a few kelvin expected, from memory)', () => {
     for (const s of [A, D50, D65])
@@ -225,6 +227,53 @@ describe('CCT from CIE xy', () => {
       expect(Math.abs((r.cct ?? 0) - k) / k).toBeLessThan(0.01);
       expect(Math.abs(r.duv ?? 1)).toBeLessThan(0.001);
     }
+  });
+  // Validity ranges: Robertson's table (Wyszecki & Stiles, Table 1(3.11)) spans 600 to 0 mired,
+  // 1667 K to infinite temperature; McCamy's cubic is stated for 2856-6504 K (A to D65, from
+  // memory). Planckian locus points, CIE 1931 2°, four decimals, as tabulated in colorimetry
+  // handbooks: from memory.
+  const K1000 = { x: 0.6528, y: 0.3444 };
+  const K1500 = { x: 0.5857, y: 0.3931 };
+  const K2000 = { x: 0.5267, y: 0.4133, k: 2000 };
+  const K20000 = { x: 0.2565, y: 0.2577, k: 20000 };
+  it('inside both ranges: A, D50 and D65 are unflagged', () => {
+    for (const s of [A, D50, D65]) {
+      expect(cctFromXy(s.x, s.y)).toMatchObject({ range: 'inside', mccamyInRange: true });
+    }
+  });
+  it('very warm, past the table\'s 1667 K end (black bodies at 1500 and 1000 K): no CCT, flagged "warmer"', () => {
+    expect(ROBERTSON_RANGE_KELVIN.min).toBeCloseTo(1666.67, 2); // 1e6 / 600 mired
+    for (const p of [K1500, K1000]) {
+      expect(cctFromXy(p.x, p.y)).toEqual({
+        cct: null,
+        duv: null,
+        method: 'Robertson 1968',
+        range: 'warmer',
+        mccamy: null,
+        mccamyInRange: false,
+        meaningful: false,
+      });
+    }
+  });
+  it('very blue, past the infinite-temperature end (locus limit x 0.2399, y 0.2340, from memory): flagged "bluer"', () => {
+    const r = cctFromXy(0.22, 0.21);
+    expect(r).toMatchObject({ cct: null, duv: null, range: 'bluer', meaningful: false });
+    expect(r.mccamyInRange).toBe(false);
+  });
+  it('a 20000 K black body: Robertson within 1% and unflagged; McCamy off by >10% and flagged', () => {
+    const r = cctFromXy(K20000.x, K20000.y);
+    expect(r.range).toBe('inside');
+    expect(Math.abs((r.cct ?? 0) - K20000.k) / K20000.k).toBeLessThan(0.01);
+    expect(Math.abs(r.duv ?? 1)).toBeLessThan(0.0005);
+    expect(r.mccamyInRange).toBe(false);
+    expect(Math.abs((r.mccamy ?? 0) - K20000.k) / K20000.k).toBeGreaterThan(0.1);
+  });
+  it("a 2000 K black body: inside Robertson's range, below McCamy's (flagged)", () => {
+    const r = cctFromXy(K2000.x, K2000.y);
+    expect(r.range).toBe('inside');
+    expect(Math.abs((r.cct ?? 0) - K2000.k)).toBeLessThan(5);
+    expect(r.mccamyInRange).toBe(false);
+    expect(MCCAMY_RANGE_KELVIN).toEqual({ min: 2856, max: 6504 });
   });
   it('uv conversion (CIE 1960 UCS): D65 -> (0.1978, 0.3122)', () => {
     const uv = xyToUv(D65.x, D65.y);

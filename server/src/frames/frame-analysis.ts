@@ -1,6 +1,7 @@
 // One frame's analysis, from bytes to numbers: no storage, no database.
 import { DomainError } from '../common/errors/domain-error.js';
 import {
+  colourWarnings,
   correctionFor,
   exposureFor,
   type Correction,
@@ -65,6 +66,7 @@ export async function analyseFrame(
     warnings.push('The patch is uneven (texture or a gradient): pick a flatter area.');
   }
   if (stats.luminance < 0.01) warnings.push('The patch is very dark: its colour is unreliable.');
+  warnings.push(...colourWarnings(stats));
   return {
     width,
     height,

@@ -290,6 +290,22 @@ describe('frames', () => {
     ]);
   });
 
+  it('flags a patch bluer than any black body: no CCT, a warning saying why, kept on the stored frame', async () => {
+    // The Planckian locus ends at x 0.2399, y 0.2340 as T -> infinity (from memory); x 0.22,
+    // y 0.21 lies past it, so Robertson's table (1667 K to infinite temperature) has no CCT.
+    const img = await renderFrame({
+      patch: { ...PATCH, cx: 0.22, cy: 0.21, Y: 0.2 },
+      format: 'png',
+    });
+    const res = await patchFields(studio.agent.post('/v1/frames').attach('file', img, 'sky.png'));
+    expect(res.status).toBe(201);
+    expect(res.body.colour).toMatchObject({ cctKelvin: null, duv: null, cctMeaningful: false });
+    expect(res.body.colour.gel).toBeNull();
+    expect(res.body.warnings).toEqual([expect.stringMatching(/bluer than any black body/)]);
+    const again = await studio.agent.get(`/v1/frames/${res.body.id}`).expect(200);
+    expect(again.body.warnings).toEqual(res.body.warnings);
+  });
+
   it('meters uploads like computations: rate-limit headers, a usage event each, live stored frames billed', async () => {
     const live = await createKey(studio, 'live');
     const img = await renderFrame({ patch: { ...PATCH, ...D65, Y: 0.3 } });

@@ -1,11 +1,13 @@
 // Frames test helpers: the local fakes started from their scripts/lib modules, and test images
-// rendered from a known CIE chromaticity with known EXIF.
+// rendered with sharp from a known CIE chromaticity with known EXIF. The pixel values come from
+// ./srgb-reference.ts (IEC 61966-2-1 and CIE 15, cross-checked with chroma-js), never from the
+// analysis module's own colour helpers.
 import { spawn, type ChildProcess } from 'node:child_process';
 import path from 'node:path';
 import { createInterface } from 'node:readline';
 import sharp from 'sharp';
-import { linearToSrgb, xyToXyz, xyzToLinearRgb } from '../../src/frames/analysis/colour.js';
 import seedrandom from 'seedrandom';
+import { dithered, srgbOfXy } from './srgb-reference.js';
 
 const ROOT = path.resolve(__dirname, '../../..');
 
@@ -64,18 +66,14 @@ export async function startFake(name: string): Promise<RunningFake> {
   };
 }
 
-/** 8-bit sRGB code values of chromaticity (x, y) at luminance Y, with ±0.5 LSB dither. */
+/** 8-bit sRGB code values of chromaticity (x, y) at luminance Y, randomly rounded (dither). */
 export function srgbCodes(
   x: number,
   y: number,
   Y: number,
   rnd: () => number,
 ): [number, number, number] {
-  const lin = xyzToLinearRgb(xyToXyz(x, y, Y));
-  if (lin.some((c) => c < 0 || c > 1)) throw new Error(`(${x}, ${y}) at Y=${Y} is outside sRGB`);
-  return lin.map((c) =>
-    Math.max(0, Math.min(255, Math.round(linearToSrgb(c) * 255 + rnd() - 0.5))),
-  ) as [number, number, number];
+  return dithered(srgbOfXy(x, y, Y), rnd);
 }
 
 export interface FrameSpec {

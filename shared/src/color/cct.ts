@@ -3,13 +3,24 @@ import { requireNumber } from '../units/validate.js';
 
 /**
  * Correlated colour temperature from CIE 1931 xy (2° observer).
- * - McCamy 1992 (Color Research & Application 17:142): fast cubic, within ~±15 K for
- *   2800-6600 K near the locus; poor above ~10000 K.
- * - Robertson 1968 (JOSA 58:1528; table as in Wyszecki & Stiles, Color Science, Table 1(3.11)):
- *   interpolation between isotemperature lines in CIE 1960 uv; usable 1667 K to infinity.
+ * - Robertson 1968 (JOSA 58:1528; table as in Wyszecki & Stiles, Color Science, 2nd ed., Table
+ *   1(3.11), p. 228): interpolation between isotemperature lines in CIE 1960 uv. This is the CCT
+ *   reported. Its range is its table's: 600 mired (1e6/600 = 1667 K) to 0 mired (infinite
+ *   temperature); outside it no CCT is given and `range` says on which side the point lies.
+ * - McCamy 1992 (Color Research & Application 17:142): a fast cubic, reported alongside for
+ *   comparison. Its stated accuracy (under 2 K) holds from CIE illuminant A to D65, 2856-6504 K,
+ *   near the locus (as quoted in secondary sources; the paper itself not consulted here: from
+ *   memory). It degrades outside: it gives about 19500 K for Kim et al.'s 25000 K locus point
+ *   (locus.ts). `mccamyInRange` flags it.
  * Duv is the signed CIE 1960 uv distance from the Planckian locus (+ above, greenish); CCT is
  * only meaningful for |Duv| <= 0.05 (Ohno 2014, LEUKOS 10:47).
  */
+
+/** The kelvin range of Robertson's table (600 to 0 mired), the range of {@link cctFromXy}. */
+export const ROBERTSON_RANGE_KELVIN = { min: 1e6 / 600, max: Infinity } as const;
+
+/** Where McCamy's cubic keeps its stated accuracy: CIE illuminant A to D65 (see above). */
+export const MCCAMY_RANGE_KELVIN = { min: 2856, max: 6504 } as const;
 
 /** Robertson's table: [reciprocal megakelvin (mired), u, v, slope t]. */
 const ROBERTSON: ReadonlyArray<readonly [number, number, number, number]> = [
@@ -73,8 +84,19 @@ export interface CctResult {
   /** Signed distance from the Planckian locus in CIE 1960 uv (+ above, greenish). */
   duv: number | null;
   method: 'Robertson 1968';
-  /** McCamy's estimate for comparison. */
+  /**
+   * Where the point lies against Robertson's table ({@link ROBERTSON_RANGE_KELVIN}): 'inside';
+   * 'warmer' = past its 1667 K end; 'bluer' = past its infinite-temperature end, bluer than any
+   * black body. Outside, `cct`, `duv` and `mccamy` are null and `meaningful` is false.
+   */
+  range: 'inside' | 'warmer' | 'bluer';
+  /** McCamy's estimate for comparison (null when outside Robertson's table). */
   mccamy: number | null;
+  /**
+   * False when Robertson's CCT is outside {@link MCCAMY_RANGE_KELVIN} (or there is none): McCamy's
+   * number is then only a rough estimate.
+   */
+  mccamyInRange: boolean;
   /** False when |duv| > 0.05 or the point is outside the table: CCT then means little. */
   meaningful: boolean;
 }
@@ -86,26 +108,43 @@ export function cctFromXy(x: number, y: number): CctResult {
   let prevD = 0;
   for (let i = 0; i < ROBERTSON.length; i++) {
     const [, ui, vi, ti] = ROBERTSON[i] as readonly [number, number, number, number];
+    // Signed distance from isotemperature line i: > 0 on its warm side, < 0 on its blue side.
     const d = (v - vi - ti * (u - ui)) / Math.sqrt(1 + ti * ti);
     if (i > 0 && d <= 0 !== prevD <= 0 && (d !== 0 || prevD !== 0)) {
       const [r0, u0, v0] = ROBERTSON[i - 1] as readonly [number, number, number, number];
       const [r1, u1, v1] = ROBERTSON[i] as readonly [number, number, number, number];
       const f = prevD / (prevD - d);
       const r = r0 + f * (r1 - r0);
-      if (r <= 0) break; // at the infinite-temperature end of the table
+      if (r <= 0) break; // on the infinite-temperature line itself: no finite CCT
       const uT = u0 + f * (u1 - u0);
       const vT = v0 + f * (v1 - v0);
       const duv = Math.sign(v - vT) * Math.hypot(u - uT, v - vT);
+      const cct = 1e6 / r;
       const mccamy = Math.abs(0.1858 - yy) < 1e-9 ? null : mccamyCct(xx, yy);
+      // The range's ends are CCTs quoted to the kelvin (A is 2856 K; Robertson gives 2855.8).
+      const k = Math.round(cct);
       return {
-        cct: 1e6 / r,
+        cct,
         duv,
         method: 'Robertson 1968',
+        range: 'inside',
         mccamy,
+        mccamyInRange:
+          mccamy !== null && k >= MCCAMY_RANGE_KELVIN.min && k <= MCCAMY_RANGE_KELVIN.max,
         meaningful: Math.abs(duv) <= 0.05,
       };
     }
     prevD = d;
   }
-  return { cct: null, duv: null, method: 'Robertson 1968', mccamy: null, meaningful: false };
+  // No bracketing pair: the point is on the same side of every line. prevD is its distance from
+  // the 600-mired line: > 0 is warmer than 1667 K; otherwise it is past the 0-mired end.
+  return {
+    cct: null,
+    duv: null,
+    method: 'Robertson 1968',
+    range: prevD > 0 ? 'warmer' : 'bluer',
+    mccamy: null,
+    mccamyInRange: false,
+    meaningful: false,
+  };
 }

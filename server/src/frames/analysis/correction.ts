@@ -7,8 +7,10 @@ import {
   ev100FromSettings,
   LightingInputError,
   mired,
+  ROBERTSON_RANGE_KELVIN,
   solveBalance,
   WB_FINE_TUNE_STEP_MIRED,
+  type CctResult,
 } from '@lumenwright/shared';
 import type { FrameExif } from './exif.js';
 import type { PatchStats } from './patch.js';
@@ -53,6 +55,27 @@ export interface ExposureEstimate {
   basis: string;
 }
 
+/**
+ * Why there is no colour temperature when the patch lies past an end of the CCT method's range
+ * (Robertson's table, 1667 K to infinite temperature; shared/ cctFromXy); null inside it.
+ */
+export function cctRangeWarning(range: CctResult['range']): string | null {
+  if (range === 'warmer') {
+    return `The patch is warmer than ${Math.round(ROBERTSON_RANGE_KELVIN.min)} K, the warm end of the colour-temperature method's range: no colour temperature is reported.`;
+  }
+  if (range === 'bluer') {
+    return "The patch is bluer than any black body, past the infinite-temperature end of the colour-temperature method's range: no colour temperature is reported.";
+  }
+  return null;
+}
+
+/** Warnings about the patch's colour for the analysis' `warnings` list. */
+export function colourWarnings(stats: PatchStats): string[] {
+  if (!stats.xy) return [];
+  const w = cctRangeWarning(cctFromXy(stats.xy.x, stats.xy.y).range);
+  return w ? [w] : [];
+}
+
 export function correctionFor(stats: PatchStats, cameraKelvin: number | null): Correction {
   const notes: string[] = [];
   const xy = stats.xy ?? SRGB_WHITE;
@@ -81,7 +104,8 @@ export function correctionFor(stats: PatchStats, cameraKelvin: number | null): C
   };
   if (c.cct === null || !c.meaningful) {
     notes.push(
-      'The patch is too far from the Planckian locus for a colour temperature to mean much.',
+      cctRangeWarning(c.range) ??
+        'The patch is too far from the Planckian locus for a colour temperature to mean much.',
     );
     return { ...base, miredOffset: null, lightKelvin: null, whiteBalance: null, gel: null, notes };
   }

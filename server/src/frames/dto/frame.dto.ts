@@ -51,9 +51,11 @@ const colourSchema = obj('Colour of the patch and the correction.', {
     x: outNum('x'),
     y: outNum('y'),
   }),
-  cctKelvin: nNum('Correlated colour temperature, kelvin (Robertson 1968).'),
+  cctKelvin: nNum(
+    "Correlated colour temperature, kelvin (Robertson 1968); null outside the method's range, 1667 K to infinite temperature (a warning then says which end).",
+  ),
   duv: nNum('Distance from the Planckian locus in CIE 1960 uv (+ greenish).'),
-  cctMeaningful: bool('False when |Duv| > 0.05.'),
+  cctMeaningful: bool("False when |Duv| > 0.05 or outside the method's range (cctKelvin null)."),
   method: str('CCT method.'),
   neutral: obj('The neutral reference: sRGB white (CIE D65).', {
     x: outNum('x'),

@@ -1,0 +1,149 @@
+// Frame analysis from bytes to numbers, against outside references: each test image is rendered
+// with sharp from pixel values computed in test/factories/srgb-reference.ts (IEC 61966-2-1 and
+// CIE 15, cross-checked with chroma-js), never with the analysis module's own colour helpers, and
+// the analysis must recover the published colour temperature and Duv of the chromaticity.
+import { renderFrame } from '../../test/factories/frames.js';
+import { srgbOfXy, srgbOfXyViaChroma } from '../../test/factories/srgb-reference.js';
+import { analyseFrame } from './frame-analysis.js';
+
+const PATCH = { x: 160, y: 100, width: 160, height: 120 };
+const mired = (k: number) => 1e6 / k;
+
+interface Reference {
+  name: string;
+  x: number;
+  y: number;
+  kelvin: number;
+  /** Published Duv, or null where none is at hand. */
+  duv: number | null;
+  source: string;
+}
+
+const REFERENCES: Reference[] = [
+  // CIE 15:2004, standard illuminant A: a Planckian radiator at 2856 K, so Duv 0 by definition.
+  { name: 'CIE A', x: 0.44757, y: 0.40745, kelvin: 2856, duv: 0, source: 'CIE 15:2004' },
+  // CIE 15:2004, D50 and D65 chromaticities and CCTs (5003 K, 6504 K); D65's Duv +0.0032 is
+  // from memory (Ohno 2014, LEUKOS 10:47).
+  { name: 'CIE D50', x: 0.34567, y: 0.3585, kelvin: 5003, duv: null, source: 'CIE 15:2004' },
+  { name: 'CIE D65', x: 0.31271, y: 0.32902, kelvin: 6504, duv: 0.0032, source: 'CIE 15:2004' },
+  // Planckian locus points, CIE 1931 2° observer, four decimals, as tabulated in colorimetry
+  // handbooks (e.g. Wyszecki & Stiles, Color Science, 2nd ed.): from memory. Duv 0 by definition.
+  ...(
+    [
+      [2000, 0.5267, 0.4133],
+      [3000, 0.4369, 0.4041],
+      [4000, 0.3805, 0.3768],
+      [5000, 0.3451, 0.3516],
+      [10000, 0.2807, 0.2884],
+      [20000, 0.2565, 0.2577],
+    ] as const
+  ).map(([kelvin, x, y]) => ({
+    name: `Planckian ${kelvin} K`,
+    x,
+    y,
+    kelvin,
+    duv: 0,
+    source: 'locus table, from memory',
+  })),
+];
+
+// Tolerances, in mireds because a fixed error in chromaticity is a fixed error in mireds, not in
+// kelvin. PNG (lossless): the four-decimal chromaticities (about 0.15 mired at 10000-20000 K), the
+// 8-bit randomly rounded pixels averaged over 19,200 px and the four-decimal IEC matrices, inverse
+// to about 1e-4; measured here at most 0.17 mired and 1e-4 in Duv over these references. JPEG at
+// quality 100 also rounds every pixel through 8-bit YCbCr, which shifts a flat patch's mean
+// colour: measured here up to 1.8 mired and 6e-4 in Duv (seeds 7-9, Y 0.2 and 0.3).
+const TOLERANCE = {
+  png: { mired: 0.3, duv: 0.0002 },
+  jpeg: { mired: 2.5, duv: 0.001 },
+} as const;
+
+const analyse = async (buf: Buffer, patch: typeof PATCH | null = PATCH) =>
+  (await analyseFrame({ buf, patch, cameraKelvin: 5500, maxPixels: 50_000_000 })).analysis;
+
+describe('test-image pixel values (outside the analysis module)', () => {
+  it.each(REFERENCES)(
+    '$name: IEC 61966-2-1 formulas and chroma-js give the same code values',
+    ({ x, y }) => {
+      const iec = srgbOfXy(x, y, 0.2);
+      const lib = srgbOfXyViaChroma(x, y, 0.2);
+      for (let i = 0; i < 3; i++) expect(Math.abs(iec[i]! - lib[i]!)).toBeLessThan(0.25);
+    },
+  );
+
+  it('sRGB white is D65 (IEC 61966-2-1): x 0.3127, y 0.3290 renders R = G = B', () => {
+    const [r, g, b] = srgbOfXy(0.3127, 0.329, 0.2);
+    expect(Math.abs(r - g)).toBeLessThan(0.05);
+    expect(Math.abs(b - g)).toBeLessThan(0.05);
+    // Y 0.2 encodes as 1.055 * 0.2^(1/2.4) - 0.055 = 0.4845 (IEC 61966-2-1 transfer function).
+    expect(g / 255).toBeCloseTo(0.4845, 3);
+  });
+});
+
+describe('analyseFrame recovers published colour temperatures and Duv', () => {
+  it.each(
+    REFERENCES.flatMap((r) => (['jpeg', 'png'] as const).map((format) => ({ ...r, format }))),
+  )('$name ($source) from a $format patch', async ({ x, y, kelvin, duv, format }) => {
+    const buf = await renderFrame({ patch: { ...PATCH, cx: x, cy: y, Y: 0.2 }, format });
+    const a = await analyse(buf);
+    expect(a.patch.source).toBe('caller');
+    expect(a.colour.cctMeaningful).toBe(true);
+    const tolerance = TOLERANCE[format];
+    expect(Math.abs(mired(a.colour.cctKelvin!) - mired(kelvin))).toBeLessThanOrEqual(
+      tolerance.mired,
+    );
+    if (duv !== null) expect(Math.abs(a.colour.duv! - duv)).toBeLessThanOrEqual(tolerance.duv);
+    expect(a.warnings).toEqual([]);
+  });
+
+  it('finds the patch by itself on a busy coloured background and reads CIE A as 2856 K', async () => {
+    // CIE 15:2004: illuminant A, x 0.44757, y 0.40745, 2856 K.
+    const buf = await renderFrame({ patch: { ...PATCH, cx: 0.44757, cy: 0.40745, Y: 0.25 } });
+    const a = await analyse(buf, null);
+    expect(a.patch.source).toBe('auto');
+    expect(a.patch.x).toBeGreaterThanOrEqual(PATCH.x);
+    expect(a.patch.x + a.patch.width).toBeLessThanOrEqual(PATCH.x + PATCH.width);
+    expect(Math.abs(mired(a.colour.cctKelvin!) - mired(2856))).toBeLessThanOrEqual(
+      TOLERANCE.jpeg.mired,
+    );
+  });
+});
+
+describe('analyseFrame flags patches outside the CCT method range', () => {
+  // Robertson's table (Wyszecki & Stiles, Table 1(3.11)) spans 1667 K to infinite temperature.
+  it('a patch warmer than 1667 K: no CCT, and a warning naming the warm end', async () => {
+    // On the warm side of the 1667 K isotemperature line (CIE 1960 u = 0.33724 there, nearly
+    // vertical; black bodies at 1500 K sit at u = 0.358: from memory) and 0.015 below the locus,
+    // inside the sRGB gamut: CIE 1960 u 0.355, v 0.345, i.e. x 0.5462, y 0.3538.
+    const buf = await renderFrame({ patch: { ...PATCH, cx: 0.5462, cy: 0.3538, Y: 0.15 } });
+    const a = await analyse(buf);
+    expect(a.colour.cctKelvin).toBeNull();
+    expect(a.colour.cctMeaningful).toBe(false);
+    expect(a.colour.gel).toBeNull();
+    expect(a.warnings).toHaveLength(1);
+    expect(a.warnings[0]).toMatch(/warmer than 1667 K/);
+    expect(a.colour.notes).toContain(a.warnings[0]);
+  });
+
+  it('a patch bluer than any black body: no CCT, and a warning naming the blue end', async () => {
+    // The Planckian locus ends at x 0.2399, y 0.2340 as T -> infinity (from memory); x 0.22,
+    // y 0.21 lies beyond it, inside the sRGB gamut.
+    const buf = await renderFrame({ patch: { ...PATCH, cx: 0.22, cy: 0.21, Y: 0.2 } });
+    const a = await analyse(buf);
+    expect(a.colour.cctKelvin).toBeNull();
+    expect(a.colour.cctMeaningful).toBe(false);
+    expect(a.warnings).toHaveLength(1);
+    expect(a.warnings[0]).toMatch(/bluer than any black body/);
+    expect(a.colour.notes).toContain(a.warnings[0]);
+  });
+
+  it('an off-locus patch inside the range keeps the Duv note and no range warning', async () => {
+    // x 0.3, y 0.45 is far above the locus (|Duv| > 0.05, Ohno 2014): a CCT, but not meaningful.
+    const buf = await renderFrame({ patch: { ...PATCH, cx: 0.3, cy: 0.45, Y: 0.2 } });
+    const a = await analyse(buf);
+    expect(a.colour.cctMeaningful).toBe(false);
+    expect(a.colour.duv!).toBeGreaterThan(0.05);
+    expect(a.warnings).toEqual([]);
+    expect(a.colour.notes.join(' ')).toMatch(/too far from the Planckian locus/);
+  });
+});
