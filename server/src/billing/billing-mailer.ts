@@ -1,5 +1,5 @@
-// Payment e-mails to the organisation's owners, through the durable mail queue
-// (templates 'payment-succeeded' and 'payment-failed' in src/mail/templates.ts).
+// Billing e-mails to the organisation's owners, through the durable mail queue (templates
+// 'payment-succeeded', 'payment-failed' and 'seats-over-plan' in src/mail/templates.ts).
 import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource } from 'typeorm';
@@ -13,6 +13,20 @@ export interface PaymentMail {
   planName: string;
 }
 
+/** A plan change (by webhook) left more members than the new plan's seats. */
+export interface SeatsOverPlanMail {
+  organizationId: string;
+  planName: string;
+  seats: number;
+  members: number;
+}
+
+interface Owner {
+  email: string;
+  name: string;
+  org: string;
+}
+
 @Injectable()
 export class BillingMailer {
   constructor(
@@ -22,12 +36,7 @@ export class BillingMailer {
 
   /** Queues one message per owner; returns how many were queued. */
   async send(m: PaymentMail, link: string): Promise<number> {
-    const owners: { email: string; name: string; org: string }[] = await this.ds.query(
-      `SELECT u.email, u.name, o.name AS org FROM memberships m
-         JOIN users u ON u.id = m.user_id JOIN organizations o ON o.id = m.organization_id
-       WHERE m.organization_id = $1 AND m.role = 'owner'`,
-      [m.organizationId],
-    );
+    const owners = await this.owners(m.organizationId);
     for (const o of owners) {
       const data = {
         name: o.name,
@@ -40,5 +49,34 @@ export class BillingMailer {
       await this.mail.send({ template: m.kind, to: o.email, data } as MailJob);
     }
     return owners.length;
+  }
+
+  /** Queues the seats notice to every owner; `link` is the console's Team page. */
+  async sendSeatsOverPlan(m: SeatsOverPlanMail, link: string): Promise<number> {
+    const owners = await this.owners(m.organizationId);
+    for (const o of owners) {
+      await this.mail.send({
+        template: 'seats-over-plan',
+        to: o.email,
+        data: {
+          name: o.name,
+          organizationName: o.org,
+          planName: m.planName,
+          seats: m.seats,
+          members: m.members,
+          link,
+        },
+      });
+    }
+    return owners.length;
+  }
+
+  private owners(organizationId: string): Promise<Owner[]> {
+    return this.ds.query(
+      `SELECT u.email, u.name, o.name AS org FROM memberships m
+         JOIN users u ON u.id = m.user_id JOIN organizations o ON o.id = m.organization_id
+       WHERE m.organization_id = $1 AND m.role = 'owner'`,
+      [organizationId],
+    );
   }
 }

@@ -2,6 +2,8 @@
 // event id processed once (a replay answers 200 and changes nothing), stale events ignored:
 // a subscription or invoice only moves to a state from a newer event, a cancelled subscription
 // never comes back, and a paid invoice never goes back to open.
+// A plan change always applies, even to fewer seats than members; the owners are then told by
+// e-mail, once: only the event that changes the plan sends it, and a replay is never processed.
 import { BadRequestException, Inject, Injectable, Logger } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import type Stripe from 'stripe';
@@ -10,6 +12,7 @@ import { DomainError } from '../common/errors/domain-error.js';
 import { APP_CONFIG, AppConfig } from '../config/config.js';
 import { PlanEntity } from '../plans/plan.entity.js';
 import { PlansService } from '../plans/plans.service.js';
+import { seatUsage } from '../team/seats.js';
 import {
   BillingCheckoutEntity,
   BillingInvoiceEntity,
@@ -184,8 +187,9 @@ export class WebhookService {
       currentPeriodEnd: at(item?.current_period_end ?? s.current_period_end),
       stateAsOf: existing && existing.stateAsOf > asOf ? existing.stateAsOf : asOf,
     });
-    const effective = await this.applyPlan(m, orgId);
+    const { code: effective, from } = await this.applyPlan(m, orgId);
     after.push(async () => this.plans.forget(orgId));
+    const over = from === null ? '' : await this.seatsOverPlan(m, orgId, from, after);
     if (ENTITLED.includes(sub.status)) {
       // A new plan replaces the old subscription: cancel any other one still running.
       const others = await m.query(
@@ -197,22 +201,59 @@ export class WebhookService {
         after.push(() => this.payments!.subscriptions.cancel(o.id));
       }
     }
-    return `subscription ${sub.status}; organisation on ${effective}`;
+    return `subscription ${sub.status}; organisation on ${effective}${over}`;
   }
 
-  /** The organisation's plan follows its newest subscription in good standing, else free. */
-  private async applyPlan(m: EntityManager, orgId: string): Promise<string> {
+  /**
+   * The organisation's plan follows its newest subscription in good standing, else free. `from` is
+   * the plan it had when this event changed it, null when unchanged. The organisation's row is
+   * locked first (the lock seat checks take), so the plan read is the one replaced.
+   */
+  private async applyPlan(
+    m: EntityManager,
+    orgId: string,
+  ): Promise<{ code: string; from: string | null }> {
     const rows: { plan_code: string }[] = await m.query(
       `SELECT plan_code FROM billing_subscriptions WHERE organization_id = $1 AND status = ANY($2)
        ORDER BY started_at DESC, state_as_of DESC LIMIT 1`,
       [orgId, ENTITLED],
     );
     const code = rows[0]?.plan_code ?? 'free';
-    await m.query(
-      `UPDATE organizations SET plan_code = $2, updated_at = now() WHERE id = $1 AND plan_code <> $2`,
-      [orgId, code],
+    const held: { plan_code: string }[] = await m.query(
+      `SELECT plan_code FROM organizations WHERE id = $1 FOR NO KEY UPDATE`,
+      [orgId],
     );
-    return code;
+    const from = held[0]?.plan_code;
+    if (from === undefined || from === code) return { code, from: null };
+    await m.query(`UPDATE organizations SET plan_code = $2, updated_at = now() WHERE id = $1`, [
+      orgId,
+      code,
+    ]);
+    return { code, from };
+  }
+
+  /**
+   * After a move to a plan with fewer seats, more members than the new seats: the change stands
+   * (nobody new joins until the team fits) and each owner gets an e-mail once the event commits.
+   * Returns a note for the event's outcome.
+   */
+  private async seatsOverPlan(
+    m: EntityManager,
+    orgId: string,
+    from: string,
+    after: After[],
+  ): Promise<string> {
+    const u = await seatUsage(m, orgId);
+    const before = await m.findOneBy(PlanEntity, { code: from });
+    if (u.members <= u.seats || (before && before.seats <= u.seats)) return '';
+    const mail = {
+      organizationId: orgId,
+      planName: u.planName,
+      seats: u.seats,
+      members: u.members,
+    };
+    after.push(() => this.mailer.sendSeatsOverPlan(mail, `${this.config.publicUrl}/team`));
+    return `; ${u.members} members over ${u.seats} seats (owners get an e-mail)`;
   }
 
   private async invoice(

@@ -43,7 +43,8 @@ export type MailTemplate =
       };
     }
   | { template: 'payment-succeeded'; data: PaymentMailData }
-  | { template: 'payment-failed'; data: PaymentMailData };
+  | { template: 'payment-failed'; data: PaymentMailData }
+  | { template: 'seats-over-plan'; data: SeatsOverPlanMailData };
 
 /** Data for the billing e-mails; `amount` is already formatted with its currency. */
 export interface PaymentMailData {
@@ -54,6 +55,19 @@ export interface PaymentMailData {
   invoiceId: string;
   link: string;
 }
+
+/** Data for the notice that a plan change left the studio with more members than seats. */
+export interface SeatsOverPlanMailData {
+  name: string;
+  organizationName: string;
+  planName: string;
+  seats: number;
+  members: number;
+  /** The console's Team page. */
+  link: string;
+}
+
+const count = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
 
 const esc = (s: string) =>
   s.replace(
@@ -172,6 +186,22 @@ export function render(m: MailTemplate): Rendered {
         subject,
         text: text(p, d.link),
         html: layout(subject, p, { label: 'Review billing', href: d.link }),
+      };
+    }
+    case 'seats-over-plan': {
+      const d = m.data;
+      const over = d.members - d.seats;
+      const subject = `${d.organizationName} has more members than its plan has seats`;
+      const p = [
+        `Hello ${d.name},`,
+        `The plan of ${d.organizationName} has changed to ${d.planName}, which has ${count(d.seats, 'seat')}. Your studio has ${count(d.members, 'member')}.`,
+        'Everyone keeps their access, but nobody new can be invited or join until the team fits the plan.',
+        `To sort it out, remove ${count(over, 'member')} on the Team page, or change to a plan with more seats on the Billing page.`,
+      ];
+      return {
+        subject,
+        text: text(p, d.link),
+        html: layout(subject, p, { label: 'Open the Team page', href: d.link }),
       };
     }
   }

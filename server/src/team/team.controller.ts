@@ -11,6 +11,7 @@ import { RoleRequestDto } from '../auth/dto/auth.dto.js';
 import { can } from '../auth/permissions.js';
 import { CurrentPrincipal, Meta, RequestMeta, SessionPrincipal } from '../auth/request-context.js';
 import { SessionAuth } from '../common/decorators/access.decorator.js';
+import { problem } from '../common/decorators/problem-responses.js';
 import {
   CreateInviteRequestDto,
   InviteListResponseDto,
@@ -46,8 +47,15 @@ export class TeamController {
 
   @Patch('members/:userId')
   @SessionAuth(...can('team:manage'))
-  @ApiOperation({ summary: "Change a member's role (only owners grant or change the owner role)." })
+  @ApiOperation({
+    summary:
+      "Change another member's role (only owners grant or change the owner role; nobody changes their own).",
+  })
   @ApiOkResponse({ type: MemberResponseDto })
+  @problem(
+    403,
+    'The member is you (`errors` names `userId`): nobody changes their own role; another admin or an owner does, and an owner can step down by transferring ownership. Or the change grants or takes away the owner role and you are not an owner.',
+  )
   @ApiConflictResponse({ description: 'That would leave the organisation without an owner.' })
   async changeMemberRole(
     @CurrentPrincipal() p: SessionPrincipal,

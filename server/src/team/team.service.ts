@@ -31,8 +31,20 @@ export class TeamService {
     return seatUsage(this.ds, organizationId);
   }
 
-  /** Only owners grant or take away the owner role; an organisation always keeps an owner. */
+  /**
+   * Only owners grant or take away the owner role; an organisation always keeps an owner; nobody
+   * changes their own role (another admin or an owner does; an owner may transfer ownership).
+   */
   async changeRole(p: SessionPrincipal, userId: string, role: Role, meta: RequestMeta) {
+    if (userId.toLowerCase() === p.userId.toLowerCase()) {
+      throw new DomainError(
+        'forbidden',
+        p.role === 'owner'
+          ? 'You cannot change your own role. To step down, transfer ownership to another member, or ask another owner to change your role.'
+          : 'You cannot change your own role. Another admin or an owner can change it.',
+        [{ field: 'userId', reason: 'is you' }],
+      );
+    }
     const updated = await this.ds.transaction(async (m) => {
       const target = await this.target(m, p.organizationId, userId);
       if ((target.role === 'owner' || role === 'owner') && p.role !== 'owner') {

@@ -165,12 +165,10 @@ describe('accounts: team', () => {
       .post('/v1/team/invites')
       .send({ email: uniqueEmail(), role: 'owner' })
       .expect(403);
-    const last = await owner.agent
-      .patch(`/v1/team/members/${owner.userId}`)
-      .send({ role: 'admin' })
-      .expect(409);
+    // The only owner cannot step down on their own (nobody changes their own role) or leave.
+    await owner.agent.patch(`/v1/team/members/${owner.userId}`).send({ role: 'admin' }).expect(403);
+    const last = await owner.agent.delete(`/v1/team/members/${owner.userId}`).expect(409);
     expect(last.body.detail).toMatch(/last owner/);
-    await owner.agent.delete(`/v1/team/members/${owner.userId}`).expect(409);
     await owner.agent
       .patch(`/v1/team/members/${owner.userId}`)
       .send({ role: 'superuser' })
@@ -182,6 +180,55 @@ describe('accounts: team', () => {
     // Removal ends the member's access at once.
     await owner.agent.delete(`/v1/team/members/${dev.userId}`).expect(204);
     await dev.agent.get('/v1/me').expect(401);
+  }, 60000);
+
+  it('refuses changing one’s own role with a 403 problem naming userId, and changes nothing', async () => {
+    const o = await signUp(t.url, { organizationName: 'Saltmarrow Portrait House' });
+    await setPlan(o.organizationId, 'studio');
+    const adm = await addMember(t.url, o, 'admin', inviteToken);
+    const other = await addMember(t.url, o, 'admin', inviteToken);
+    for (const role of ['developer', 'admin', 'owner']) {
+      const res = await adm.agent
+        .patch(`/v1/team/members/${adm.userId}`)
+        .send({ role })
+        .expect(403);
+      expect(res.headers['content-type']).toMatch(/^application\/problem\+json/);
+      expect(res.body).toMatchObject({
+        type: 'https://lumenwright.test/problems/forbidden',
+        title: 'Forbidden',
+        status: 403,
+        detail: 'You cannot change your own role. Another admin or an owner can change it.',
+        errors: [{ field: 'userId', reason: 'is you' }],
+        instance: `/v1/team/members/${adm.userId}`,
+      });
+    }
+    // The same id in capitals is still you.
+    await adm.agent
+      .patch(`/v1/team/members/${adm.userId.toUpperCase()}`)
+      .send({ role: 'developer' })
+      .expect(403);
+    // An owner is refused too, even with a second owner who could take over.
+    await o.agent.patch(`/v1/team/members/${other.userId}`).send({ role: 'owner' }).expect(200);
+    const mine = await o.agent
+      .patch(`/v1/team/members/${o.userId}`)
+      .send({ role: 'admin' })
+      .expect(403);
+    expect(mine.body.detail).toBe(
+      'You cannot change your own role. To step down, transfer ownership to another member, or ask another owner to change your role.',
+    );
+    expect(mine.body.errors).toEqual([{ field: 'userId', reason: 'is you' }]);
+    // Nothing changed, and nothing was recorded as a role change of either.
+    expect((await adm.agent.get('/v1/me').expect(200)).body.role).toBe('admin');
+    expect((await o.agent.get('/v1/me').expect(200)).body.role).toBe('owner');
+    const audit = await o.agent.get('/v1/audit?action=member.role_changed').expect(200);
+    expect(audit.body.data.map((e: { targetId: string }) => e.targetId)).toEqual([other.userId]);
+    // Someone else may: the other owner demotes the first, the first (now admin) changes the admin.
+    await other.agent.patch(`/v1/team/members/${o.userId}`).send({ role: 'admin' }).expect(200);
+    const changed = await o.agent
+      .patch(`/v1/team/members/${adm.userId}`)
+      .send({ role: 'developer' })
+      .expect(200);
+    expect(changed.body.role).toBe('developer');
   }, 60000);
 
   it('transfers ownership', async () => {

@@ -1,7 +1,8 @@
 // Team seats: members plus pending invitations stay within the plan's seats (invitations, re-sends
 // and acceptances, also when they race), expired invitations free their seat, a smaller plan asked
 // for from the console is refused while the members do not fit, and one that arrives by webhook
-// keeps everyone but lets nobody new in. Free plan: 2 seats; Studio: 10; Platform: 50.
+// keeps everyone but lets nobody new in (and tells the owners by e-mail, once). Free plan: 2 seats;
+// Studio: 10; Platform: 50.
 import request from 'supertest';
 import type { DataSource } from 'typeorm';
 import { PLAN_CATALOGUE } from '../../src/plans/plan-catalogue.js';
@@ -16,12 +17,13 @@ import {
   uniqueEmail,
   waitForMail,
 } from '../factories/accounts.js';
-import { buyer, eventually } from '../factories/billing.js';
+import { buyer, eventually, fakeApi } from '../factories/billing.js';
 import { startFake, type RunningFake } from '../factories/frames.js';
 import { bootApp, TestApp } from '../setup/app.js';
 import { openDataSource } from '../setup/db.js';
 
 const seatsOf = (code: string) => PLAN_CATALOGUE.find((p) => p.code === code)!.seats;
+const PUBLIC_URL = 'http://127.0.0.1:3997';
 
 describe('team seats', () => {
   let t: TestApp;
@@ -32,7 +34,7 @@ describe('team seats', () => {
   beforeAll(async () => {
     mail = await startMaildev();
     payments = await startFake('payments-fake');
-    t = await bootApp({ ...payments.env, SMTP_URL: mail.smtpUrl });
+    t = await bootApp({ ...payments.env, SMTP_URL: mail.smtpUrl, PUBLIC_URL });
     db = await openDataSource();
   }, 90000);
   afterAll(async () => {
@@ -56,19 +58,59 @@ describe('team seats', () => {
         orgId,
       ])
     )[0].n as number;
-  /** Members straight in the database (no mail, no password hashing per person). */
-  const addMembersDirectly = async (orgId: string, n: number) => {
+  /** Members straight in the database (no mail, no password hashing per person); their e-mails. */
+  const addMembersDirectly = async (orgId: string, n: number, role = 'photographer') => {
+    const emails: string[] = [];
     for (let i = 0; i < n; i++) {
+      const email = uniqueEmail('filler');
       const [u] = await db.query(
         `INSERT INTO users (email, name, password_hash) VALUES ($1, 'Seat Filler', 'x') RETURNING id`,
-        [uniqueEmail('filler')],
+        [email],
       );
       await db.query(
-        `INSERT INTO memberships (organization_id, user_id, role) VALUES ($1, $2, 'photographer')`,
-        [orgId, u.id],
+        `INSERT INTO memberships (organization_id, user_id, role) VALUES ($1, $2, $3)`,
+        [orgId, u.id, role],
       );
+      emails.push(email);
     }
+    return emails;
   };
+  /** An owner on the Studio plan through the payments fake's hosted checkout and its webhooks. */
+  const studioByCheckout = async (o: SignedInAgent) => {
+    const checkout = await o.agent
+      .post('/v1/billing/checkout')
+      .send({ planCode: 'studio' })
+      .expect(201);
+    await buyer(checkout.body.url, 'approve');
+    await eventually(async () => (await planOf(o)) === 'studio');
+  };
+  const planOf = async (o: SignedInAgent) =>
+    (await o.agent.get('/v1/plans/current').expect(200)).body.plan.code as string;
+  /** The payments fake's cancellation event for the organisation, once our server answered it 2xx. */
+  const deliveredCancellation = async (orgId: string) => {
+    const event = await eventually(async () => {
+      const events = (await fakeApi(payments, 'GET', '/_fake/events')).data as {
+        id: string;
+        type: string;
+        data: { object: { metadata?: { organization_id?: string } } };
+        deliveries: { delivered: boolean }[];
+      }[];
+      return events.find(
+        (e) =>
+          e.type === 'customer.subscription.deleted' &&
+          e.data.object.metadata?.organization_id === orgId &&
+          e.deliveries.length > 0 &&
+          e.deliveries.every((d) => d.delivered),
+      );
+    });
+    return event!;
+  };
+  const seatsMailJobs = (to: string[]) =>
+    db.query(
+      `SELECT data->>'to' AS to FROM pgboss.job
+        WHERE name = 'mail' AND data->>'template' = 'seats-over-plan' AND data->>'to' = ANY($1)`,
+      [to],
+    ) as Promise<{ to: string }[]>;
 
   it('refuses an invitation when members and pending invitations fill the seats, with a 409 problem', async () => {
     expect(seatsOf('free')).toBe(2); // plan-catalogue.ts
@@ -280,5 +322,69 @@ describe('team seats', () => {
     await accept(await tokenFor(pendingEmail)).expect(409);
     // Every member still signs in to the studio (the owner's session still works).
     await o.agent.get('/v1/team/members').expect(200);
+  }, 60000);
+  it('e-mails each owner once when a webhook moves the studio to fewer seats than members', async () => {
+    const o = await signUp(t.url, {
+      name: 'Isolde Fenmarsh',
+      organizationName: 'Fenmarsh Twilight Rooms',
+    });
+    await studioByCheckout(o);
+    const [coOwner] = await addMembersDirectly(o.organizationId, 1, 'owner');
+    const shooters = await addMembersDirectly(o.organizationId, 2); // 4 members, 10 seats
+    await o.agent.post('/v1/billing/cancel').expect(202);
+    await eventually(async () => (await planOf(o)) === 'free');
+    expect(seatsOf('free')).toBe(2); // plan-catalogue.ts
+    const subject = /^Fenmarsh Twilight Rooms has more members than its plan has seats$/;
+    for (const to of [o.email, coOwner!]) {
+      const msg = await waitForMail(mail.webUrl, to, subject);
+      expect(msg.text).toContain(
+        'The plan of Fenmarsh Twilight Rooms has changed to Free, which has 2 seats. Your studio has 4 members.',
+      );
+      expect(msg.text).toContain('nobody new can be invited or join until the team fits the plan');
+      expect(msg.text).toContain(
+        'remove 2 members on the Team page, or change to a plan with more seats on the Billing page',
+      );
+      expect(msg.text).toContain(`${PUBLIC_URL}/team`);
+      expect(msg.html).toContain(`href="${PUBLIC_URL}/team"`);
+    }
+    expect(
+      (await waitForMail(mail.webUrl, o.email, subject)).text.startsWith('Hello Isolde Fenmarsh,'),
+    ).toBe(true);
+    const event = await deliveredCancellation(o.organizationId);
+    const [row] = await db.query(`SELECT outcome FROM billing_events WHERE id = $1`, [event.id]);
+    expect(row.outcome).toBe(
+      'subscription canceled; organisation on free; 4 members over 2 seats (owners get an e-mail)',
+    );
+    // Only owners are written to.
+    const everyone = [o.email, coOwner!, ...shooters];
+    expect((await seatsMailJobs(everyone)).map((j) => j.to).sort()).toEqual(
+      [o.email, coOwner!].sort(),
+    );
+    // The payments service delivers the same event again: a duplicate, and no second e-mail.
+    await fakeApi(payments, 'POST', `/_fake/events/${event.id}/resend`);
+    const [again] = await db.query(`SELECT outcome FROM billing_events WHERE id = $1`, [event.id]);
+    expect(again.outcome).toBe(row.outcome);
+    expect(await seatsMailJobs(everyone)).toHaveLength(2);
+    await new Promise((r) => setTimeout(r, 1500)); // a second message would have arrived by now
+    const inbox = (await (await fetch(`${mail.webUrl}/email`)).json()) as {
+      subject: string;
+      to: { address: string }[];
+    }[];
+    const notices = inbox.filter(
+      (m) => subject.test(m.subject) && m.to.some((x) => everyone.includes(x.address)),
+    );
+    expect(notices.map((m) => m.to[0]!.address).sort()).toEqual([o.email, coOwner!].sort());
+  }, 60000);
+
+  it('sends no seats e-mail when the members still fit the smaller plan', async () => {
+    const o = await signUp(t.url);
+    await studioByCheckout(o);
+    const [other] = await addMembersDirectly(o.organizationId, 1); // 2 members: Free's 2 seats
+    await o.agent.post('/v1/billing/cancel').expect(202);
+    await eventually(async () => (await planOf(o)) === 'free');
+    const event = await deliveredCancellation(o.organizationId);
+    const [row] = await db.query(`SELECT outcome FROM billing_events WHERE id = $1`, [event.id]);
+    expect(row.outcome).toBe('subscription canceled; organisation on free');
+    expect(await seatsMailJobs([o.email, other!])).toEqual([]);
   }, 60000);
 });

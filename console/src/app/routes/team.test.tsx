@@ -214,6 +214,47 @@ describe('team page members', () => {
     expect(patches[0]).toEqual({ path: '/v1/team/members/u-shooter', body: { role: 'admin' } });
   });
 
+  /** The members table's row that names `name`. */
+  const rowOf = (name: string) =>
+    screen.getAllByRole('row').find((r) => within(r).queryByText(name) !== null)!;
+
+  it('shows an admin their own role as text, saying who can change it', async () => {
+    const { patches } = stubMembers({
+      ...demoSession,
+      role: 'admin',
+      user: { ...demoSession.user, id: 'u-admin' },
+    });
+    renderApp('/team');
+    await screen.findByLabelText('Role of Demo Shooter');
+    expect(screen.queryByLabelText('Role of Demo Admin')).toBeNull();
+    const mine = rowOf('Demo Admin');
+    expect(within(mine).queryByRole('combobox')).toBeNull();
+    expect(within(mine).getByText('admin')).toBeTruthy();
+    expect(within(mine).getByText('Another admin or an owner can change your role.')).toBeTruthy();
+    expect(within(mine).queryByRole('link')).toBeNull();
+    // Other people's roles stay editable, and their rows carry no such hint.
+    expect(within(rowOf('Demo Shooter')).getByRole('combobox')).toBeTruthy();
+    expect(screen.getAllByText(/can change your role/)).toHaveLength(1);
+    expect(patches).toHaveLength(0);
+  });
+
+  it('points an owner at Transfer ownership on the Studio page instead of a role control', async () => {
+    stubMembers(demoSession);
+    renderApp('/team');
+    await screen.findByLabelText('Role of Demo Shooter');
+    expect(screen.queryByLabelText('Role of Demo Owner')).toBeNull();
+    const mine = rowOf('Demo Owner');
+    expect(within(mine).queryByRole('combobox')).toBeNull();
+    expect(within(mine).getByText('owner')).toBeTruthy();
+    expect(mine.textContent).toContain(
+      'Another owner can change your role, or you can hand the studio over with Transfer ownership on the Studio page.',
+    );
+    expect(
+      within(mine).getByRole('link', { name: 'Transfer ownership' }).getAttribute('href'),
+    ).toBe('/studio');
+    expect(screen.getByLabelText('Role of Demo Admin')).toBeTruthy();
+  });
+
   it('offers an admin no way to change or remove the owner', async () => {
     stubMembers({ ...demoSession, role: 'admin', user: { ...demoSession.user, id: 'u-admin' } });
     renderApp('/team');

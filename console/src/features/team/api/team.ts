@@ -79,7 +79,7 @@ export function cancelInvite(id: string): Promise<Invite> {
 }
 export const useCancelInvite = () => useTeamMutation(cancelInvite);
 
-/** PATCH /v1/team/members/{userId}: the last owner can't be demoted (409). */
+/** PATCH /v1/team/members/{userId}: not your own (403); the last owner can't be demoted (409). */
 export function changeMemberRole(input: { userId: string; role: TeamRole }): Promise<Member> {
   return unwrap(
     client.PATCH('/v1/team/members/{userId}', {

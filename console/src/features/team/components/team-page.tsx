@@ -1,10 +1,12 @@
 import { useMemo, useState } from 'react';
+import { Link } from 'react-router-dom';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { DataTable, type DataColumn } from '@/components/ui/data-table';
 import { Notice } from '@/components/ui/notice';
 import { PageLoading } from '@/components/ui/page-loading';
+import { paths } from '@/config/paths';
 import { problemMessage } from '@/lib/form-errors';
 import { formatDate, formatDateTime } from '@/lib/format';
 import { useSession } from '@/lib/session';
@@ -50,6 +52,24 @@ export function TeamPage() {
         header: 'Role',
         cell: ({ row }) => {
           const member = row.original;
+          // Nobody changes their own role (the server refuses it too): say who can.
+          if (member.userId === myId) {
+            return (
+              <div className="flex flex-col gap-0.5">
+                <span>{member.role}</span>
+                <span className="text-small text-ink-muted">
+                  {isOwner ? (
+                    <>
+                      Another owner can change your role, or you can hand the studio over with{' '}
+                      <Link to={paths.studio}>Transfer ownership</Link> on the Studio page.
+                    </>
+                  ) : (
+                    'Another admin or an owner can change your role.'
+                  )}
+                </span>
+              </div>
+            );
+          }
           // Only owners may grant or take away the owner role.
           const editable = isOwner || member.role !== 'owner';
           if (!editable) return member.role;
