@@ -768,7 +768,10 @@ export interface paths {
       path?: never;
       cookie?: never;
     };
-    /** Your organisation's plan, this month's calls and the seats used against it. */
+    /**
+     * Your organisation's plan, this month's calls and the seats used against it.
+     * @description With a console session or an API key: an app can read how much of the monthly quota is left (`plan.includedCalls` against `usage`) before a batch of calls.
+     */
     get: operations['getCurrentPlan'];
     put?: never;
     post?: never;
@@ -9253,9 +9256,24 @@ export interface operations {
           'application/json': components['schemas']['CurrentPlanResponseDto'];
         };
       };
-      /** @description Not signed in: this route takes a console session (API keys cannot use it). */
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
       401: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description With an API key: the key's rate limit, shared with its computations (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy). Reads use no quota. */
+      429: {
+        headers: {
+          /** @description Calls left in the window and seconds until it refills, e.g. `"key";r=0;t=1`. */
+          RateLimit?: string;
+          /** @description The limit: burst size and window in seconds, e.g. `"key";q=100;w=2`. */
+          'RateLimit-Policy'?: string;
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
           [name: string]: unknown;
         };
         content: {

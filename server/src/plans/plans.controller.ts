@@ -1,6 +1,7 @@
 import { Controller, Get, Req } from '@nestjs/common';
 import { ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
-import { Public, SessionAuth } from '../common/decorators/access.decorator.js';
+import { ApiKeyAuth, Public } from '../common/decorators/access.decorator.js';
+import { KeyReadLimited } from './key-read.decorator.js';
 import type { RequestWithPrincipal } from '../common/guards/access.guard.js';
 import {
   CurrentPlanResponseDto,
@@ -33,9 +34,13 @@ export class PlansController {
   }
 
   @Get('current')
-  @SessionAuth()
+  @ApiKeyAuth()
+  @KeyReadLimited()
   @ApiOperation({
     summary: "Your organisation's plan, this month's calls and the seats used against it.",
+    description:
+      'With a console session or an API key: an app can read how much of the monthly quota is ' +
+      'left (`plan.includedCalls` against `usage`) before a batch of calls.',
   })
   @ApiOkResponse({ type: CurrentPlanResponseDto })
   async getCurrentPlan(@Req() req: RequestWithPrincipal) {

@@ -192,6 +192,34 @@ describe('compute limits and metering', () => {
     }
   });
 
+  it('lets a key read its plan and this month’s counted calls (GET /v1/plans/current)', async () => {
+    const org = await keyedOrg(t.url);
+    const read = async () => {
+      const r = await fetch(`${t.url}/v1/plans/current`, {
+        headers: { authorization: `Bearer ${org.live.secret}` },
+      });
+      expect(r.status).toBe(200);
+      expect(r.headers.get('ratelimit-policy')).toBe('"key";q=10;w=2');
+      return (await r.json()) as {
+        plan: { code: string; includedCalls: number };
+        usage: { liveCallsCounted: number; testCallsCounted: number };
+      };
+    };
+    const before = await read();
+    expect(before.plan.code).toBe('free');
+    expect(before.usage.liveCallsCounted).toBe(0);
+    const calls = await burst(t.url, org.live.secret, 3);
+    expect(calls.map((c) => c.status)).toEqual([200, 200, 200]);
+    // Usage rows are written in batches: wait for them to land in the daily roll-up.
+    let after = await read();
+    for (let i = 0; i < 50 && after.usage.liveCallsCounted < 3; i++) {
+      await new Promise((r) => setTimeout(r, 100));
+      after = await read();
+    }
+    expect(after.usage.liveCallsCounted).toBe(3);
+    expect(after.usage.testCallsCounted).toBe(0);
+  });
+
   it('checks keys with its own strategy after other apps in the process have started and stopped', async () => {
     // Each app holds its own bearer strategy; none is taken from a process-wide registry that a
     // later app (now closed, its database handle gone) would have overwritten.
