@@ -252,6 +252,8 @@ describe('frames', () => {
     const truncated = good.subarray(0, Math.floor(good.length / 2));
     const res = await studio.agent.post('/v1/frames').attach('file', truncated, 'cut.jpg');
     expect(res.status).toBe(422);
+    // The same problem type as every other 422 naming a field.
+    expect(res.body.type).toBe('https://lumenwright.test/problems/invalid-input');
     expect(res.body.errors).toEqual([{ field: 'file', reason: 'is corrupt or truncated' }]);
     expect(await objectsOf(studio.organizationId)).toEqual(before);
   });
