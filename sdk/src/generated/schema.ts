@@ -972,7 +972,7 @@ export interface paths {
     delete: operations['removeMember'];
     options?: never;
     head?: never;
-    /** Change a member's role (only owners grant or change the owner role). */
+    /** Change another member's role (only owners grant or change the owner role; nobody changes their own). */
     patch: operations['changeMemberRole'];
     trace?: never;
   };
@@ -2152,9 +2152,9 @@ export interface components {
            * @enum {string}
            */
           cameraKelvinSource: 'caller' | 'assumed';
-          /** @description Correlated colour temperature, kelvin (Robertson 1968). */
+          /** @description Correlated colour temperature, kelvin (Robertson 1968); null outside the method's range, 1667 K to infinite temperature (a warning then says which end). */
           cctKelvin: number | null;
-          /** @description False when |Duv| > 0.05. */
+          /** @description False when |Duv| > 0.05 or outside the method's range (cctKelvin null). */
           cctMeaningful: boolean;
           /** @description CIE 1931 xy of the patch (sRGB decoded, linear average). */
           chromaticity: {
@@ -2310,9 +2310,9 @@ export interface components {
          * @enum {string}
          */
         cameraKelvinSource: 'caller' | 'assumed';
-        /** @description Correlated colour temperature, kelvin (Robertson 1968). */
+        /** @description Correlated colour temperature, kelvin (Robertson 1968); null outside the method's range, 1667 K to infinite temperature (a warning then says which end). */
         cctKelvin: number | null;
-        /** @description False when |Duv| > 0.05. */
+        /** @description False when |Duv| > 0.05 or outside the method's range (cctKelvin null). */
         cctMeaningful: boolean;
         /** @description CIE 1931 xy of the patch (sRGB decoded, linear average). */
         chromaticity: {
@@ -5930,7 +5930,7 @@ export interface operations {
   listFrames: {
     parameters: {
       query?: {
-        /** @description Page size, 1-100 (default 20). */
+        /** @description Page size, a whole number from 1 to 100 (default 20). */
         limit?: string;
         /** @description nextCursor of the previous page. */
         cursor?: string;
@@ -10399,7 +10399,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      /** @description The member is you (`errors` names `userId`): nobody changes their own role; another admin or an owner does, and an owner can step down by transferring ownership. Or the change grants or takes away the owner role and you are not an owner. Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
@@ -10592,7 +10592,7 @@ export interface operations {
         from?: string;
         /** @description Before this instant (exclusive), ISO 8601 or YYYY-MM-DD (UTC). */
         to?: string;
-        /** @description Page size, 1..200; default 50. */
+        /** @description Page size, a whole number from 1 to 200; default 50. */
         limit?: string;
         /** @description nextCursor from the previous page. */
         cursor?: string;
@@ -10674,7 +10674,7 @@ export interface operations {
         from?: string;
         /** @description Before this instant (exclusive), ISO 8601 or YYYY-MM-DD (UTC). */
         to?: string;
-        /** @description Page size, 1..200; default 50. */
+        /** @description Page size, a whole number from 1 to 200; default 50. */
         limit?: string;
         /** @description nextCursor from the previous page. */
         cursor?: string;
