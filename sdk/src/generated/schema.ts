@@ -1211,7 +1211,7 @@ export interface components {
        */
       beamAngleDeg?: number;
       /**
-       * @description Horizontal distance of the light behind the subject, in distanceUnit; in metres at most 50 (164 is the limit in feet). Range: 0.1 to 164.
+       * @description Horizontal distance of the light behind the subject, in distanceUnit: 0.1–50 m or 0.33–164 ft (the range given spans both). Range: 0.1 to 164.
        * @example 3
        */
       distanceBehind: number;
@@ -2982,7 +2982,7 @@ export interface components {
          */
         angleFromCameraDeg?: number;
         /**
-         * @description Light-to-subject distance in distanceUnit; in metres at most 50 (164 is the limit in feet). Range: 0.1 to 164.
+         * @description Light-to-subject distance in distanceUnit: 0.1–50 m or 0.33–164 ft (the range given spans both). Range: 0.1 to 164.
          * @example 2.5
          */
         distance: number;
@@ -3054,7 +3054,7 @@ export interface components {
          */
         beamAngleDeg?: number;
         /**
-         * @description Horizontal distance behind the subject, in distanceUnit; in metres at most 50 (164 is the limit in feet). Range: 0.1 to 164.
+         * @description Horizontal distance behind the subject, in distanceUnit: 0.1–50 m or 0.33–164 ft (the range given spans both). Range: 0.1 to 164.
          * @example 3
          */
         distanceBehind: number;
@@ -3356,7 +3356,7 @@ export interface components {
          */
         angleFromCameraDeg?: number;
         /**
-         * @description Light-to-subject distance in distanceUnit; in metres at most 50 (164 is the limit in feet). Range: 0.1 to 164.
+         * @description Light-to-subject distance in distanceUnit: 0.1–50 m or 0.33–164 ft (the range given spans both). Range: 0.1 to 164.
          * @example 2.5
          */
         distance: number;
@@ -3428,7 +3428,7 @@ export interface components {
          */
         beamAngleDeg?: number;
         /**
-         * @description Horizontal distance behind the subject, in distanceUnit; in metres at most 50 (164 is the limit in feet). Range: 0.1 to 164.
+         * @description Horizontal distance behind the subject, in distanceUnit: 0.1–50 m or 0.33–164 ft (the range given spans both). Range: 0.1 to 164.
          * @example 3
          */
         distanceBehind: number;

@@ -94,6 +94,21 @@ describe('error consistency', () => {
     expect(res.body.errors).toEqual([{ field: 'gelKitId', reason: 'must be a UUID' }]);
   });
 
+  it('the nearest light distance follows the unit: 0.1 ft is refused, 0.33 ft and 0.1 m are not', async () => {
+    const setup = (distance: number, distanceUnit: 'm' | 'ft') =>
+      post(t.url, 'setup', org.test.secret, {
+        ...DEMO_BODIES.setup,
+        key: { guideNumber: 60, distance, distanceUnit },
+      });
+    const near = await setup(0.1, 'ft');
+    expect(near.status).toBe(422);
+    expect(near.body.errors).toEqual([
+      { field: 'key.distance', reason: 'must be between 0.33 and 164' },
+    ]);
+    await setup(0.33, 'ft').expect(200);
+    await setup(0.1, 'm').expect(200);
+  });
+
   it('JSON sent as text/plain and broken JSON read like every other body refusal', async () => {
     const text = await request(t.url)
       .post('/v1/balance')
