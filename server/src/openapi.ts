@@ -2,6 +2,7 @@
 // refusals every operation can answer (src/openapi-problems.ts).
 import type { INestApplication } from '@nestjs/common';
 import { DocumentBuilder, OpenAPIObject, SwaggerModule } from '@nestjs/swagger';
+import { APP_CONFIG, type AppConfig } from './config/config.js';
 import type { JsonSchema } from './compute/validation/json-schema.js';
 import { SCHEMA_DTOS, SCHEMA_REFS } from './compute/validation/schema-dto.js';
 import { accessRulesByHandler, documentStandardProblems } from './openapi-problems.js';
@@ -108,6 +109,20 @@ function referToDtos(src: JsonSchema, out: DocSchema | undefined): void {
   }
 }
 
+/**
+ * Where the API answers: the configured PUBLIC_URL. The committed spec is written by
+ * bin/write-openapi.ts from a fixed configuration, so it always reads the local default.
+ */
+function serverUrl(app: INestApplication): string {
+  let config: AppConfig | undefined;
+  try {
+    config = app.get<AppConfig>(APP_CONFIG, { strict: false });
+  } catch {
+    config = undefined;
+  }
+  return config?.publicUrl ?? 'http://127.0.0.1:3000';
+}
+
 export function buildOpenApiDocument(app: INestApplication): OpenAPIObject {
   const config = new DocumentBuilder()
     .setOpenAPIVersion('3.1.0')
@@ -118,9 +133,17 @@ export function buildOpenApiDocument(app: INestApplication): OpenAPIObject {
         'Errors are RFC 9457 problem+json.',
     )
     .setVersion('1')
-    .addServer('http://127.0.0.1:3000', 'Local')
+    .addServer(serverUrl(app), 'This server')
     .addBearerAuth(
-      { type: 'http', scheme: 'bearer', description: 'An API key: lw_live_… or lw_test_…' },
+      {
+        type: 'http',
+        scheme: 'bearer',
+        // Not a JWT: the key is an opaque secret the server looks up.
+        bearerFormat: 'opaque',
+        description:
+          'An API key, opaque (not a JWT; nothing to decode): lw_live_… for live calls, ' +
+          'lw_test_… for test calls.',
+      },
       'apiKey',
     )
     .addCookieAuth('lw_session', { type: 'apiKey', in: 'cookie', name: 'lw_session' }, 'session')

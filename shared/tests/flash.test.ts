@@ -6,6 +6,8 @@ import {
   computeFlashAperture,
   computeKeyLight,
   decimalScale,
+  LightingInputError,
+  LIGHT_DISTANCE_RANGE,
   fractionLabel,
   guideNumberFromMeter,
   stopsBetween,
@@ -240,5 +242,47 @@ describe('falloff series', () => {
       1000,
       6,
     );
+  });
+});
+
+describe('light distances: the lower limit follows the unit, as the upper one does', () => {
+  // 1 ft = 0.3048 m exactly (international yard and pound agreement, 1959): 0.1 m = 0.328 ft and
+  // 50 m = 164.04 ft, so 0.33..164 ft lies inside 0.1..50 m.
+  const FT = 0.3048;
+  it('the feet range converts to within the metre range', () => {
+    const { m, ft } = LIGHT_DISTANCE_RANGE;
+    expect(ft.min * FT).toBeGreaterThanOrEqual(m.min);
+    expect(ft.min * FT).toBeLessThan(m.min + 0.001);
+    expect(ft.max * FT).toBeLessThanOrEqual(m.max);
+    expect(ft.max * FT).toBeGreaterThan(m.max - 0.02);
+  });
+
+  const refusal = (f: () => unknown) => {
+    try {
+      f();
+    } catch (e) {
+      if (e instanceof LightingInputError) return { field: e.field, message: e.message };
+      throw e;
+    }
+    return null;
+  };
+
+  it('key light: 0.1 ft (3 cm) is refused; 0.1 m and 0.33 ft are accepted', () => {
+    const key = (distance: number, distanceUnit: 'm' | 'ft') => () =>
+      computeKeyLight({ angleFromCameraDeg: 45, distance, distanceUnit, modifierSize: 0.3 });
+    expect(refusal(key(0.1, 'ft'))).toMatchObject({ field: 'distance' });
+    expect(refusal(key(0.1, 'ft'))?.message).toMatch(/0\.33 and 164/);
+    expect(refusal(key(0.33, 'ft'))).toBeNull();
+    expect(refusal(key(0.1, 'm'))).toBeNull();
+    expect(refusal(key(164, 'ft'))).toBeNull();
+    expect(refusal(key(51, 'm'))).toMatchObject({ field: 'distance' });
+  });
+
+  it('backlight: distanceBehind 0.1 ft is refused; 0.33 ft and 0.1 m are accepted', () => {
+    const rim = (distanceBehind: number, distanceUnit: 'm' | 'ft') => () =>
+      computeBacklight({ lightHeight: 1, distanceBehind, distanceUnit });
+    expect(refusal(rim(0.1, 'ft'))).toMatchObject({ field: 'distanceBehind' });
+    expect(refusal(rim(0.33, 'ft'))).toBeNull();
+    expect(refusal(rim(0.1, 'm'))).toBeNull();
   });
 });

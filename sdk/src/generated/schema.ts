@@ -1214,7 +1214,7 @@ export interface components {
        */
       beamAngleDeg?: number;
       /**
-       * @description Horizontal distance of the light behind the subject, in distanceUnit; in metres at most 50 (164 is the limit in feet). Range: 0.1 to 164.
+       * @description Horizontal distance of the light behind the subject, in distanceUnit: 0.1–50 m or 0.33–164 ft (the range given spans both). Range: 0.1 to 164.
        * @example 3
        */
       distanceBehind: number;
@@ -2985,7 +2985,7 @@ export interface components {
          */
         angleFromCameraDeg?: number;
         /**
-         * @description Light-to-subject distance in distanceUnit; in metres at most 50 (164 is the limit in feet). Range: 0.1 to 164.
+         * @description Light-to-subject distance in distanceUnit: 0.1–50 m or 0.33–164 ft (the range given spans both). Range: 0.1 to 164.
          * @example 2.5
          */
         distance: number;
@@ -3057,7 +3057,7 @@ export interface components {
          */
         beamAngleDeg?: number;
         /**
-         * @description Horizontal distance behind the subject, in distanceUnit; in metres at most 50 (164 is the limit in feet). Range: 0.1 to 164.
+         * @description Horizontal distance behind the subject, in distanceUnit: 0.1–50 m or 0.33–164 ft (the range given spans both). Range: 0.1 to 164.
          * @example 3
          */
         distanceBehind: number;
@@ -3359,7 +3359,7 @@ export interface components {
          */
         angleFromCameraDeg?: number;
         /**
-         * @description Light-to-subject distance in distanceUnit; in metres at most 50 (164 is the limit in feet). Range: 0.1 to 164.
+         * @description Light-to-subject distance in distanceUnit: 0.1–50 m or 0.33–164 ft (the range given spans both). Range: 0.1 to 164.
          * @example 2.5
          */
         distance: number;
@@ -3431,7 +3431,7 @@ export interface components {
          */
         beamAngleDeg?: number;
         /**
-         * @description Horizontal distance behind the subject, in distanceUnit; in metres at most 50 (164 is the limit in feet). Range: 0.1 to 164.
+         * @description Horizontal distance behind the subject, in distanceUnit: 0.1–50 m or 0.33–164 ft (the range given spans both). Range: 0.1 to 164.
          * @example 3
          */
         distanceBehind: number;
@@ -5933,7 +5933,7 @@ export interface operations {
   listFrames: {
     parameters: {
       query?: {
-        /** @description Page size, 1-100 (default 20). */
+        /** @description Page size, a whole number from 1 to 100 (default 20). */
         limit?: string;
         /** @description nextCursor of the previous page. */
         cursor?: string;
@@ -10610,7 +10610,7 @@ export interface operations {
         from?: string;
         /** @description Before this instant (exclusive), ISO 8601 or YYYY-MM-DD (UTC). */
         to?: string;
-        /** @description Page size, 1..200; default 50. */
+        /** @description Page size, a whole number from 1 to 200; default 50. */
         limit?: string;
         /** @description nextCursor from the previous page. */
         cursor?: string;
@@ -10692,7 +10692,7 @@ export interface operations {
         from?: string;
         /** @description Before this instant (exclusive), ISO 8601 or YYYY-MM-DD (UTC). */
         to?: string;
-        /** @description Page size, 1..200; default 50. */
+        /** @description Page size, a whole number from 1 to 200; default 50. */
         limit?: string;
         /** @description nextCursor from the previous page. */
         cursor?: string;

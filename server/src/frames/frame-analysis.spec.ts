@@ -2,7 +2,10 @@
 // with sharp from pixel values computed in test/factories/srgb-reference.ts (IEC 61966-2-1 and
 // CIE 15, cross-checked with chroma-js), never with the analysis module's own colour helpers, and
 // the analysis must recover the published colour temperature and Duv of the chromaticity.
+import sharp from 'sharp';
 import { renderFrame } from '../../test/factories/frames.js';
+import { DomainError } from '../common/errors/domain-error.js';
+import { toProblem } from '../common/filters/problem.filter.js';
 import { srgbOfXy, srgbOfXyViaChroma } from '../../test/factories/srgb-reference.js';
 import { analyseFrame } from './frame-analysis.js';
 
@@ -145,5 +148,57 @@ describe('analyseFrame flags patches outside the CCT method range', () => {
     expect(a.colour.duv!).toBeGreaterThan(0.05);
     expect(a.warnings).toEqual([]);
     expect(a.colour.notes.join(' ')).toMatch(/too far from the Planckian locus/);
+  });
+});
+
+describe('analyseFrame refuses what it cannot use with the one 422 type, naming the field', () => {
+  const refusal = async (p: Promise<unknown>) => {
+    const e = await p.then(
+      () => null,
+      (err: unknown) => err,
+    );
+    expect(e).toBeInstanceOf(DomainError);
+    return e as DomainError;
+  };
+
+  it('a truncated file, an image over the pixel limit, an image with nothing neutral', async () => {
+    const good = await renderFrame({ patch: { ...PATCH, cx: 0.31271, cy: 0.32902, Y: 0.3 } });
+    const cut = await refusal(
+      analyseFrame({
+        buf: good.subarray(0, Math.floor(good.length / 2)),
+        patch: null,
+        cameraKelvin: null,
+        maxPixels: 50_000_000,
+      }),
+    );
+    expect([cut.code, cut.errors]).toEqual([
+      'invalid_input',
+      [{ field: 'file', reason: 'is corrupt or truncated' }],
+    ]);
+    // 480 x 320 = 153,600 pixels: over a 100,000-pixel limit.
+    const big = await refusal(
+      analyseFrame({ buf: good, patch: null, cameraKelvin: null, maxPixels: 100_000 }),
+    );
+    expect([big.code, big.errors]).toEqual([
+      'invalid_input',
+      [{ field: 'file', reason: 'has more than 100000 pixels' }],
+    ]);
+    // Saturated red everywhere: no neutral area for the automatic search.
+    const red = await sharp({
+      create: { width: 320, height: 240, channels: 3, background: { r: 230, g: 20, b: 20 } },
+    })
+      .png()
+      .toBuffer();
+    const none = await refusal(
+      analyseFrame({ buf: red, patch: null, cameraKelvin: null, maxPixels: 50_000_000 }),
+    );
+    expect(none.code).toBe('invalid_input');
+    expect(none.errors.map((x) => x.field)).toEqual(['patchX']);
+    for (const e of [cut, big, none]) {
+      expect(toProblem(e).problem).toMatchObject({
+        status: 422,
+        type: 'https://lumenwright.test/problems/invalid-input',
+      });
+    }
   });
 });

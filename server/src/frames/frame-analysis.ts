@@ -48,7 +48,7 @@ export async function analyseFrame(
     rect = autoRect(decoded);
     if (!rect) {
       throw new DomainError(
-        'unprocessable',
+        'invalid_input',
         'No even, neutral patch was found: give one with patchX, patchY, patchWidth, patchHeight.',
         [{ field: 'patchX', reason: 'is needed: no neutral patch was found automatically' }],
       );

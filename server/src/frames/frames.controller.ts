@@ -29,7 +29,8 @@ const listQuery = {
     limit: {
       type: 'string' as const,
       pattern: '^([1-9]|[1-9][0-9]|100)$',
-      description: 'Page size, 1-100 (default 20).',
+      patternWords: 'a whole number from 1 to 100',
+      description: 'Page size, a whole number from 1 to 100 (default 20).',
     },
     cursor: {
       type: 'string' as const,

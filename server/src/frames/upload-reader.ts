@@ -41,19 +41,26 @@ export async function readFrameUpload(req: FastifyRequest, maxBytes: number): Pr
     ]);
   }
   const values: Partial<Record<FieldName, number>> = {};
+  /** Fields the form carried, valid or not: an invalid value is not a missing one. */
+  const sent = new Set<string>();
   const problems: FieldProblem[] = [];
+  // One problem per field (a field sent twice, or a file part with a field's name, says it once).
+  const refuse = (field: string, reason: string) => {
+    if (!problems.some((p) => p.field === field)) problems.push({ field, reason });
+  };
   let file: { buf: Buffer; name: string | null } | null = null;
   try {
     for await (const part of req.parts()) {
       if (part.type === 'file') {
         if (part.fieldname !== 'file' || file) {
           part.file.resume();
-          problems.push({ field: part.fieldname, reason: 'only one file part, named `file`' });
+          refuse(part.fieldname, 'only one file part, named `file`');
           continue;
         }
         file = { buf: await part.toBuffer(), name: part.filename || null };
       } else if ((FIELDS as readonly string[]).includes(part.fieldname)) {
         const name = part.fieldname as FieldName;
+        sent.add(name);
         const n = Number(part.value);
         const [min, max] = RANGES[name];
         if (
@@ -62,10 +69,10 @@ export async function readFrameUpload(req: FastifyRequest, maxBytes: number): Pr
           n < min ||
           n > max
         ) {
-          problems.push({ field: name, reason: `must be an integer from ${min} to ${max}` });
+          refuse(name, `must be a whole number from ${min} to ${max}`);
         } else values[name] = n;
       } else {
-        problems.push({ field: part.fieldname, reason: 'is not a known field' });
+        refuse(part.fieldname, 'is not a known field');
       }
     }
   } catch (e) {
@@ -82,15 +89,12 @@ export async function readFrameUpload(req: FastifyRequest, maxBytes: number): Pr
     }
     throw e;
   }
-  if (!file) problems.push({ field: 'file', reason: 'is required (a JPEG or PNG image)' });
-  const given = (['patchX', 'patchY', 'patchWidth', 'patchHeight'] as const).filter(
-    (f) => values[f] !== undefined,
-  );
-  if (given.length > 0 && given.length < 4) {
-    for (const f of ['patchX', 'patchY', 'patchWidth', 'patchHeight'] as const) {
-      if (values[f] === undefined) {
-        problems.push({ field: f, reason: 'is required when any patch field is given' });
-      }
+  if (!file) refuse('file', 'is required (a JPEG or PNG image)');
+  const PATCH_FIELDS = ['patchX', 'patchY', 'patchWidth', 'patchHeight'] as const;
+  const given = PATCH_FIELDS.filter((f) => values[f] !== undefined);
+  if (PATCH_FIELDS.some((f) => sent.has(f))) {
+    for (const f of PATCH_FIELDS) {
+      if (!sent.has(f)) refuse(f, 'is required when any patch field is given');
     }
   }
   if (problems.length || !file) {

@@ -1,5 +1,5 @@
 import { num, str } from '../compute/schemas/common.js';
-import type { JsonSchema } from '../compute/validation/json-schema.js';
+import { UUID_PATTERN as UUID, type JsonSchema } from '../compute/validation/json-schema.js';
 import { schemaDto, type ObjectSchema } from '../compute/validation/schema-dto.js';
 
 export const ENDPOINTS = [
@@ -15,7 +15,11 @@ export const ENDPOINTS = [
 const DATE = '^\\d{4}-\\d{2}-\\d{2}$';
 const INSTANT =
   '^\\d{4}-\\d{2}-\\d{2}(T\\d{2}:\\d{2}(:\\d{2}(\\.\\d{1,6})?)?(Z|[+-]\\d{2}:\\d{2}))?$';
-const UUID = '^[0-9a-fA-F]{8}-[0-9a-fA-F]{4}-[0-9a-fA-F]{4}-[0-9a-fA-F]{4}-[0-9a-fA-F]{12}$';
+const INSTANT_WORDS = 'a date (YYYY-MM-DD) or an ISO 8601 date-time with Z or an offset';
+const STATUS = { pattern: '^[1-5]\\d\\d$', patternWords: 'an HTTP status, 100 to 599' };
+// Query values arrive as strings; the console's client sends `limit` as one, so it stays a
+// string here, refused in words.
+const LIMIT_WORDS = 'a whole number from 1 to 200';
 
 export const summaryQuerySchema: ObjectSchema = {
   type: 'object',
@@ -29,9 +33,9 @@ export const summaryQuerySchema: ObjectSchema = {
       pattern: DATE,
       format: 'date',
     }),
-    keyId: str('Only calls made with this API key.', undefined, { pattern: UUID }),
+    keyId: str('Only calls made with this API key.', undefined, { pattern: UUID, format: 'uuid' }),
     endpoint: str('Only calls to this endpoint.', 'balance', { enum: ENDPOINTS }),
-    status: str('Only calls answered with this HTTP status.', '429', { pattern: '^[1-5]\\d\\d$' }),
+    status: str('Only calls answered with this HTTP status.', '429', STATUS),
     outcome: str('Only failed calls (4xx or 5xx: "error") or the others ("ok").', 'error', {
       enum: ['ok', 'error'],
     }),
@@ -42,19 +46,24 @@ export const eventsQuerySchema: ObjectSchema = {
   type: 'object',
   additionalProperties: false,
   properties: {
-    keyId: str('Only this API key.', undefined, { pattern: UUID }),
+    keyId: str('Only this API key.', undefined, { pattern: UUID, format: 'uuid' }),
     endpoint: str('Only this endpoint.', 'balance', { enum: ENDPOINTS }),
-    status: str('Only this HTTP status.', '429', { pattern: '^[1-5]\\d\\d$' }),
+    status: str('Only this HTTP status.', '429', STATUS),
     outcome: str('Only failed calls (4xx or 5xx: "error") or the others ("ok").', 'error', {
       enum: ['ok', 'error'],
     }),
     from: str('From this instant (inclusive), ISO 8601 or YYYY-MM-DD (UTC).', '2026-12-01', {
       pattern: INSTANT,
+      patternWords: INSTANT_WORDS,
     }),
     to: str('Before this instant (exclusive), ISO 8601 or YYYY-MM-DD (UTC).', undefined, {
       pattern: INSTANT,
+      patternWords: INSTANT_WORDS,
     }),
-    limit: str('Page size, 1..200; default 50.', '50', { pattern: '^(?:[1-9]\\d?|1\\d\\d|200)$' }),
+    limit: str('Page size, a whole number from 1 to 200; default 50.', '50', {
+      pattern: '^(?:[1-9]\\d?|1\\d\\d|200)$',
+      patternWords: LIMIT_WORDS,
+    }),
     cursor: str('nextCursor from the previous page.', undefined, { maxLength: 200 }),
   },
 };

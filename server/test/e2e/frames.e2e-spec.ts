@@ -252,6 +252,8 @@ describe('frames', () => {
     const truncated = good.subarray(0, Math.floor(good.length / 2));
     const res = await studio.agent.post('/v1/frames').attach('file', truncated, 'cut.jpg');
     expect(res.status).toBe(422);
+    // The same problem type as every other 422 naming a field.
+    expect(res.body.type).toBe('https://lumenwright.test/problems/invalid-input');
     expect(res.body.errors).toEqual([{ field: 'file', reason: 'is corrupt or truncated' }]);
     expect(await objectsOf(studio.organizationId)).toEqual(before);
   });
@@ -286,7 +288,35 @@ describe('frames', () => {
       .field('cameraKelvin', '99');
     expect(nothing.status).toBe(422);
     expect(nothing.body.errors).toEqual([
-      { field: 'cameraKelvin', reason: 'must be an integer from 1500 to 20000' },
+      { field: 'cameraKelvin', reason: 'must be a whole number from 1500 to 20000' },
+    ]);
+  });
+
+  it('gives an invalid patch field one problem, not also "is required"', async () => {
+    const img = await renderFrame({ patch: { ...PATCH, ...D65, Y: 0.3 } });
+    const bad = await studio.agent
+      .post('/v1/frames')
+      .field('patchX', 'abc')
+      .field('patchY', String(PATCH.y))
+      .field('patchWidth', String(PATCH.width))
+      .field('patchHeight', String(PATCH.height))
+      .attach('file', img, 'a.jpg');
+    expect(bad.status).toBe(422);
+    expect(bad.body.errors).toEqual([
+      { field: 'patchX', reason: 'must be a whole number from 0 to 100000' },
+    ]);
+    // Alone, the invalid field is still itself; the ones never sent are the missing ones.
+    const alone = await studio.agent
+      .post('/v1/frames')
+      .field('patchX', '-1')
+      .field('patchX', '7')
+      .attach('file', img, 'a.jpg');
+    expect(alone.status).toBe(422);
+    expect(alone.body.errors).toEqual([
+      { field: 'patchX', reason: 'must be a whole number from 0 to 100000' },
+      { field: 'patchY', reason: 'is required when any patch field is given' },
+      { field: 'patchWidth', reason: 'is required when any patch field is given' },
+      { field: 'patchHeight', reason: 'is required when any patch field is given' },
     ]);
   });
 

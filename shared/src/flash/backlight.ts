@@ -1,6 +1,7 @@
 import { countOf, DEG, round } from '../units/math.js';
 import { fromMetres, requireLengthUnit, toMetres, type LengthUnit } from '../units/length.js';
 import { maybeNumber, optionalNumber, requireNumber, requireObject } from '../units/validate.js';
+import { LIGHT_DISTANCE_RANGE } from './key-light.js';
 
 /** Beam angle assumed for a bare flash head, degrees. Common practice, no source. */
 export const BARE_BEAM_DEG = 100;
@@ -8,7 +9,7 @@ export const BARE_BEAM_DEG = 100;
 export interface BacklightInput {
   /** Height of the light above the ground, 0..10 m (in `distanceUnit`). */
   lightHeight: number;
-  /** Horizontal distance of the light behind the subject, 0.1..50. */
+  /** Horizontal distance of the light behind the subject: 0.1..50 m or 0.33..164 ft. */
   distanceBehind: number;
   /** Height of the subject's head (the rim target); default 1.6 m. */
   headHeight?: number;
@@ -48,7 +49,7 @@ export function computeBacklight(input: BacklightInput): BacklightResult {
   const maxH = unit === 'ft' ? 33 : 10;
   const h = toMetres(requireNumber('lightHeight', o.lightHeight, { min: 0, max: maxH }), unit);
   const behind = toMetres(
-    requireNumber('distanceBehind', o.distanceBehind, { min: 0.1, max: unit === 'ft' ? 164 : 50 }),
+    requireNumber('distanceBehind', o.distanceBehind, LIGHT_DISTANCE_RANGE[unit]),
     unit,
   );
   const head = toMetres(

@@ -5,7 +5,7 @@ import { optionalNumber, requireNumber, requireObject } from '../units/validate.
 export interface KeyLightInput {
   /** Horizontal angle of the key from the camera axis, 0..180 degrees (either side). */
   angleFromCameraDeg: number;
-  /** Light-to-subject distance, 0.1..50 (in `distanceUnit`). */
+  /** Light-to-subject distance in `distanceUnit`: 0.1..50 m or 0.33..164 ft. */
   distance: number;
   distanceUnit?: 'm' | 'ft';
   /** Modifier diameter or diagonal, 0.01..10, same unit; a bare head is about 0.08 m. */
@@ -15,6 +15,16 @@ export interface KeyLightInput {
   /** How far the key is above the ambient fill on the subject, stops, -6..10; default 1. */
   keyOverAmbientStops?: number;
 }
+
+/**
+ * How near and how far a light may be from the subject, per unit: 10 cm to 50 m, and in feet the
+ * same span rounded inward (0.1 m = 0.328 ft, 50 m = 164.04 ft), so a value in feet is never
+ * outside the metre range. Shared by the key light and the rim (backlight) distance.
+ */
+export const LIGHT_DISTANCE_RANGE: Readonly<Record<LengthUnit, { min: number; max: number }>> = {
+  m: { min: 0.1, max: 50 },
+  ft: { min: 0.33, max: 164 },
+};
 
 export type SourceQuality = 'hard' | 'medium' | 'soft';
 export type ShadowSide = 'frontal' | 'modelled' | 'dramatic' | 'side' | 'behind';
@@ -56,12 +66,10 @@ export function computeKeyLight(input: KeyLightInput): KeyLightResult {
   const o = requireObject('input', input);
   const unit = requireLengthUnit('distanceUnit', o.distanceUnit);
   const angle = requireNumber('angleFromCameraDeg', o.angleFromCameraDeg, { min: 0, max: 180 });
-  // Limits follow the unit, as the backlight's do: 50 m (164 ft) away, a 10 m (33 ft) modifier.
+  // Limits follow the unit, as the backlight's do: 0.1-50 m (0.33-164 ft) away, a modifier of at
+  // most 10 m (33 ft).
   const feet = unit === 'ft';
-  const d = toMetres(
-    requireNumber('distance', o.distance, { min: 0.1, max: feet ? 164 : 50 }),
-    unit,
-  );
+  const d = toMetres(requireNumber('distance', o.distance, LIGHT_DISTANCE_RANGE[unit]), unit);
   const size = toMetres(
     requireNumber('modifierSize', o.modifierSize, { min: 0.01, max: feet ? 33 : 10 }),
     unit,

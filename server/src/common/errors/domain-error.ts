@@ -1,4 +1,7 @@
 // Domain errors carry a stable code; the problem filter maps each code to an HTTP status.
+// Every 422 that names fields is 'invalid_input' (…/problems/invalid-input): a body field out of
+// range, a patch outside the image and an upload that is not a readable image are all "this
+// field's value cannot be used", so callers branch on one type and read `errors`.
 export type DomainErrorCode =
   | 'invalid_input'
   | 'unauthenticated'
@@ -9,7 +12,6 @@ export type DomainErrorCode =
   | 'quota_exceeded'
   | 'payload_too_large'
   | 'unsupported_media_type'
-  | 'unprocessable'
   | 'unavailable';
 
 export const STATUS_BY_CODE: Record<DomainErrorCode, number> = {
@@ -22,7 +24,6 @@ export const STATUS_BY_CODE: Record<DomainErrorCode, number> = {
   quota_exceeded: 429,
   payload_too_large: 413,
   unsupported_media_type: 415,
-  unprocessable: 422,
   unavailable: 503,
 };
 

@@ -69,8 +69,47 @@ function unavailable(detail: string): { problem: Problem; headers: Record<string
   };
 }
 
+/** What a Fastify body error says: the detail sentence and the reason given for `body`. */
+const FASTIFY_BODY_ERRORS: Record<string, { detail: string; reason: string }> = {
+  FST_ERR_CTP_BODY_TOO_LARGE: {
+    detail: 'The request body is larger than the limit.',
+    reason: 'is larger than the limit',
+  },
+  FST_ERR_CTP_INVALID_MEDIA_TYPE: {
+    detail: 'Send the request body as application/json.',
+    reason: 'must be sent as application/json',
+  },
+  FST_ERR_CTP_EMPTY_JSON_BODY: {
+    detail: 'The request body is empty; send a JSON object.',
+    reason: 'is empty; send a JSON object',
+  },
+  FST_ERR_CTP_INVALID_JSON_BODY: {
+    detail: 'The request body is not valid JSON.',
+    reason: 'is not valid JSON',
+  },
+};
+
+type FastifyClientError = { statusCode: number; code?: string; message?: string };
+
+/** A 4xx error Fastify raised itself (it carries `statusCode` and an `FST_` code). */
+function isFastifyClientError(e: unknown): e is FastifyClientError {
+  const f = e as { statusCode?: unknown; code?: unknown } | null | undefined;
+  return (
+    typeof f?.statusCode === 'number' &&
+    f.statusCode >= 400 &&
+    f.statusCode < 500 &&
+    typeof f.code === 'string' &&
+    f.code.startsWith('FST_')
+  );
+}
+
 /** Turns anything thrown into a Problem (pure; exported for unit tests). */
 export function toProblem(err: unknown): { problem: Problem; headers: Record<string, string> } {
+  // Nest's Fastify adapter wraps Fastify's own 4xx errors in an HttpException (the original is
+  // its cause): answer those in our words, like the unwrapped ones below.
+  if (err instanceof HttpException && isFastifyClientError(err.cause)) {
+    return toProblem(err.cause);
+  }
   if (err instanceof DomainError) {
     const status = STATUS_BY_CODE[err.code];
     return {
@@ -127,16 +166,12 @@ export function toProblem(err: unknown): { problem: Problem; headers: Record<str
   const e = err as { statusCode?: number; code?: string; message?: string };
   if (typeof e?.statusCode === 'number' && e.statusCode >= 400 && e.statusCode < 500) {
     const status = e.statusCode;
-    const detail =
-      e.code === 'FST_ERR_CTP_BODY_TOO_LARGE'
-        ? 'The request body is larger than the limit.'
-        : e.code === 'FST_ERR_CTP_INVALID_MEDIA_TYPE'
-          ? 'Send the request body as application/json.'
-          : e.code === 'FST_ERR_CTP_EMPTY_JSON_BODY'
-            ? 'The request body is empty; send a JSON object.'
-            : status === 400 && /JSON/i.test(e.message ?? '')
-              ? 'The request body is not valid JSON.'
-              : (e.message ?? 'Bad request');
+    const known =
+      (e.code ? FASTIFY_BODY_ERRORS[e.code] : undefined) ??
+      (status === 400 && /JSON/i.test(e.message ?? '')
+        ? FASTIFY_BODY_ERRORS.FST_ERR_CTP_INVALID_JSON_BODY
+        : undefined);
+    const detail = known?.detail ?? e.message ?? 'Bad request';
     return {
       problem: {
         type: PROBLEM_BASE + (SLUG[status] ?? 'bad-request'),
@@ -144,7 +179,7 @@ export function toProblem(err: unknown): { problem: Problem; headers: Record<str
         status,
         detail,
         ...(status === 400 || status === 415
-          ? { errors: [{ field: 'body', reason: detail }] }
+          ? { errors: [{ field: 'body', reason: known?.reason ?? detail }] }
           : {}),
       },
       headers: {},

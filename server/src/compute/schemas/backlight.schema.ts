@@ -16,8 +16,8 @@ export const backlightRequestSchema: ObjectSchema = {
       2,
     ),
     distanceBehind: ranged(
-      'Horizontal distance of the light behind the subject, in distanceUnit; in metres at most ' +
-        '50 (164 is the limit in feet).',
+      'Horizontal distance of the light behind the subject, in distanceUnit: 0.1–50 m or ' +
+        '0.33–164 ft (the range given spans both).',
       0.1,
       164,
       3,

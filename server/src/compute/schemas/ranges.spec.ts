@@ -114,7 +114,8 @@ const BASES: Record<string, Base[]> = {
 /**
  * Extra fields a bound needs to be reachable at all: a lower bound that follows another field
  * (isoMax >= isoMin, apertureMax >= apertureMin, to >= from in the library), and the unit whose
- * range is the widest (feet) for the unit-dependent distances.
+ * range is the widest (feet) for the unit-dependent distances (see CONTEXT_AT_MIN for lower
+ * bounds that are widest in metres).
  */
 const CONTEXT: Record<string, Body> = {
   'exposure isoMax': { isoMin: 3 },
@@ -131,8 +132,21 @@ const CONTEXT: Record<string, Body> = {
 };
 
 /**
+ * Where the metres' bound is the wider one (the nearest light distance: 0.1 m, but 0.33 ft), the
+ * lower bound is reached in metres.
+ */
+const CONTEXT_AT_MIN: Record<string, Body> = {
+  'backlight distanceBehind': { distanceUnit: 'm' },
+  'setup rim.distanceBehind': { rim: { distanceUnit: 'm' } },
+  'setup key.distance': { key: { distanceUnit: 'm' } },
+};
+
+const contextOf = (c: BoundCase): Body =>
+  (c.side === 'min' ? CONTEXT_AT_MIN[fieldKey(c)] : undefined) ?? CONTEXT[fieldKey(c)] ?? {};
+
+/**
  * Unit-dependent ranges in the library (backlight.ts: lightHeight and headHeight at most 10 m or
- * 33 ft, distanceBehind 0.1..50 m or 0.1..164 ft): the schema publishes the widest, the
+ * 33 ft, distanceBehind 0.1..50 m or 0.33..164 ft): the schema publishes the widest, the
  * description states the rule, and the library refuses the rest by name.
  */
 const UNIT_RANGES: Record<
@@ -141,11 +155,11 @@ const UNIT_RANGES: Record<
 > = {
   'backlight lightHeight': { unitField: 'distanceUnit', m: [0, 10], ft: [0, 33] },
   'backlight headHeight': { unitField: 'distanceUnit', m: [0.1, 10], ft: [0.1, 33] },
-  'backlight distanceBehind': { unitField: 'distanceUnit', m: [0.1, 50], ft: [0.1, 164] },
+  'backlight distanceBehind': { unitField: 'distanceUnit', m: [0.1, 50], ft: [0.33, 164] },
   'setup rim.lightHeight': { unitField: 'rim.distanceUnit', m: [0, 10], ft: [0, 33] },
-  'setup rim.distanceBehind': { unitField: 'rim.distanceUnit', m: [0.1, 50], ft: [0.1, 164] },
-  // key-light.ts: the key at most 50 m or 164 ft away, its modifier at most 10 m or 33 ft.
-  'setup key.distance': { unitField: 'key.distanceUnit', m: [0.1, 50], ft: [0.1, 164] },
+  'setup rim.distanceBehind': { unitField: 'rim.distanceUnit', m: [0.1, 50], ft: [0.33, 164] },
+  // key-light.ts: the key 0.1..50 m or 0.33..164 ft away, its modifier at most 10 m or 33 ft.
+  'setup key.distance': { unitField: 'key.distanceUnit', m: [0.1, 50], ft: [0.33, 164] },
   'setup key.modifierSize': { unitField: 'key.distanceUnit', m: [0.01, 10], ft: [0.01, 33] },
 };
 
@@ -322,7 +336,7 @@ describe('compute request ranges match the shared math library', () => {
   });
 
   it.each(CASES.map((c) => [`${c.id} (${c.base.name})`, c]))('%s', (_id, c) => {
-    const patch = CONTEXT[fieldKey(c)] ?? {};
+    const patch = contextOf(c);
     const named = LIBRARY_NAME[fieldKey(c)] ?? c.field.path;
 
     // Just outside: the library refuses it naming the field; the schema does too, same path.
@@ -378,7 +392,7 @@ describe('compute request ranges match the shared math library', () => {
         ? given + (given + 0.25 <= hi! ? 0.25 : -0.25)
         : lo! + (hi! - lo!) * 0.37;
     if (Number.isInteger(value)) value += 0.5;
-    const input = withValue(c.base.input, CONTEXT[fieldKey(c)] ?? {}, c.field.path, value);
+    const input = withValue(c.base.input, contextOf(c), c.field.path, value);
     expect(validators[c.endpoint]!(input)).toEqual([]);
     expect({ value, error: libraryError(c.endpoint, input)?.message ?? null }).toEqual({
       value,

@@ -69,7 +69,8 @@ export const setupRequestSchema: ObjectSchema = {
         guideNumber: ranged('Guide number at ISO 100, full power, in guideNumberUnit.', 1, 500, 60),
         guideNumberUnit: lengthUnit('Unit of the guide number.'),
         distance: ranged(
-          'Light-to-subject distance in distanceUnit; in metres at most 50 (164 is the limit in feet).',
+          'Light-to-subject distance in distanceUnit: 0.1–50 m or 0.33–164 ft (the range ' +
+            'given spans both).',
           0.1,
           164,
           2.5,
@@ -100,8 +101,8 @@ export const setupRequestSchema: ObjectSchema = {
         guideNumber: ranged('Guide number at ISO 100, full power, in guideNumberUnit.', 1, 500, 45),
         guideNumberUnit: lengthUnit('Unit of the guide number.'),
         distanceBehind: ranged(
-          'Horizontal distance behind the subject, in distanceUnit; in metres at most 50 (164 is ' +
-            'the limit in feet).',
+          'Horizontal distance behind the subject, in distanceUnit: 0.1–50 m or 0.33–164 ft (the ' +
+            'range given spans both).',
           0.1,
           164,
           3,

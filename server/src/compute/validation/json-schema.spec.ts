@@ -1,4 +1,5 @@
-import { compileSchema } from './json-schema.js';
+import { compileSchema, UUID_PATTERN } from './json-schema.js';
+import { forDocs } from './schema-dto.js';
 import { balanceRequestSchema } from '../schemas/balance.schema.js';
 import { twilightRequestSchema } from '../schemas/twilight.schema.js';
 
@@ -77,5 +78,50 @@ describe('compiled JSON-schema validator', () => {
     expect(balance([])).toEqual([{ field: 'body', reason: 'must be an object' }]);
     const many = Object.fromEntries(Array.from({ length: 100 }, (_, i) => [`x${i}`, i]));
     expect(balance({ cameraKelvin: 3800, ...many })).toHaveLength(20);
+  });
+
+  it('says what a pattern expects in words, never the expression', () => {
+    const limit = compileSchema({
+      type: 'string',
+      pattern: '^([1-9]|[1-9][0-9]|100)$',
+      patternWords: 'a whole number from 1 to 100',
+    });
+    expect(limit('0')).toEqual([{ field: 'body', reason: 'must be a whole number from 1 to 100' }]);
+    expect(limit('100')).toEqual([]);
+    // The UUID pattern and format: 'uuid' say "a UUID" without being told.
+    const byPattern = compileSchema({ type: 'string', pattern: UUID_PATTERN });
+    const byFormat = compileSchema({ type: 'string', format: 'uuid' });
+    for (const check of [byPattern, byFormat]) {
+      expect(check('not-a-uuid')).toEqual([{ field: 'body', reason: 'must be a UUID' }]);
+      expect(check('0b7c6a52-3d0e-4c55-9f59-2B1F4E0D8A11')).toEqual([]);
+    }
+    // A pattern nobody put words to still does not show the expression.
+    const bare = compileSchema({ type: 'string', pattern: '^[a-z]+$' });
+    expect(bare('ABC')[0]?.reason).not.toContain('[a-z]');
+  });
+
+  it('gives a field one problem: the first check it fails', () => {
+    const day = compileSchema({
+      type: 'string',
+      pattern: '^\\d{4}-\\d{2}-\\d{2}$',
+      format: 'date',
+    });
+    expect(day('2026-12-03T10:00:00Z')).toEqual([
+      { field: 'body', reason: 'must be a calendar date, YYYY-MM-DD' },
+    ]);
+    const name = compileSchema({ type: 'string', minLength: 3, pattern: '^[a-z]+$' });
+    expect(name('A')).toEqual([{ field: 'body', reason: 'must have at least 3 characters' }]);
+  });
+
+  it('publishes schemas without the wording hints', () => {
+    const schema = {
+      type: 'object' as const,
+      properties: { limit: { type: 'string' as const, pattern: '^1$', patternWords: 'one' } },
+    };
+    expect(forDocs(schema)).toEqual({
+      type: 'object',
+      properties: { limit: { type: 'string', pattern: '^1$' } },
+    });
+    expect(schema.properties.limit.patternWords).toBe('one');
   });
 });

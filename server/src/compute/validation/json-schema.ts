@@ -5,6 +5,8 @@
 // Supported: type (incl. arrays of types), enum, minimum/maximum (+exclusive), minLength,
 // maxLength, pattern, format "date", properties/required/additionalProperties:false,
 // items/minItems/maxItems. Field paths use the shared library's style: `gels[2].miredShift`.
+// Refusals are words, never a regular expression, and a field gets one problem: the first check
+// it fails (a value that is not a date is not also told it does not match the date pattern).
 import type { FieldProblem } from '../../common/errors/domain-error.js';
 
 export type JsonType = 'number' | 'integer' | 'string' | 'boolean' | 'object' | 'array' | 'null';
@@ -21,6 +23,12 @@ export interface JsonSchema {
   minLength?: number;
   maxLength?: number;
   pattern?: string;
+  /**
+   * What `pattern` accepts, in words, for the refusal: "a whole number from 1 to 100" gives
+   * "must be a whole number from 1 to 100". Not published (the description says it to readers).
+   * Without it, a known `format` or the UUID pattern supplies the words.
+   */
+  patternWords?: string;
   format?: string;
   properties?: Record<string, JsonSchema>;
   required?: readonly string[];
@@ -38,6 +46,25 @@ type Check = (value: unknown, path: string, out: FieldProblem[]) => void;
 /** Stop collecting after this many problems: a hostile body must not make a huge error list. */
 const MAX_PROBLEMS = 20;
 const DATE = /^\d{4}-\d{2}-\d{2}$/;
+
+/** The canonical UUID pattern (any version, either case). */
+export const UUID_PATTERN =
+  '^[0-9a-fA-F]{8}-[0-9a-fA-F]{4}-[0-9a-fA-F]{4}-[0-9a-fA-F]{4}-[0-9a-fA-F]{12}$';
+
+/** Words for the formats the validator knows, used when a value misses its pattern. */
+const FORMAT_WORDS: Record<string, string> = {
+  uuid: 'a UUID',
+  date: 'a calendar date, YYYY-MM-DD',
+};
+
+/** "must be a UUID": what a pattern expects, in words; never the expression itself. */
+export function patternReason(s: JsonSchema): string {
+  const words =
+    s.patternWords ??
+    (s.format ? FORMAT_WORDS[s.format] : undefined) ??
+    (s.pattern === UUID_PATTERN ? FORMAT_WORDS.uuid : undefined);
+  return words ? `must be ${words}` : 'is not in the form the description gives';
+}
 
 function typeOf(v: unknown): JsonType {
   if (v === null) return 'null';
@@ -131,21 +158,24 @@ function stringChecks(s: JsonSchema): Check[] {
   }
   if (s.pattern !== undefined) {
     const re = new RegExp(s.pattern, 'u');
-    c.push(
-      (v, p, o) =>
-        void (
-          !re.test(v as string) && o.push({ field: label(p), reason: `must match ${s.pattern}` })
-        ),
-    );
+    const reason = patternReason(s);
+    c.push((v, p, o) => void (!re.test(v as string) && o.push({ field: label(p), reason })));
   }
   if (s.format === 'date') {
     c.push((v, p, o) => {
       const str = v as string;
       const d = new Date(`${str}T00:00:00Z`);
       if (!DATE.test(str) || Number.isNaN(d.getTime()) || d.toISOString().slice(0, 10) !== str) {
-        o.push({ field: label(p), reason: 'must be a calendar date, YYYY-MM-DD' });
+        o.push({ field: label(p), reason: `must be ${FORMAT_WORDS.date}` });
       }
     });
+  }
+  if (s.format === 'uuid' && s.pattern === undefined) {
+    const re = new RegExp(UUID_PATTERN, 'u');
+    c.push(
+      (v, p, o) =>
+        void (!re.test(v as string) && o.push({ field: label(p), reason: patternReason(s) })),
+    );
   }
   return c;
 }
@@ -215,7 +245,13 @@ function compile(s: JsonSchema): Check {
       return;
     }
     const checks = byType[actual === 'integer' ? 'number' : actual];
-    if (checks) for (const c of checks) c(v, p, o);
+    if (!checks) return;
+    // One problem per field: stop at the first check that refused this value.
+    for (const c of checks) {
+      const before = o.length;
+      c(v, p, o);
+      if (o.length > before) return;
+    }
   };
 }
 

@@ -33,13 +33,24 @@ export function refTo(
   return out;
 }
 
+/** `schema` as published: without the validator's own wording hints (`patternWords`). */
+export function forDocs<T>(schema: T): T {
+  if (Array.isArray(schema)) return schema.map((v) => forDocs(v) as unknown) as T;
+  if (!schema || typeof schema !== 'object') return schema;
+  const out: Record<string, unknown> = {};
+  for (const [k, v] of Object.entries(schema)) {
+    if (k !== 'patternWords') out[k] = forDocs(v);
+  }
+  return out as T;
+}
+
 /** A class named `name` whose Swagger metadata mirrors `schema` (properties, required, examples). */
 export function schemaDto(name: string, schema: ObjectSchema): new () => object {
   const Dto = { [name]: class {} }[name]!;
   SCHEMA_DTOS.set(name, schema);
   const required = new Set(schema.required ?? []);
   for (const [key, prop] of Object.entries(schema.properties)) {
-    const { nullable: _nullable, ...rest } = prop;
+    const { nullable: _nullable, ...rest } = forDocs(prop);
     void _nullable;
     // A JSON-Schema type list such as ['string', 'null'] would read as "array of string" to the
     // Swagger decorators: describe it as the non-null type, marked nullable.
@@ -95,7 +106,7 @@ export function ApiQueryFromSchema(schema: ObjectSchema): MethodDecorator {
         name,
         required: required.has(name),
         description: prop.description,
-        schema: prop as Record<string, unknown>,
+        schema: forDocs(prop) as Record<string, unknown>,
       }),
     ),
   );

@@ -21,11 +21,11 @@ const open = (buf: Buffer, maxPixels: number) =>
 function unreadable(e: unknown, maxPixels: number): never {
   const msg = e instanceof Error ? e.message : String(e);
   if (/pixel limit/i.test(msg)) {
-    throw new DomainError('unprocessable', `The image has more than ${maxPixels} pixels.`, [
+    throw new DomainError('invalid_input', `The image has more than ${maxPixels} pixels.`, [
       { field: 'file', reason: `has more than ${maxPixels} pixels` },
     ]);
   }
-  throw new DomainError('unprocessable', 'The file could not be decoded as an image.', [
+  throw new DomainError('invalid_input', 'The file could not be decoded as an image.', [
     { field: 'file', reason: 'is corrupt or truncated' },
   ]);
 }
