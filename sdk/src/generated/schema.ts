@@ -972,7 +972,7 @@ export interface paths {
     delete: operations['removeMember'];
     options?: never;
     head?: never;
-    /** Change a member's role (only owners grant or change the owner role). */
+    /** Change another member's role (only owners grant or change the owner role; nobody changes their own). */
     patch: operations['changeMemberRole'];
     trace?: never;
   };
@@ -2152,9 +2152,9 @@ export interface components {
            * @enum {string}
            */
           cameraKelvinSource: 'caller' | 'assumed';
-          /** @description Correlated colour temperature, kelvin (Robertson 1968). */
+          /** @description Correlated colour temperature, kelvin (Robertson 1968); null outside the method's range, 1667 K to infinite temperature (a warning then says which end). */
           cctKelvin: number | null;
-          /** @description False when |Duv| > 0.05. */
+          /** @description False when |Duv| > 0.05 or outside the method's range (cctKelvin null). */
           cctMeaningful: boolean;
           /** @description CIE 1931 xy of the patch (sRGB decoded, linear average). */
           chromaticity: {
@@ -2310,9 +2310,9 @@ export interface components {
          * @enum {string}
          */
         cameraKelvinSource: 'caller' | 'assumed';
-        /** @description Correlated colour temperature, kelvin (Robertson 1968). */
+        /** @description Correlated colour temperature, kelvin (Robertson 1968); null outside the method's range, 1667 K to infinite temperature (a warning then says which end). */
         cctKelvin: number | null;
-        /** @description False when |Duv| > 0.05. */
+        /** @description False when |Duv| > 0.05 or outside the method's range (cctKelvin null). */
         cctMeaningful: boolean;
         /** @description CIE 1931 xy of the patch (sRGB decoded, linear average). */
         chromaticity: {
@@ -3128,7 +3128,7 @@ export interface components {
        */
       targetMiredOffset?: number;
       /**
-       * @description IANA time zone name.
+       * @description IANA time zone name, such as Europe/Zurich (any letter case); a UTC offset such as "+02:00" is refused. Answers spell it as the tz database does.
        * @example Europe/London
        */
       timeZone: string;
@@ -3502,7 +3502,7 @@ export interface components {
        */
       targetMiredOffset?: number;
       /**
-       * @description IANA time zone name.
+       * @description IANA time zone name, such as Europe/Zurich (any letter case); a UTC offset such as "+02:00" is refused. Answers spell it as the tz database does.
        * @example Europe/London
        */
       timeZone: string;
@@ -3826,10 +3826,17 @@ export interface components {
          */
         sunsetAzimuthDeg?: number | null;
         /**
-         * @description The IANA time zone.
+         * @description The IANA time zone, spelled as the tz database does.
          * @example Europe/London
          */
         timeZone?: string;
+        /** @description Things to look at: a stable code and a sentence for people. Codes: "time-zone-mismatch" (the zone’s UTC offset on the date is more than 3.5 h from the place’s solar time, longitude / 15 h: probably not the place’s zone). */
+        warnings: {
+          /** @description Stable warning code. */
+          code: string;
+          /** @description Explanation. */
+          message: string;
+        }[];
       };
       /** @description Things to look at: a stable code and a sentence for people. */
       warnings: {
@@ -3976,7 +3983,7 @@ export interface components {
        */
       stepMinutes?: number;
       /**
-       * @description IANA time zone name.
+       * @description IANA time zone name, such as Europe/Zurich (any letter case); a UTC offset such as "+02:00" is refused. Answers spell it as the tz database does.
        * @example Europe/London
        */
       timeZone: string;
@@ -4145,10 +4152,17 @@ export interface components {
        */
       sunsetAzimuthDeg?: number | null;
       /**
-       * @description The IANA time zone.
+       * @description The IANA time zone, spelled as the tz database does.
        * @example Europe/London
        */
       timeZone?: string;
+      /** @description Things to look at: a stable code and a sentence for people. Codes: "time-zone-mismatch" (the zone’s UTC offset on the date is more than 3.5 h from the place’s solar time, longitude / 15 h: probably not the place’s zone). */
+      warnings: {
+        /** @description Stable warning code. */
+        code: string;
+        /** @description Explanation. */
+        message: string;
+      }[];
     };
     UpcomingSetupsResponseDto: {
       /** @description Soonest first: setups whose shooting window has not ended yet. */
@@ -10399,7 +10413,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      /** @description The member is you (`errors` names `userId`): nobody changes their own role; another admin or an owner does, and an owner can step down by transferring ownership. Or the change grants or takes away the owner role and you are not an owner. Your role does not allow this. A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
         headers: {
           [name: string]: unknown;
