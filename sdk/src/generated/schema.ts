@@ -1452,7 +1452,7 @@ export interface components {
          */
         rendersAs: 'much warmer' | 'warmer' | 'neutral' | 'cooler' | 'much cooler';
       }[];
-      /** @description Things to look at: a stable code and a sentence for people. */
+      /** @description Things to look at: a stable code and a sentence for people. Codes: "fine-tune-limit" (the camera white balance that would cancel the residual is outside 1500–20000 K, so it is clamped); "fine-tune-beyond-range" (cancelling the residual takes more than ±7 amber/blue fine-tune steps; allow or add a gel, or set the camera’s kelvin instead). */
       warnings?: {
         /** @description Stable warning code. */
         code: string;
@@ -1461,7 +1461,7 @@ export interface components {
       }[];
       /** @description Camera white-balance change that cancels the residual on the subject. */
       whiteBalanceFineTune?: {
-        /** @description Steps on an amber(+)/blue(−) fine-tune axis, about 5 mireds each. */
+        /** @description Steps on an amber(+)/blue(−) fine-tune axis, about 5 mireds each. Cameras usually offer about ±7 to ±9; beyond ±7 a "fine-tune-beyond-range" warning says what to do instead. */
         amberBlueSteps: number;
         /** @description Camera white balance that would cancel it, kelvin. */
         cameraKelvin: number;
@@ -3838,7 +3838,7 @@ export interface components {
           message: string;
         }[];
       };
-      /** @description Things to look at: a stable code and a sentence for people. */
+      /** @description Things to look at: a stable code and a sentence for people. Besides the plan’s own, these include the twilight’s ("time-zone-mismatch") and the balance’s ("fine-tune-limit", "fine-tune-beyond-range"). */
       warnings: {
         /** @description Stable warning code. */
         code: string;
@@ -3854,7 +3854,7 @@ export interface components {
         cameraKelvin: number;
         /** @description Camera white-balance change that cancels the residual on the subject. */
         fineTune: {
-          /** @description Steps on an amber(+)/blue(−) fine-tune axis, about 5 mireds each. */
+          /** @description Steps on an amber(+)/blue(−) fine-tune axis, about 5 mireds each. Cameras usually offer about ±7 to ±9; beyond ±7 a "fine-tune-beyond-range" warning says what to do instead. */
           amberBlueSteps: number;
           /** @description Camera white balance that would cancel it, kelvin. */
           cameraKelvin: number;

@@ -236,6 +236,27 @@ describe('compute API', () => {
     );
   });
 
+  it('balance: fine-tune past the usual ±7 steps is warned about, the numbers unchanged', async () => {
+    // Mired = 1e6 / K [HB]: a bare 5500 K flash under a 3800 K camera is 81.34 mireds short,
+    // 16 steps of about 5 toward amber ([DER]); cameras offer about ±7 to ±9 (from memory).
+    const bare = await post(t.url, 'balance', org.test.secret, {
+      cameraKelvin: 3800,
+      maxGels: 0,
+    }).expect(200);
+    expect(bare.body.whiteBalanceFineTune.amberBlueSteps).toBe(16);
+    expect(bare.body.whiteBalanceFineTune.cameraKelvin).toBe(5500);
+    expect(bare.body.warnings.map((w: { code: string }) => w.code)).toEqual([
+      'fine-tune-beyond-range',
+    ]);
+    expect(compileSchema(schemas.RESPONSE_SCHEMAS.balance!)(bare.body)).toEqual([]);
+    // With gels (default 3): 1/4 + 1/8 CTO leave −5.34 mireds, 1 step ([DER]): no warning.
+    const gelled = await post(t.url, 'balance', org.test.secret, { cameraKelvin: 3800 }).expect(
+      200,
+    );
+    expect(gelled.body.whiteBalanceFineTune.amberBlueSteps).toBe(1);
+    expect(gelled.body.warnings).toEqual([]);
+  });
+
   it('answers broken JSON with 400 and a body over 100 kB with 413, both problem+json', async () => {
     const broken = await request(t.url)
       .post('/v1/flash')

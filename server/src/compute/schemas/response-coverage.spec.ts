@@ -98,6 +98,8 @@ const EDGE_CASES: Record<string, Record<string, unknown>[]> = {
       maxGels: 2,
       targetMiredOffset: 10,
     },
+    // No gels allowed: 16 fine-tune steps, past the usual range (a warning).
+    { cameraKelvin: 3800, maxGels: 0 },
   ],
   setup: [
     {
