@@ -10,6 +10,7 @@ import {
   mired,
   miredShift,
   planckianXy,
+  planDuskSetup,
   solveBalance,
   xyToUv,
 } from '../src/index.js';
@@ -94,6 +95,80 @@ describe('balancing rules of thumb (common practice, no source)', () => {
   });
 });
 
+describe('white-balance fine-tune beyond what cameras offer', () => {
+  // Cameras typically offer about ±7 to ±9 amber-blue fine-tune steps of about 5 mireds each
+  // (from memory); the library warns past ±7. Mired = 1e6 / K [HB]; the arithmetic is [DER].
+  const codes = (r: { warnings: Array<{ code: string }> }) => r.warnings.map((w) => w.code);
+
+  it('3800 K camera, bare 5500 K flash (maxGels 0): 16 steps toward amber, warned, results unchanged', () => {
+    const r = solveBalance({ cameraKelvin: 3800, maxGels: 0 });
+    // [DER] 1e6/3800 − 1e6/5500 = 81.34 mireds short; 81.34 / 5 = 16.3 → 16 steps (+ = amber).
+    expect(r.residualMired).toBeCloseTo(-(1e6 / 3800 - 1e6 / 5500), 2);
+    expect(r.whiteBalanceFineTune.amberBlueSteps).toBe(16);
+    // [DER] the camera setting that cancels it is the bare flash's own 5500 K.
+    expect(r.whiteBalanceFineTune.cameraKelvin).toBe(5500);
+    expect(codes(r)).toEqual(['fine-tune-beyond-range']);
+    const msg = r.warnings[0]?.message ?? '';
+    expect(msg).toContain('16 fine-tune steps toward amber');
+    expect(msg).toContain('\u00b17');
+    expect(msg).toContain('maxGels 0'); // what to do: allow a gel ...
+    expect(msg).toContain('warming gel of about +81 mireds');
+    expect(msg).toContain('about 5500 K'); // ... or set the camera's Kelvin
+  });
+
+  it('20000 K camera, 2500 K flash: the best three-gel stack leaves −9 steps (blue), warned', () => {
+    const r = solveBalance({ cameraKelvin: 20000, flashKelvin: 2500 });
+    // [DER] the residual left by the stack, in steps of 5 mireds, rounded: 43 / 5 → 9 toward blue.
+    expect(r.whiteBalanceFineTune.amberBlueSteps).toBe(-Math.round(r.residualMired / 5));
+    expect(r.whiteBalanceFineTune.amberBlueSteps).toBe(-9);
+    expect(r.gels.every((g) => g.miredShift < 0)).toBe(true);
+    expect(codes(r)).toEqual(['fine-tune-beyond-range']);
+    expect(r.warnings[0]?.message).toContain('cooling gel');
+    expect(r.warnings[0]?.message).toContain('allow more gels');
+  });
+
+  it('at 7 steps either way nothing is said; at 8 the warning comes', () => {
+    // [DER] camera 5000 K = 200 mireds. A bare 6060 K flash is 165.02 mireds: 34.98 short → 7
+    // steps toward amber; 6250 K is 160 mireds: 40 short → 8 steps.
+    const seven = solveBalance({ cameraKelvin: 5000, flashKelvin: 6060, maxGels: 0 });
+    expect(seven.whiteBalanceFineTune.amberBlueSteps).toBe(7);
+    expect(seven.warnings).toEqual([]);
+    const eight = solveBalance({ cameraKelvin: 5000, flashKelvin: 6250, maxGels: 0 });
+    expect(eight.whiteBalanceFineTune.amberBlueSteps).toBe(8);
+    expect(codes(eight)).toEqual(['fine-tune-beyond-range']);
+    // Mirrored: camera 6060 K, flash 5000 K → 7 toward blue; camera 6250 K → 8 toward blue.
+    const blue7 = solveBalance({ cameraKelvin: 6060, flashKelvin: 5000, maxGels: 0 });
+    expect(blue7.whiteBalanceFineTune.amberBlueSteps).toBe(-7);
+    expect(blue7.warnings).toEqual([]);
+    const blue8 = solveBalance({ cameraKelvin: 6250, flashKelvin: 5000, maxGels: 0 });
+    expect(blue8.whiteBalanceFineTune.amberBlueSteps).toBe(-8);
+    expect(codes(blue8)).toEqual(['fine-tune-beyond-range']);
+    expect(blue8.warnings[0]?.message).toContain('toward blue');
+  });
+
+  it('with gels allowed the usual dusk balance stays inside the range, unwarned', () => {
+    // [DER] 3800 K camera, 5500 K flash: 1/4 + 1/8 CTO leave −5.34 mireds → 1 step.
+    const r = solveBalance({ cameraKelvin: 3800 });
+    expect(r.whiteBalanceFineTune.amberBlueSteps).toBe(1);
+    expect(r.warnings).toEqual([]);
+  });
+
+  it('the dusk setup plan carries the warning when no gel is allowed, not otherwise', () => {
+    const base = {
+      latitude: 51.5,
+      longitude: -0.12,
+      date: '2026-06-21',
+      timeZone: 'Europe/London',
+      camera: { kelvin: 3800 },
+      key: { guideNumber: 60, distance: 2.5 },
+    };
+    const bare = planDuskSetup({ ...base, maxGels: 0 });
+    expect(bare.whiteBalance.fineTune.amberBlueSteps).toBe(16);
+    expect(codes(bare)).toContain('fine-tune-beyond-range');
+    expect(codes(planDuskSetup(base))).not.toContain('fine-tune-beyond-range');
+  });
+});
+
 describe('solveBalance mechanics', () => {
   it('ties go to fewer gels, then less loss', () => {
     const kit = [
@@ -160,7 +235,10 @@ describe('solveBalance mechanics', () => {
       maxGels: 0,
     });
     expect(c.whiteBalanceFineTune.cameraKelvin).toBe(20000);
-    expect(c.warnings.map((w) => w.code)).toEqual(['fine-tune-limit']);
+    // 312.5 mireds is 62 steps of about 5, far past the usual range: warned about as well.
+    expect(c.warnings.map((w) => w.code)).toEqual(['fine-tune-limit', 'fine-tune-beyond-range']);
+    // The clamped camera cannot cancel it: only a gel is offered, not a Kelvin setting.
+    expect(c.warnings[1]?.message).not.toContain('set the camera');
   });
   it('camera tint asks for green on the flash', () => {
     const r = solveBalance({ cameraKelvin: 5500, cameraTint: 15 });

@@ -452,6 +452,8 @@ describe('computeTwilight vs astronomy-engine (≥30 places/dates)', () => {
         compared++;
       }
       if (out.sunset) expect(out.sunset.endsWith(c.evening)).toBe(true);
+      // Each place with its own zone (IANA rules, as in the case table): no zone warning.
+      expect(out.warnings).toEqual([]);
     });
   }
 

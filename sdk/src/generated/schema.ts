@@ -1455,7 +1455,7 @@ export interface components {
          */
         rendersAs: 'much warmer' | 'warmer' | 'neutral' | 'cooler' | 'much cooler';
       }[];
-      /** @description Things to look at: a stable code and a sentence for people. */
+      /** @description Things to look at: a stable code and a sentence for people. Codes: "fine-tune-limit" (the camera white balance that would cancel the residual is outside 1500–20000 K, so it is clamped); "fine-tune-beyond-range" (cancelling the residual takes more than ±7 amber/blue fine-tune steps; allow or add a gel, or set the camera’s kelvin instead). */
       warnings?: {
         /** @description Stable warning code. */
         code: string;
@@ -1464,7 +1464,7 @@ export interface components {
       }[];
       /** @description Camera white-balance change that cancels the residual on the subject. */
       whiteBalanceFineTune?: {
-        /** @description Steps on an amber(+)/blue(−) fine-tune axis, about 5 mireds each. */
+        /** @description Steps on an amber(+)/blue(−) fine-tune axis, about 5 mireds each. Cameras usually offer about ±7 to ±9; beyond ±7 a "fine-tune-beyond-range" warning says what to do instead. */
         amberBlueSteps: number;
         /** @description Camera white balance that would cancel it, kelvin. */
         cameraKelvin: number;
@@ -3131,7 +3131,7 @@ export interface components {
        */
       targetMiredOffset?: number;
       /**
-       * @description IANA time zone name.
+       * @description IANA time zone name, such as Europe/Zurich (any letter case); a UTC offset such as "+02:00" is refused. Answers spell it as the tz database does.
        * @example Europe/London
        */
       timeZone: string;
@@ -3505,7 +3505,7 @@ export interface components {
        */
       targetMiredOffset?: number;
       /**
-       * @description IANA time zone name.
+       * @description IANA time zone name, such as Europe/Zurich (any letter case); a UTC offset such as "+02:00" is refused. Answers spell it as the tz database does.
        * @example Europe/London
        */
       timeZone: string;
@@ -3829,12 +3829,19 @@ export interface components {
          */
         sunsetAzimuthDeg?: number | null;
         /**
-         * @description The IANA time zone.
+         * @description The IANA time zone, spelled as the tz database does.
          * @example Europe/London
          */
         timeZone?: string;
+        /** @description Things to look at: a stable code and a sentence for people. Codes: "time-zone-mismatch" (the zone’s UTC offset on the date is more than 3.5 h from the place’s solar time, longitude / 15 h: probably not the place’s zone). */
+        warnings: {
+          /** @description Stable warning code. */
+          code: string;
+          /** @description Explanation. */
+          message: string;
+        }[];
       };
-      /** @description Things to look at: a stable code and a sentence for people. */
+      /** @description Things to look at: a stable code and a sentence for people. Besides the plan’s own, these include the twilight’s ("time-zone-mismatch") and the balance’s ("fine-tune-limit", "fine-tune-beyond-range"). */
       warnings: {
         /** @description Stable warning code. */
         code: string;
@@ -3850,7 +3857,7 @@ export interface components {
         cameraKelvin: number;
         /** @description Camera white-balance change that cancels the residual on the subject. */
         fineTune: {
-          /** @description Steps on an amber(+)/blue(−) fine-tune axis, about 5 mireds each. */
+          /** @description Steps on an amber(+)/blue(−) fine-tune axis, about 5 mireds each. Cameras usually offer about ±7 to ±9; beyond ±7 a "fine-tune-beyond-range" warning says what to do instead. */
           amberBlueSteps: number;
           /** @description Camera white balance that would cancel it, kelvin. */
           cameraKelvin: number;
@@ -3979,7 +3986,7 @@ export interface components {
        */
       stepMinutes?: number;
       /**
-       * @description IANA time zone name.
+       * @description IANA time zone name, such as Europe/Zurich (any letter case); a UTC offset such as "+02:00" is refused. Answers spell it as the tz database does.
        * @example Europe/London
        */
       timeZone: string;
@@ -4148,10 +4155,17 @@ export interface components {
        */
       sunsetAzimuthDeg?: number | null;
       /**
-       * @description The IANA time zone.
+       * @description The IANA time zone, spelled as the tz database does.
        * @example Europe/London
        */
       timeZone?: string;
+      /** @description Things to look at: a stable code and a sentence for people. Codes: "time-zone-mismatch" (the zone’s UTC offset on the date is more than 3.5 h from the place’s solar time, longitude / 15 h: probably not the place’s zone). */
+      warnings: {
+        /** @description Stable warning code. */
+        code: string;
+        /** @description Explanation. */
+        message: string;
+      }[];
     };
     UpcomingSetupsResponseDto: {
       /** @description Soonest first: setups whose shooting window has not ended yet. */

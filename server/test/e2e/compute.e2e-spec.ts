@@ -185,6 +185,78 @@ describe('compute API', () => {
     expect(res.body.errors.map((e: { field: string }) => e.field)).toContain(field);
   });
 
+  it('twilight: a UTC offset for timeZone → 422 problem asking for an IANA name with an example', async () => {
+    const res = await post(t.url, 'twilight', org.live.secret, {
+      latitude: 47.37,
+      longitude: 8.54,
+      date: '2026-06-21',
+      timeZone: '+02:00',
+    });
+    expect(res.status).toBe(422);
+    expect(res.headers['content-type']).toMatch(/problem\+json/);
+    expect(res.body.errors[0].field).toBe('timeZone');
+    expect(res.body.errors[0].reason).toContain('IANA time zone name such as Europe/Zurich');
+  });
+
+  it('twilight and setup answer a mis-cased zone with its tz-database spelling', async () => {
+    // IANA tz database via Intl: resolvedOptions() spells "europe/zurich" as Europe/Zurich.
+    const place = { latitude: 47.37, longitude: 8.54, date: '2026-06-21' };
+    const tw = await post(t.url, 'twilight', org.live.secret, {
+      ...place,
+      timeZone: 'europe/zurich',
+    }).expect(200);
+    expect(tw.body.timeZone).toBe('Europe/Zurich');
+    expect(tw.body.warnings).toEqual([]);
+    const setup = await post(t.url, 'setup', org.live.secret, {
+      ...place,
+      timeZone: 'europe/zurich',
+      key: { guideNumber: 60, distance: 2.5 },
+    }).expect(200);
+    expect(setup.body.twilight.timeZone).toBe('Europe/Zurich');
+  });
+
+  it('warns when the zone is far from the place’s solar time (Alps on Pacific-coast time)', async () => {
+    // IANA via Intl: America/Los_Angeles is UTC-7 on 2026-06-21; 8° E keeps solar UTC+0.53 h
+    // ([DER] 15° per hour): 7.5 h apart, over the 3.5 h threshold.
+    const place = {
+      latitude: 47,
+      longitude: 8,
+      date: '2026-06-21',
+      timeZone: 'America/Los_Angeles',
+    };
+    const tw = await post(t.url, 'twilight', org.live.secret, place).expect(200);
+    expect(tw.body.warnings.map((w: { code: string }) => w.code)).toEqual(['time-zone-mismatch']);
+    expect(compileSchema(schemas.RESPONSE_SCHEMAS.twilight!)(tw.body)).toEqual([]);
+    const setup = await post(t.url, 'setup', org.live.secret, {
+      ...place,
+      key: { guideNumber: 60, distance: 2.5 },
+    }).expect(200);
+    expect(setup.body.warnings.map((w: { code: string }) => w.code)).toContain(
+      'time-zone-mismatch',
+    );
+  });
+
+  it('balance: fine-tune past the usual ±7 steps is warned about, the numbers unchanged', async () => {
+    // Mired = 1e6 / K [HB]: a bare 5500 K flash under a 3800 K camera is 81.34 mireds short,
+    // 16 steps of about 5 toward amber ([DER]); cameras offer about ±7 to ±9 (from memory).
+    const bare = await post(t.url, 'balance', org.test.secret, {
+      cameraKelvin: 3800,
+      maxGels: 0,
+    }).expect(200);
+    expect(bare.body.whiteBalanceFineTune.amberBlueSteps).toBe(16);
+    expect(bare.body.whiteBalanceFineTune.cameraKelvin).toBe(5500);
+    expect(bare.body.warnings.map((w: { code: string }) => w.code)).toEqual([
+      'fine-tune-beyond-range',
+    ]);
+    expect(compileSchema(schemas.RESPONSE_SCHEMAS.balance!)(bare.body)).toEqual([]);
+    // With gels (default 3): 1/4 + 1/8 CTO leave −5.34 mireds, 1 step ([DER]): no warning.
+    const gelled = await post(t.url, 'balance', org.test.secret, { cameraKelvin: 3800 }).expect(
+      200,
+    );
+    expect(gelled.body.whiteBalanceFineTune.amberBlueSteps).toBe(1);
+    expect(gelled.body.warnings).toEqual([]);
+  });
+
   it('answers broken JSON with 400 and a body over 100 kB with 413, both problem+json', async () => {
     const broken = await request(t.url)
       .post('/v1/flash')

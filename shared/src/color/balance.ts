@@ -3,7 +3,7 @@ import { bestStack, type SearchGel } from './gel-search.js';
 import { LightingInputError } from '../errors.js';
 import { applyMiredShift, kelvinFromMired, mired } from './mired.js';
 import { duskScene, type SceneSwatch } from './scene.js';
-import { round } from '../units/math.js';
+import { countOf, round } from '../units/math.js';
 import {
   optionalNumber,
   requireArray,
@@ -16,12 +16,20 @@ import {
 export const WB_FINE_TUNE_STEP_MIRED = 5;
 
 /**
+ * Amber-blue fine-tune steps a camera usually offers each way. From memory: cameras typically
+ * give about ±7 to ±9 steps; the lower end is used so the warning holds for most bodies.
+ */
+export const WB_FINE_TUNE_USUAL_STEPS = 7;
+
+/**
  * Colour temperatures the balance works in, kelvin: the camera white-balance range it accepts.
  * Gelled light and fine-tuned white balance stay inside it (mireds run out at 0 = infinite K).
  */
 export const KELVIN_RANGE = { min: 1500, max: 20000 } as const;
 const MIRED_LO = mired(KELVIN_RANGE.max);
 const MIRED_HI = mired(KELVIN_RANGE.min);
+/** Most gels a stack may hold (the `maxGels` ceiling). */
+const MAX_GELS = 4;
 
 export interface BalanceInput {
   /** Camera white balance, kelvin, 1500..20000. */
@@ -78,7 +86,11 @@ export interface BalanceResult {
   flashKelvin: number;
   resultingFlashKelvin: number;
   scene: SceneSwatch[];
-  /** `fine-tune-limit`: the camera white balance needed to cancel the residual is out of range. */
+  /**
+   * `fine-tune-limit`: the camera white balance needed to cancel the residual is out of range.
+   * `fine-tune-beyond-range`: cancelling it takes more amber-blue steps than cameras usually offer
+   * ({@link WB_FINE_TUNE_USUAL_STEPS} each way); the message says what to do instead.
+   */
   warnings: Array<{ code: string; message: string }>;
 }
 
@@ -98,6 +110,35 @@ function readKit(value: unknown): Gel[] {
   });
 }
 
+/** Fine-tune past the usual ±{@link WB_FINE_TUNE_USUAL_STEPS} steps: say so, and what to do. */
+function fineTuneRangeWarning(
+  steps: number,
+  residual: number,
+  maxGels: number,
+  fineTuneKelvin: number,
+  clamped: boolean,
+): { code: string; message: string } {
+  const kind = residual < 0 ? 'warming' : 'cooling';
+  const more = `${residual < 0 ? '+' : '\u2212'}${round(Math.abs(residual), 0)}`;
+  const gel =
+    maxGels === 0
+      ? `No gels were allowed (maxGels 0): allow one, a ${kind} gel of about ${more} mireds`
+      : `The best stack of at most ${countOf(maxGels, 'gel')} leaves it: add a ${kind} gel of about ` +
+        `${more} mireds to the kit${maxGels < MAX_GELS ? ' or allow more gels (maxGels)' : ''}`;
+  const camera = clamped
+    ? ''
+    : `, or set the camera's white balance to about ${Math.round(fineTuneKelvin)} K instead ` +
+      `(the background shifts with it)`;
+  return {
+    code: 'fine-tune-beyond-range',
+    message:
+      `Cancelling the ${round(residual, 1)} mired residual takes ` +
+      `${countOf(Math.abs(steps), 'fine-tune step')} toward ${steps > 0 ? 'amber' : 'blue'} ` +
+      `(${steps > 0 ? '+' : '\u2212'}${Math.abs(steps)}); ` +
+      `cameras usually offer about \u00b1${WB_FINE_TUNE_USUAL_STEPS} (some \u00b19). ${gel}${camera}.`,
+  };
+}
+
 /**
  * Gel the flash so the subject renders as intended under the camera's white balance.
  * Required shift = mired(camera) - mired(flash) + targetMiredOffset. Best stack of at most
@@ -114,7 +155,7 @@ export function solveBalance(input: BalanceInput): BalanceResult {
     max: 200,
   });
   const kit = readKit(o.gels);
-  const maxGels = optionalNumber('maxGels', o.maxGels, 3, { min: 0, max: 4, integer: true });
+  const maxGels = optionalNumber('maxGels', o.maxGels, 3, { min: 0, max: MAX_GELS, integer: true });
   const tolerance = optionalNumber('miredTolerance', o.miredTolerance, 0, { min: 0, max: 50 });
   // The subject should render like light of mired(camera) + offset: that light must exist.
   const target = mired(camera) + offset;
@@ -139,7 +180,8 @@ export function solveBalance(input: BalanceInput): BalanceResult {
   const warnings: BalanceResult['warnings'] = [];
   const fineTuneMired = mired(camera) + residual;
   const clampedMired = Math.min(MIRED_HI, Math.max(MIRED_LO, fineTuneMired));
-  if (Math.abs(clampedMired - fineTuneMired) > 1e-9) {
+  const clamped = Math.abs(clampedMired - fineTuneMired) > 1e-9;
+  if (clamped) {
     warnings.push({
       code: 'fine-tune-limit',
       message:
@@ -151,6 +193,10 @@ export function solveBalance(input: BalanceInput): BalanceResult {
   }
   const fineTuneKelvin = kelvinFromMired(clampedMired);
   const resultingKelvin = applyMiredShift(flash, achieved);
+  const steps = -Math.round(residual / WB_FINE_TUNE_STEP_MIRED) || 0;
+  if (Math.abs(steps) > WB_FINE_TUNE_USUAL_STEPS) {
+    warnings.push(fineTuneRangeWarning(steps, residual, maxGels, fineTuneKelvin, clamped));
+  }
   return {
     requiredMiredShift: round(required, 2),
     achievedMiredShift: round(achieved, 2),
@@ -169,7 +215,7 @@ export function solveBalance(input: BalanceInput): BalanceResult {
     whiteBalanceFineTune: {
       miredShift: round(residual, 2),
       cameraKelvin: Math.round(fineTuneKelvin),
-      amberBlueSteps: -Math.round(residual / WB_FINE_TUNE_STEP_MIRED) || 0,
+      amberBlueSteps: steps,
       tintCC: round(green - tint, 2),
     },
     flashKelvin: flash,

@@ -303,7 +303,8 @@ function planWarnings(
   backlight: BacklightResult | null,
   tooDark: number,
 ) {
-  const out: Array<{ code: string; message: string }> = [];
+  // The twilight's own warnings (a zone far from the place's solar time) come first.
+  const out: Array<{ code: string; message: string }> = [...tw.warnings];
   if (!tw.sunset)
     out.push({ code: 'no-sunset', message: `No sunset on this date (${tw.reasons.sunset}).` });
   if (tooDark > 0) {

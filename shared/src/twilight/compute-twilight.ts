@@ -4,7 +4,14 @@ import { findCrossing, geometricAltitudeDeg, sunAzimuthDeg } from './sun-positio
 import { ambientTimeline, type AmbientPoint } from './timeline.js';
 import { LightingInputError } from '../errors.js';
 import { round } from '../units/math.js';
-import { localToEpoch, requireDate, requireTimeZone, toLocalIso } from '../units/time-zone.js';
+import {
+  clockOf,
+  localToEpoch,
+  offsetMinutes,
+  requireDate,
+  requireTimeZone,
+  toLocalIso,
+} from '../units/time-zone.js';
 import { optionalNumber, requireNumber, requireObject, requireOneOf } from '../units/validate.js';
 
 /** Sun-altitude bounds of a window, degrees of geometric altitude (upper > lower). */
@@ -72,6 +79,12 @@ export interface TwilightResult {
   reasons: Record<string, MissingReason>;
   /** Notes, e.g. an event that falls after local midnight. */
   notes: string[];
+  /**
+   * Things to check, as a stable code and a sentence. `time-zone-mismatch`: the zone's UTC offset
+   * on the date is more than {@link ZONE_SOLAR_MISMATCH_HOURS} h from the place's solar time
+   * (longitude / 15 h), so the zone is probably not the place's.
+   */
+  warnings: Array<{ code: string; message: string }>;
   ambient: {
     sky: SkyCondition;
     model: 'USNO Circular 171';
@@ -80,6 +93,15 @@ export interface TwilightResult {
     points: AmbientPoint[];
   };
 }
+
+/**
+ * How far (hours) a zone's UTC offset may sit from the place's mean solar time before the answer
+ * warns. Real zones run up to about 3 h from it (offsets from the IANA tz database via Intl;
+ * places' longitudes from memory): all of China keeps UTC+8 (Kashgar, 76° E, is 2.9 h ahead of
+ * the sun), Spain and western Argentina 1.5-2.5 h, Alaska's Bering Sea coast on summer time
+ * 3-3.5 h. The margin above that is a judgement (common practice, no source).
+ */
+export const ZONE_SOLAR_MISMATCH_HOURS = 3.5;
 
 const DEFAULT_GOLDEN: AltitudeBand = { upperDeg: 6, lowerDeg: -4 };
 const DEFAULT_BLUE: AltitudeBand = { upperDeg: -4, lowerDeg: -8 };
@@ -129,6 +151,39 @@ export function readTwilightInput(input: unknown): TwilightParams {
     stepMinutes: optionalNumber('stepMinutes', o.stepMinutes, 2, { min: 0.5, max: 60 }),
     sky: requireOneOf('sky', o.sky, SKY_CONDITIONS, 'clear'),
     localNoonMs: localToEpoch(cal, 12, timeZone),
+  };
+}
+
+const signedHours = (minutes: number): string => {
+  const abs = Math.abs(Math.round(minutes));
+  const hh = String(Math.floor(abs / 60)).padStart(2, '0');
+  return `UTC${minutes < 0 ? '\u2212' : '+'}${hh}:${String(abs % 60).padStart(2, '0')}`;
+};
+
+/**
+ * Warn when the zone's UTC offset on the date is far from the place's mean solar time,
+ * longitude / 15 h: a zone picked for another place (Alps coordinates with a Pacific zone) puts
+ * noon in the small hours and sunrise on the previous day. The difference is taken round the
+ * clock (±12 h), since a whole day's difference only moves the date: Kiribati's Line Islands keep
+ * UTC+14 at 157° W, on the sun's time of day but a day ahead of their neighbours.
+ */
+export function zoneMismatchWarning(
+  p: TwilightParams,
+  noonMs: number,
+): { code: string; message: string } | null {
+  const zoneMin = offsetMinutes(p.localNoonMs, p.timeZone);
+  const solarMin = p.longitude * 4;
+  const diff = ((((zoneMin - solarMin + 720) % 1440) + 1440) % 1440) - 720;
+  if (Math.abs(diff) <= ZONE_SOLAR_MISMATCH_HOURS * 60) return null;
+  const lon = `${round(Math.abs(p.longitude), 2)}\u00b0 ${p.longitude < 0 ? 'W' : 'E'}`;
+  return {
+    code: 'time-zone-mismatch',
+    message:
+      `${p.timeZone} is ${signedHours(zoneMin)} on ${p.date}, ${round(Math.abs(diff) / 60, 1)} h ` +
+      `${diff > 0 ? 'ahead of' : 'behind'} the sun's time at longitude ${lon} (about ` +
+      `${signedHours(solarMin)}): on that clock solar noon comes at ` +
+      `${clockOf(toLocalIso(noonMs, p.timeZone))} and events may fall on another day. ` +
+      `Check that the time zone is the place's.`,
   };
 }
 
@@ -238,6 +293,7 @@ export function computeTwilight(input: TwilightInput): TwilightResult {
       sunset === null ? null : round(sunAzimuthDeg(sunset, p.latitude, p.longitude), 2),
     reasons,
     notes,
+    warnings: [zoneMismatchWarning(p, noonMs)].filter((w) => w !== null),
     ambient: {
       sky: p.sky,
       model: 'USNO Circular 171',

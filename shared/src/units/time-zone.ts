@@ -1,37 +1,79 @@
 import { LightingInputError } from '../errors.js';
 
 const MS_PER_MINUTE = 60_000;
+/** Cache size cap: names come from callers, so an unbounded map could be grown at will. */
+const CACHE_LIMIT = 1024;
 const formatters = new Map<string, Intl.DateTimeFormat>();
+const canonicalNames = new Map<string, string>();
+
+function newFormatter(timeZone: string): Intl.DateTimeFormat {
+  return new Intl.DateTimeFormat('en-US', {
+    timeZone,
+    hourCycle: 'h23',
+    year: 'numeric',
+    month: 'numeric',
+    day: 'numeric',
+    hour: 'numeric',
+    minute: 'numeric',
+    second: 'numeric',
+  });
+}
 
 function formatterFor(timeZone: string): Intl.DateTimeFormat {
   let f = formatters.get(timeZone);
   if (!f) {
-    f = new Intl.DateTimeFormat('en-US', {
-      timeZone,
-      hourCycle: 'h23',
-      year: 'numeric',
-      month: 'numeric',
-      day: 'numeric',
-      hour: 'numeric',
-      minute: 'numeric',
-      second: 'numeric',
-    });
-    formatters.set(timeZone, f);
+    f = newFormatter(timeZone);
+    if (formatters.size < CACHE_LIMIT) formatters.set(timeZone, f);
   }
   return f;
 }
 
-/** Validate an IANA time-zone name (e.g. `Europe/London`, `Asia/Kathmandu`) via Intl. */
+/** The example zone name refusals give. */
+export const TIME_ZONE_EXAMPLE = 'Europe/Zurich';
+const NEEDS_IANA = `must be an IANA time zone name such as ${TIME_ZONE_EXAMPLE}`;
+/** "+02:00", "-0530", "UTC+2", "GMT-03:00": a fixed offset, not a zone (no daylight saving). */
+const OFFSET_LIKE = /^(?:UTC|GMT|Z)?\s*[+\-\u2212]\s*\d{1,2}(?::?\d{2})?$/i;
+/** Each part of a name spelled the IANA way starts with a capital then a small letter. */
+const IANA_CASED = /^[A-Z][a-z][^/]*(?:\/[A-Z][a-z][^/]*)*$/;
+
+/**
+ * The name to answer with for a zone the runtime accepts. Intl matches names without regard to
+ * case and reports its canonical spelling (`europe/zurich` → `Europe/Zurich`). For some IANA
+ * names ICU's canonical ID is an older link (on Node 20 `Asia/Kolkata` → `Asia/Calcutta`,
+ * `Europe/Kyiv` → `Europe/Kiev`): a name the caller spelled the IANA way is then kept as sent,
+ * and only a mis-cased one (no capitals, say) takes Intl's spelling.
+ */
+function canonicalName(value: string, resolved: string): string {
+  if (resolved.toLowerCase() === value.toLowerCase()) return resolved;
+  return IANA_CASED.test(value) ? value : resolved;
+}
+
+/**
+ * Validate an IANA time-zone name (e.g. `Europe/London`, `Asia/Kathmandu`) via Intl and return
+ * its canonical spelling (see {@link canonicalName}). Fixed UTC offsets (`+02:00`) are refused:
+ * a zone name follows the place's daylight-saving changes, an offset does not.
+ */
 export function requireTimeZone(field: string, value: unknown): string {
   if (typeof value !== 'string' || value.length === 0 || value.length > 64) {
-    throw new LightingInputError(field, 'must be an IANA time zone name');
+    throw new LightingInputError(field, NEEDS_IANA);
   }
+  const known = canonicalNames.get(value);
+  if (known !== undefined) return known;
+  if (OFFSET_LIKE.test(value.trim())) {
+    throw new LightingInputError(
+      field,
+      `is a UTC offset ("${value}"); it ${NEEDS_IANA}, which follows the place's daylight-saving changes`,
+    );
+  }
+  let resolved: string;
   try {
-    formatterFor(value);
+    resolved = newFormatter(value).resolvedOptions().timeZone;
   } catch {
-    throw new LightingInputError(field, `unknown time zone "${value}"`);
+    throw new LightingInputError(field, `"${value}" is not a known time zone; it ${NEEDS_IANA}`);
   }
-  return value;
+  const name = canonicalName(value, resolved);
+  if (canonicalNames.size < CACHE_LIMIT) canonicalNames.set(value, name);
+  return name;
 }
 
 /**

@@ -1,6 +1,7 @@
+import { WB_FINE_TUNE_USUAL_STEPS } from '@lumenwright/shared';
 import type { JsonSchema } from '../validation/json-schema.js';
 import { schemaDto, type ObjectSchema } from '../validation/schema-dto.js';
-import { outNum, ranged, rangedInt, str, WARNINGS } from './common.js';
+import { outNum, ranged, rangedInt, str, warningsWith } from './common.js';
 
 export const balanceRequestSchema: ObjectSchema = {
   type: 'object',
@@ -78,10 +79,22 @@ export const WB_FINE_TUNE: JsonSchema = {
   properties: {
     miredShift: outNum('Mireds.'),
     cameraKelvin: outNum('Camera white balance that would cancel it, kelvin.'),
-    amberBlueSteps: outNum('Steps on an amber(+)/blue(−) fine-tune axis, about 5 mireds each.'),
+    amberBlueSteps: outNum(
+      'Steps on an amber(+)/blue(−) fine-tune axis, about 5 mireds each. Cameras usually offer ' +
+        `about ±${WB_FINE_TUNE_USUAL_STEPS} to ±9; beyond ±${WB_FINE_TUNE_USUAL_STEPS} a ` +
+        '"fine-tune-beyond-range" warning says what to do instead.',
+    ),
     tintCC: outNum('Camera tint change, CC units.'),
   },
 };
+
+/** The balance's warnings (the setup plan's list includes them). */
+const BALANCE_WARNINGS: JsonSchema = warningsWith({
+  'fine-tune-limit':
+    'the camera white balance that would cancel the residual is outside 1500–20000 K, so it is ' +
+    'clamped',
+  'fine-tune-beyond-range': `cancelling the residual takes more than ±${WB_FINE_TUNE_USUAL_STEPS} amber/blue fine-tune steps; allow or add a gel, or set the camera’s kelvin instead`,
+});
 
 /** How one light source in the scene renders at the camera white balance. */
 export const SCENE_SWATCH: JsonSchema = {
@@ -120,7 +133,7 @@ export const balanceResponseSchema: ObjectSchema = {
       description: 'How light sources in the scene render at this white balance.',
       items: SCENE_SWATCH,
     },
-    warnings: WARNINGS,
+    warnings: BALANCE_WARNINGS,
   },
 };
 

@@ -103,6 +103,14 @@ export const WARNINGS: JsonSchema = {
   },
 };
 
+/** {@link WARNINGS} with the codes an answer can carry, each with what it means. */
+export const warningsWith = (codes: Record<string, string>): JsonSchema => ({
+  ...WARNINGS,
+  description: `${WARNINGS.description} Codes: ${Object.entries(codes)
+    .map(([code, meaning]) => `"${code}" (${meaning})`)
+    .join('; ')}.`,
+});
+
 export const object = (
   description: string,
   properties: Record<string, JsonSchema>,

@@ -65,6 +65,8 @@ const EDGE_CASES: Record<string, Record<string, unknown>[]> = {
     { ...PLACE, date: '2026-12-21', elevation: 40, sky: 'overcast', stepMinutes: 5 },
     { ...NORTH, date: '2026-06-21' }, // midnight sun: no sunset
     { ...NORTH, date: '2026-12-21' }, // polar night: no sunrise
+    // A zone far from the place's solar time: the twilight's warnings list is not empty.
+    { latitude: 47, longitude: 8, date: '2026-06-21', timeZone: 'America/Los_Angeles' },
   ],
   exposure: [
     { ev100: 12, shutterSeconds: 0.004, iso: 100 },
@@ -96,6 +98,8 @@ const EDGE_CASES: Record<string, Record<string, unknown>[]> = {
       maxGels: 2,
       targetMiredOffset: 10,
     },
+    // No gels allowed: 16 fine-tune steps, past the usual range (a warning).
+    { cameraKelvin: 3800, maxGels: 0 },
   ],
   setup: [
     {

@@ -296,7 +296,12 @@ export const setupResponseSchema: ObjectSchema = {
         text: str('What to do.'),
       }),
     },
-    warnings: WARNINGS,
+    warnings: {
+      ...WARNINGS,
+      description:
+        `${WARNINGS.description} Besides the plan’s own, these include the twilight’s ` +
+        '("time-zone-mismatch") and the balance’s ("fine-tune-limit", "fine-tune-beyond-range").',
+    },
   },
 };
 

@@ -1,7 +1,7 @@
-import { MISSING_REASONS } from '@lumenwright/shared';
+import { MISSING_REASONS, ZONE_SOLAR_MISMATCH_HOURS } from '@lumenwright/shared';
 import type { JsonSchema } from '../validation/json-schema.js';
 import { schemaDto, type ObjectSchema } from '../validation/schema-dto.js';
-import { object, outNum, ranged, str } from './common.js';
+import { object, outNum, ranged, str, warningsWith } from './common.js';
 
 const band = (description: string): JsonSchema => ({
   type: 'object',
@@ -23,7 +23,12 @@ export const twilightRequestSchema: ObjectSchema = {
     latitude: ranged('Degrees, north positive.', -90, 90, 51.507),
     longitude: ranged('Degrees, east positive.', -180, 180, -0.1),
     date: str('Local calendar date, YYYY-MM-DD (1900..2100).', '2026-06-20', { format: 'date' }),
-    timeZone: str('IANA time zone name.', 'Europe/London', { minLength: 1, maxLength: 64 }),
+    timeZone: str(
+      'IANA time zone name, such as Europe/Zurich (any letter case); a UTC offset such as ' +
+        '"+02:00" is refused. Answers spell it as the tz database does.',
+      'Europe/London',
+      { minLength: 1, maxLength: 64 },
+    ),
     elevation: ranged('Observer height above the visible horizon, metres.', 0, 9000, 0),
     goldenHour: band('Golden-hour band; default +6° to −4° (common practice, no standard).'),
     blueHour: band('Blue-hour band; default −4° to −8° (common practice, no standard).'),
@@ -61,11 +66,12 @@ export const twilightResponseSchema: ObjectSchema = {
     'goldenHour',
     'blueHour',
     'reasons',
+    'warnings',
     'ambient',
   ],
   properties: {
     date: str('The local date.', '2026-06-20'),
-    timeZone: str('The IANA time zone.', 'Europe/London'),
+    timeZone: str('The IANA time zone, spelled as the tz database does.', 'Europe/London'),
     sunrise: instant('Sunrise.', '2026-06-20T04:43:00+01:00'),
     sunset: instant('Sunset.', '2026-06-20T21:21:00+01:00'),
     civilDawn: instant('Civil dawn (sun 6° below the horizon).', '2026-06-20T03:57:00+01:00'),
@@ -98,6 +104,11 @@ export const twilightResponseSchema: ObjectSchema = {
       description: 'Notes, e.g. an event after local midnight.',
       items: { type: 'string' },
     },
+    warnings: warningsWith({
+      'time-zone-mismatch':
+        `the zone’s UTC offset on the date is more than ${ZONE_SOLAR_MISMATCH_HOURS} h from the ` +
+        'place’s solar time, longitude / 15 h: probably not the place’s zone',
+    }),
     ambient: object('Modelled ambient light through the evening (USNO Circular 171 model).', {
       sky: str('Sky condition used.', 'clear'),
       model: str('Model name.', 'USNO Circular 171'),
