@@ -86,7 +86,7 @@ export async function createApp(
     origin: config.corsOrigins.length ? config.corsOrigins : false,
     credentials: false,
     methods: ['GET', 'POST', 'PUT', 'PATCH', 'DELETE'],
-    allowedHeaders: ['Authorization', 'Content-Type', 'X-Request-Id', 'Idempotency-Key'],
+    allowedHeaders: ['Authorization', 'Content-Type', 'X-Request-Id'],
     exposedHeaders: ['X-Request-Id', 'RateLimit', 'RateLimit-Policy', 'Retry-After'],
     maxAge: 600,
   });
