@@ -4,11 +4,8 @@
 // GearReferenceResolver turns the ids into values before the math runs.
 import { balanceRequestSchema } from '../compute/schemas/balance.schema.js';
 import { setupRequestSchema } from '../compute/schemas/setup.schema.js';
-import type { JsonSchema } from '../compute/validation/json-schema.js';
+import { UUID_PATTERN, type JsonSchema } from '../compute/validation/json-schema.js';
 import type { ObjectSchema } from '../compute/validation/schema-dto.js';
-
-const UUID_PATTERN =
-  '^[0-9a-fA-F]{8}-[0-9a-fA-F]{4}-[0-9a-fA-F]{4}-[0-9a-fA-F]{4}-[0-9a-fA-F]{12}$';
 
 const ref = (description: string): JsonSchema => ({
   type: 'string',
