@@ -1,8 +1,9 @@
 #!/usr/bin/env node
 // `npm run bench`: POST /v1/balance on a production server (authentication, limits and metering on)
 // against a bare node:http baseline doing the same computation, measured with autocannon on
-// loopback; a plain-Fastify baseline (same computation) shows how much of the gap is the HTTP
-// framework's floor. Last line:
+// loopback; plain-Fastify and plain-NestJS baselines (same computation) show how much of the gap
+// is the frameworks' floor. Each server's CPU time per call is read from /proc, which a busy
+// machine disturbs less than req/s. Last line:
 // `bench: <r> req/s, p99 <ms> ms, <ratio> of bare node, <n> usage events lost`.
 import { fork } from 'node:child_process';
 import fs from 'node:fs';
@@ -39,6 +40,28 @@ async function api(base, method, p, body, headers = {}) {
   return { res, json: text ? JSON.parse(text) : null };
 }
 
+/** CPU seconds (user + system) a process has used so far, from /proc/<pid>/stat; null elsewhere. */
+function cpuSeconds(pid) {
+  try {
+    const fields = fs.readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
+    return (Number(fields[11]) + Number(fields[12])) / 100; // utime, stime in USER_HZ ticks
+  } catch {
+    return null;
+  }
+}
+
+/** One measured slice: autocannon's result plus the server's CPU µs per answered call. */
+async function measure(target, keys, duration) {
+  const before = cpuSeconds(target.pid);
+  const result = await cannon(target.url, keys, duration);
+  const after = cpuSeconds(target.pid);
+  result.cpuMicros =
+    before === null || after === null || result.requests.total === 0
+      ? null
+      : ((after - before) * 1e6) / result.requests.total;
+  return result;
+}
+
 async function cannon(url, keys, duration = DURATION) {
   const { default: autocannon } = await import('autocannon');
   let i = 0;
@@ -69,7 +92,10 @@ async function cannon(url, keys, duration = DURATION) {
   });
 }
 
-/** Rounds of one server, combined: req/s over all rounds, median p50, worst round's p99. */
+/**
+ * Rounds of one server, combined: req/s over all rounds, median p50, worst round's p99, median
+ * CPU µs per call.
+ */
 function summary(name, rounds) {
   const seconds = rounds.reduce((a, r) => a + r.duration, 0);
   const rps = rounds.reduce((a, r) => a + r.requests.total, 0) / seconds;
@@ -80,10 +106,16 @@ function summary(name, rounds) {
   const p50 = p50s[Math.floor(p50s.length / 2)];
   const p99 = Math.max(...rounds.map((r) => r.latency.p99));
   const perRound = rounds.map((r) => r.requests.average.toFixed(0)).join(' / ');
+  const cpus = rounds
+    .map((r) => r.cpuMicros)
+    .filter((c) => c !== null)
+    .sort((a, b) => a - b);
+  const cpuMicros = cpus.length ? cpus[Math.floor(cpus.length / 2)] : null;
+  const cpuText = cpuMicros === null ? 'n/a' : cpuMicros.toFixed(1);
   console.log(
-    `${name.padEnd(22)} ${rps.toFixed(0).padStart(7)} req/s  p50 ${String(p50).padStart(4)} ms  p99 ${String(p99).padStart(4)} ms  2xx ${ok}  non-2xx ${non2xx}  errors ${errors}  (rounds: ${perRound} req/s)`,
+    `${name.padEnd(22)} ${rps.toFixed(0).padStart(7)} req/s  p50 ${String(p50).padStart(4)} ms  p99 ${String(p99).padStart(4)} ms  CPU ${cpuText.padStart(6)} µs/call  2xx ${ok}  non-2xx ${non2xx}  errors ${errors}  (rounds: ${perRound} req/s)`,
   );
-  return { rps, p50, p99, ok, non2xx, rounds: rounds.map((r) => r.requests.average) };
+  return { rps, p50, p99, cpuMicros, ok, non2xx, rounds: rounds.map((r) => r.requests.average) };
 }
 
 async function main() {
@@ -108,7 +140,7 @@ async function main() {
     SIGNUPS_PER_IP_PER_HOUR: '1000000', // every test signs up from 127.0.0.1
   };
   await must('node', ['server/dist/bin/migrate.js'], { cwd: root, env });
-  service(
+  const server = service(
     'server',
     'node',
     [...(process.env.BENCH_NODE_ARGS ?? '').split(' ').filter(Boolean), 'server/dist/main.js'],
@@ -155,29 +187,32 @@ async function main() {
         ),
     );
     const { port: p } = await new Promise((r) => child.once('message', r));
-    return `http://127.0.0.1:${p}`;
+    return { url: `http://127.0.0.1:${p}`, pid: child.pid };
   };
-  const bareUrl = await baseline('bare.mjs');
-  const fastifyUrl = await baseline('fastify.mjs');
+  const ours = { url: base, pid: server.pid };
+  const bare = await baseline('bare.mjs');
+  const plainFastify = await baseline('fastify.mjs');
+  const plainNest = await baseline('nest.mjs');
 
   console.log(
     `\n${os.cpus().length} cores (${os.cpus()[0]?.model ?? 'unknown'}), Node ${process.version}, ${CONNECTIONS} connections, ${DURATION} s each in ${ROUNDS} rounds taken in turn\n`,
   );
   const warm = await cannon(base, keys); // warm-up: not in the figures, but its usage rows count
-  await cannon(bareUrl, keys, Math.min(DURATION, 3)); // the baselines get a short warm-up too
-  await cannon(fastifyUrl, keys, Math.min(DURATION, 3));
-  const targets = [base, bareUrl, fastifyUrl];
+  const targets = [ours, bare, plainFastify, plainNest];
+  // the baselines get a short warm-up too
+  for (const t of targets.slice(1)) await cannon(t.url, keys, Math.min(DURATION, 3));
   const results = targets.map(() => []);
   const slice = Math.max(1, Math.round(DURATION / ROUNDS));
   for (let round = 0; round < ROUNDS; round++) {
     for (let k = 0; k < targets.length; k++) {
       const t = (round + k) % targets.length; // rotate who goes first
-      results[t].push(await cannon(targets[t], keys, slice));
+      results[t].push(await measure(targets[t], keys, slice));
     }
   }
   const lw = summary('Lumenwright /v1/balance', results[0]);
   const bareR = summary('bare node:http', results[1]);
   const fastifyR = summary('plain Fastify', results[2]);
+  const nestR = summary('plain NestJS (Fastify)', results[3]);
 
   // Metering is batched: give the writer time to flush, then compare rows with 2xx answers.
   await new Promise((r) => setTimeout(r, 2000));
@@ -203,7 +238,9 @@ async function main() {
     bare: bareR,
     fastify: fastifyR,
     ratio,
+    nest: nestR,
     fastifyRatio: fastifyR.rps / bareR.rps,
+    nestRatio: nestR.rps / bareR.rps,
     usageRows: rows,
     answered,
     lost,
@@ -212,9 +249,13 @@ async function main() {
     fs.writeFileSync(process.env.BENCH_OUTPUT, JSON.stringify(result, null, 2));
   // Speed is reported, not enforced; lost usage or refused calls are failures.
   console.log(
-    `plain Fastify: ${(fastifyR.rps / bareR.rps).toFixed(2)} of bare node (the framework's floor)`,
+    `plain Fastify: ${(fastifyR.rps / bareR.rps).toFixed(2)} of bare node; plain NestJS on Fastify: ${(nestR.rps / bareR.rps).toFixed(2)} (the frameworks' floor)`,
   );
-  if (lost > 0 || lw.non2xx > 0 || bareR.non2xx > 0 || fastifyR.non2xx > 0) process.exitCode = 1;
+  if (lw.cpuMicros !== null && bareR.cpuMicros !== null && nestR.cpuMicros !== null)
+    console.log(
+      `CPU per call: ours ${lw.cpuMicros.toFixed(1)} µs = plain NestJS ${nestR.cpuMicros.toFixed(1)} + ${(lw.cpuMicros - nestR.cpuMicros).toFixed(1)} µs of ours (bare node ${bareR.cpuMicros.toFixed(1)} µs)`,
+    );
+  if ([lw, bareR, fastifyR, nestR].some((r) => r.non2xx > 0) || lost > 0) process.exitCode = 1;
   console.log(
     `bench: ${lw.rps.toFixed(0)} req/s, p99 ${lw.p99} ms, ${ratio.toFixed(2)} of bare node, ${lost} usage events lost`,
   );
