@@ -2,7 +2,7 @@
 // 'payment-succeeded', 'payment-failed' and 'seats-over-plan' in src/mail/templates.ts).
 import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { DataSource } from 'typeorm';
+import { DataSource, EntityManager } from 'typeorm';
 import { MailService, type MailJob } from '../mail/mail.service.js';
 
 export interface PaymentMail {
@@ -34,9 +34,12 @@ export class BillingMailer {
     private readonly mail: MailService,
   ) {}
 
-  /** Queues one message per owner; returns how many were queued. */
-  async send(m: PaymentMail, link: string): Promise<number> {
-    const owners = await this.owners(m.organizationId);
+  /**
+   * Queues one message per owner; returns how many were queued. Given the webhook's transaction,
+   * the messages commit (or roll back) with the event that caused them.
+   */
+  async send(m: PaymentMail, link: string, within?: EntityManager): Promise<number> {
+    const owners = await this.owners(m.organizationId, within);
     for (const o of owners) {
       const data = {
         name: o.name,
@@ -46,33 +49,40 @@ export class BillingMailer {
         invoiceId: m.invoiceId,
         link,
       };
-      await this.mail.send({ template: m.kind, to: o.email, data } as MailJob);
+      await this.mail.send({ template: m.kind, to: o.email, data } as MailJob, within);
     }
     return owners.length;
   }
 
   /** Queues the seats notice to every owner; `link` is the console's Team page. */
-  async sendSeatsOverPlan(m: SeatsOverPlanMail, link: string): Promise<number> {
-    const owners = await this.owners(m.organizationId);
+  async sendSeatsOverPlan(
+    m: SeatsOverPlanMail,
+    link: string,
+    within?: EntityManager,
+  ): Promise<number> {
+    const owners = await this.owners(m.organizationId, within);
     for (const o of owners) {
-      await this.mail.send({
-        template: 'seats-over-plan',
-        to: o.email,
-        data: {
-          name: o.name,
-          organizationName: o.org,
-          planName: m.planName,
-          seats: m.seats,
-          members: m.members,
-          link,
+      await this.mail.send(
+        {
+          template: 'seats-over-plan',
+          to: o.email,
+          data: {
+            name: o.name,
+            organizationName: o.org,
+            planName: m.planName,
+            seats: m.seats,
+            members: m.members,
+            link,
+          },
         },
-      });
+        within,
+      );
     }
     return owners.length;
   }
 
-  private owners(organizationId: string): Promise<Owner[]> {
-    return this.ds.query(
+  private owners(organizationId: string, within?: EntityManager): Promise<Owner[]> {
+    return (within ?? this.ds).query(
       `SELECT u.email, u.name, o.name AS org FROM memberships m
          JOIN users u ON u.id = m.user_id JOIN organizations o ON o.id = m.organization_id
        WHERE m.organization_id = $1 AND m.role = 'owner'`,

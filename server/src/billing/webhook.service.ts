@@ -133,7 +133,7 @@ export class WebhookService {
       case 'invoice.paid':
       case 'invoice.payment_failed':
       case 'invoice.updated':
-        return this.invoice(m, event, obj as unknown as Stripe.Invoice, after);
+        return this.invoice(m, event, obj as unknown as Stripe.Invoice);
       default:
         return 'ignored: type not used';
     }
@@ -189,7 +189,7 @@ export class WebhookService {
     });
     const { code: effective, from } = await this.applyPlan(m, orgId);
     after.push(async () => this.plans.forget(orgId));
-    const over = from === null ? '' : await this.seatsOverPlan(m, orgId, from, after);
+    const over = from === null ? '' : await this.seatsOverPlan(m, orgId, from);
     if (ENTITLED.includes(sub.status)) {
       // A new plan replaces the old subscription: cancel any other one still running.
       const others = await m.query(
@@ -234,15 +234,11 @@ export class WebhookService {
 
   /**
    * After a move to a plan with fewer seats, more members than the new seats: the change stands
-   * (nobody new joins until the team fits) and each owner gets an e-mail once the event commits.
+   * (nobody new joins until the team fits) and each owner gets an e-mail, queued in the event's
+   * transaction.
    * Returns a note for the event's outcome.
    */
-  private async seatsOverPlan(
-    m: EntityManager,
-    orgId: string,
-    from: string,
-    after: After[],
-  ): Promise<string> {
+  private async seatsOverPlan(m: EntityManager, orgId: string, from: string): Promise<string> {
     const u = await seatUsage(m, orgId);
     const before = await m.findOneBy(PlanEntity, { code: from });
     if (u.members <= u.seats || (before && before.seats <= u.seats)) return '';
@@ -252,7 +248,8 @@ export class WebhookService {
       seats: u.seats,
       members: u.members,
     };
-    after.push(() => this.mailer.sendSeatsOverPlan(mail, `${this.config.publicUrl}/team`));
+    // Queued inside the event's transaction: committed with the plan change, never lost after it.
+    await this.mailer.sendSeatsOverPlan(mail, `${this.config.publicUrl}/team`, m);
     return `; ${u.members} members over ${u.seats} seats (owners get an e-mail)`;
   }
 
@@ -260,7 +257,6 @@ export class WebhookService {
     m: EntityManager,
     event: Stripe.Event,
     inv: Stripe.Invoice,
-    after: After[],
   ): Promise<string> {
     const orgId = await this.orgOf(m, inv.customer);
     if (!orgId) return 'ignored: unknown customer';
@@ -321,7 +317,7 @@ export class WebhookService {
         amount: `${(total / 100).toFixed(2)} ${inv.currency.toUpperCase()}`,
         planName: plan,
       };
-      after.push(() => this.mailer.send(mail, `${this.config.publicUrl}/billing`));
+      await this.mailer.send(mail, `${this.config.publicUrl}/billing`, m);
     }
     return `invoice ${inv.status}${note}`;
   }

@@ -10,6 +10,7 @@ import {
 import { createCipheriv, createDecipheriv, hkdfSync, randomBytes } from 'node:crypto';
 import nodemailer, { Transporter } from 'nodemailer';
 import PgBoss from 'pg-boss';
+import type { EntityManager } from 'typeorm';
 import { APP_CONFIG, AppConfig } from '../config/config.js';
 import { MailTemplate, render } from './templates.js';
 
@@ -97,14 +98,20 @@ export class MailService implements OnApplicationBootstrap, OnApplicationShutdow
     this.boss = boss;
   }
 
-  /** Queues a message; resolves once the job row is committed (milliseconds, no SMTP involved). */
-  async send(job: MailJob): Promise<void> {
+  /**
+   * Queues a message; resolves once the job row is written (milliseconds, no SMTP involved).
+   * Given a transaction's EntityManager, the job row is inserted inside that transaction (an
+   * outbox): it commits with the change that caused it, or rolls back with it, so a message is
+   * never lost after a commit nor sent for a change that did not happen.
+   */
+  async send(job: MailJob, within?: EntityManager): Promise<void> {
     if (!this.boss) await this.started;
     if (!this.boss) throw new Error('The mail queue is not running');
     await this.boss.send(MAIL_QUEUE, sealMail(job, this.config.sessionSecret), {
       retryLimit: 10,
       retryDelay: 5,
       retryBackoff: true,
+      ...(within ? { db: transactionDb(within) } : {}),
     });
   }
 
@@ -126,6 +133,17 @@ export class MailService implements OnApplicationBootstrap, OnApplicationShutdow
     if (boss) await boss.stop({ graceful: true, timeout: 3000, wait: true, close: true });
     this.transport?.close();
   }
+}
+
+/** pg-boss's database interface over a TypeORM transaction (structured result: the rows). */
+function transactionDb(m: EntityManager): PgBoss.Db {
+  return {
+    executeSql: async (text: string, values: unknown[]) => {
+      if (!m.queryRunner) throw new Error('A mail outbox needs a transaction');
+      const result = await m.queryRunner.query(text, values, true);
+      return { rows: result.records };
+    },
+  };
 }
 
 /** SMTP_URL (smtp[s]://user:pass@host:port) as transport options, with timeouts. */
