@@ -112,6 +112,36 @@ describe('analyseFrame recovers published colour temperatures and Duv', () => {
   });
 });
 
+describe('analyseFrame says when the white-balance fine-tune runs past the usual range', () => {
+  // Fine-tune steps are WB_FINE_TUNE_STEP_MIRED (5) mireds, cameras usually offer about ±7 of
+  // them: both from memory. The offset is the patch's mired distance from the sRGB neutral, D65.
+  const stepsFor = (kelvin: number) => -Math.round((mired(kelvin) - mired(6504)) / 5);
+
+  it('CIE A (2856 K, CIE 15:2004) at a 5500 K camera: about 39 steps toward blue, with a note', async () => {
+    const buf = await renderFrame({
+      patch: { ...PATCH, cx: 0.44757, cy: 0.40745, Y: 0.2 },
+      format: 'png',
+    });
+    const c = (await analyse(buf)).colour;
+    expect(Math.abs(c.whiteBalance!.amberBlueSteps - stepsFor(2856))).toBeLessThanOrEqual(1);
+    const note = c.notes.find((n) => n.startsWith('Fine-tuning this takes'));
+    expect(note).toContain(`${Math.abs(c.whiteBalance!.amberBlueSteps)} steps toward blue`);
+    expect(note).toContain(`set the white balance to about ${c.whiteBalance!.kelvin} K instead`);
+  });
+
+  it('a patch a few mireds from neutral needs a step or two and gets no such note', async () => {
+    // x 0.3155, y 0.3248: a chromaticity a little warmer than D65 (x 0.3127, y 0.3290), chosen
+    // for the test; any patch within ±7 steps (35 mireds) must get no note.
+    const buf = await renderFrame({
+      patch: { ...PATCH, cx: 0.3155, cy: 0.3248, Y: 0.2 },
+      format: 'png',
+    });
+    const c = (await analyse(buf)).colour;
+    expect(Math.abs(c.whiteBalance!.amberBlueSteps)).toBeLessThanOrEqual(2);
+    expect(c.notes.some((n) => n.startsWith('Fine-tuning this takes'))).toBe(false);
+  });
+});
+
 describe('analyseFrame flags patches outside the CCT method range', () => {
   // Robertson's table (Wyszecki & Stiles, Table 1(3.11)) spans 1667 K to infinite temperature.
   it('a patch warmer than 1667 K: no CCT, and a warning naming the warm end', async () => {

@@ -10,6 +10,7 @@ import {
   ROBERTSON_RANGE_KELVIN,
   solveBalance,
   WB_FINE_TUNE_STEP_MIRED,
+  WB_FINE_TUNE_USUAL_STEPS,
   type CctResult,
 } from '@lumenwright/shared';
 import type { FrameExif } from './exif.js';
@@ -120,6 +121,12 @@ export function correctionFor(stats: PatchStats, cameraKelvin: number | null): C
           amberBlueSteps: -Math.round(offset / WB_FINE_TUNE_STEP_MIRED) || 0,
         }
       : null;
+  if (whiteBalance && Math.abs(whiteBalance.amberBlueSteps) > WB_FINE_TUNE_USUAL_STEPS) {
+    const s = whiteBalance.amberBlueSteps;
+    notes.push(
+      `Fine-tuning this takes ${Math.abs(s)} steps toward ${s > 0 ? 'amber' : 'blue'}; cameras usually offer about \u00b1${WB_FINE_TUNE_USUAL_STEPS}: set the white balance to about ${whiteBalance.kelvin} K instead.`,
+    );
+  }
   let gel: Correction['gel'] = null;
   if (lightKelvin !== null && lightKelvin >= 2500 && lightKelvin <= 10000) {
     try {
