@@ -8,6 +8,7 @@ import {
   decimalScale,
   LightingInputError,
   LIGHT_DISTANCE_RANGE,
+  MODIFIER_SIZE_RANGE,
   fractionLabel,
   guideNumberFromMeter,
   stopsBetween,
@@ -284,5 +285,27 @@ describe('light distances: the lower limit follows the unit, as the upper one do
     expect(refusal(rim(0.1, 'ft'))).toMatchObject({ field: 'distanceBehind' });
     expect(refusal(rim(0.33, 'ft'))).toBeNull();
     expect(refusal(rim(0.1, 'm'))).toBeNull();
+  });
+
+  it('backlight: headHeight 0.1 ft is refused; 0.33 ft and 0.1 m are accepted', () => {
+    const head = (headHeight: number, distanceUnit: 'm' | 'ft') => () =>
+      computeBacklight({ lightHeight: 1, distanceBehind: 2, distanceUnit, headHeight });
+    expect(refusal(head(0.1, 'ft'))).toMatchObject({ field: 'headHeight' });
+    expect(refusal(head(0.33, 'ft'))).toBeNull();
+    expect(refusal(head(0.1, 'm'))).toBeNull();
+  });
+
+  it('key light: modifierSize 0.01 ft (3 mm) is refused; 0.033 ft and 0.01 m are accepted', () => {
+    const { m, ft } = MODIFIER_SIZE_RANGE;
+    // 0.033 ft = 1.006 cm, so the feet range starts just inside the metre one.
+    expect(ft.min * FT).toBeGreaterThanOrEqual(m.min);
+    expect(ft.min * FT).toBeLessThan(m.min + 0.001);
+    const key = (modifierSize: number, distanceUnit: 'm' | 'ft') => () =>
+      computeKeyLight({ angleFromCameraDeg: 45, distance: 2, distanceUnit, modifierSize });
+    expect(refusal(key(0.01, 'ft'))).toMatchObject({ field: 'modifierSize' });
+    expect(refusal(key(0.033, 'ft'))).toBeNull();
+    expect(refusal(key(0.01, 'm'))).toBeNull();
+    expect(refusal(key(33, 'ft'))).toBeNull();
+    expect(refusal(key(11, 'm'))).toMatchObject({ field: 'modifierSize' });
   });
 });

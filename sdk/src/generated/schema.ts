@@ -1225,7 +1225,7 @@ export interface components {
        */
       distanceUnit?: 'm' | 'ft';
       /**
-       * @description Height of the subject’s head, in distanceUnit; in metres at most 10 (33 is the limit in feet); default 1.6 m. Range: 0.1 to 33.
+       * @description Height of the subject’s head, in distanceUnit: 0.1–10 m or 0.33–33 ft (the range given spans both); default 1.6 m. Range: 0.1 to 33.
        * @example 1.7
        */
       headHeight?: number;
@@ -3024,7 +3024,7 @@ export interface components {
          */
         modifierLossStops?: number;
         /**
-         * @description Modifier size in distanceUnit; in metres at most 10 (33 is the limit in feet). Range: 0.01 to 33.
+         * @description Modifier size in distanceUnit: 0.01–10 m or 0.033–33 ft (the range given spans both). Range: 0.01 to 33.
          * @example 0.9
          */
         modifierSize?: number;
@@ -3398,7 +3398,7 @@ export interface components {
          */
         modifierLossStops?: number;
         /**
-         * @description Modifier size in distanceUnit; in metres at most 10 (33 is the limit in feet). Range: 0.01 to 33.
+         * @description Modifier size in distanceUnit: 0.01–10 m or 0.033–33 ft (the range given spans both). Range: 0.01 to 33.
          * @example 0.9
          */
         modifierSize?: number;

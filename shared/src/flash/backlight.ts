@@ -53,7 +53,10 @@ export function computeBacklight(input: BacklightInput): BacklightResult {
     unit,
   );
   const head = toMetres(
-    optionalNumber('headHeight', o.headHeight, fromMetres(1.6, unit), { min: 0.1, max: maxH }),
+    optionalNumber('headHeight', o.headHeight, fromMetres(1.6, unit), {
+      min: unit === 'ft' ? 0.33 : 0.1, // 0.1 m = 0.328 ft, as for the light distances
+      max: maxH,
+    }),
     unit,
   );
   const beam = optionalNumber('beamAngleDeg', o.beamAngleDeg, BARE_BEAM_DEG, { min: 1, max: 180 });

@@ -26,6 +26,15 @@ export const LIGHT_DISTANCE_RANGE: Readonly<Record<LengthUnit, { min: number; ma
   ft: { min: 0.33, max: 164 },
 };
 
+/**
+ * A modifier's size per unit: 1 cm to 10 m, and in feet 0.033 to 33 ft (0.033 ft = 1.006 cm,
+ * 33 ft = 10.06 m: the upper end keeps the round figure).
+ */
+export const MODIFIER_SIZE_RANGE: Readonly<Record<LengthUnit, { min: number; max: number }>> = {
+  m: { min: 0.01, max: 10 },
+  ft: { min: 0.033, max: 33 },
+};
+
 export type SourceQuality = 'hard' | 'medium' | 'soft';
 export type ShadowSide = 'frontal' | 'modelled' | 'dramatic' | 'side' | 'behind';
 
@@ -66,12 +75,11 @@ export function computeKeyLight(input: KeyLightInput): KeyLightResult {
   const o = requireObject('input', input);
   const unit = requireLengthUnit('distanceUnit', o.distanceUnit);
   const angle = requireNumber('angleFromCameraDeg', o.angleFromCameraDeg, { min: 0, max: 180 });
-  // Limits follow the unit, as the backlight's do: 0.1-50 m (0.33-164 ft) away, a modifier of at
-  // most 10 m (33 ft).
-  const feet = unit === 'ft';
+  // Limits follow the unit, as the backlight's do: 0.1-50 m (0.33-164 ft) away, a modifier of
+  // 1 cm-10 m (0.033-33 ft).
   const d = toMetres(requireNumber('distance', o.distance, LIGHT_DISTANCE_RANGE[unit]), unit);
   const size = toMetres(
-    requireNumber('modifierSize', o.modifierSize, { min: 0.01, max: feet ? 33 : 10 }),
+    requireNumber('modifierSize', o.modifierSize, MODIFIER_SIZE_RANGE[unit]),
     unit,
   );
   const elev = optionalNumber('elevationDeg', o.elevationDeg, 30, { min: -30, max: 80 });

@@ -23,8 +23,8 @@ export const backlightRequestSchema: ObjectSchema = {
       3,
     ),
     headHeight: ranged(
-      'Height of the subject’s head, in distanceUnit; in metres at most 10 (33 is the limit in ' +
-        'feet); default 1.6 m.',
+      'Height of the subject’s head, in distanceUnit: 0.1–10 m or 0.33–33 ft (the range given ' +
+        'spans both); default 1.6 m.',
       0.1,
       33,
       1.7,

@@ -86,7 +86,7 @@ export const setupRequestSchema: ObjectSchema = {
           maxLength: 40,
         }),
         modifierSize: ranged(
-          'Modifier size in distanceUnit; in metres at most 10 (33 is the limit in feet).',
+          'Modifier size in distanceUnit: 0.01–10 m or 0.033–33 ft (the range given spans both).',
           0.01,
           33,
           0.9,
