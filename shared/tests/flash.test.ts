@@ -216,8 +216,33 @@ describe('flash below its lowest power (ISO 1230 guide-number relation)', () => 
     const r = computeFlash({ guideNumber: 60, distance: 1, aperture: 2 });
     expect(r.feasible).toBe(false);
     expect(r.warnings.map((w) => w.code)).toEqual(['below-min-power']);
-    expect(r.fixes?.moveBackTo).toBeCloseTo(Math.sqrt(900 / 256), 2);
-    expect(r.fixes?.stopDownTo).toBeCloseTo(2 * Math.sqrt(900 / 256), 2);
+    // Fixes are rounded up to the next hundredth (toward enough): within [exact, exact + 0.01].
+    const atOrJustAbove = (got: number | undefined, exact: number) => {
+      expect(got).toBeGreaterThanOrEqual(exact - 1e-9);
+      expect(got).toBeLessThanOrEqual(exact + 0.01);
+    };
+    atOrJustAbove(r.fixes?.moveBackTo, Math.sqrt(900 / 256));
+    atOrJustAbove(r.fixes?.stopDownTo, 2 * Math.sqrt(900 / 256));
+    // The same surplus in stops, log2(900/256) = 1.81: ISO 100 down to 100 x 256/900 = 28, or
+    // 1.81 stops of ND or diffusion in front of the flash [DER].
+    const surplus = Math.log2(900 / 256);
+    atOrJustAbove(r.fixes?.stopDownByStops, surplus);
+    expect(r.fixes?.lowerIsoTo).toBe(Math.floor((100 * 256) / 900));
+    atOrJustAbove(r.fixes?.lowerIsoByStops, surplus);
+    atOrJustAbove(r.fixes?.addLossStops, surplus);
+    // Each fix taken as given (rounded toward enough) makes the shot feasible, just above the
+    // lowest power.
+    const base = { guideNumber: 60, distance: 1, aperture: 2 };
+    for (const fixed of [
+      computeFlash({ ...base, modifierLossStops: r.fixes!.addLossStops! }),
+      computeFlash({ ...base, distance: r.fixes!.moveBackTo! }),
+      computeFlash({ ...base, aperture: r.fixes!.stopDownTo! }),
+      computeFlash({ ...base, iso: r.fixes!.lowerIsoTo! }),
+    ]) {
+      expect(fixed.feasible).toBe(true);
+      expect(fixed.powerFraction).toBeGreaterThanOrEqual(1 / 256);
+      expect(fixed.powerFraction).toBeLessThan(1.05 / 256);
+    }
   });
   it('exposureStops scales the power: -1 stop is half the power [DER]', () => {
     const full = computeFlash({ guideNumber: 40, distance: 3, aperture: 5.6 });

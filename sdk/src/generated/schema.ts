@@ -2097,6 +2097,12 @@ export interface components {
       feasible: boolean;
       /** @description When not feasible: each single change that would fix it (distances in distanceUnit). */
       fixes: {
+        /** @description Light to take away in front of the flash, stops: an ND gel or more diffusion (below minimum power). */
+        addLossStops?: number;
+        /** @description Stops of ISO to take away (below minimum power). */
+        lowerIsoByStops?: number;
+        /** @description ISO that would work (below minimum power). */
+        lowerIsoTo?: number;
         /** @description Distance to move back to (below minimum power). */
         moveBackTo?: number;
         /** @description Distance to move the light to. */
@@ -2109,6 +2115,8 @@ export interface components {
         raiseIsoByStops?: number;
         /** @description ISO that would work. */
         raiseIsoTo?: number;
+        /** @description Stops to stop down (below minimum power). */
+        stopDownByStops?: number;
         /** @description f-number to stop down to (below minimum power). */
         stopDownTo?: number;
       } | null;

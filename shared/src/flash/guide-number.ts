@@ -59,6 +59,11 @@ export interface FlashResult {
     openUpByStops?: number;
     moveBackTo?: number;
     stopDownTo?: number;
+    stopDownByStops?: number;
+    lowerIsoTo?: number;
+    lowerIsoByStops?: number;
+    /** Light to take away in front of the flash: an ND gel or more diffusion, stops. */
+    addLossStops?: number;
   } | null;
   warnings: Array<{ code: string; message: string }>;
 }
@@ -126,9 +131,16 @@ export function computeFlash(input: FlashInput): FlashResult {
     });
   } else if (tooLittle) {
     const surplus = Math.log2(p.minFraction / fraction);
+    // Rounded toward enough (up for distance, f-number and stops, down for ISO), so each fix
+    // taken as given lands at or above the lowest power.
+    const up = (x: number) => Math.ceil(x * 100 - 1e-6) / 100;
     fixes = {
-      moveBackTo: round(fromMetres(p.dM * 2 ** (surplus / 2), p.dUnit), 2),
-      stopDownTo: round(p.aperture * 2 ** (surplus / 2), 2),
+      moveBackTo: up(fromMetres(p.dM * 2 ** (surplus / 2), p.dUnit)),
+      stopDownTo: up(p.aperture * 2 ** (surplus / 2)),
+      stopDownByStops: up(surplus),
+      lowerIsoTo: Math.floor(p.iso * 2 ** -surplus + 1e-6),
+      lowerIsoByStops: up(surplus),
+      addLossStops: up(surplus),
     };
     warnings.push({
       code: 'below-min-power',

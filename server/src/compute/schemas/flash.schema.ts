@@ -58,6 +58,12 @@ export const flashResponseSchema: ObjectSchema = {
         openUpByStops: outNum('Stops to open up.'),
         moveBackTo: outNum('Distance to move back to (below minimum power).'),
         stopDownTo: outNum('f-number to stop down to (below minimum power).'),
+        stopDownByStops: outNum('Stops to stop down (below minimum power).'),
+        lowerIsoTo: outNum('ISO that would work (below minimum power).'),
+        lowerIsoByStops: outNum('Stops of ISO to take away (below minimum power).'),
+        addLossStops: outNum(
+          'Light to take away in front of the flash, stops: an ND gel or more diffusion (below minimum power).',
+        ),
       },
     },
     warnings: WARNINGS,

@@ -195,6 +195,24 @@ describe('playground', () => {
     expect(panel.querySelectorAll('[data-caution]').length).toBe(before + 1);
   });
 
+  it('below the lowest power, lists each fix the API gives, ISO and ND or diffusion too', async () => {
+    respond = (path, body) =>
+      path === '/v1/flash' ? jsonResponse(computeFlash(body as never)) : jsonResponse({}, 404);
+    const panel = await openCalculation('flash');
+    setValue(within(panel).getByLabelText('Light to subject (m)'), '0.2');
+    expect(await within(panel).findByText('Any one of these fixes it:')).toBeTruthy();
+    const items = within(panel)
+      .getAllByRole('listitem')
+      .map((li) => li.textContent ?? '');
+    expect(items.some((t) => /^Move the light back to /.test(t))).toBe(true);
+    expect(items.some((t) => /^Lower ISO to \d+$/.test(t))).toBe(true);
+    expect(
+      items.some((t) =>
+        /^Take [\d.]+ stops away in front of the flash \(ND gel or more diffusion\)$/.test(t),
+      ),
+    ).toBe(true);
+  });
+
   it('plans the whole dusk setup with both diagrams, suggested minutes and cautions', async () => {
     const panel = await openCalculation('setup');
     const plan = await within(panel).findByTestId('setup-plan', {}, { timeout: 4000 });

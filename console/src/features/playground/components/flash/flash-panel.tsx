@@ -192,6 +192,15 @@ export function FlashPanel() {
                   {result.fixes.stopDownTo !== undefined ? (
                     <li>Stop down to f/{fixed(result.fixes.stopDownTo)}</li>
                   ) : null}
+                  {result.fixes.lowerIsoTo !== undefined ? (
+                    <li>Lower ISO to {result.fixes.lowerIsoTo}</li>
+                  ) : null}
+                  {result.fixes.addLossStops !== undefined ? (
+                    <li>
+                      Take {fixed(result.fixes.addLossStops)} stops away in front of the flash (ND
+                      gel or more diffusion)
+                    </li>
+                  ) : null}
                 </ul>
               </div>
             ) : null}
