@@ -74,9 +74,19 @@ describe('guide numbers (ISO 1230: GN = distance x f-number at ISO 100)', () => 
     const r = computeFlash({ guideNumber: 32, distance: 4, aperture: 8, modifierLossStops: 1 });
     expect(r.powerFraction).toBeCloseTo(2, 9);
     expect(r.feasible).toBe(false);
-    expect(r.fixes?.moveCloserTo).toBeCloseTo(4 / Math.SQRT2, 2);
+    // Rounded toward enough: down to the hundredth for distance and f-number [DER].
+    expect(r.fixes?.moveCloserTo).toBe(Math.floor((100 * 4) / Math.SQRT2) / 100);
     expect(r.fixes?.raiseIsoTo).toBe(200);
-    expect(r.fixes?.openUpTo).toBeCloseTo(8 / Math.SQRT2, 2);
+    expect(r.fixes?.openUpTo).toBe(Math.floor((100 * 8) / Math.SQRT2) / 100);
+    const base = { guideNumber: 32, distance: 4, aperture: 8, modifierLossStops: 1 };
+    for (const fixed of [
+      computeFlash({ ...base, distance: r.fixes!.moveCloserTo! }),
+      computeFlash({ ...base, aperture: r.fixes!.openUpTo! }),
+      computeFlash({ ...base, iso: r.fixes!.raiseIsoTo! }),
+    ]) {
+      expect(fixed.feasible).toBe(true);
+      expect(fixed.powerFraction).toBeGreaterThan(0.99);
+    }
   });
   it('gel loss adds to modifier loss', () => {
     const r = computeFlash({

@@ -116,14 +116,18 @@ export function computeFlash(input: FlashInput): FlashResult {
   const tooLittle = fraction < p.minFraction * (1 - 1e-9);
   const warnings = [];
   let fixes: FlashResult['fixes'] = null;
+  // Fixes are rounded toward enough (to the hundredth; ISO to the whole number), so each one
+  // taken as given is feasible.
+  const up = (x: number) => Math.ceil(x * 100 - 1e-6) / 100;
+  const down = (x: number) => Math.floor(x * 100 + 1e-6) / 100;
   if (tooMuch) {
     const excess = -s;
     fixes = {
-      moveCloserTo: round(fromMetres(p.dM * 2 ** (-excess / 2), p.dUnit), 2),
-      raiseIsoTo: Math.round(p.iso * 2 ** excess),
-      raiseIsoByStops: round(excess, 2),
-      openUpTo: round(p.aperture * 2 ** (-excess / 2), 2),
-      openUpByStops: round(excess, 2),
+      moveCloserTo: down(fromMetres(p.dM * 2 ** (-excess / 2), p.dUnit)),
+      raiseIsoTo: Math.ceil(p.iso * 2 ** excess - 1e-6),
+      raiseIsoByStops: up(excess),
+      openUpTo: down(p.aperture * 2 ** (-excess / 2)),
+      openUpByStops: up(excess),
     };
     warnings.push({
       code: 'over-full-power',
@@ -131,9 +135,6 @@ export function computeFlash(input: FlashInput): FlashResult {
     });
   } else if (tooLittle) {
     const surplus = Math.log2(p.minFraction / fraction);
-    // Rounded toward enough (up for distance, f-number and stops, down for ISO), so each fix
-    // taken as given lands at or above the lowest power.
-    const up = (x: number) => Math.ceil(x * 100 - 1e-6) / 100;
     fixes = {
       moveBackTo: up(fromMetres(p.dM * 2 ** (surplus / 2), p.dUnit)),
       stopDownTo: up(p.aperture * 2 ** (surplus / 2)),
