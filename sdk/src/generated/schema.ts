@@ -2027,7 +2027,7 @@ export interface components {
        */
       subjectToBackgroundStops: number | null;
     };
-    /** @description Flash power for a subject at a distance and aperture, from the guide number (ISO 1230: GN = distance × f-number at ISO 100, full power). */
+    /** @description Flash power for a subject at a distance and aperture, from the guide number (ISO 1230: GN = distance × f-number at ISO 100, full power). Name a light and modifier of your gear by id, or give the values. */
     FlashRequestDto: {
       /**
        * @description f-number. Range: 0.7 to 128.
@@ -2059,7 +2059,7 @@ export interface components {
        * @description Guide number at ISO 100 and full power, in guideNumberUnit. Range: 1 to 500.
        * @example 60
        */
-      guideNumber: number;
+      guideNumber?: number;
       /**
        * @description Unit of the guide number. Metres ("m", default) or feet ("ft").
        * @example m
@@ -2072,10 +2072,20 @@ export interface components {
        */
       iso?: number;
       /**
+       * @description Id of one of your lights (GET /v1/gear/lights): its guide number and unit. Send this or guideNumber.
+       * @example 0b7c6a52-3d0e-4c55-9f59-2b1f4e0d8a11
+       */
+      lightId?: string;
+      /**
        * @description Lowest power the light can go to, as a fraction of full; default 1/256. Range: 1/4096 to 1.
        * @example 0.00390625
        */
       minPowerFraction?: number;
+      /**
+       * @description Id of one of your modifiers (GET /v1/gear/modifiers): its loss. Send this or modifierLossStops.
+       * @example 0b7c6a52-3d0e-4c55-9f59-2b1f4e0d8a11
+       */
+      modifierId?: string;
       /**
        * @description Light lost in the modifier, stops. Range: 0 to 8.
        * @example 1.5
@@ -5890,6 +5900,15 @@ export interface operations {
       };
       /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
       403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A gear id is not one of your organisation's; `errors` names the field. */
+      404: {
         headers: {
           [name: string]: unknown;
         };

@@ -55,11 +55,15 @@ export class ComputeController {
   @ComputeRoute(
     'flash',
     'Flash power for a distance and aperture from the guide number.',
-    flash.FlashRequestDto,
+    gearAware.FlashRequestDto,
     flash.FlashResponseDto,
+    { gearIds: true },
   )
-  computeFlash(@Body(new SchemaPipe(flash.flashRequestSchema)) body: FlashInput) {
-    return this.compute.flash(body);
+  computeFlash(
+    @Req() req: RequestWithPrincipal,
+    @Body(new SchemaPipe(gearAware.gearFlashRequestSchema)) body: FlashInput & GearRefs,
+  ) {
+    return this.compute.flashFor(req.principal!.organizationId, body);
   }
 
   @ComputeRoute(

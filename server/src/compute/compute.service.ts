@@ -31,6 +31,7 @@ import type { GearRefs } from '../gear/gear-refs.schema.js';
 export interface GearResolver {
   resolveBalance(organizationId: string, input: BalanceInput & GearRefs): Promise<BalanceInput>;
   resolveSetup(organizationId: string, input: DuskSetupInput & GearRefs): Promise<DuskSetupInput>;
+  resolveFlash(organizationId: string, input: FlashInput & GearRefs): Promise<FlashInput>;
 }
 
 function run<T>(fn: () => T): T {
@@ -54,6 +55,12 @@ export class ComputeService {
   balanceFor(organizationId: string, input: BalanceInput & GearRefs) {
     if (!this.gear || !hasGearRefs(input)) return this.balance(input);
     return this.gear.resolveBalance(organizationId, input).then((i) => this.balance(i));
+  }
+
+  /** Flash power for a caller, its light and modifier ids resolved first. */
+  flashFor(organizationId: string, input: FlashInput & GearRefs) {
+    if (!this.gear || !hasGearRefs(input)) return this.flash(input);
+    return this.gear.resolveFlash(organizationId, input).then((i) => this.flash(i));
   }
 
   /** The dusk setup for a caller, gear ids resolved first. */

@@ -1,7 +1,13 @@
 // Turns gear named by id into the plain values the math takes, within the caller's organisation
 // only: another organisation's id is a 404 naming the field, exactly like an unknown one.
 import { Injectable } from '@nestjs/common';
-import { fromMetres, toMetres, type BalanceInput, type DuskSetupInput } from '@lumenwright/shared';
+import {
+  fromMetres,
+  toMetres,
+  type BalanceInput,
+  type DuskSetupInput,
+  type FlashInput,
+} from '@lumenwright/shared';
 import { DomainError } from '../common/errors/domain-error.js';
 import type { GearResolver } from '../compute/compute.service.js';
 import type { GearRefs } from './gear-refs.schema.js';
@@ -31,7 +37,7 @@ export function kitGels(kit: GelKitEntity): NonNullable<BalanceInput['gels']> {
 /** True when the body names any gear by id (the compute hot path can skip the resolver). */
 export function hasGearRefs(body: unknown): boolean {
   const b = body as GearRefs | null;
-  return !!b && (b.gelKitId !== undefined || refsIn(b.key) || refsIn(b.rim));
+  return !!b && (b.gelKitId !== undefined || refsIn(b) || refsIn(b.key) || refsIn(b.rim));
 }
 const refsIn = (o: GearRefs['key']) =>
   !!o && typeof o === 'object' && (o.lightId !== undefined || o.modifierId !== undefined);
@@ -70,6 +76,16 @@ export class GearReferenceResolver implements GearResolver {
       out.rim = await this.resolveRim(organizationId, input.rim as Obj, prefix);
     else delete out.rim;
     return out as unknown as DuskSetupInput;
+  }
+
+  /** A flash request's `lightId` → guide number and unit, `modifierId` → its loss. */
+  async resolveFlash(organizationId: string, input: FlashInput & GearRefs): Promise<FlashInput> {
+    const out = await this.resolveLight(organizationId, input as unknown as Obj, '');
+    if (input.modifierId === undefined) return out as unknown as FlashInput;
+    if (input.modifierLossStops !== undefined) throw both('modifierId', 'modifierLossStops');
+    const { modifierId, ...rest } = out;
+    const m = await this.modifiers.get(organizationId, modifierId as string, 'modifierId');
+    return { ...rest, modifierLossStops: m.lossStops } as unknown as FlashInput;
   }
 
   private async resolveKey(
@@ -122,20 +138,24 @@ export class GearReferenceResolver implements GearResolver {
     return resolved;
   }
 
-  /** `lightId` → guideNumber + guideNumberUnit; one of the two ways must be there. */
+  /**
+   * `lightId` → guideNumber + guideNumberUnit; one of the two ways must be there. `p` is the
+   * object's path in the request ('' for a flash request's top level).
+   */
   private async resolveLight(org: string, o: Obj, p: string): Promise<Obj> {
+    const f = (name: string) => (p ? `${p}.${name}` : name);
     if (o.lightId === undefined) {
       if (o.guideNumber === undefined) {
-        throw new DomainError('invalid_input', `${p}.guideNumber is required.`, [
-          { field: `${p}.guideNumber`, reason: `is required unless ${p}.lightId is sent` },
+        throw new DomainError('invalid_input', `${f('guideNumber')} is required.`, [
+          { field: f('guideNumber'), reason: `is required unless ${f('lightId')} is sent` },
         ]);
       }
       return o;
     }
-    if (o.guideNumber !== undefined) throw both(`${p}.lightId`, `${p}.guideNumber`);
-    if (o.guideNumberUnit !== undefined) throw both(`${p}.lightId`, `${p}.guideNumberUnit`);
+    if (o.guideNumber !== undefined) throw both(f('lightId'), f('guideNumber'));
+    if (o.guideNumberUnit !== undefined) throw both(f('lightId'), f('guideNumberUnit'));
     const { lightId, ...rest } = o;
-    const light = await this.lights.get(org, lightId as string, `${p}.lightId`);
+    const light = await this.lights.get(org, lightId as string, f('lightId'));
     return { ...rest, guideNumber: light.guideNumber, guideNumberUnit: light.guideNumberUnit };
   }
 }

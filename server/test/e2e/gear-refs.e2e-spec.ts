@@ -136,6 +136,55 @@ describe('gear by id', () => {
     expect(hasGearRefs({ key: { lightId: key.id } })).toBe(true);
   });
 
+  it('POST /v1/flash takes lightId and modifierId: the same answer as their values inline', async () => {
+    const shot = { distance: 2.5, aperture: 5.6, iso: 200 };
+    for (const [light, unit] of [
+      [key, 'm'],
+      [rim, 'ft'], // entered from a meter reading: f/8 at 12 ft → GN 96 ft (ISO 1230)
+    ] as const) {
+      const byId = await owner.agent
+        .post('/v1/flash')
+        .send({ ...shot, lightId: light.id, modifierId: octa.id })
+        .expect(200);
+      const inline = await owner.agent
+        .post('/v1/flash')
+        .send({
+          ...shot,
+          guideNumber: light.guideNumber,
+          guideNumberUnit: unit,
+          modifierLossStops: 2,
+        })
+        .expect(200);
+      expect(byId.body).toEqual(inline.body);
+      expect(byId.body.totalLossStops).toBe(2);
+    }
+    // GN 96 ft from f/8 at 12 ft: the meter reading stored as the light's guide number.
+    expect(rim.guideNumber).toBeCloseTo(96, 6);
+    expect(hasGearRefs({ lightId: key.id, distance: 2, aperture: 4 })).toBe(true);
+    expect(hasGearRefs({ guideNumber: 60, distance: 2, aperture: 4 })).toBe(false);
+  });
+
+  it('POST /v1/flash refuses a borrowed id (404), an id with its values, or neither (422), naming the field', async () => {
+    const shot = { distance: 2.5, aperture: 5.6 };
+    const borrowed = await other.agent
+      .post('/v1/flash')
+      .send({ ...shot, lightId: key.id })
+      .expect(404);
+    expect(borrowed.body.errors.map((e: { field: string }) => e.field)).toEqual(['lightId']);
+    const cases: [Record<string, unknown>, string][] = [
+      [{ lightId: key.id, guideNumber: 60 }, 'lightId'],
+      [{ guideNumber: 60, modifierId: octa.id, modifierLossStops: 1 }, 'modifierId'],
+      [{ lightId: 'strobe-a' }, 'lightId'],
+      [{}, 'guideNumber'],
+    ];
+    for (const [patch, field] of cases) {
+      const res = await owner.agent.post('/v1/flash').send({ ...shot, ...patch });
+      expect({ field, status: res.status }).toEqual({ field, status: 422 });
+      expect(res.headers['content-type']).toMatch(/application\/problem\+json/);
+      expect(res.body.errors.map((e: { field: string }) => e.field)).toContain(field);
+    }
+  });
+
   it("an API key reads its organisation's gear (lists and single items) and uses the ids; never another's, never writes", async () => {
     const secret = (await createKey(owner, 'live')).secret;
     const otherSecret = (await createKey(other, 'live')).secret;

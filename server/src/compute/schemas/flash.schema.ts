@@ -70,5 +70,4 @@ export const flashResponseSchema: ObjectSchema = {
   },
 };
 
-export const FlashRequestDto = schemaDto('FlashRequestDto', flashRequestSchema);
 export const FlashResponseDto = schemaDto('FlashResponseDto', flashResponseSchema);

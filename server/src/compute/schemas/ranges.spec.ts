@@ -139,14 +139,16 @@ const CONTEXT_AT_MIN: Record<string, Body> = {
   'backlight distanceBehind': { distanceUnit: 'm' },
   'setup rim.distanceBehind': { rim: { distanceUnit: 'm' } },
   'setup key.distance': { key: { distanceUnit: 'm' } },
+  'backlight headHeight': { distanceUnit: 'm' },
+  'setup key.modifierSize': { key: { distanceUnit: 'm' } },
 };
 
 const contextOf = (c: BoundCase): Body =>
   (c.side === 'min' ? CONTEXT_AT_MIN[fieldKey(c)] : undefined) ?? CONTEXT[fieldKey(c)] ?? {};
 
 /**
- * Unit-dependent ranges in the library (backlight.ts: lightHeight and headHeight at most 10 m or
- * 33 ft, distanceBehind 0.1..50 m or 0.33..164 ft): the schema publishes the widest, the
+ * Unit-dependent ranges in the library (backlight.ts: lightHeight at most 10 m or 33 ft, headHeight
+ * 0.1..10 m or 0.33..33 ft, distanceBehind 0.1..50 m or 0.33..164 ft): the schema publishes the widest, the
  * description states the rule, and the library refuses the rest by name.
  */
 const UNIT_RANGES: Record<
@@ -154,13 +156,13 @@ const UNIT_RANGES: Record<
   { unitField: string; m: [number, number]; ft: [number, number] }
 > = {
   'backlight lightHeight': { unitField: 'distanceUnit', m: [0, 10], ft: [0, 33] },
-  'backlight headHeight': { unitField: 'distanceUnit', m: [0.1, 10], ft: [0.1, 33] },
+  'backlight headHeight': { unitField: 'distanceUnit', m: [0.1, 10], ft: [0.33, 33] },
   'backlight distanceBehind': { unitField: 'distanceUnit', m: [0.1, 50], ft: [0.33, 164] },
   'setup rim.lightHeight': { unitField: 'rim.distanceUnit', m: [0, 10], ft: [0, 33] },
   'setup rim.distanceBehind': { unitField: 'rim.distanceUnit', m: [0.1, 50], ft: [0.33, 164] },
-  // key-light.ts: the key 0.1..50 m or 0.33..164 ft away, its modifier at most 10 m or 33 ft.
+  // key-light.ts: the key 0.1..50 m or 0.33..164 ft away, its modifier 0.01..10 m or 0.033..33 ft.
   'setup key.distance': { unitField: 'key.distanceUnit', m: [0.1, 50], ft: [0.33, 164] },
-  'setup key.modifierSize': { unitField: 'key.distanceUnit', m: [0.01, 10], ft: [0.01, 33] },
+  'setup key.modifierSize': { unitField: 'key.distanceUnit', m: [0.01, 10], ft: [0.033, 33] },
 };
 
 /**
@@ -392,7 +394,8 @@ describe('compute request ranges match the shared math library', () => {
         ? given + (given + 0.25 <= hi! ? 0.25 : -0.25)
         : lo! + (hi! - lo!) * 0.37;
     if (Number.isInteger(value)) value += 0.5;
-    const input = withValue(c.base.input, contextOf(c), c.field.path, value);
+    // Not at the bound: the context that opens the widest range (feet where they reach further).
+    const input = withValue(c.base.input, CONTEXT[fieldKey(c)] ?? {}, c.field.path, value);
     expect(validators[c.endpoint]!(input)).toEqual([]);
     expect({ value, error: libraryError(c.endpoint, input)?.message ?? null }).toEqual({
       value,
