@@ -133,7 +133,9 @@ describe('documented refusals (problem+json) of every operation', () => {
     // Gear named by id in a computation: 404 naming the field.
     expect(byId.get('solveBalance')!.responses['404']).toBeDefined();
     expect(byId.get('planSetup')!.responses['404']).toBeDefined();
-    expect(byId.get('computeFlash')!.responses['404']).toBeUndefined();
+    expect(byId.get('computeFlash')!.responses['404']).toBeDefined();
+    // Computations that take no gear ids document no 404.
+    expect(byId.get('computeFalloff')!.responses['404']).toBeUndefined();
   });
 
   it('keeps a route’s own wording and adds nothing a route cannot answer', () => {
