@@ -5115,7 +5115,10 @@ export interface operations {
   computeBacklight: {
     parameters: {
       query?: never;
-      header?: never;
+      header?: {
+        /** @description Makes a retry safe (IETF draft "The Idempotency-Key HTTP Header Field"). The first request with a key runs; a retry with the same key and the same request (method, path and body; for an upload, the file bytes and fields) within 24 hours gets the first answer again, byte for byte, with `Idempotency-Replayed: true`, and is not metered, rate limited, counted against the quota or billed again. Successes and client errors (4xx) are kept; 5xx, 429, 401 and 403 are not, so a retry after them runs again. A retry while the first is still running gets 409 (…/idempotency-key-in-use, Retry-After); the same key with another request gets 422 (…/idempotency-key-reused). Keys are per API key (per user and organisation for the console): 1 to 255 printable ASCII characters, bare or as a quoted structured-field string; a random UUID is a good key. */
+        'Idempotency-Key'?: string;
+      };
       path?: never;
       cookie?: never;
     };
@@ -5127,6 +5130,8 @@ export interface operations {
     responses: {
       200: {
         headers: {
+          /** @description `true` when this is the stored answer to an earlier request with the same Idempotency-Key. */
+          'Idempotency-Replayed'?: string;
           [name: string]: unknown;
         };
         content: {
@@ -5160,6 +5165,17 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description A request with the same Idempotency-Key is still running (type …/idempotency-key-in-use); retry after Retry-After for its answer. */
+      409: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description The body is larger than the server accepts (100 kB unless configured). */
       413: {
         headers: {
@@ -5178,7 +5194,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). */
+      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). Or the Idempotency-Key is malformed (…/invalid-input) or was used with a different request (…/idempotency-key-reused); `errors` names the header. */
       422: {
         headers: {
           [name: string]: unknown;
@@ -5218,7 +5234,10 @@ export interface operations {
   solveBalance: {
     parameters: {
       query?: never;
-      header?: never;
+      header?: {
+        /** @description Makes a retry safe (IETF draft "The Idempotency-Key HTTP Header Field"). The first request with a key runs; a retry with the same key and the same request (method, path and body; for an upload, the file bytes and fields) within 24 hours gets the first answer again, byte for byte, with `Idempotency-Replayed: true`, and is not metered, rate limited, counted against the quota or billed again. Successes and client errors (4xx) are kept; 5xx, 429, 401 and 403 are not, so a retry after them runs again. A retry while the first is still running gets 409 (…/idempotency-key-in-use, Retry-After); the same key with another request gets 422 (…/idempotency-key-reused). Keys are per API key (per user and organisation for the console): 1 to 255 printable ASCII characters, bare or as a quoted structured-field string; a random UUID is a good key. */
+        'Idempotency-Key'?: string;
+      };
       path?: never;
       cookie?: never;
     };
@@ -5230,6 +5249,8 @@ export interface operations {
     responses: {
       200: {
         headers: {
+          /** @description `true` when this is the stored answer to an earlier request with the same Idempotency-Key. */
+          'Idempotency-Replayed'?: string;
           [name: string]: unknown;
         };
         content: {
@@ -5272,6 +5293,17 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description A request with the same Idempotency-Key is still running (type …/idempotency-key-in-use); retry after Retry-After for its answer. */
+      409: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description The body is larger than the server accepts (100 kB unless configured). */
       413: {
         headers: {
@@ -5290,7 +5322,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). */
+      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). Or the Idempotency-Key is malformed (…/invalid-input) or was used with a different request (…/idempotency-key-reused); `errors` names the header. */
       422: {
         headers: {
           [name: string]: unknown;
@@ -5638,7 +5670,10 @@ export interface operations {
   solveExposure: {
     parameters: {
       query?: never;
-      header?: never;
+      header?: {
+        /** @description Makes a retry safe (IETF draft "The Idempotency-Key HTTP Header Field"). The first request with a key runs; a retry with the same key and the same request (method, path and body; for an upload, the file bytes and fields) within 24 hours gets the first answer again, byte for byte, with `Idempotency-Replayed: true`, and is not metered, rate limited, counted against the quota or billed again. Successes and client errors (4xx) are kept; 5xx, 429, 401 and 403 are not, so a retry after them runs again. A retry while the first is still running gets 409 (…/idempotency-key-in-use, Retry-After); the same key with another request gets 422 (…/idempotency-key-reused). Keys are per API key (per user and organisation for the console): 1 to 255 printable ASCII characters, bare or as a quoted structured-field string; a random UUID is a good key. */
+        'Idempotency-Key'?: string;
+      };
       path?: never;
       cookie?: never;
     };
@@ -5650,6 +5685,8 @@ export interface operations {
     responses: {
       200: {
         headers: {
+          /** @description `true` when this is the stored answer to an earlier request with the same Idempotency-Key. */
+          'Idempotency-Replayed'?: string;
           [name: string]: unknown;
         };
         content: {
@@ -5683,6 +5720,17 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description A request with the same Idempotency-Key is still running (type …/idempotency-key-in-use); retry after Retry-After for its answer. */
+      409: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description The body is larger than the server accepts (100 kB unless configured). */
       413: {
         headers: {
@@ -5701,7 +5749,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). */
+      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). Or the Idempotency-Key is malformed (…/invalid-input) or was used with a different request (…/idempotency-key-reused); `errors` names the header. */
       422: {
         headers: {
           [name: string]: unknown;
@@ -5741,7 +5789,10 @@ export interface operations {
   computeFalloff: {
     parameters: {
       query?: never;
-      header?: never;
+      header?: {
+        /** @description Makes a retry safe (IETF draft "The Idempotency-Key HTTP Header Field"). The first request with a key runs; a retry with the same key and the same request (method, path and body; for an upload, the file bytes and fields) within 24 hours gets the first answer again, byte for byte, with `Idempotency-Replayed: true`, and is not metered, rate limited, counted against the quota or billed again. Successes and client errors (4xx) are kept; 5xx, 429, 401 and 403 are not, so a retry after them runs again. A retry while the first is still running gets 409 (…/idempotency-key-in-use, Retry-After); the same key with another request gets 422 (…/idempotency-key-reused). Keys are per API key (per user and organisation for the console): 1 to 255 printable ASCII characters, bare or as a quoted structured-field string; a random UUID is a good key. */
+        'Idempotency-Key'?: string;
+      };
       path?: never;
       cookie?: never;
     };
@@ -5753,6 +5804,8 @@ export interface operations {
     responses: {
       200: {
         headers: {
+          /** @description `true` when this is the stored answer to an earlier request with the same Idempotency-Key. */
+          'Idempotency-Replayed'?: string;
           [name: string]: unknown;
         };
         content: {
@@ -5786,6 +5839,17 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description A request with the same Idempotency-Key is still running (type …/idempotency-key-in-use); retry after Retry-After for its answer. */
+      409: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description The body is larger than the server accepts (100 kB unless configured). */
       413: {
         headers: {
@@ -5804,7 +5868,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). */
+      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). Or the Idempotency-Key is malformed (…/invalid-input) or was used with a different request (…/idempotency-key-reused); `errors` names the header. */
       422: {
         headers: {
           [name: string]: unknown;
@@ -5844,7 +5908,10 @@ export interface operations {
   computeFlash: {
     parameters: {
       query?: never;
-      header?: never;
+      header?: {
+        /** @description Makes a retry safe (IETF draft "The Idempotency-Key HTTP Header Field"). The first request with a key runs; a retry with the same key and the same request (method, path and body; for an upload, the file bytes and fields) within 24 hours gets the first answer again, byte for byte, with `Idempotency-Replayed: true`, and is not metered, rate limited, counted against the quota or billed again. Successes and client errors (4xx) are kept; 5xx, 429, 401 and 403 are not, so a retry after them runs again. A retry while the first is still running gets 409 (…/idempotency-key-in-use, Retry-After); the same key with another request gets 422 (…/idempotency-key-reused). Keys are per API key (per user and organisation for the console): 1 to 255 printable ASCII characters, bare or as a quoted structured-field string; a random UUID is a good key. */
+        'Idempotency-Key'?: string;
+      };
       path?: never;
       cookie?: never;
     };
@@ -5856,6 +5923,8 @@ export interface operations {
     responses: {
       200: {
         headers: {
+          /** @description `true` when this is the stored answer to an earlier request with the same Idempotency-Key. */
+          'Idempotency-Replayed'?: string;
           [name: string]: unknown;
         };
         content: {
@@ -5889,6 +5958,17 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description A request with the same Idempotency-Key is still running (type …/idempotency-key-in-use); retry after Retry-After for its answer. */
+      409: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description The body is larger than the server accepts (100 kB unless configured). */
       413: {
         headers: {
@@ -5907,7 +5987,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). */
+      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). Or the Idempotency-Key is malformed (…/invalid-input) or was used with a different request (…/idempotency-key-reused); `errors` names the header. */
       422: {
         headers: {
           [name: string]: unknown;
@@ -6015,7 +6095,10 @@ export interface operations {
   uploadFrame: {
     parameters: {
       query?: never;
-      header?: never;
+      header?: {
+        /** @description Makes a retry safe (IETF draft "The Idempotency-Key HTTP Header Field"). The first request with a key runs; a retry with the same key and the same request (method, path and body; for an upload, the file bytes and fields) within 24 hours gets the first answer again, byte for byte, with `Idempotency-Replayed: true`, and is not metered, rate limited, counted against the quota or billed again. Successes and client errors (4xx) are kept; 5xx, 429, 401 and 403 are not, so a retry after them runs again. A retry while the first is still running gets 409 (…/idempotency-key-in-use, Retry-After); the same key with another request gets 422 (…/idempotency-key-reused). Keys are per API key (per user and organisation for the console): 1 to 255 printable ASCII characters, bare or as a quoted structured-field string; a random UUID is a good key. */
+        'Idempotency-Key'?: string;
+      };
       path?: never;
       cookie?: never;
     };
@@ -6043,6 +6126,8 @@ export interface operations {
     responses: {
       201: {
         headers: {
+          /** @description `true` when this is the stored answer to an earlier request with the same Idempotency-Key. */
+          'Idempotency-Replayed'?: string;
           [name: string]: unknown;
         };
         content: {
@@ -6067,6 +6152,17 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description A request with the same Idempotency-Key is still running (type …/idempotency-key-in-use); retry after Retry-After for its answer. */
+      409: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description The file is larger than 25 MB. */
       413: {
         headers: {
@@ -6085,7 +6181,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description A field is invalid, the patch is outside the image, or the file is corrupt. */
+      /** @description A field is invalid, the patch is outside the image, or the file is corrupt; or the Idempotency-Key is malformed (…/invalid-input) or was used with a different upload (…/idempotency-key-reused). */
       422: {
         headers: {
           [name: string]: unknown;
@@ -9310,7 +9406,10 @@ export interface operations {
   planSetup: {
     parameters: {
       query?: never;
-      header?: never;
+      header?: {
+        /** @description Makes a retry safe (IETF draft "The Idempotency-Key HTTP Header Field"). The first request with a key runs; a retry with the same key and the same request (method, path and body; for an upload, the file bytes and fields) within 24 hours gets the first answer again, byte for byte, with `Idempotency-Replayed: true`, and is not metered, rate limited, counted against the quota or billed again. Successes and client errors (4xx) are kept; 5xx, 429, 401 and 403 are not, so a retry after them runs again. A retry while the first is still running gets 409 (…/idempotency-key-in-use, Retry-After); the same key with another request gets 422 (…/idempotency-key-reused). Keys are per API key (per user and organisation for the console): 1 to 255 printable ASCII characters, bare or as a quoted structured-field string; a random UUID is a good key. */
+        'Idempotency-Key'?: string;
+      };
       path?: never;
       cookie?: never;
     };
@@ -9322,6 +9421,8 @@ export interface operations {
     responses: {
       200: {
         headers: {
+          /** @description `true` when this is the stored answer to an earlier request with the same Idempotency-Key. */
+          'Idempotency-Replayed'?: string;
           [name: string]: unknown;
         };
         content: {
@@ -9364,6 +9465,17 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description A request with the same Idempotency-Key is still running (type …/idempotency-key-in-use); retry after Retry-After for its answer. */
+      409: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description The body is larger than the server accepts (100 kB unless configured). */
       413: {
         headers: {
@@ -9382,7 +9494,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). */
+      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). Or the Idempotency-Key is malformed (…/invalid-input) or was used with a different request (…/idempotency-key-reused); `errors` names the header. */
       422: {
         headers: {
           [name: string]: unknown;
@@ -10501,7 +10613,10 @@ export interface operations {
   computeTwilight: {
     parameters: {
       query?: never;
-      header?: never;
+      header?: {
+        /** @description Makes a retry safe (IETF draft "The Idempotency-Key HTTP Header Field"). The first request with a key runs; a retry with the same key and the same request (method, path and body; for an upload, the file bytes and fields) within 24 hours gets the first answer again, byte for byte, with `Idempotency-Replayed: true`, and is not metered, rate limited, counted against the quota or billed again. Successes and client errors (4xx) are kept; 5xx, 429, 401 and 403 are not, so a retry after them runs again. A retry while the first is still running gets 409 (…/idempotency-key-in-use, Retry-After); the same key with another request gets 422 (…/idempotency-key-reused). Keys are per API key (per user and organisation for the console): 1 to 255 printable ASCII characters, bare or as a quoted structured-field string; a random UUID is a good key. */
+        'Idempotency-Key'?: string;
+      };
       path?: never;
       cookie?: never;
     };
@@ -10513,6 +10628,8 @@ export interface operations {
     responses: {
       200: {
         headers: {
+          /** @description `true` when this is the stored answer to an earlier request with the same Idempotency-Key. */
+          'Idempotency-Replayed'?: string;
           [name: string]: unknown;
         };
         content: {
@@ -10546,6 +10663,17 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description A request with the same Idempotency-Key is still running (type …/idempotency-key-in-use); retry after Retry-After for its answer. */
+      409: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description The body is larger than the server accepts (100 kB unless configured). */
       413: {
         headers: {
@@ -10564,7 +10692,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). */
+      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). Or the Idempotency-Key is malformed (…/invalid-input) or was used with a different request (…/idempotency-key-reused); `errors` names the header. */
       422: {
         headers: {
           [name: string]: unknown;

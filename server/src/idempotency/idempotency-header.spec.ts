@@ -60,9 +60,10 @@ describe('parseIdempotencyKey', () => {
 });
 
 describe('isStoredStatus', () => {
-  // The draft, "Idempotency Enforcement Scenarios": a retry after completion gets "the result of the previously completed
-  // operation, success or an error". Our choice on top (common practice, no source): server
-  // faults and refusals that depend on timing or the account's state are not kept.
+  // The draft, "Idempotency Enforcement Scenarios": a retry after completion gets "the result
+  // of the previously completed operation, success or an error". Our choice on top (common
+  // practice, no source): server faults and refusals that depend on timing or the account's
+  // state are not kept.
   it('keeps successes and client errors about the request', () => {
     for (const s of [200, 201, 400, 404, 413, 415, 422]) expect(isStoredStatus(s)).toBe(true);
   });
