@@ -86,8 +86,15 @@ export async function createApp(
     origin: config.corsOrigins.length ? config.corsOrigins : false,
     credentials: false,
     methods: ['GET', 'POST', 'PUT', 'PATCH', 'DELETE'],
-    allowedHeaders: ['Authorization', 'Content-Type', 'X-Request-Id'],
-    exposedHeaders: ['X-Request-Id', 'RateLimit', 'RateLimit-Policy', 'Retry-After'],
+    // Idempotency-Key: the metered POSTs honour it (src/idempotency); a replayed answer says so.
+    allowedHeaders: ['Authorization', 'Content-Type', 'X-Request-Id', 'Idempotency-Key'],
+    exposedHeaders: [
+      'X-Request-Id',
+      'RateLimit',
+      'RateLimit-Policy',
+      'Retry-After',
+      'Idempotency-Replayed',
+    ],
     maxAge: 600,
   });
 

@@ -5133,7 +5133,10 @@ export interface operations {
   computeBacklight: {
     parameters: {
       query?: never;
-      header?: never;
+      header?: {
+        /** @description Makes a retry safe (IETF draft "The Idempotency-Key HTTP Header Field"). The first request with a key runs; a retry with the same key and the same request (method, path and body; for an upload, the file bytes and fields) within 24 hours gets the first answer again, byte for byte, with `Idempotency-Replayed: true`, and is not metered, rate limited, counted against the quota or billed again. Successes and client errors (4xx) are kept; 5xx, 429, 401 and 403 are not, so a retry after them runs again. A retry while the first is still running gets 409 (…/idempotency-key-in-use, Retry-After); the same key with another request gets 422 (…/idempotency-key-reused). Keys are per API key (per user and organisation for the console): 1 to 255 printable ASCII characters, bare or as a quoted structured-field string; a random UUID is a good key. */
+        'Idempotency-Key'?: string;
+      };
       path?: never;
       cookie?: never;
     };
@@ -5145,6 +5148,8 @@ export interface operations {
     responses: {
       200: {
         headers: {
+          /** @description `true` when this is the stored answer to an earlier request with the same Idempotency-Key. */
+          'Idempotency-Replayed'?: string;
           [name: string]: unknown;
         };
         content: {
@@ -5178,6 +5183,17 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description A request with the same Idempotency-Key is still running (type …/idempotency-key-in-use); retry after Retry-After for its answer. */
+      409: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description The body is larger than the server accepts (100 kB unless configured). */
       413: {
         headers: {
@@ -5196,7 +5212,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). */
+      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). Or the Idempotency-Key is malformed (…/invalid-input) or was used with a different request (…/idempotency-key-reused); `errors` names the header. */
       422: {
         headers: {
           [name: string]: unknown;
@@ -5236,7 +5252,10 @@ export interface operations {
   solveBalance: {
     parameters: {
       query?: never;
-      header?: never;
+      header?: {
+        /** @description Makes a retry safe (IETF draft "The Idempotency-Key HTTP Header Field"). The first request with a key runs; a retry with the same key and the same request (method, path and body; for an upload, the file bytes and fields) within 24 hours gets the first answer again, byte for byte, with `Idempotency-Replayed: true`, and is not metered, rate limited, counted against the quota or billed again. Successes and client errors (4xx) are kept; 5xx, 429, 401 and 403 are not, so a retry after them runs again. A retry while the first is still running gets 409 (…/idempotency-key-in-use, Retry-After); the same key with another request gets 422 (…/idempotency-key-reused). Keys are per API key (per user and organisation for the console): 1 to 255 printable ASCII characters, bare or as a quoted structured-field string; a random UUID is a good key. */
+        'Idempotency-Key'?: string;
+      };
       path?: never;
       cookie?: never;
     };
@@ -5248,6 +5267,8 @@ export interface operations {
     responses: {
       200: {
         headers: {
+          /** @description `true` when this is the stored answer to an earlier request with the same Idempotency-Key. */
+          'Idempotency-Replayed'?: string;
           [name: string]: unknown;
         };
         content: {
@@ -5290,6 +5311,17 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description A request with the same Idempotency-Key is still running (type …/idempotency-key-in-use); retry after Retry-After for its answer. */
+      409: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description The body is larger than the server accepts (100 kB unless configured). */
       413: {
         headers: {
@@ -5308,7 +5340,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). */
+      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). Or the Idempotency-Key is malformed (…/invalid-input) or was used with a different request (…/idempotency-key-reused); `errors` names the header. */
       422: {
         headers: {
           [name: string]: unknown;
@@ -5656,7 +5688,10 @@ export interface operations {
   solveExposure: {
     parameters: {
       query?: never;
-      header?: never;
+      header?: {
+        /** @description Makes a retry safe (IETF draft "The Idempotency-Key HTTP Header Field"). The first request with a key runs; a retry with the same key and the same request (method, path and body; for an upload, the file bytes and fields) within 24 hours gets the first answer again, byte for byte, with `Idempotency-Replayed: true`, and is not metered, rate limited, counted against the quota or billed again. Successes and client errors (4xx) are kept; 5xx, 429, 401 and 403 are not, so a retry after them runs again. A retry while the first is still running gets 409 (…/idempotency-key-in-use, Retry-After); the same key with another request gets 422 (…/idempotency-key-reused). Keys are per API key (per user and organisation for the console): 1 to 255 printable ASCII characters, bare or as a quoted structured-field string; a random UUID is a good key. */
+        'Idempotency-Key'?: string;
+      };
       path?: never;
       cookie?: never;
     };
@@ -5668,6 +5703,8 @@ export interface operations {
     responses: {
       200: {
         headers: {
+          /** @description `true` when this is the stored answer to an earlier request with the same Idempotency-Key. */
+          'Idempotency-Replayed'?: string;
           [name: string]: unknown;
         };
         content: {
@@ -5701,6 +5738,17 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description A request with the same Idempotency-Key is still running (type …/idempotency-key-in-use); retry after Retry-After for its answer. */
+      409: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description The body is larger than the server accepts (100 kB unless configured). */
       413: {
         headers: {
@@ -5719,7 +5767,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). */
+      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). Or the Idempotency-Key is malformed (…/invalid-input) or was used with a different request (…/idempotency-key-reused); `errors` names the header. */
       422: {
         headers: {
           [name: string]: unknown;
@@ -5759,7 +5807,10 @@ export interface operations {
   computeFalloff: {
     parameters: {
       query?: never;
-      header?: never;
+      header?: {
+        /** @description Makes a retry safe (IETF draft "The Idempotency-Key HTTP Header Field"). The first request with a key runs; a retry with the same key and the same request (method, path and body; for an upload, the file bytes and fields) within 24 hours gets the first answer again, byte for byte, with `Idempotency-Replayed: true`, and is not metered, rate limited, counted against the quota or billed again. Successes and client errors (4xx) are kept; 5xx, 429, 401 and 403 are not, so a retry after them runs again. A retry while the first is still running gets 409 (…/idempotency-key-in-use, Retry-After); the same key with another request gets 422 (…/idempotency-key-reused). Keys are per API key (per user and organisation for the console): 1 to 255 printable ASCII characters, bare or as a quoted structured-field string; a random UUID is a good key. */
+        'Idempotency-Key'?: string;
+      };
       path?: never;
       cookie?: never;
     };
@@ -5771,6 +5822,8 @@ export interface operations {
     responses: {
       200: {
         headers: {
+          /** @description `true` when this is the stored answer to an earlier request with the same Idempotency-Key. */
+          'Idempotency-Replayed'?: string;
           [name: string]: unknown;
         };
         content: {
@@ -5804,6 +5857,17 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description A request with the same Idempotency-Key is still running (type …/idempotency-key-in-use); retry after Retry-After for its answer. */
+      409: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description The body is larger than the server accepts (100 kB unless configured). */
       413: {
         headers: {
@@ -5822,7 +5886,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). */
+      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). Or the Idempotency-Key is malformed (…/invalid-input) or was used with a different request (…/idempotency-key-reused); `errors` names the header. */
       422: {
         headers: {
           [name: string]: unknown;
@@ -5862,7 +5926,10 @@ export interface operations {
   computeFlash: {
     parameters: {
       query?: never;
-      header?: never;
+      header?: {
+        /** @description Makes a retry safe (IETF draft "The Idempotency-Key HTTP Header Field"). The first request with a key runs; a retry with the same key and the same request (method, path and body; for an upload, the file bytes and fields) within 24 hours gets the first answer again, byte for byte, with `Idempotency-Replayed: true`, and is not metered, rate limited, counted against the quota or billed again. Successes and client errors (4xx) are kept; 5xx, 429, 401 and 403 are not, so a retry after them runs again. A retry while the first is still running gets 409 (…/idempotency-key-in-use, Retry-After); the same key with another request gets 422 (…/idempotency-key-reused). Keys are per API key (per user and organisation for the console): 1 to 255 printable ASCII characters, bare or as a quoted structured-field string; a random UUID is a good key. */
+        'Idempotency-Key'?: string;
+      };
       path?: never;
       cookie?: never;
     };
@@ -5874,6 +5941,8 @@ export interface operations {
     responses: {
       200: {
         headers: {
+          /** @description `true` when this is the stored answer to an earlier request with the same Idempotency-Key. */
+          'Idempotency-Replayed'?: string;
           [name: string]: unknown;
         };
         content: {
@@ -5916,6 +5985,17 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description A request with the same Idempotency-Key is still running (type …/idempotency-key-in-use); retry after Retry-After for its answer. */
+      409: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description The body is larger than the server accepts (100 kB unless configured). */
       413: {
         headers: {
@@ -5934,7 +6014,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). */
+      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). Or the Idempotency-Key is malformed (…/invalid-input) or was used with a different request (…/idempotency-key-reused); `errors` names the header. */
       422: {
         headers: {
           [name: string]: unknown;
@@ -6042,7 +6122,10 @@ export interface operations {
   uploadFrame: {
     parameters: {
       query?: never;
-      header?: never;
+      header?: {
+        /** @description Makes a retry safe (IETF draft "The Idempotency-Key HTTP Header Field"). The first request with a key runs; a retry with the same key and the same request (method, path and body; for an upload, the file bytes and fields) within 24 hours gets the first answer again, byte for byte, with `Idempotency-Replayed: true`, and is not metered, rate limited, counted against the quota or billed again. Successes and client errors (4xx) are kept; 5xx, 429, 401 and 403 are not, so a retry after them runs again. A retry while the first is still running gets 409 (…/idempotency-key-in-use, Retry-After); the same key with another request gets 422 (…/idempotency-key-reused). Keys are per API key (per user and organisation for the console): 1 to 255 printable ASCII characters, bare or as a quoted structured-field string; a random UUID is a good key. */
+        'Idempotency-Key'?: string;
+      };
       path?: never;
       cookie?: never;
     };
@@ -6070,6 +6153,8 @@ export interface operations {
     responses: {
       201: {
         headers: {
+          /** @description `true` when this is the stored answer to an earlier request with the same Idempotency-Key. */
+          'Idempotency-Replayed'?: string;
           [name: string]: unknown;
         };
         content: {
@@ -6094,6 +6179,17 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description A request with the same Idempotency-Key is still running (type …/idempotency-key-in-use); retry after Retry-After for its answer. */
+      409: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description The file is larger than 25 MB. */
       413: {
         headers: {
@@ -6112,7 +6208,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description A field is invalid, the patch is outside the image, or the file is corrupt. */
+      /** @description A field is invalid, the patch is outside the image, or the file is corrupt; or the Idempotency-Key is malformed (…/invalid-input) or was used with a different upload (…/idempotency-key-reused). */
       422: {
         headers: {
           [name: string]: unknown;
@@ -9337,7 +9433,10 @@ export interface operations {
   planSetup: {
     parameters: {
       query?: never;
-      header?: never;
+      header?: {
+        /** @description Makes a retry safe (IETF draft "The Idempotency-Key HTTP Header Field"). The first request with a key runs; a retry with the same key and the same request (method, path and body; for an upload, the file bytes and fields) within 24 hours gets the first answer again, byte for byte, with `Idempotency-Replayed: true`, and is not metered, rate limited, counted against the quota or billed again. Successes and client errors (4xx) are kept; 5xx, 429, 401 and 403 are not, so a retry after them runs again. A retry while the first is still running gets 409 (…/idempotency-key-in-use, Retry-After); the same key with another request gets 422 (…/idempotency-key-reused). Keys are per API key (per user and organisation for the console): 1 to 255 printable ASCII characters, bare or as a quoted structured-field string; a random UUID is a good key. */
+        'Idempotency-Key'?: string;
+      };
       path?: never;
       cookie?: never;
     };
@@ -9349,6 +9448,8 @@ export interface operations {
     responses: {
       200: {
         headers: {
+          /** @description `true` when this is the stored answer to an earlier request with the same Idempotency-Key. */
+          'Idempotency-Replayed'?: string;
           [name: string]: unknown;
         };
         content: {
@@ -9391,6 +9492,17 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description A request with the same Idempotency-Key is still running (type …/idempotency-key-in-use); retry after Retry-After for its answer. */
+      409: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description The body is larger than the server accepts (100 kB unless configured). */
       413: {
         headers: {
@@ -9409,7 +9521,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). */
+      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). Or the Idempotency-Key is malformed (…/invalid-input) or was used with a different request (…/idempotency-key-reused); `errors` names the header. */
       422: {
         headers: {
           [name: string]: unknown;
@@ -10528,7 +10640,10 @@ export interface operations {
   computeTwilight: {
     parameters: {
       query?: never;
-      header?: never;
+      header?: {
+        /** @description Makes a retry safe (IETF draft "The Idempotency-Key HTTP Header Field"). The first request with a key runs; a retry with the same key and the same request (method, path and body; for an upload, the file bytes and fields) within 24 hours gets the first answer again, byte for byte, with `Idempotency-Replayed: true`, and is not metered, rate limited, counted against the quota or billed again. Successes and client errors (4xx) are kept; 5xx, 429, 401 and 403 are not, so a retry after them runs again. A retry while the first is still running gets 409 (…/idempotency-key-in-use, Retry-After); the same key with another request gets 422 (…/idempotency-key-reused). Keys are per API key (per user and organisation for the console): 1 to 255 printable ASCII characters, bare or as a quoted structured-field string; a random UUID is a good key. */
+        'Idempotency-Key'?: string;
+      };
       path?: never;
       cookie?: never;
     };
@@ -10540,6 +10655,8 @@ export interface operations {
     responses: {
       200: {
         headers: {
+          /** @description `true` when this is the stored answer to an earlier request with the same Idempotency-Key. */
+          'Idempotency-Replayed'?: string;
           [name: string]: unknown;
         };
         content: {
@@ -10573,6 +10690,17 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
+      /** @description A request with the same Idempotency-Key is still running (type …/idempotency-key-in-use); retry after Retry-After for its answer. */
+      409: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
       /** @description The body is larger than the server accepts (100 kB unless configured). */
       413: {
         headers: {
@@ -10591,7 +10719,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). */
+      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). Or the Idempotency-Key is malformed (…/invalid-input) or was used with a different request (…/idempotency-key-reused); `errors` names the header. */
       422: {
         headers: {
           [name: string]: unknown;

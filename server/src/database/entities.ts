@@ -5,6 +5,7 @@ import { FrameEntity } from '../frames/frame.entity.js';
 import { BILLING_ENTITIES } from '../billing/billing.entities.js';
 import { GEAR_ENTITIES } from '../gear/gear.entities.js';
 import { SetupEntity } from '../setups/setup.entity.js';
+import { IdempotencyKeyEntity } from '../idempotency/idempotency-key.entity.js';
 export const ENTITIES: (new (...args: never[]) => unknown)[] = [
   ...ACCOUNTS_ENTITIES,
   PlanEntity,
@@ -12,4 +13,5 @@ export const ENTITIES: (new (...args: never[]) => unknown)[] = [
   ...BILLING_ENTITIES,
   ...GEAR_ENTITIES,
   SetupEntity,
+  IdempotencyKeyEntity,
 ];

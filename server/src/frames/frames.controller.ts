@@ -1,4 +1,4 @@
-import { Controller, Get, HttpCode, Param, Post, Query, Req, Res, UseGuards } from '@nestjs/common';
+import { Controller, Get, HttpCode, Param, Post, Query, Req, Res } from '@nestjs/common';
 import { RouteConfig } from '@nestjs/platform-fastify';
 import {
   ApiBody,
@@ -14,13 +14,19 @@ import { ApiKeyAuth } from '../common/decorators/access.decorator.js';
 import { meteredTooManyRequests, problem } from '../common/decorators/problem-responses.js';
 import type { RequestWithPrincipal } from '../common/guards/access.guard.js';
 import { ApiQueryFromSchema, SchemaPipe } from '../compute/validation/schema-dto.js';
-import { MeteredCallGuard } from '../plans/metered-call.guard.js';
 import { KeyReadLimited } from '../plans/key-read.decorator.js';
+import type { IdempotentRouteConfig } from '../idempotency/idempotency.hook.js';
+import { IdempotentBody } from '../idempotency/idempotency.guard.js';
+import {
+  IDEMPOTENCY_REPLAYED_DOC,
+  IdempotentMeteredCall,
+} from '../idempotency/idempotent.decorator.js';
 import type { MeterRouteConfig } from '../usage/metering.hook.js';
 import { FrameListResponseDto, FrameResponseDto } from './dto/frame.dto.js';
 import { toFrameDto } from './frame.mapper.js';
 import { FramesService } from './frames.service.js';
 import { FrameIdPipe } from './frame-id.pipe.js';
+import { readFrameForKey } from './upload-reader.js';
 
 const listQuery = {
   type: 'object' as const,
@@ -48,9 +54,12 @@ export class FramesController {
   @Post()
   @ApiKeyAuth()
   // An upload is a metered call like a computation: rate limit, monthly quota, usage event, and
-  // one billable unit for a stored frame on a live key.
-  @UseGuards(MeteredCallGuard)
-  @RouteConfig({ meter: 'frames' } satisfies MeterRouteConfig)
+  // one billable unit for a stored frame on a live key. With an Idempotency-Key, a retried
+  // upload is answered from the first one's stored answer (no second frame, object or event).
+  @IdempotentMeteredCall()
+  @IdempotentBody(readFrameForKey)
+  @RouteConfig({ meter: 'frames', idempotent: true } satisfies MeterRouteConfig &
+    IdempotentRouteConfig)
   @HttpCode(201)
   @ApiOperation({
     summary:
@@ -81,12 +90,17 @@ export class FramesController {
       },
     },
   })
-  @ApiResponse({ status: 201, type: FrameResponseDto })
+  @ApiResponse({ status: 201, type: FrameResponseDto, headers: IDEMPOTENCY_REPLAYED_DOC })
   @problem(403, 'The plan does not include uploads (type …/plan-feature-missing).')
   @problem(413, 'The file is larger than 25 MB.')
   @meteredTooManyRequests()
   @problem(415, 'Not multipart, or the file is not JPEG or PNG (HEIC is not accepted).')
-  @problem(422, 'A field is invalid, the patch is outside the image, or the file is corrupt.')
+  @problem(
+    422,
+    'A field is invalid, the patch is outside the image, or the file is corrupt; or the ' +
+      'Idempotency-Key is malformed (…/invalid-input) or was used with a different upload ' +
+      '(…/idempotency-key-reused).',
+  )
   async uploadFrame(@Req() req: RequestWithPrincipal) {
     return toFrameDto(await this.frames.upload(req, req.principal!));
   }

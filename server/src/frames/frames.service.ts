@@ -14,7 +14,7 @@ import { thumbnail } from './analysis/decode.js';
 import { analyseFrame } from './frame-analysis.js';
 import { FrameEntity } from './frame.entity.js';
 import { ObjectStore } from './object-store.service.js';
-import { ACCEPTED_TYPES, readFrameUpload } from './upload-reader.js';
+import { ACCEPTED_TYPES, readFrameUpload, readUploadOf } from './upload-reader.js';
 
 @Injectable()
 export class FramesService {
@@ -54,7 +54,8 @@ export class FramesService {
 
   async upload(req: FastifyRequest, p: Principal): Promise<FrameEntity> {
     await this.assertUploadsAllowed(p);
-    const up = await readFrameUpload(req, this.config.framesMaxBytes);
+    // Read already when the request carries an Idempotency-Key (its fingerprint needs the bytes).
+    const up = readUploadOf(req) ?? (await readFrameUpload(req, this.config.framesMaxBytes));
     const maxPixels = this.config.framesMaxPixels;
     const result = await analyseFrame({
       buf: up.buf,

@@ -135,3 +135,32 @@ export async function readFrameUpload(req: FastifyRequest, maxBytes: number): Pr
     cameraKelvin: values.cameraKelvin ?? null,
   };
 }
+
+const READ = Symbol('frameUpload');
+type ReadRequest = FastifyRequest & { [READ]?: FrameUpload };
+
+/** The upload readFrameForKey already read from this request, if it did. */
+export function readUploadOf(req: FastifyRequest): FrameUpload | undefined {
+  return (req as ReadRequest)[READ];
+}
+
+/**
+ * An upload carrying an Idempotency-Key is read before the limits are taken (a replay must take
+ * nothing): read it once here, keep it on the request for the handler, and identify it by the
+ * file's bytes (SHA-256) and the fields that change the answer; the multipart framing (boundary,
+ * part order) does not count, so a retry that frames the same form differently is the same
+ * request.
+ */
+export async function readFrameForKey(
+  req: FastifyRequest,
+  config: { framesMaxBytes: number },
+): Promise<string> {
+  const up = await readFrameUpload(req, config.framesMaxBytes);
+  (req as ReadRequest)[READ] = up;
+  return JSON.stringify({
+    file: up.sha256,
+    fileName: up.fileName,
+    patch: up.patch,
+    cameraKelvin: up.cameraKelvin,
+  });
+}

@@ -61,6 +61,8 @@ export class MeteringHook {
   }
 
   private meter(endpoint: string, req: RequestWithPrincipal, reply: FastifyReply) {
+    // A replayed answer (Idempotency-Key) was metered when it was first made.
+    if ((req as MeteredRequestExtras).idempotentReplay) return;
     const status = reply.statusCode;
     const latencyMs = reply.elapsedTime;
     const occurredAt = new Date();

@@ -38,4 +38,6 @@ export function isoTimestamp(d: Date): string {
 export interface MeteredRequestExtras {
   /** Gives the call back to the monthly quota when it did not succeed. */
   quotaRefund?: () => void;
+  /** An Idempotency-Key replay: the stored answer sent again, not metered (src/idempotency). */
+  idempotentReplay?: boolean;
 }

@@ -30,13 +30,15 @@ export interface RunningFake {
 
 /**
  * Starts `scripts/lib/<name>.mjs` in a child Node process (Jest runs CommonJS and cannot import
- * the ESM module itself). The child prints the fake's env as one JSON line and calls the fake's
+ * the ESM module itself), with `opts` passed to its start() (a fixed port, to bring a stopped fake
+ * back where the server expects it). The child prints the fake's env as one JSON line and calls the fake's
  * stop() on SIGTERM; stop() here signals that one PID and waits for it to exit.
  */
-export async function startFake(name: string): Promise<RunningFake> {
+export async function startFake(name: string, opts: { port?: number } = {}): Promise<RunningFake> {
   const mod = path.join(ROOT, 'scripts/lib', `${name}.mjs`);
+  const args = JSON.stringify({ root: ROOT, ...opts });
   const script = `
-    const f = await (await import(${JSON.stringify(mod)})).start({ root: ${JSON.stringify(ROOT)} });
+    const f = await (await import(${JSON.stringify(mod)})).start(${args});
     process.stdout.write(JSON.stringify({ env: f.env, urls: f.urls }) + '\\n');
     process.on('SIGTERM', async () => { await f.stop(); process.exit(0); });
     setInterval(() => undefined, 1 << 30);`;

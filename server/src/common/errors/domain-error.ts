@@ -1,13 +1,18 @@
 // Domain errors carry a stable code; the problem filter maps each code to an HTTP status.
 // Every 422 that names fields is 'invalid_input' (…/problems/invalid-input): a body field out of
 // range, a patch outside the image and an upload that is not a readable image are all "this
-// field's value cannot be used", so callers branch on one type and read `errors`.
+// field's value cannot be used", so callers branch on one type and read `errors`. The two
+// Idempotency-Key refusals have their own types: a client branches on them to tell "wait and
+// retry" (…/idempotency-key-in-use, 409) from "this key belongs to another request"
+// (…/idempotency-key-reused, 422).
 export type DomainErrorCode =
   | 'invalid_input'
   | 'unauthenticated'
   | 'forbidden'
   | 'not_found'
   | 'conflict'
+  | 'idempotency_key_in_use'
+  | 'idempotency_key_reused'
   | 'rate_limited'
   | 'quota_exceeded'
   | 'payload_too_large'
@@ -20,6 +25,8 @@ export const STATUS_BY_CODE: Record<DomainErrorCode, number> = {
   forbidden: 403,
   not_found: 404,
   conflict: 409,
+  idempotency_key_in_use: 409,
+  idempotency_key_reused: 422,
   rate_limited: 429,
   quota_exceeded: 429,
   payload_too_large: 413,

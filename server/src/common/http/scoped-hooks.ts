@@ -7,6 +7,7 @@ import type {
   FastifyInstance,
   onRequestHookHandler,
   onResponseHookHandler,
+  onSendHookHandler,
   RouteOptions,
 } from 'fastify';
 
@@ -75,9 +76,10 @@ export function appendRouteHook(
   kind: 'onResponse',
   hook: onResponseHookHandler,
 ): void;
+export function appendRouteHook(route: RouteOptions, kind: 'onSend', hook: onSendHookHandler): void;
 export function appendRouteHook(
   route: RouteOptions,
-  kind: 'onRequest' | 'onResponse',
+  kind: 'onRequest' | 'onResponse' | 'onSend',
   hook: unknown,
 ): void {
   const own: unknown = route[kind];

@@ -7,6 +7,7 @@ import { GearSetups1764979200000 } from './1764979200000-GearSetups.js';
 import { Billing1765065600000 } from './1765065600000-Billing.js';
 import { UserPreferences1765152000000 } from './1765152000000-UserPreferences.js';
 import { UsageErrorIndex1765238400000 } from './1765238400000-UsageErrorIndex.js';
+import { IdempotencyKeys1765324800000 } from './1765324800000-IdempotencyKeys.js';
 
 export const MIGRATIONS = [
   Init1764633600000,
@@ -17,4 +18,5 @@ export const MIGRATIONS = [
   Billing1765065600000,
   UserPreferences1765152000000,
   UsageErrorIndex1765238400000,
+  IdempotencyKeys1765324800000,
 ];

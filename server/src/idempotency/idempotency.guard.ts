@@ -1,0 +1,97 @@
+// Idempotency-Key on the metered POSTs: runs after the AccessGuard (it scopes keys by caller)
+// and before the MeteredCallGuard, so a replayed or refused retry takes nothing from the rate
+// limit or the monthly quota. Without the header it returns at once: one header lookup.
+import { createHash } from 'node:crypto';
+import { CanActivate, ExecutionContext, Inject, Injectable, SetMetadata } from '@nestjs/common';
+import { Reflector } from '@nestjs/core';
+import type { FastifyRequest } from 'fastify';
+import { DomainError } from '../common/errors/domain-error.js';
+import type { Principal, RequestWithPrincipal } from '../common/guards/access.guard.js';
+import { APP_CONFIG, type AppConfig } from '../config/config.js';
+import type { MeteredRequestExtras } from '../usage/usage-event.js';
+import { IDEMPOTENCY_KEY_HEADER, parseIdempotencyKey } from './idempotency-header.js';
+import { IdempotencyService, type HeldKey, type StoredAnswer } from './idempotency.service.js';
+
+/**
+ * For a route whose handler reads the body itself (a multipart upload): reads it, leaves what it
+ * read on the request for the handler, and returns what identifies it (the fingerprint's input).
+ */
+export type IdempotentBodyReader = (req: FastifyRequest, config: AppConfig) => Promise<string>;
+export const IDEMPOTENT_BODY = 'lumenwright:idempotent-body';
+export const IdempotentBody = (reader: IdempotentBodyReader) =>
+  SetMetadata(IDEMPOTENT_BODY, reader);
+
+export interface IdempotentRequest extends RequestWithPrincipal, MeteredRequestExtras {
+  rawBody?: Buffer;
+  /** The key this request holds: its answer is stored when it is sent (idempotency.hook.ts). */
+  idempotency?: HeldKey & { settled?: boolean };
+}
+
+/** Thrown to answer with a stored response; IdempotentReplayFilter sends it. */
+export class IdempotentReplay {
+  constructor(readonly answer: StoredAnswer) {}
+}
+
+/** A caller's keys are its own: an API key's, or a console user's in one organisation. */
+export function callerOf(p: Principal): string {
+  return p.kind === 'api-key' ? `key:${p.keyId}` : `user:${p.userId}:${p.organizationId}`;
+}
+
+/** SHA-256 of the method, the route and the body: a retry must send the same request. */
+export function fingerprintOf(method: string, route: string, body: Buffer | string): string {
+  return createHash('sha256').update(`${method} ${route}\n`).update(body).digest('hex');
+}
+
+@Injectable()
+export class IdempotencyGuard implements CanActivate {
+  constructor(
+    @Inject(Reflector) private readonly reflector: Reflector,
+    private readonly keys: IdempotencyService,
+    @Inject(APP_CONFIG) private readonly config: AppConfig,
+  ) {}
+
+  canActivate(ctx: ExecutionContext): boolean | Promise<boolean> {
+    const req = ctx.switchToHttp().getRequest<IdempotentRequest>();
+    const raw = req.headers['idempotency-key'];
+    if (raw === undefined) return true;
+    return this.claim(ctx, req, raw);
+  }
+
+  private async claim(
+    ctx: ExecutionContext,
+    req: IdempotentRequest,
+    raw: string | string[],
+  ): Promise<boolean> {
+    const key = parseIdempotencyKey(raw)!;
+    const p = req.principal;
+    if (!p) throw new DomainError('unauthenticated', 'Sign in or send an API key.');
+    const reader = this.reflector.get<IdempotentBodyReader | undefined>(
+      IDEMPOTENT_BODY,
+      ctx.getHandler(),
+    );
+    const body = reader ? await reader(req, this.config) : (req.rawBody ?? '');
+    const fingerprint = fingerprintOf(req.method, req.routeOptions.url ?? req.url, body);
+    const claim = await this.keys.claim(callerOf(p), key, p.organizationId, fingerprint);
+    switch (claim.kind) {
+      case 'held':
+        req.idempotency = claim.held;
+        return true;
+      case 'replay':
+        req.idempotentReplay = true;
+        throw new IdempotentReplay(claim.answer);
+      case 'in-flight':
+        throw new DomainError(
+          'idempotency_key_in_use',
+          `A request with this ${IDEMPOTENCY_KEY_HEADER} is still being processed; retry after Retry-After to get its answer.`,
+          [{ field: IDEMPOTENCY_KEY_HEADER, reason: 'is held by a request still in progress' }],
+          { 'Retry-After': '1' },
+        );
+      case 'mismatch':
+        throw new DomainError(
+          'idempotency_key_reused',
+          `This ${IDEMPOTENCY_KEY_HEADER} was used with a different request (another body or endpoint) in the last 24 hours; send a new key for a new request.`,
+          [{ field: IDEMPOTENCY_KEY_HEADER, reason: 'was already used for a different request' }],
+        );
+    }
+  }
+}

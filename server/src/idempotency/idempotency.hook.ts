@@ -1,0 +1,112 @@
+// Stores the answer of a request that holds an Idempotency-Key, as it is sent: a route-level
+// Fastify onSend hook on the routes marked `@RouteConfig({ idempotent: true })` (the payload is
+// already serialised there, so a replay sends the very same bytes). Written before the answer
+// leaves, so a client that retries after reading it is replayed, never told "in progress".
+//
+// What is stored follows the draft ("respond with the result of the previously completed
+// operation, success or an error"): 2xx answers and the 4xx that say the request itself is wrong
+// (422 a field out of range, 404 an unknown gear id, 413/415 a body we cannot take). Not stored,
+// so a retry with the same key runs again: 5xx (our fault: the retry may succeed), 429 (limits:
+// nothing was done; retry after Retry-After), 401/403 (who may call, or a plan without the
+// feature: an upgrade must not be masked by a stored refusal), 408/409/425 (timing).
+import { Inject, Injectable, Logger } from '@nestjs/common';
+import { HttpAdapterHost } from '@nestjs/core';
+import type {
+  FastifyInstance,
+  onResponseHookHandler,
+  onSendHookHandler,
+  RouteOptions,
+} from 'fastify';
+import { appendRouteHook } from '../common/http/scoped-hooks.js';
+import type { IdempotentRequest } from './idempotency.guard.js';
+import { IdempotencyService } from './idempotency.service.js';
+
+export interface IdempotentRouteConfig {
+  idempotent?: boolean;
+}
+
+const NOT_STORED = new Set([401, 403, 408, 409, 425, 429]);
+
+/** Whether an answer with this status is kept for replays. */
+export function isStoredStatus(status: number): boolean {
+  return (
+    status >= 200 && status < 500 && !(status >= 300 && status < 400) && !NOT_STORED.has(status)
+  );
+}
+
+/**
+ * Headers replayed with the body: what describes the body and where a created thing is. Not the
+ * RateLimit fields (they describe the bucket when the first request ran; a replay takes nothing
+ * from it), not X-Request-Id (each request has its own), not the security headers (added to
+ * every /v1 answer anyway), not Content-Length (recomputed).
+ */
+export const REPLAYED_HEADERS = [
+  'content-type',
+  'content-language',
+  'location',
+  'content-location',
+];
+
+@Injectable()
+export class IdempotencyHook {
+  private readonly logger = new Logger('Idempotency');
+
+  constructor(
+    host: HttpAdapterHost,
+    @Inject(IdempotencyService) private readonly keys: IdempotencyService,
+  ) {
+    // Built before Nest adds the routes (at init), so the onRoute hook sees them all.
+    host.httpAdapter
+      ?.getInstance<FastifyInstance>()
+      .addHook('onRoute', (route) => this.attach(route));
+  }
+
+  attach(route: RouteOptions): void {
+    if (!(route.config as IdempotentRouteConfig | undefined)?.idempotent) return;
+    const onSend: onSendHookHandler = (req, reply, payload, done) => {
+      const held = (req as IdempotentRequest).idempotency;
+      if (!held || held.settled) return done(null, payload);
+      held.settled = true;
+      const status = reply.statusCode;
+      const body =
+        typeof payload === 'string'
+          ? Buffer.from(payload)
+          : Buffer.isBuffer(payload)
+            ? payload
+            : null;
+      const write =
+        body && isStoredStatus(status)
+          ? this.keys.complete(held, { status, headers: replayedHeaders(reply.getHeaders()), body })
+          : this.keys.release(held);
+      // A failed write leaves the key in flight (a retry is told to wait, never run twice) until
+      // it goes stale; the caller still gets this answer.
+      write.then(
+        () => done(null, payload),
+        (err: unknown) => {
+          this.logger.warn(`idempotency key not settled: ${(err as Error).message}`);
+          done(null, payload);
+        },
+      );
+    };
+    // An answer that never went through onSend (the connection closed first): let the key go.
+    const onResponse: onResponseHookHandler = (req, _reply, done) => {
+      const held = (req as IdempotentRequest).idempotency;
+      if (held && !held.settled) {
+        held.settled = true;
+        this.keys.release(held).catch(() => undefined);
+      }
+      done();
+    };
+    appendRouteHook(route, 'onSend', onSend);
+    appendRouteHook(route, 'onResponse', onResponse);
+  }
+}
+
+function replayedHeaders(all: Record<string, unknown>): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const name of REPLAYED_HEADERS) {
+    const v = all[name];
+    if (typeof v === 'string' || typeof v === 'number') out[name] = String(v);
+  }
+  return out;
+}

@@ -1,0 +1,14 @@
+import { Module } from '@nestjs/common';
+import { PlansModule } from '../plans/plans.module.js';
+import { IdempotencyGuard } from './idempotency.guard.js';
+import { IdempotencyHook } from './idempotency.hook.js';
+import { IdempotencyService } from './idempotency.service.js';
+import { IdempotencySweeper } from './idempotency-sweeper.service.js';
+
+/** Idempotency-Key for the metered POSTs (computations and frame uploads). */
+@Module({
+  imports: [PlansModule],
+  providers: [IdempotencyService, IdempotencyGuard, IdempotencyHook, IdempotencySweeper],
+  exports: [IdempotencyService, IdempotencyGuard, IdempotencySweeper, PlansModule],
+})
+export class IdempotencyModule {}

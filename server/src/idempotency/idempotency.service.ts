@@ -1,0 +1,146 @@
+// The idempotency_keys table: claim a key for a request, store the answer it got, or let go of
+// it. Every step is one statement, so two instances (or two requests on one) racing for the
+// same key always agree on which of them holds it.
+import { Injectable } from '@nestjs/common';
+import { InjectDataSource } from '@nestjs/typeorm';
+import { DataSource } from 'typeorm';
+import { databaseUnavailable } from '../plans/plans.service.js';
+
+/** How long a key (and the answer stored for it) lasts after its first request. */
+export const IDEMPOTENCY_TTL_MS = 24 * 3600_000;
+/**
+ * A key still marked in flight this long after its request started belongs to a request that
+ * will never finish (its instance stopped mid-request): a retry with the same body may take it
+ * over. Far longer than any upload or computation takes.
+ */
+export const IDEMPOTENCY_STALE_MS = 10 * 60_000;
+
+/** A key this request holds until its answer is stored (or let go). */
+export interface HeldKey {
+  caller: string;
+  key: string;
+  /**
+   * When this request claimed the key, as PostgreSQL wrote it (text: a JS Date would drop the
+   * microseconds). A later takeover changes it, so this request's writes then match nothing.
+   */
+  claimedAt: string;
+}
+
+export interface StoredAnswer {
+  status: number;
+  headers: Record<string, string>;
+  body: Buffer;
+}
+
+export type Claim =
+  | { kind: 'held'; held: HeldKey }
+  | { kind: 'replay'; answer: StoredAnswer }
+  | { kind: 'in-flight' }
+  | { kind: 'mismatch' };
+
+// Takes the key when nobody holds it, when it has expired, or when the request holding it is
+// stale and this one is the same request.
+const CLAIM = `
+  INSERT INTO idempotency_keys AS k
+    (caller, key, organization_id, fingerprint, state, created_at, expires_at)
+  VALUES ($1, $2, $3, $4, 'in_flight', now(), now() + $5 * interval '1 millisecond')
+  ON CONFLICT (caller, key) DO UPDATE SET
+    organization_id = EXCLUDED.organization_id,
+    fingerprint = EXCLUDED.fingerprint,
+    state = 'in_flight',
+    status = NULL,
+    headers = NULL,
+    body = NULL,
+    created_at = EXCLUDED.created_at,
+    expires_at = EXCLUDED.expires_at
+  WHERE k.expires_at <= now()
+     OR (k.state = 'in_flight' AND k.fingerprint = EXCLUDED.fingerprint
+         AND k.created_at <= now() - $6 * interval '1 millisecond')
+  RETURNING created_at::text AS claimed_at`;
+
+const EXISTING = `
+  SELECT fingerprint, state, status, headers, body FROM idempotency_keys
+   WHERE caller = $1 AND key = $2 AND expires_at > now()`;
+
+@Injectable()
+export class IdempotencyService {
+  constructor(@InjectDataSource() private readonly ds: DataSource) {}
+
+  private async query<T>(sql: string, params: unknown[]): Promise<T[]> {
+    return this.ds.query(sql, params).catch((err: unknown) => {
+      throw databaseUnavailable(err);
+    }) as Promise<T[]>;
+  }
+
+  /** What a request carrying `key` may do: run (it holds the key now), replay, or be refused. */
+  async claim(caller: string, key: string, orgId: string, fingerprint: string): Promise<Claim> {
+    // Twice at most: a key let go (or expired) between the two statements is free again.
+    for (let attempt = 0; attempt < 3; attempt++) {
+      const claimed = await this.query<{ claimed_at: string }>(CLAIM, [
+        caller,
+        key,
+        orgId,
+        fingerprint,
+        IDEMPOTENCY_TTL_MS,
+        IDEMPOTENCY_STALE_MS,
+      ]);
+      if (claimed[0])
+        return { kind: 'held', held: { caller, key, claimedAt: claimed[0].claimed_at } };
+      const [row] = await this.query<{
+        fingerprint: string;
+        state: 'in_flight' | 'done';
+        status: number | null;
+        headers: Record<string, string> | null;
+        body: Buffer | null;
+      }>(EXISTING, [caller, key]);
+      if (!row) continue;
+      if (row.fingerprint !== fingerprint) return { kind: 'mismatch' };
+      if (row.state === 'in_flight') return { kind: 'in-flight' };
+      return {
+        kind: 'replay',
+        answer: {
+          status: row.status ?? 200,
+          headers: row.headers ?? {},
+          body: row.body ?? Buffer.alloc(0),
+        },
+      };
+    }
+    return { kind: 'in-flight' };
+  }
+
+  /** Stores the answer a held key's request got, for replays until the key expires. */
+  async complete(held: HeldKey, answer: StoredAnswer): Promise<void> {
+    await this.query(
+      `UPDATE idempotency_keys SET state = 'done', status = $4, headers = $5, body = $6
+        WHERE caller = $1 AND key = $2 AND created_at = $3::timestamptz AND state = 'in_flight'`,
+      [held.caller, held.key, held.claimedAt, answer.status, answer.headers, answer.body],
+    );
+  }
+
+  /** Lets go of a held key without storing anything: the next request with it runs afresh. */
+  async release(held: HeldKey): Promise<void> {
+    await this.query(
+      `DELETE FROM idempotency_keys
+        WHERE caller = $1 AND key = $2 AND created_at = $3::timestamptz AND state = 'in_flight'`,
+      [held.caller, held.key, held.claimedAt],
+    );
+  }
+
+  /** Deletes expired keys, a batch at a time; returns how many. */
+  async sweep(batch = 10_000): Promise<number> {
+    let total = 0;
+    for (;;) {
+      const rows = await this.query<{ n: number }>(
+        `WITH gone AS (
+           DELETE FROM idempotency_keys WHERE ctid IN (
+             SELECT ctid FROM idempotency_keys WHERE expires_at <= now() LIMIT $1)
+           RETURNING 1)
+         SELECT count(*)::int AS n FROM gone`,
+        [batch],
+      );
+      const n = rows[0]?.n ?? 0;
+      total += n;
+      if (n < batch) return total;
+    }
+  }
+}

@@ -1,0 +1,408 @@
+// Idempotency-Key on the metered POSTs, end to end: real PostgreSQL, the local S3 fake, real keys
+// and sessions. Behaviour from the IETF httpapi draft "The Idempotency-Key HTTP Header Field"
+// (retry after completion: the first answer again; key reused with another payload: 422; retry
+// while the first is in progress: 409).
+import { ListObjectsV2Command, S3Client } from '@aws-sdk/client-s3';
+import request from 'supertest';
+import type { DataSource } from 'typeorm';
+import { signUp, type SignedInAgent } from '../factories/accounts.js';
+import { createKey, DEMO_BODIES } from '../factories/compute.js';
+import { renderFrame, startFake, type RunningFake } from '../factories/frames.js';
+import { IdempotencySweeper } from '../../src/idempotency/idempotency-sweeper.service.js';
+import { UsageWriter } from '../../src/usage/usage-writer.service.js';
+import { bootApp, type TestApp } from '../setup/app.js';
+import { openDataSource } from '../setup/db.js';
+
+const PROBLEMS = 'https://lumenwright.test/problems/';
+const CONSOLE_ORIGIN = 'http://127.0.0.1:5173';
+// CIE 15:2004, Table T.3: chromaticity of illuminant D65, x = 0.31271, y = 0.32902 (a neutral
+// patch; the colour read from it is not what these tests check).
+const D65 = { cx: 0.31271, cy: 0.32902 };
+const PATCH = { x: 160, y: 100, width: 160, height: 120 };
+
+type Key = { id: string; secret: string };
+
+describe('Idempotency-Key', () => {
+  let t: TestApp;
+  let s3fake: RunningFake;
+  let s3: S3Client;
+  let ds: DataSource;
+  let studio: SignedInAgent;
+  let live: Key;
+  let n = 0;
+  const newKey = () => `retry-${Date.now().toString(36)}-${++n}`;
+
+  beforeAll(async () => {
+    s3fake = await startFake('s3-fake');
+    t = await bootApp({ ...s3fake.env, CORS_ORIGINS: CONSOLE_ORIGIN });
+    ds = await openDataSource();
+    s3 = new S3Client({
+      endpoint: s3fake.env.S3_ENDPOINT,
+      region: 'us-east-1',
+      forcePathStyle: true,
+      credentials: { accessKeyId: 'S3RVER', secretAccessKey: 'S3RVER' },
+    });
+    studio = await signUp(t.url, { organizationName: 'Saltmarsh Quay Portraits' });
+    // Uploads are a plan feature (studio plan).
+    await ds.query(`UPDATE organizations SET plan_code = 'studio' WHERE id = $1`, [
+      studio.organizationId,
+    ]);
+    live = await createKey(studio, 'live');
+  });
+
+  afterAll(async () => {
+    await t?.close();
+    await ds?.destroy();
+    s3?.destroy();
+    await s3fake?.stop();
+  });
+
+  const compute = (secret: string, endpoint: string, body: object, key?: string) => {
+    const r = request(t.url).post(`/v1/${endpoint}`).set('Authorization', `Bearer ${secret}`);
+    return (key === undefined ? r : r.set('Idempotency-Key', key)).send(body);
+  };
+  const upload = (secret: string, img: Buffer, key?: string, cameraKelvin = '5500') => {
+    let r = request(t.url).post('/v1/frames').set('Authorization', `Bearer ${secret}`);
+    if (key !== undefined) r = r.set('Idempotency-Key', key);
+    return r
+      .attach('file', img, { filename: 'quay-test.jpg', contentType: 'image/jpeg' })
+      .field('patchX', String(PATCH.x))
+      .field('patchY', String(PATCH.y))
+      .field('patchWidth', String(PATCH.width))
+      .field('patchHeight', String(PATCH.height))
+      .field('cameraKelvin', cameraKelvin);
+  };
+  const frameImage = () => renderFrame({ patch: { ...PATCH, ...D65, Y: 0.3 } });
+  const framesOf = async (orgId: string) =>
+    (await ds.query(`SELECT id FROM frames WHERE organization_id = $1`, [orgId])) as {
+      id: string;
+    }[];
+  const objectsOf = async (orgId: string, frameId: string) => {
+    const out = await s3.send(
+      new ListObjectsV2Command({ Bucket: s3fake.env.S3_BUCKET, Prefix: `frames/${orgId}/` }),
+    );
+    return (out.Contents ?? []).map((o) => o.Key!).filter((k) => k.includes(frameId));
+  };
+  /** The usage events of a key on an endpoint, once every event of the calls made is written. */
+  const usageOf = async (keyId: string, endpoint: string, expected: number) => {
+    const read = () =>
+      ds.query(
+        `SELECT status, billable_units FROM usage_events
+          WHERE key_id = $1 AND endpoint = $2 ORDER BY occurred_at, status`,
+        [keyId, endpoint],
+      ) as Promise<{ status: number; billable_units: number }[]>;
+    let rows = await read();
+    for (let i = 0; i < 100 && rows.length < expected; i++) {
+      await new Promise((r) => setTimeout(r, 50));
+      await t.app.get(UsageWriter).flush();
+      rows = await read();
+    }
+    // Room for an event that should not exist to arrive, then read again.
+    await new Promise((r) => setTimeout(r, 300));
+    await t.app.get(UsageWriter).flush();
+    return read();
+  };
+
+  it('answers a retried upload from the first: one frame row, one stored original, one usage event, the same bytes', async () => {
+    const owner = await signUp(t.url, { organizationName: 'Heronsgate Studio' });
+    await ds.query(`UPDATE organizations SET plan_code = 'studio' WHERE id = $1`, [
+      owner.organizationId,
+    ]);
+    const key = await createKey(owner, 'live');
+    const img = await frameImage();
+    const k = newKey();
+    const first = await upload(key.secret, img, k);
+    expect(first.status).toBe(201);
+    expect(first.headers['idempotency-replayed']).toBeUndefined();
+    // The retry frames the form anew (supertest picks a new multipart boundary): same request.
+    const retry = await upload(key.secret, img, k);
+    expect(retry.status).toBe(201);
+    expect(retry.headers['idempotency-replayed']).toBe('true');
+    expect(retry.headers['content-type']).toBe(first.headers['content-type']);
+    expect(retry.text).toBe(first.text);
+    // A replay takes nothing from the rate limit: it carries no RateLimit fields.
+    expect(first.headers['ratelimit']).toBeDefined();
+    expect(retry.headers['ratelimit']).toBeUndefined();
+
+    const frames = await framesOf(owner.organizationId);
+    expect(frames).toEqual([{ id: first.body.id }]);
+    expect((await objectsOf(owner.organizationId, first.body.id)).sort()).toEqual([
+      `frames/${owner.organizationId}/${first.body.id}/original.jpg`,
+      `frames/${owner.organizationId}/${first.body.id}/thumbnail.jpg`,
+    ]);
+    expect(await usageOf(key.id, 'frames', 1)).toEqual([{ status: 201, billable_units: 1 }]);
+  });
+
+  it('counts a retried computation once against the monthly quota', async () => {
+    const owner = await signUp(t.url, { organizationName: 'Lanternfield Portraits' });
+    const key = await createKey(owner, 'live');
+    const now = new Date();
+    const period = new Date(Date.UTC(now.getUTCFullYear(), now.getUTCMonth(), 1))
+      .toISOString()
+      .slice(0, 10);
+    // One call left of the free plan's month.
+    await ds.query(
+      `INSERT INTO quota_counters (organization_id, period_start, mode, reserved)
+       SELECT $1, $2, 'live', included_calls_per_month - 1 FROM plans WHERE code = 'free'`,
+      [owner.organizationId, period],
+    );
+    const k = newKey();
+    const first = await compute(key.secret, 'balance', DEMO_BODIES.balance!, k);
+    expect(first.status).toBe(200);
+    const retry = await compute(key.secret, 'balance', DEMO_BODIES.balance!, k);
+    expect(retry.status).toBe(200);
+    expect(retry.headers['idempotency-replayed']).toBe('true');
+    expect(retry.text).toBe(first.text);
+    // The month's last call went to the first request only: a new one is over the quota.
+    const next = await compute(key.secret, 'balance', DEMO_BODIES.balance!);
+    expect(next.status).toBe(429);
+    expect(next.body.type).toBe(`${PROBLEMS}quota-exceeded`);
+    expect(await usageOf(key.id, 'balance', 2)).toEqual([
+      { status: 200, billable_units: 1 },
+      { status: 429, billable_units: 0 },
+    ]);
+  });
+
+  it('refuses the same key with another body or endpoint: 422 naming the header, the first answer kept', async () => {
+    const k = newKey();
+    const first = await compute(
+      live.secret,
+      'balance',
+      { cameraKelvin: 3800, flashKelvin: 5600 },
+      k,
+    );
+    expect(first.status).toBe(200);
+    const other = await compute(
+      live.secret,
+      'balance',
+      { cameraKelvin: 3200, flashKelvin: 5600 },
+      k,
+    );
+    expect(other.status).toBe(422);
+    expect(other.headers['content-type']).toMatch(/^application\/problem\+json/);
+    expect(other.body).toMatchObject({
+      type: `${PROBLEMS}idempotency-key-reused`,
+      status: 422,
+      errors: [{ field: 'Idempotency-Key', reason: expect.stringMatching(/different request/) }],
+    });
+    const elsewhere = await compute(live.secret, 'exposure', DEMO_BODIES.exposure!, k);
+    expect(elsewhere.status).toBe(422);
+    expect(elsewhere.body.type).toBe(`${PROBLEMS}idempotency-key-reused`);
+    const again = await compute(
+      live.secret,
+      'balance',
+      { cameraKelvin: 3800, flashKelvin: 5600 },
+      k,
+    );
+    expect(again.headers['idempotency-replayed']).toBe('true');
+    expect(again.text).toBe(first.text);
+  });
+
+  it('answers 409 with Retry-After while the first request with the key is still running', async () => {
+    const img = await frameImage();
+    const k = newKey();
+    const before = (await framesOf(studio.organizationId)).length;
+    const both = await Promise.all([upload(live.secret, img, k), upload(live.secret, img, k)]);
+    const statuses = both.map((r) => r.status).sort();
+    expect(statuses).toEqual([201, 409]);
+    const conflict = both.find((r) => r.status === 409)!;
+    expect(conflict.headers['content-type']).toMatch(/^application\/problem\+json/);
+    expect(conflict.headers['retry-after']).toBe('1');
+    expect(conflict.body).toMatchObject({
+      type: `${PROBLEMS}idempotency-key-in-use`,
+      status: 409,
+      errors: [{ field: 'Idempotency-Key', reason: expect.any(String) }],
+    });
+    expect((await framesOf(studio.organizationId)).length).toBe(before + 1);
+    // Once the first has finished, the retry gets its answer.
+    const created = both.find((r) => r.status === 201)!;
+    const later = await upload(live.secret, img, k);
+    expect(later.headers['idempotency-replayed']).toBe('true');
+    expect(later.text).toBe(created.text);
+  });
+
+  it('lets a retry take over a key whose request never finished (stale in-flight), same request only', async () => {
+    const k = newKey();
+    const first = await compute(live.secret, 'flash', DEMO_BODIES.flash!, k);
+    expect(first.status).toBe(200);
+    // As if the instance stopped mid-request 11 minutes ago: in flight, no answer stored.
+    await ds.query(
+      `UPDATE idempotency_keys SET state = 'in_flight', status = NULL, headers = NULL, body = NULL,
+         created_at = now() - interval '11 minutes' WHERE caller = $1 AND key = $2`,
+      [`key:${live.id}`, k],
+    );
+    const other = await compute(live.secret, 'flash', { ...DEMO_BODIES.flash!, distance: 4 }, k);
+    expect(other.status).toBe(422);
+    const retry = await compute(live.secret, 'flash', DEMO_BODIES.flash!, k);
+    expect(retry.status).toBe(200);
+    expect(retry.headers['idempotency-replayed']).toBeUndefined();
+    expect(retry.body).toEqual(first.body);
+  });
+
+  it("keeps each caller's keys apart: API keys, another organisation and a console user", async () => {
+    const k = newKey();
+    const test = await createKey(studio, 'test');
+    const elsewhere = await signUp(t.url, { organizationName: 'Fernhollow Studio' });
+    const theirs = await createKey(elsewhere, 'live');
+    const bodies = [3000, 3400, 3800, 4200].map((cameraKelvin) => ({
+      cameraKelvin,
+      flashKelvin: 5600,
+    }));
+    const answers = [
+      await compute(live.secret, 'balance', bodies[0]!, k),
+      await compute(test.secret, 'balance', bodies[1]!, k),
+      await compute(theirs.secret, 'balance', bodies[2]!, k),
+      await studio.agent.post('/v1/balance').set('Idempotency-Key', k).send(bodies[3]!),
+    ];
+    for (const [i, res] of answers.entries()) {
+      expect(res.status).toBe(200);
+      expect(res.headers['idempotency-replayed']).toBeUndefined();
+      // Each answer is for its own body, not another caller's stored one.
+      const fresh = await compute(live.secret, 'balance', bodies[i]!);
+      expect(res.body).toEqual(fresh.body);
+    }
+    const rows = await ds.query(`SELECT caller FROM idempotency_keys WHERE key = $1`, [k]);
+    expect(rows).toHaveLength(4);
+    // A console user's retry is replayed too.
+    const again = await studio.agent.post('/v1/balance').set('Idempotency-Key', k).send(bodies[3]!);
+    expect(again.headers['idempotency-replayed']).toBe('true');
+    expect(again.text).toBe(answers[3]!.text);
+  });
+
+  it('forgets a key 24 hours on: the key works again, and the sweeper deletes expired rows', async () => {
+    const k = newKey();
+    const first = await compute(live.secret, 'falloff', DEMO_BODIES.falloff!, k);
+    expect(first.status).toBe(200);
+    const [row] = await ds.query(
+      `SELECT extract(epoch FROM expires_at - created_at)::int AS ttl
+         FROM idempotency_keys WHERE caller = $1 AND key = $2`,
+      [`key:${live.id}`, k],
+    );
+    expect(row.ttl).toBe(24 * 3600);
+    await ds.query(
+      `UPDATE idempotency_keys SET expires_at = now() - interval '1 second'
+        WHERE caller = $1 AND key = $2`,
+      [`key:${live.id}`, k],
+    );
+    const body = { ...DEMO_BODIES.falloff!, backgroundDistance: 12 };
+    const reused = await compute(live.secret, 'falloff', body, k);
+    expect(reused.status).toBe(200);
+    expect(reused.headers['idempotency-replayed']).toBeUndefined();
+    expect(reused.body).toEqual((await compute(live.secret, 'falloff', body)).body);
+
+    const k2 = newKey();
+    await compute(live.secret, 'falloff', DEMO_BODIES.falloff!, k2).expect(200);
+    await ds.query(
+      `UPDATE idempotency_keys SET expires_at = now() - interval '1 second'
+        WHERE caller = $1 AND key = $2`,
+      [`key:${live.id}`, k2],
+    );
+    expect(await t.app.get(IdempotencySweeper).sweep()).toBeGreaterThanOrEqual(1);
+    const left = await ds.query(
+      `SELECT key FROM idempotency_keys WHERE expires_at <= now() OR key = $1`,
+      [k2],
+    );
+    expect(left).toEqual([]);
+  });
+
+  it('replays a client error (422) like a success, byte for byte', async () => {
+    const k = newKey();
+    const bad = { cameraKelvin: 100, flashKelvin: 5600 };
+    const first = await compute(live.secret, 'balance', bad, k);
+    expect(first.status).toBe(422);
+    const retry = await compute(live.secret, 'balance', bad, k);
+    expect(retry.status).toBe(422);
+    expect(retry.headers['idempotency-replayed']).toBe('true');
+    expect(retry.headers['content-type']).toMatch(/^application\/problem\+json/);
+    expect(retry.text).toBe(first.text);
+  });
+
+  it('reads a quoted (structured-field) key as the same key as the bare one', async () => {
+    const k = newKey();
+    const bare = await compute(live.secret, 'exposure', DEMO_BODIES.exposure!, k);
+    expect(bare.status).toBe(200);
+    const quoted = await compute(live.secret, 'exposure', DEMO_BODIES.exposure!, `"${k}"`);
+    expect(quoted.headers['idempotency-replayed']).toBe('true');
+    expect(quoted.text).toBe(bare.text);
+  });
+
+  it('refuses a malformed key with a 422 problem naming the header, before any work', async () => {
+    for (const bad of ['', '   ', 'x'.repeat(256), '"unterminated', '"a"b"', '"bad\\escape"']) {
+      const res = await compute(live.secret, 'balance', DEMO_BODIES.balance!, bad);
+      expect(res.status).toBe(422);
+      expect(res.headers['content-type']).toMatch(/^application\/problem\+json/);
+      expect(res.body).toMatchObject({
+        type: `${PROBLEMS}invalid-input`,
+        errors: [{ field: 'Idempotency-Key', reason: expect.stringMatching(/255 printable/) }],
+      });
+    }
+    const img = await frameImage();
+    const res = await upload(live.secret, img, 'y'.repeat(300));
+    expect(res.status).toBe(422);
+    expect(res.body.errors).toEqual([{ field: 'Idempotency-Key', reason: expect.any(String) }]);
+  });
+
+  it('lets browsers send Idempotency-Key and read Idempotency-Replayed (CORS)', async () => {
+    const pre = await request(t.url)
+      .options('/v1/frames')
+      .set('Origin', CONSOLE_ORIGIN)
+      .set('Access-Control-Request-Method', 'POST')
+      .set('Access-Control-Request-Headers', 'authorization,idempotency-key');
+    expect(pre.status).toBe(204);
+    expect(pre.headers['access-control-allow-headers']).toMatch(/Idempotency-Key/i);
+    const simple = await request(t.url).get('/v1/health').set('Origin', CONSOLE_ORIGIN);
+    expect(simple.headers['access-control-expose-headers']).toMatch(/Idempotency-Replayed/);
+  });
+});
+
+describe('Idempotency-Key when the server fails (5xx)', () => {
+  let t: TestApp;
+  let s3fake: RunningFake;
+  let ds: DataSource;
+
+  beforeAll(async () => {
+    s3fake = await startFake('s3-fake');
+    t = await bootApp(s3fake.env);
+    ds = await openDataSource();
+  });
+
+  afterAll(async () => {
+    await t?.close();
+    await ds?.destroy();
+    await s3fake?.stop();
+  });
+
+  it('does not store a 5xx: the retry with the same key runs again and succeeds', async () => {
+    const owner = await signUp(t.url, { organizationName: 'Millbrook Portraits' });
+    await ds.query(`UPDATE organizations SET plan_code = 'studio' WHERE id = $1`, [
+      owner.organizationId,
+    ]);
+    const key = await createKey(owner, 'live');
+    const img = await renderFrame({ patch: { ...PATCH, ...D65, Y: 0.3 } });
+    const send = () =>
+      request(t.url)
+        .post('/v1/frames')
+        .set('Authorization', `Bearer ${key.secret}`)
+        .set('Idempotency-Key', 'upload-after-outage')
+        .attach('file', img, { filename: 'mill.jpg', contentType: 'image/jpeg' });
+    const port = Number(new URL(s3fake.env.S3_ENDPOINT!).port);
+    await s3fake.stop();
+    const failed = await send();
+    expect(failed.status).toBe(503);
+    expect(
+      await ds.query(`SELECT key FROM idempotency_keys WHERE caller = $1`, [`key:${key.id}`]),
+    ).toEqual([]);
+    // Object storage is back where the server expects it.
+    s3fake = await startFake('s3-fake', { port });
+    const retried = await send();
+    expect(retried.status).toBe(201);
+    expect(retried.headers['idempotency-replayed']).toBeUndefined();
+    const again = await send();
+    expect(again.headers['idempotency-replayed']).toBe('true');
+    expect(again.text).toBe(retried.text);
+    const frames = await ds.query(`SELECT id FROM frames WHERE organization_id = $1`, [
+      owner.organizationId,
+    ]);
+    expect(frames).toEqual([{ id: retried.body.id }]);
+  });
+});
