@@ -8,6 +8,7 @@ import type { FastifyRequest } from 'fastify';
 import { DomainError } from '../common/errors/domain-error.js';
 import type { Principal, RequestWithPrincipal } from '../common/guards/access.guard.js';
 import { APP_CONFIG, type AppConfig } from '../config/config.js';
+import { MeteredCallGuard } from '../plans/metered-call.guard.js';
 import type { MeteredRequestExtras } from '../usage/usage-event.js';
 import { IDEMPOTENCY_KEY_HEADER, parseIdempotencyKey } from './idempotency-header.js';
 import { IdempotencyService, type HeldKey, type StoredAnswer } from './idempotency.service.js';
@@ -93,5 +94,26 @@ export class IdempotencyGuard implements CanActivate {
           [{ field: IDEMPOTENCY_KEY_HEADER, reason: 'was already used for a different request' }],
         );
     }
+  }
+}
+
+/**
+ * The metered routes' one guard: Idempotency-Key (above), then the metered call's rate limit and
+ * quota. One guard rather than two, so a call without the header pays a header lookup and
+ * nothing else: Nest awaits each guard in turn.
+ */
+@Injectable()
+export class IdempotentMeteredCallGuard implements CanActivate {
+  constructor(
+    private readonly idempotency: IdempotencyGuard,
+    private readonly metered: MeteredCallGuard,
+  ) {}
+
+  canActivate(ctx: ExecutionContext): boolean | Promise<boolean> {
+    const req = ctx.switchToHttp().getRequest<IdempotentRequest>();
+    if (req.headers['idempotency-key'] === undefined) return this.metered.canActivate(ctx);
+    return Promise.resolve(this.idempotency.canActivate(ctx)).then((ok) =>
+      ok ? this.metered.canActivate(ctx) : false,
+    );
   }
 }

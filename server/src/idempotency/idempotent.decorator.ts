@@ -5,13 +5,12 @@
 import { applyDecorators, UseFilters, UseGuards } from '@nestjs/common';
 import { ApiHeader } from '@nestjs/swagger';
 import { problem, RETRY_AFTER } from '../common/decorators/problem-responses.js';
-import { MeteredCallGuard } from '../plans/metered-call.guard.js';
 import {
   IDEMPOTENCY_KEY_HEADER,
   IDEMPOTENCY_KEY_MAX,
   IDEMPOTENCY_REPLAYED_HEADER,
 } from './idempotency-header.js';
-import { IdempotencyGuard } from './idempotency.guard.js';
+import { IdempotentMeteredCallGuard } from './idempotency.guard.js';
 import { IdempotentReplayFilter } from './idempotent-replay.filter.js';
 
 export const IDEMPOTENCY_KEY_DOC =
@@ -35,7 +34,7 @@ export const IDEMPOTENCY_REPLAYED_DOC = {
 
 export function IdempotentMeteredCall() {
   return applyDecorators(
-    UseGuards(IdempotencyGuard, MeteredCallGuard),
+    UseGuards(IdempotentMeteredCallGuard),
     UseFilters(IdempotentReplayFilter),
     ApiHeader({
       name: IDEMPOTENCY_KEY_HEADER,
