@@ -16,7 +16,8 @@ beforeEach(() => {
   vi.stubGlobal(
     'fetch',
     vi.fn(async (input: RequestInfo | URL, init?: RequestInit) => {
-      const path = new URL(String(input)).pathname;
+      // The typed client passes a Request; the plain fetch helper a URL string.
+      const path = new URL(input instanceof Request ? input.url : String(input)).pathname;
       if (path === '/v1/health')
         return jsonResponse({ status: 'ok', info: { database: { status: 'up' } } });
       return respond(path, init?.body ? JSON.parse(String(init.body)) : undefined);
@@ -156,11 +157,55 @@ describe('playground', () => {
     };
     await openCalculation('flash');
     await screen.findByText('The API agrees with this result', {}, { timeout: 4000 });
-    // Hidden tabs keep their inputs but ask nothing (they used to ask on every change).
-    expect(new Set(asked)).toEqual(new Set(['/v1/flash']));
+    // Hidden tabs keep their inputs but ask nothing (they used to ask on every change). The
+    // flash tab also reads the studio's gear for its pickers.
+    const calculations = () => asked.filter((p) => !p.startsWith('/v1/gear/'));
+    expect(new Set(calculations())).toEqual(new Set(['/v1/flash']));
     fireEvent.click(screen.getByRole('tab', { name: 'Falloff' }));
     await waitFor(() => expect(asked).toContain('/v1/falloff'), { timeout: 4000 });
-    expect(asked.filter((p) => p !== '/v1/flash' && p !== '/v1/falloff')).toEqual([]);
+    expect(calculations().filter((p) => p !== '/v1/flash' && p !== '/v1/falloff')).toEqual([]);
+  });
+
+  it("fills the flash's guide number and modifier from the studio's gear", async () => {
+    const light = { id: 'a1f0c3de-0000-4000-8000-000000000001', name: 'Porch strobe' };
+    const soft = { id: 'a1f0c3de-0000-4000-8000-000000000002', name: 'Shoot-through' };
+    const sent: { guideNumber?: number; guideNumberUnit?: string; modifierLossStops?: number }[] =
+      [];
+    respond = (path, body) => {
+      if (path === '/v1/gear/lights')
+        return jsonResponse({ data: [{ ...light, guideNumber: 36, guideNumberUnit: 'ft' }] });
+      if (path === '/v1/gear/modifiers')
+        return jsonResponse({ data: [{ ...soft, kind: 'umbrella', lossStops: 1.2 }] });
+      if (path === '/v1/flash') {
+        sent.push(body as (typeof sent)[number]);
+        return jsonResponse(computeFlash(body as never));
+      }
+      return jsonResponse({}, 404);
+    };
+    const panel = await openCalculation('flash');
+    const lightPicker = await within(panel).findByLabelText('Light from your gear');
+    fireEvent.change(lightPicker, { target: { value: light.id } });
+    expect((within(panel).getByLabelText('Guide number (ISO 100)') as HTMLInputElement).value).toBe(
+      '36',
+    );
+    expect((within(panel).getByLabelText('Guide number in') as HTMLSelectElement).value).toBe('ft');
+    fireEvent.change(within(panel).getByLabelText('Modifier from your gear'), {
+      target: { value: soft.id },
+    });
+    expect((within(panel).getByLabelText('Modifier') as HTMLSelectElement).value).toBe('umbrella');
+    expect((within(panel).getByLabelText('Modifier loss (stops)') as HTMLInputElement).value).toBe(
+      '1.2',
+    );
+    // The API is asked with the gear's numbers.
+    await waitFor(
+      () =>
+        expect(sent.at(-1)).toMatchObject({
+          guideNumber: 36,
+          guideNumberUnit: 'ft',
+          modifierLossStops: 1.2,
+        }),
+      { timeout: 4000 },
+    );
   });
 
   it('names the fields where the API answer differs, and explains a missing endpoint', async () => {

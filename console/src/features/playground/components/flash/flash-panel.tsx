@@ -9,6 +9,7 @@ import {
 import { z } from 'zod';
 import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
+import { useGearLights, useGearModifiers } from '../../api/gear-options';
 import { given, useCalculationForm } from '../../hooks/use-calculation-form';
 import { fixed } from '../../utils/format';
 import { CalculationResult } from '../calculation-result';
@@ -90,11 +91,27 @@ export function FlashPanel() {
     compute: computeFlash,
   });
   const modifier = form.watch('modifier');
+  const lights = useGearLights();
+  const modifiers = useGearModifiers();
+  const lightList = lights.data?.data ?? [];
+  const modifierList = modifiers.data?.data ?? [];
+  const fill = { shouldValidate: true, shouldDirty: true } as const;
 
   return (
     <div className="grid gap-6 lg:grid-cols-[minmax(16rem,22rem)_1fr]">
       <form noValidate onSubmit={(event) => event.preventDefault()} className="flex flex-col gap-4">
         <FormGrid legend="Key light">
+          <GearPicker
+            label="Light from your gear"
+            hint="Fills in its guide number; you can still change it."
+            placeholder="Choose a light…"
+            items={lightList}
+            describe={(l) => `${l.name} (GN ${fixed(l.guideNumber, 1)} ${l.guideNumberUnit})`}
+            onPick={(light) => {
+              form.setValue('guideNumber', light.guideNumber, fill);
+              form.setValue('guideNumberUnit', light.guideNumberUnit, fill);
+            }}
+          />
           <TextField label="Guide number (ISO 100)" {...numberField('guideNumber')} />
           <SelectField
             label="Guide number in"
@@ -107,6 +124,17 @@ export function FlashPanel() {
           <TextField label={`Light to subject (${unit})`} {...numberField('distance')} />
           <TextField label="Aperture (f/)" {...numberField('aperture')} />
           <TextField label="ISO" {...numberField('iso', undefined, 'default 100')} />
+          <GearPicker
+            label="Modifier from your gear"
+            hint="Fills in its kind and loss."
+            placeholder="Choose a modifier…"
+            items={modifierList}
+            describe={(m) => `${m.name} (${fixed(m.lossStops, 1)} stops)`}
+            onPick={(picked) => {
+              if (picked.kind) form.setValue('modifier', picked.kind, fill);
+              form.setValue('modifierLossStops', picked.lossStops, fill);
+            }}
+          />
           <SelectField
             label="Modifier"
             className="col-span-2"
@@ -208,5 +236,33 @@ export function FlashPanel() {
         )}
       </CalculationResult>
     </div>
+  );
+}
+
+/** A "from your gear" select: picking an item fills the fields it stands for; hidden when empty. */
+function GearPicker<T extends { id: string }>(props: {
+  label: string;
+  hint: string;
+  placeholder: string;
+  items: readonly T[];
+  describe: (item: T) => string;
+  onPick: (item: T) => void;
+}) {
+  if (!props.items.length) return null;
+  return (
+    <SelectField
+      label={props.label}
+      className="col-span-2"
+      hint={props.hint}
+      value=""
+      options={[
+        { value: '', label: props.placeholder },
+        ...props.items.map((item) => ({ value: item.id, label: props.describe(item) })),
+      ]}
+      onChange={(event) => {
+        const item = props.items.find((i) => i.id === event.target.value);
+        if (item) props.onPick(item);
+      }}
+    />
   );
 }
