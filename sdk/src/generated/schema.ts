@@ -345,7 +345,11 @@ export interface paths {
     get: operations['getFrame'];
     put?: never;
     post?: never;
-    delete?: never;
+    /**
+     * Delete a test frame: its analysis, the original and the thumbnail.
+     * @description With the key that uploaded it (or any key or member of the organisation). Uses no quota and is not metered; the key’s rate limit applies. A frame shows people: delete what you no longer need.
+     */
+    delete: operations['deleteFrame'];
     options?: never;
     head?: never;
     patch?: never;
@@ -5948,7 +5952,7 @@ export interface operations {
     parameters: {
       query?: {
         /** @description Page size, a whole number from 1 to 100 (default 20). */
-        limit?: string;
+        limit?: number;
         /** @description nextCursor of the previous page. */
         cursor?: string;
       };
@@ -6022,20 +6026,20 @@ export interface operations {
     requestBody: {
       content: {
         'multipart/form-data': {
-          /** @description The white balance the frame was shot at, kelvin (1500-20000). */
+          /** @description The white balance the frame was shot at, kelvin. Whole number, 1500 to 20000. */
           cameraKelvin?: number;
           /**
            * Format: binary
-           * @description The image; its type is read from its content.
+           * @description The image, JPEG or PNG, at most 25 MB; its type is read from its content. Send it after the other fields.
            */
-          file: string;
-          /** @description Neutral patch height, pixels. */
+          file: Blob;
+          /** @description Neutral patch height, pixels. Whole number, 1 to 100000. */
           patchHeight?: number;
-          /** @description Neutral patch width, pixels. */
+          /** @description Neutral patch width, pixels. Whole number, 1 to 100000. */
           patchWidth?: number;
-          /** @description Neutral patch left edge, pixels (upright image). Give all four or none. */
+          /** @description Neutral patch left edge, pixels (upright image). Give all four or none. Whole number, 0 to 100000. */
           patchX?: number;
-          /** @description Neutral patch top edge, pixels. */
+          /** @description Neutral patch top edge, pixels. Whole number, 0 to 100000. */
           patchY?: number;
         };
       };
@@ -6161,6 +6165,79 @@ export interface operations {
       };
       /** @description The id is not a UUID; `errors` names it. */
       422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description With an API key: the key's rate limit, shared with its computations (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy). Reads use no quota. */
+      429: {
+        headers: {
+          /** @description Calls left in the window and seconds until it refills, e.g. `"key";r=0;t=1`. */
+          RateLimit?: string;
+          /** @description The limit: burst size and window in seconds, e.g. `"key";q=100;w=2`. */
+          'RateLimit-Policy'?: string;
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  deleteFrame: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        id: string;
+      };
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      /** @description Deleted. */
+      204: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content?: never;
+      };
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such frame in your organisation. */
+      404: {
         headers: {
           [name: string]: unknown;
         };
@@ -10616,8 +10693,8 @@ export interface operations {
           | 'balance'
           | 'setup'
           | 'frames';
-        /** @description Only this HTTP status. */
-        status?: string;
+        /** @description Only this HTTP status. A whole number from 100 to 599. */
+        status?: number;
         /** @description Only failed calls (4xx or 5xx: "error") or the others ("ok"). */
         outcome?: 'ok' | 'error';
         /** @description From this instant (inclusive), ISO 8601 or YYYY-MM-DD (UTC). */
@@ -10625,7 +10702,7 @@ export interface operations {
         /** @description Before this instant (exclusive), ISO 8601 or YYYY-MM-DD (UTC). */
         to?: string;
         /** @description Page size, a whole number from 1 to 200; default 50. */
-        limit?: string;
+        limit?: number;
         /** @description nextCursor from the previous page. */
         cursor?: string;
       };
@@ -10698,8 +10775,8 @@ export interface operations {
           | 'balance'
           | 'setup'
           | 'frames';
-        /** @description Only this HTTP status. */
-        status?: string;
+        /** @description Only this HTTP status. A whole number from 100 to 599. */
+        status?: number;
         /** @description Only failed calls (4xx or 5xx: "error") or the others ("ok"). */
         outcome?: 'ok' | 'error';
         /** @description From this instant (inclusive), ISO 8601 or YYYY-MM-DD (UTC). */
@@ -10707,7 +10784,7 @@ export interface operations {
         /** @description Before this instant (exclusive), ISO 8601 or YYYY-MM-DD (UTC). */
         to?: string;
         /** @description Page size, a whole number from 1 to 200; default 50. */
-        limit?: string;
+        limit?: number;
         /** @description nextCursor from the previous page. */
         cursor?: string;
       };
@@ -10785,8 +10862,8 @@ export interface operations {
           | 'balance'
           | 'setup'
           | 'frames';
-        /** @description Only calls answered with this HTTP status. */
-        status?: string;
+        /** @description Only calls answered with this HTTP status. A whole number from 100 to 599. */
+        status?: number;
         /** @description Only failed calls (4xx or 5xx: "error") or the others ("ok"). */
         outcome?: 'ok' | 'error';
       };
