@@ -377,5 +377,11 @@ describe('Lumenwright SDK', () => {
   it('lists the plans', async () => {
     const plans = await lw.plans();
     expect(plans.data.map((p) => p.code)).toEqual(['free', 'studio', 'platform']);
+    // Test keys get the plan's rate capped at 10 a second, burst 20 (the service's published
+    // policy; the server's unit test ties these to the rate-limit guard).
+    for (const p of plans.data) {
+      expect(p.testKeyRatePerSecond).toBe(Math.min(p.ratePerSecond, 10));
+      expect(p.testKeyBurst).toBe(Math.min(p.burst, 20));
+    }
   });
 });

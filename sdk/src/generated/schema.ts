@@ -1642,7 +1642,7 @@ export interface components {
       periodStart: string;
       plan: {
         /**
-         * @description Calls a key may make at once before the rate applies.
+         * @description Calls a live key may make at once before the rate applies.
          * @example 100
          */
         burst: number;
@@ -1693,7 +1693,7 @@ export interface components {
          */
         overagePricePer1000Cents: number | null;
         /**
-         * @description Sustained calls per second per API key.
+         * @description Sustained calls per second per live API key.
          * @example 50
          */
         ratePerSecond: number;
@@ -1702,6 +1702,16 @@ export interface components {
          * @example 20000
          */
         testCallsPerMonth: number;
+        /**
+         * @description Calls a test key may make at once: the plan's burst, at most 20.
+         * @example 20
+         */
+        testKeyBurst: number;
+        /**
+         * @description Sustained calls per second per test key: the plan's rate, at most 10.
+         * @example 10
+         */
+        testKeyRatePerSecond: number;
       };
       /**
        * @description When the monthly quota resets (ISO 8601).
@@ -2748,7 +2758,7 @@ export interface components {
     PlanListResponseDto: {
       data: {
         /**
-         * @description Calls a key may make at once before the rate applies.
+         * @description Calls a live key may make at once before the rate applies.
          * @example 100
          */
         burst: number;
@@ -2799,7 +2809,7 @@ export interface components {
          */
         overagePricePer1000Cents: number | null;
         /**
-         * @description Sustained calls per second per API key.
+         * @description Sustained calls per second per live API key.
          * @example 50
          */
         ratePerSecond: number;
@@ -2808,6 +2818,16 @@ export interface components {
          * @example 20000
          */
         testCallsPerMonth: number;
+        /**
+         * @description Calls a test key may make at once: the plan's burst, at most 20.
+         * @example 20
+         */
+        testKeyBurst: number;
+        /**
+         * @description Sustained calls per second per test key: the plan's rate, at most 10.
+         * @example 10
+         */
+        testKeyRatePerSecond: number;
       }[];
     };
     /** @description An RFC 9457 problem detail. */

@@ -15,6 +15,8 @@ const current = (uploads: boolean, name: string) => ({
     testCallsPerMonth: 2000,
     ratePerSecond: 5,
     burst: 10,
+    testKeyRatePerSecond: 5,
+    testKeyBurst: 10,
     overagePricePer1000Cents: null,
     features: { uploads, savedSetups: 10, seats: 2 },
   },
