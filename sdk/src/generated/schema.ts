@@ -1284,8 +1284,12 @@ export interface components {
       headInBeam: boolean;
       /** @description Things to look at: a stable code and a sentence for people. */
       warnings?: {
-        /** @description Stable warning code. */
-        code: string;
+        /**
+         * @description Stable warning code.
+         * @example head-outside-beam
+         * @enum {string}
+         */
+        code: 'head-outside-beam' | 'ground-outshines-rim' | 'aimed-down';
         /** @description Explanation. */
         message: string;
       }[];
@@ -1461,8 +1465,12 @@ export interface components {
       }[];
       /** @description Things to look at: a stable code and a sentence for people. Codes: "fine-tune-limit" (the camera white balance that would cancel the residual is outside 1500–20000 K, so it is clamped); "fine-tune-beyond-range" (cancelling the residual takes more than ±7 amber/blue fine-tune steps; allow or add a gel, or set the camera’s kelvin instead). */
       warnings?: {
-        /** @description Stable warning code. */
-        code: string;
+        /**
+         * @description Stable warning code.
+         * @example fine-tune-limit
+         * @enum {string}
+         */
+        code: 'fine-tune-limit' | 'fine-tune-beyond-range';
         /** @description Explanation. */
         message: string;
       }[];
@@ -1956,10 +1964,24 @@ export interface components {
       solvedFor: 'shutterSeconds' | 'aperture' | 'iso' | 'none';
       /** @description Background mode: the EV100 the settings expose for (ev100 - biasStops). */
       targetEv100?: number;
-      /** @description Things to look at: a stable code and a sentence for people. */
+      /** @description Things to look at: a stable code and a sentence for people. Codes: "too-dark" (background mode); "needs-tripod" (background mode); "subject-motion" (background mode); "exceeds-sync" (background mode). */
       warnings?: {
-        /** @description Stable warning code. */
-        code: string;
+        /**
+         * @description Stable warning code.
+         * @example overexposed
+         * @enum {string}
+         */
+        code:
+          | 'overexposed'
+          | 'underexposed'
+          | 'bulb'
+          | 'shutter-too-fast'
+          | 'aperture-off-scale'
+          | 'iso-off-scale'
+          | 'too-dark'
+          | 'needs-tripod'
+          | 'subject-motion'
+          | 'exceeds-sync';
         /** @description Explanation. */
         message: string;
       }[];
@@ -2148,10 +2170,14 @@ export interface components {
        * @example 2.17
        */
       totalLossStops?: number;
-      /** @description Things to look at: a stable code and a sentence for people. */
+      /** @description Things to look at: a stable code and a sentence for people. Codes: "ambient-dominates" (the dusk setup’s key light only: the ambient outweighs the key). */
       warnings: {
-        /** @description Stable warning code. */
-        code: string;
+        /**
+         * @description Stable warning code.
+         * @example over-full-power
+         * @enum {string}
+         */
+        code: 'over-full-power' | 'below-min-power' | 'ambient-dominates';
         /** @description Explanation. */
         message: string;
       }[];
@@ -3035,8 +3061,20 @@ export interface components {
          * @example 0b7c6a52-3d0e-4c55-9f59-2b1f4e0d8a11
          */
         lightId?: string;
-        /** @description Modifier kind (see the math library’s modifier list). */
-        modifier?: string;
+        /**
+         * @description Modifier kind; it sets the default modifierSize and modifierLossStops. Default softbox.
+         * @example softbox
+         * @enum {string}
+         */
+        modifier?:
+          | 'bare'
+          | 'umbrella'
+          | 'softbox'
+          | 'softbox-double-diffusion'
+          | 'octabox'
+          | 'beauty-dish'
+          | 'grid'
+          | 'snoot';
         /**
          * @description Id of one of your modifiers (GET /v1/gear/modifiers): its loss, kind and size. Send this or key.modifierLossStops.
          * @example 0b7c6a52-3d0e-4c55-9f59-2b1f4e0d8a11
@@ -3409,8 +3447,20 @@ export interface components {
          * @example 0b7c6a52-3d0e-4c55-9f59-2b1f4e0d8a11
          */
         lightId?: string;
-        /** @description Modifier kind (see the math library’s modifier list). */
-        modifier?: string;
+        /**
+         * @description Modifier kind; it sets the default modifierSize and modifierLossStops. Default softbox.
+         * @example softbox
+         * @enum {string}
+         */
+        modifier?:
+          | 'bare'
+          | 'umbrella'
+          | 'softbox'
+          | 'softbox-double-diffusion'
+          | 'octabox'
+          | 'beauty-dish'
+          | 'grid'
+          | 'snoot';
         /**
          * @description Id of one of your modifiers (GET /v1/gear/modifiers): its loss, kind and size. Send this or key.modifierLossStops.
          * @example 0b7c6a52-3d0e-4c55-9f59-2b1f4e0d8a11
@@ -3626,8 +3676,17 @@ export interface components {
         /**
          * @description Modifier kind used.
          * @example softbox
+         * @enum {string}
          */
-        modifier: string;
+        modifier:
+          | 'bare'
+          | 'umbrella'
+          | 'softbox'
+          | 'softbox-double-diffusion'
+          | 'octabox'
+          | 'beauty-dish'
+          | 'grid'
+          | 'snoot';
         /**
          * @description Light lost in the modifier, stops.
          * @example 1.3
@@ -3859,16 +3918,35 @@ export interface components {
         timeZone?: string;
         /** @description Things to look at: a stable code and a sentence for people. Codes: "time-zone-mismatch" (the zone’s UTC offset on the date is more than 3.5 h from the place’s solar time, longitude / 15 h: probably not the place’s zone). */
         warnings: {
-          /** @description Stable warning code. */
-          code: string;
+          /**
+           * @description Stable warning code.
+           * @example time-zone-mismatch
+           * @enum {string}
+           */
+          code: 'time-zone-mismatch';
           /** @description Explanation. */
           message: string;
         }[];
       };
-      /** @description Things to look at: a stable code and a sentence for people. Besides the plan’s own, these include the twilight’s ("time-zone-mismatch") and the balance’s ("fine-tune-limit", "fine-tune-beyond-range"). */
+      /** @description Things to look at: a stable code and a sentence for people. Besides the plan’s own, these include the twilight’s ("time-zone-mismatch"), the rim light’s backlight warnings (prefixed "rim-"), the first minute where the ambient outweighs the key ("ambient-dominates") and the balance’s ("fine-tune-limit", "fine-tune-beyond-range"). */
       warnings: {
-        /** @description Stable warning code. */
-        code: string;
+        /**
+         * @description Stable warning code.
+         * @example time-zone-mismatch
+         * @enum {string}
+         */
+        code:
+          | 'time-zone-mismatch'
+          | 'no-sunset'
+          | 'too-dark'
+          | 'no-usable-minute'
+          | 'rim-head-outside-beam'
+          | 'rim-ground-outshines-rim'
+          | 'rim-aimed-down'
+          | 'ambient-model'
+          | 'ambient-dominates'
+          | 'fine-tune-limit'
+          | 'fine-tune-beyond-range';
         /** @description Explanation. */
         message: string;
       }[];
@@ -4185,8 +4263,12 @@ export interface components {
       timeZone?: string;
       /** @description Things to look at: a stable code and a sentence for people. Codes: "time-zone-mismatch" (the zone’s UTC offset on the date is more than 3.5 h from the place’s solar time, longitude / 15 h: probably not the place’s zone). */
       warnings: {
-        /** @description Stable warning code. */
-        code: string;
+        /**
+         * @description Stable warning code.
+         * @example time-zone-mismatch
+         * @enum {string}
+         */
+        code: 'time-zone-mismatch';
         /** @description Explanation. */
         message: string;
       }[];

@@ -3,6 +3,7 @@ import { apertureLabel } from '../exposure/scales.js';
 import { countOf, round } from '../units/math.js';
 import { fromMetres, requireLengthUnit, toMetres, type LengthUnit } from '../units/length.js';
 import { optionalNumber, requireNumber, requireObject } from '../units/validate.js';
+import type { CodedWarning, FlashWarningCode } from '../warning-codes.js';
 
 /**
  * Guide number (ISO 1230): GN = distance x f-number for correct exposure at ISO 100, full
@@ -60,7 +61,7 @@ export interface FlashResult {
     moveBackTo?: number;
     stopDownTo?: number;
   } | null;
-  warnings: Array<{ code: string; message: string }>;
+  warnings: CodedWarning<FlashWarningCode>[];
 }
 
 interface FlashParams {
@@ -109,7 +110,7 @@ export function computeFlash(input: FlashInput): FlashResult {
   const s = stopsBelowFull(fraction);
   const tooMuch = fraction > 1 + 1e-9;
   const tooLittle = fraction < p.minFraction * (1 - 1e-9);
-  const warnings = [];
+  const warnings: FlashResult['warnings'] = [];
   let fixes: FlashResult['fixes'] = null;
   if (tooMuch) {
     const excess = -s;
