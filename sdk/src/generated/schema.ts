@@ -6256,17 +6256,8 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description No such frame in your organisation. */
+      /** @description No such frame in your organisation; an id that is not a UUID names none (`errors` names `id`). */
       404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/problem+json': components['schemas']['Problem'];
-        };
-      };
-      /** @description The id is not a UUID; `errors` names it. */
-      422: {
         headers: {
           [name: string]: unknown;
         };
@@ -6338,7 +6329,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description No such frame in your organisation. */
+      /** @description No such frame in your organisation; an id that is not a UUID names none (`errors` names `id`). */
       404: {
         headers: {
           [name: string]: unknown;
@@ -6402,17 +6393,8 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description No such frame in your organisation. */
+      /** @description No such frame in your organisation; an id that is not a UUID names none (`errors` names `id`). */
       404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/problem+json': components['schemas']['Problem'];
-        };
-      };
-      /** @description The id is not a UUID; `errors` names it. */
-      422: {
         headers: {
           [name: string]: unknown;
         };

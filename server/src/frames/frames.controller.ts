@@ -35,6 +35,10 @@ import { FramesService } from './frames.service.js';
 import { FrameIdPipe } from './frame-id.pipe.js';
 import { UPLOAD_FIELD_RANGES } from './upload-reader.js';
 
+/** The 404 of a route with a frame id (FrameIdPipe: an id that is not a UUID names no frame). */
+const FRAME_NOT_FOUND =
+  'No such frame in your organisation; an id that is not a UUID names none (`errors` names `id`).';
+
 /** A whole-number form field of the upload, with the range the reader enforces. */
 const uploadInt = (name: keyof typeof UPLOAD_FIELD_RANGES, description: string) => {
   const [minimum, maximum] = UPLOAD_FIELD_RANGES[name];
@@ -138,8 +142,7 @@ export class FramesController {
   @KeyReadLimited()
   @ApiOperation({ summary: 'One test frame and its analysis.' })
   @ApiOkResponse({ type: FrameResponseDto })
-  @problem(404, 'No such frame in your organisation.')
-  @problem(422, 'The id is not a UUID; `errors` names it.')
+  @problem(404, FRAME_NOT_FOUND)
   async getFrame(@Req() req: RequestWithPrincipal, @Param('id', new FrameIdPipe()) id: string) {
     return toFrameDto(await this.frames.get(req.principal!.organizationId, id));
   }
@@ -156,7 +159,7 @@ export class FramesController {
       'no longer need.',
   })
   @ApiNoContentResponse({ description: 'Deleted.' })
-  @problem(404, 'No such frame in your organisation.')
+  @problem(404, FRAME_NOT_FOUND)
   async deleteFrame(
     @Req() req: RequestWithPrincipal,
     @Param('id', new FrameIdPipe()) id: string,
@@ -170,8 +173,7 @@ export class FramesController {
   @ApiOperation({ summary: 'The JPEG thumbnail of a test frame (at most 320 px).' })
   @ApiProduces('image/jpeg')
   @ApiOkResponse({ description: 'JPEG image.' })
-  @problem(404, 'No such frame in your organisation.')
-  @problem(422, 'The id is not a UUID; `errors` names it.')
+  @problem(404, FRAME_NOT_FOUND)
   async getFrameThumbnail(
     @Req() req: RequestWithPrincipal,
     @Param('id', new FrameIdPipe()) id: string,
