@@ -195,7 +195,8 @@ async function driftCheck() {
     const schema = path.join(root, 'sdk', 'src', 'generated', 'schema.ts');
     if (fs.existsSync(schema)) {
       const gen = path.join(tmp, 'schema.ts');
-      const a = await run('npx', ['openapi-typescript', committed, '-o', gen, '--silent'], {
+      // The SDK's own generator (openapi-typescript plus the Blob transform for binary parts).
+      const a = await run('node', ['scripts/generate.mjs', committed, gen], {
         cwd: path.join(root, 'sdk'),
       });
       const b = await run(

@@ -1,4 +1,5 @@
-// A thin, typed client over openapi-fetch: one method per compute endpoint and gear reads, problem+json turned
+// A thin, typed client over openapi-fetch: one method per compute endpoint, gear reads, test frames,
+// who-am-I and this month's usage; problem+json turned
 // into LumenwrightError, bounded retries on 429 (rate limited) and 503 honouring Retry-After,
 // and a timeout per attempt.
 import createClient, { type Client } from 'openapi-fetch';
@@ -27,6 +28,53 @@ export type Modifier = Schemas['ModifierResponseDto'];
 export type ModifierList = Schemas['ModifierListResponseDto'];
 export type GelKit = Schemas['GelKitResponseDto'];
 export type GelKitList = Schemas['GelKitListResponseDto'];
+export type Frame = Schemas['FrameResponseDto'];
+export type FrameList = Schemas['FrameListResponseDto'];
+export type WhoAmI = Schemas['WhoAmIResponseDto'];
+export type CurrentPlan = Schemas['CurrentPlanResponseDto'];
+/** The multipart body of POST /v1/frames as the spec states it (`file` is a Blob). */
+export type FrameUploadBody =
+  paths['/v1/frames']['post']['requestBody']['content']['multipart/form-data'];
+export type FrameListQuery = NonNullable<paths['/v1/frames']['get']['parameters']['query']>;
+
+/** A test frame to upload: the bytes, a file name, and optionally the neutral patch. */
+export interface FrameUpload {
+  /** The JPEG or PNG: a Blob or File, or bytes (a Uint8Array; a Node Buffer is one). */
+  file: Blob | Uint8Array;
+  /** The file name the frame keeps (`fileName`), e.g. "terrace-0142.jpg". */
+  filename: string;
+  /** The neutral patch in upright pixel coordinates; without it the server looks for one. */
+  patch?: { x: number; y: number; width: number; height: number };
+  /** The white balance the frame was shot at, kelvin (1500-20000). */
+  cameraKelvin?: number;
+}
+
+/** The upload as the spec types it: the bytes as a Blob, the patch as four whole numbers. */
+export function frameUploadBody(upload: FrameUpload): FrameUploadBody {
+  return {
+    // Bytes are copied into a Blob of their own (a Buffer may be a view into a shared pool).
+    file: upload.file instanceof Blob ? upload.file : new Blob([new Uint8Array(upload.file)]),
+    ...(upload.patch
+      ? {
+          patchX: upload.patch.x,
+          patchY: upload.patch.y,
+          patchWidth: upload.patch.width,
+          patchHeight: upload.patch.height,
+        }
+      : {}),
+    ...(upload.cameraKelvin === undefined ? {} : { cameraKelvin: upload.cameraKelvin }),
+  };
+}
+
+/** The multipart form: the fields first, the file last (the server reads parts as they stream). */
+export function frameUploadForm(body: FrameUploadBody, filename: string): FormData {
+  const form = new FormData();
+  for (const [name, value] of Object.entries(body)) {
+    if (name !== 'file' && value !== undefined) form.append(name, String(value));
+  }
+  form.append('file', body.file, filename);
+  return form;
+}
 
 export type FetchLike = (request: Request) => Promise<Response>;
 
@@ -127,6 +175,55 @@ export class Lumenwright {
         this.client.GET('/v1/gear/gel-kits/{id}', { params: { path: { id } }, signal }),
       ),
   };
+
+  /**
+   * Test frames: upload one (a metered call, like a computation; the plan must include uploads),
+   * list, read, fetch the thumbnail and delete. Reads and deletes use no quota but share the
+   * key's rate limit.
+   */
+  readonly frames = {
+    upload: (upload: FrameUpload): Promise<Frame> =>
+      this.read((signal) =>
+        this.client.POST('/v1/frames', {
+          // Typed as the spec says; sent as multipart/form-data (fetch sets the boundary). The
+          // form is rebuilt on each attempt, so a retried upload sends the whole file again.
+          body: frameUploadBody(upload),
+          bodySerializer: (body) => frameUploadForm(body, upload.filename),
+          signal,
+        }),
+      ),
+    list: (query: FrameListQuery = {}): Promise<FrameList> =>
+      this.read((signal) => this.client.GET('/v1/frames', { params: { query }, signal })),
+    get: (id: string): Promise<Frame> =>
+      this.read((signal) =>
+        this.client.GET('/v1/frames/{id}', { params: { path: { id } }, signal }),
+      ),
+    /** The JPEG thumbnail (at most 320 px on its long side). */
+    thumbnail: (id: string): Promise<Blob> =>
+      this.read((signal) =>
+        this.client.GET('/v1/frames/{id}/thumbnail', {
+          params: { path: { id } },
+          parseAs: 'blob',
+          signal,
+        }),
+      ),
+    delete: async (id: string): Promise<void> => {
+      await this.attempt((signal) =>
+        this.client.DELETE('/v1/frames/{id}', { params: { path: { id } }, signal }),
+      );
+    },
+  };
+
+  /** Which key is calling and for which organisation (no side effects; not metered). */
+  whoami = (): Promise<WhoAmI> => this.read((signal) => this.client.GET('/v1/whoami', { signal }));
+
+  /**
+   * This month's usage against the plan: `usage.liveCallsCounted` against
+   * `plan.includedCallsPerMonth` (test keys: `testCallsCounted` against `testCallsPerMonth`),
+   * and when the quota resets. Uses no quota; the key's rate limit applies.
+   */
+  usage = (): Promise<CurrentPlan> =>
+    this.read((signal) => this.client.GET('/v1/plans/current', { signal }));
 
   /** The plans (public). */
   plans = (): Promise<PlanList> =>

@@ -1,7 +1,9 @@
 // A live server for the SDK tests. When the workspace test script exports LUMENWRIGHT_TEST_URL,
-// that server is used. Otherwise this starts the built server (server/dist/main.js) on a fresh
-// database in the local test cluster (.data/test-postgres, as the server's tests use), and
-// stops it afterwards. Build the server first: `npx tsc -p server/tsconfig.build.json`.
+// that server is used (migrated, seeded, with the local fakes). Otherwise this starts the built
+// server (server/dist/main.js) on a fresh, migrated and seeded database in the local test cluster
+// (.data/test-postgres, as the server's tests use; TEST_PG_DIR/TEST_PG_PORT move it) with the
+// object-storage fake for test frames, and stops both afterwards. Build the server first:
+// `npx tsc -p server/tsconfig.build.json`.
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
@@ -10,6 +12,12 @@ import type { TestProject } from 'vitest/node';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 let child: ChildProcess | null = null;
+let stopStorage: (() => Promise<void>) | null = null;
+
+interface Fake {
+  env: Record<string, string>;
+  stop: () => Promise<void>;
+}
 
 async function waitForHealth(url: string, ms: number) {
   const until = Date.now() + ms;
@@ -43,6 +51,11 @@ export default async function setup(project: TestProject) {
     c.start();
     const databaseUrl = c.createDatabase(`lw_sdk_${Date.now().toString(36)}_${process.pid}`);
     const port = await pg.freePort();
+    const s3 = (await import(path.join(root, 'scripts/lib/s3-fake.mjs'))) as {
+      start: (o: { root: string }) => Promise<Fake>;
+    };
+    const storage = await s3.start({ root });
+    stopStorage = storage.stop;
     const env = {
       ...process.env,
       NODE_ENV: 'test',
@@ -50,12 +63,16 @@ export default async function setup(project: TestProject) {
       PORT: String(port),
       HOST: '127.0.0.1',
       LOG_LEVEL: 'silent',
+      ...storage.env,
     };
-    const migrated = spawnSync(process.execPath, [path.join(root, 'server/dist/bin/migrate.js')], {
-      env,
-      encoding: 'utf8',
-    });
-    if (migrated.status !== 0) throw new Error(`migrations failed: ${migrated.stderr}`);
+    // The seed gives the demo studio (on a plan with uploads) that the frame tests sign in as.
+    for (const bin of ['migrate', 'seed']) {
+      const r = spawnSync(process.execPath, [path.join(root, `server/dist/bin/${bin}.js`)], {
+        env,
+        encoding: 'utf8',
+      });
+      if (r.status !== 0) throw new Error(`${bin} failed: ${r.stderr}`);
+    }
     child = spawn(process.execPath, [main], { env, stdio: ['ignore', 'ignore', 'inherit'] });
     url = `http://127.0.0.1:${port}`;
     await waitForHealth(url, 30_000);
@@ -66,6 +83,7 @@ export default async function setup(project: TestProject) {
       child.kill('SIGTERM');
       await new Promise((r) => child!.once('exit', r));
     }
+    await stopStorage?.();
   };
 }
 

@@ -1,10 +1,65 @@
 // The SDK against a live server: sign up, make a key, call every endpoint, see typed errors,
-// retries on 429 honouring Retry-After, and timeouts.
+// retries on 429 honouring Retry-After, and timeouts; test frames on the seeded demo studio.
 import { randomUUID } from 'node:crypto';
+import zlib from 'node:zlib';
 import { beforeAll, describe, expect, inject, it } from 'vitest';
 import { apiRoot, createApiClient, Lumenwright, LumenwrightError } from '../src/index.js';
 
 const baseUrl = inject('baseUrl');
+
+// The seeded demo studio (invented; server/src/auth/accounts.seeder.ts): its plan includes uploads.
+const DEMO_OWNER = { email: 'ilse@kestrelmoor.test', password: 'kestrel-dusk-demo' };
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/;
+
+/**
+ * A width × height PNG of one sRGB grey (8-bit RGB, no filtering), built from the PNG
+ * specification (ISO/IEC 15948): signature, IHDR, one zlib IDAT, IEND, each chunk with its CRC-32.
+ */
+function greyPng(width: number, height: number, level: number): Buffer {
+  const chunk = (type: string, data: Buffer) => {
+    const body = Buffer.concat([Buffer.from(type, 'latin1'), data]);
+    const out = Buffer.alloc(4 + body.length + 4);
+    out.writeUInt32BE(data.length, 0);
+    body.copy(out, 4);
+    out.writeUInt32BE(zlib.crc32(body), 4 + body.length);
+    return out;
+  };
+  const ihdr = Buffer.alloc(13);
+  ihdr.writeUInt32BE(width, 0);
+  ihdr.writeUInt32BE(height, 4);
+  ihdr.set([8, 2, 0, 0, 0], 8); // bit depth 8, colour type 2 (RGB), deflate, no filter, no interlace
+  const row = Buffer.concat([Buffer.from([0]), Buffer.alloc(width * 3, level)]);
+  const raw = Buffer.concat(Array.from({ length: height }, () => row));
+  return Buffer.concat([
+    Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]),
+    chunk('IHDR', ihdr),
+    chunk('IDAT', zlib.deflateSync(raw)),
+    chunk('IEND', Buffer.alloc(0)),
+  ]);
+}
+
+/** The sRGB decoding function (IEC 61966-2-1): 8-bit code value to linear light. */
+const srgbToLinear = (code: number) => {
+  const c = code / 255;
+  return c <= 0.04045 ? c / 12.92 : ((c + 0.055) / 1.055) ** 2.4;
+};
+
+/** A key of the seeded demo studio, made by its owner. */
+async function demoStudioKey(environment: 'live' | 'test'): Promise<string> {
+  const signIn = await fetch(`${baseUrl}/v1/auth/sign-in`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: JSON.stringify(DEMO_OWNER),
+  });
+  expect(signIn.status).toBe(200);
+  const cookie = (signIn.headers.getSetCookie?.() ?? []).map((c) => c.split(';')[0]).join('; ');
+  const created = await createApiClient({ baseUrl }).POST('/v1/keys', {
+    body: { name: `sdk frames ${randomUUID().slice(0, 8)}`, environment },
+    headers: { cookie },
+  });
+  expect(created.response.status).toBe(201);
+  return (created.data as { secret: string }).secret;
+}
 
 async function newKey(environment: 'live' | 'test'): Promise<string> {
   return (await newStudio(environment)).secret;
@@ -214,8 +269,119 @@ describe('Lumenwright SDK', () => {
     await expect(lw.gear.gelKit(kitId)).rejects.toMatchObject({ status: 404 });
   });
 
+  it('uploads a test frame from bytes and from a Blob, lists, reads, fetches its thumbnail and deletes it', async () => {
+    const demo = new Lumenwright({ apiKey: await demoStudioKey('test'), baseUrl });
+    const png = greyPng(64, 48, 128);
+    const patch = { x: 8, y: 8, width: 32, height: 24 };
+    const f = await demo.frames.upload({
+      file: png,
+      filename: 'dusk-card.png',
+      patch,
+      cameraKelvin: 5600,
+    });
+    expect(f.id).toMatch(UUID);
+    expect(f).toMatchObject({
+      fileName: 'dusk-card.png',
+      contentType: 'image/png',
+      byteSize: png.length,
+      width: 64,
+      height: 48,
+    });
+    expect(f.patch).toMatchObject({ ...patch, source: 'caller' });
+    // A neutral sRGB grey has the sRGB white point, D65: x 0.3127, y 0.3290 (IEC 61966-2-1),
+    // whose CCT is 6504 K (CIE 15:2004, table T.3); 8-bit rounding moves it a few kelvin at most.
+    expect(f.colour.chromaticity.x).toBeCloseTo(0.3127, 3);
+    expect(f.colour.chromaticity.y).toBeCloseTo(0.329, 3);
+    expect(Math.abs(f.colour.cctKelvin! - 6504)).toBeLessThanOrEqual(15);
+    expect(f.colour.cameraKelvinSource).toBe('caller');
+    // Its luminance is the sRGB decoding of code value 128 (IEC 61966-2-1): about 0.2158.
+    expect(f.patch.luminance).toBeCloseTo(srgbToLinear(128), 3);
+
+    const blob = await demo.frames.upload({
+      file: new Blob([new Uint8Array(greyPng(32, 32, 200))], { type: 'image/png' }),
+      filename: 'second.png',
+    });
+    expect(blob.fileName).toBe('second.png');
+    expect(blob.patch.source).toBe('auto');
+
+    const page = await demo.frames.list({ limit: 2 });
+    expect(page.data.map((x) => x.id)).toEqual([blob.id, f.id]);
+    expect((await demo.frames.get(f.id)).sha256).toBe(f.sha256);
+    const thumb = await demo.frames.thumbnail(f.id);
+    expect(thumb.type).toBe('image/jpeg');
+    // Every JPEG starts with the SOI marker FF D8 (ITU-T T.81, annex B).
+    expect([...new Uint8Array(await thumb.arrayBuffer()).slice(0, 2)]).toEqual([0xff, 0xd8]);
+
+    await demo.frames.delete(f.id);
+    await demo.frames.delete(blob.id);
+    await expect(demo.frames.get(f.id)).rejects.toMatchObject({ status: 404 });
+    await expect(demo.frames.delete(f.id)).rejects.toMatchObject({ status: 404 });
+  });
+
+  it('refuses a bad page size naming the parameter, and uploads on a plan without them', async () => {
+    for (const limit of [0, 1000, 1.5]) {
+      const err = (await lw.frames.list({ limit }).catch((e: unknown) => e)) as LumenwrightError;
+      expect(err).toBeInstanceOf(LumenwrightError);
+      expect(err.status).toBe(422);
+      expect(err.problem?.errors).toEqual([
+        { field: 'limit', reason: 'must be a whole number from 1 to 100' },
+      ]);
+    }
+    // A new studio is on the free plan, which has no uploads: refused before the file is read.
+    const err = (await lw.frames
+      .upload({ file: greyPng(8, 8, 128), filename: 'a.png' })
+      .catch((e: unknown) => e)) as LumenwrightError;
+    expect(err.status).toBe(403);
+    expect(err.code).toBe('plan-feature-missing');
+  });
+
+  it('says which key is calling', async () => {
+    const me = await lw.whoami();
+    expect(me).toMatchObject({ kind: 'api-key', keyMode: 'live', userId: null, role: null });
+    expect(me.keyId).toMatch(UUID);
+    expect(me.organizationId).toMatch(UUID);
+    const test = await new Lumenwright({ apiKey: await newKey('test'), baseUrl }).whoami();
+    expect(test.keyMode).toBe('test');
+    expect(test.organizationId).not.toBe(me.organizationId);
+  });
+
+  it("reads this month's usage against the plan", async () => {
+    const own = new Lumenwright({ apiKey: await newKey('live'), baseUrl });
+    const before = await own.usage();
+    expect(before.plan.code).toBe('free');
+    expect(before.usage.liveCallsCounted).toBe(0);
+    const free = (await own.plans()).data.find((p) => p.code === 'free')!;
+    expect(before.plan.includedCallsPerMonth).toBe(free.includedCallsPerMonth);
+    // The quota resets at the start of the next calendar month, UTC.
+    const now = new Date();
+    const next = new Date(Date.UTC(now.getUTCFullYear(), now.getUTCMonth() + 1, 1));
+    expect(before.resetsAt).toBe(next.toISOString());
+    await own.balance({ cameraKelvin: 3800, flashKelvin: 5600 });
+    await own.balance({ cameraKelvin: 4300, flashKelvin: 5600 });
+    await own.balance({ cameraKelvin: -1 }).catch(() => undefined); // refused: not counted
+    // Usage is written in small batches: wait for the calls to show (4 reads a second stays
+    // under the free plan's 5 a second).
+    let after = await own.usage();
+    for (
+      let i = 0;
+      i < 40 && (after.usage.liveCallsCounted < 2 || after.usage.liveCalls < 3);
+      i++
+    ) {
+      await new Promise((r) => setTimeout(r, 250));
+      after = await own.usage();
+    }
+    expect(after.usage.liveCallsCounted).toBe(2);
+    expect(after.usage.liveCalls).toBe(3);
+  });
+
   it('lists the plans', async () => {
     const plans = await lw.plans();
     expect(plans.data.map((p) => p.code)).toEqual(['free', 'studio', 'platform']);
+    // Test keys get the plan's rate capped at 10 a second, burst 20 (the service's published
+    // policy; the server's unit test ties these to the rate-limit guard).
+    for (const p of plans.data) {
+      expect(p.testKeyRatePerSecond).toBe(Math.min(p.ratePerSecond, 10));
+      expect(p.testKeyBurst).toBe(Math.min(p.burst, 20));
+    }
   });
 });

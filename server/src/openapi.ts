@@ -6,6 +6,7 @@ import { APP_CONFIG, type AppConfig } from './config/config.js';
 import type { JsonSchema } from './compute/validation/json-schema.js';
 import { SCHEMA_DTOS, SCHEMA_REFS } from './compute/validation/schema-dto.js';
 import { accessRulesByHandler, documentStandardProblems } from './openapi-problems.js';
+import { COMPUTE_EXAMPLES } from './compute/schemas/examples.js';
 
 const PROBLEM_SCHEMA = {
   type: 'object',
@@ -123,6 +124,17 @@ function serverUrl(app: INestApplication): string {
   return config?.publicUrl ?? 'http://127.0.0.1:3000';
 }
 
+/** Each compute route's named request examples (the invented demo scenario). */
+function attachComputeExamples(doc: OpenAPIObject): void {
+  for (const [endpoint, examples] of Object.entries(COMPUTE_EXAMPLES)) {
+    const media = doc.paths[`/v1/${endpoint}`]?.post?.requestBody as
+      { content?: Record<string, { examples?: unknown }> } | undefined;
+    const json = media?.content?.['application/json'];
+    if (!json) throw new Error(`no JSON body documented for POST /v1/${endpoint}`);
+    json.examples = examples;
+  }
+}
+
 export function buildOpenApiDocument(app: INestApplication): OpenAPIObject {
   const config = new DocumentBuilder()
     .setOpenAPIVersion('3.1.0')
@@ -156,6 +168,7 @@ export function buildOpenApiDocument(app: INestApplication): OpenAPIObject {
   restoreNestedRequired(doc);
   restoreTopLevel(doc);
   documentStandardProblems(doc, accessRulesByHandler(app));
+  attachComputeExamples(doc);
   for (const [name, schema] of SCHEMA_DTOS) {
     referToDtos(schema, doc.components.schemas[name] as DocSchema | undefined);
   }

@@ -3,6 +3,7 @@
  * balance and the whole dusk setup. No I/O, no clock: time is always an argument.
  */
 export { LightingInputError } from './errors.js';
+export * from './warning-codes.js';
 
 export * from './twilight/compute-twilight.js';
 export * from './twilight/ambient-model.js';

@@ -345,7 +345,11 @@ export interface paths {
     get: operations['getFrame'];
     put?: never;
     post?: never;
-    delete?: never;
+    /**
+     * Delete a test frame: its analysis, the original and the thumbnail.
+     * @description With the key that uploaded it (or any key or member of the organisation). Uses no quota and is not metered; the key’s rate limit applies. A frame shows people: delete what you no longer need.
+     */
+    delete: operations['deleteFrame'];
     options?: never;
     head?: never;
     patch?: never;
@@ -1280,8 +1284,12 @@ export interface components {
       headInBeam: boolean;
       /** @description Things to look at: a stable code and a sentence for people. */
       warnings?: {
-        /** @description Stable warning code. */
-        code: string;
+        /**
+         * @description Stable warning code.
+         * @example head-outside-beam
+         * @enum {string}
+         */
+        code: 'head-outside-beam' | 'ground-outshines-rim' | 'aimed-down';
         /** @description Explanation. */
         message: string;
       }[];
@@ -1457,8 +1465,12 @@ export interface components {
       }[];
       /** @description Things to look at: a stable code and a sentence for people. Codes: "fine-tune-limit" (the camera white balance that would cancel the residual is outside 1500–20000 K, so it is clamped); "fine-tune-beyond-range" (cancelling the residual takes more than ±7 amber/blue fine-tune steps; allow or add a gel, or set the camera’s kelvin instead). */
       warnings?: {
-        /** @description Stable warning code. */
-        code: string;
+        /**
+         * @description Stable warning code.
+         * @example fine-tune-limit
+         * @enum {string}
+         */
+        code: 'fine-tune-limit' | 'fine-tune-beyond-range';
         /** @description Explanation. */
         message: string;
       }[];
@@ -1638,7 +1650,7 @@ export interface components {
       periodStart: string;
       plan: {
         /**
-         * @description Calls a key may make at once before the rate applies.
+         * @description Calls a live key may make at once before the rate applies.
          * @example 100
          */
         burst: number;
@@ -1689,7 +1701,7 @@ export interface components {
          */
         overagePricePer1000Cents: number | null;
         /**
-         * @description Sustained calls per second per API key.
+         * @description Sustained calls per second per live API key.
          * @example 50
          */
         ratePerSecond: number;
@@ -1698,6 +1710,16 @@ export interface components {
          * @example 20000
          */
         testCallsPerMonth: number;
+        /**
+         * @description Calls a test key may make at once: the plan's burst, at most 20.
+         * @example 20
+         */
+        testKeyBurst: number;
+        /**
+         * @description Sustained calls per second per test key: the plan's rate, at most 10.
+         * @example 10
+         */
+        testKeyRatePerSecond: number;
       };
       /**
        * @description When the monthly quota resets (ISO 8601).
@@ -1942,10 +1964,24 @@ export interface components {
       solvedFor: 'shutterSeconds' | 'aperture' | 'iso' | 'none';
       /** @description Background mode: the EV100 the settings expose for (ev100 - biasStops). */
       targetEv100?: number;
-      /** @description Things to look at: a stable code and a sentence for people. */
+      /** @description Things to look at: a stable code and a sentence for people. Codes: "too-dark" (background mode); "needs-tripod" (background mode); "subject-motion" (background mode); "exceeds-sync" (background mode). */
       warnings?: {
-        /** @description Stable warning code. */
-        code: string;
+        /**
+         * @description Stable warning code.
+         * @example overexposed
+         * @enum {string}
+         */
+        code:
+          | 'overexposed'
+          | 'underexposed'
+          | 'bulb'
+          | 'shutter-too-fast'
+          | 'aperture-off-scale'
+          | 'iso-off-scale'
+          | 'too-dark'
+          | 'needs-tripod'
+          | 'subject-motion'
+          | 'exceeds-sync';
         /** @description Explanation. */
         message: string;
       }[];
@@ -2152,10 +2188,14 @@ export interface components {
        * @example 2.17
        */
       totalLossStops?: number;
-      /** @description Things to look at: a stable code and a sentence for people. */
+      /** @description Things to look at: a stable code and a sentence for people. Codes: "ambient-dominates" (the dusk setup’s key light only: the ambient outweighs the key). */
       warnings: {
-        /** @description Stable warning code. */
-        code: string;
+        /**
+         * @description Stable warning code.
+         * @example over-full-power
+         * @enum {string}
+         */
+        code: 'over-full-power' | 'below-min-power' | 'ambient-dominates';
         /** @description Explanation. */
         message: string;
       }[];
@@ -2762,7 +2802,7 @@ export interface components {
     PlanListResponseDto: {
       data: {
         /**
-         * @description Calls a key may make at once before the rate applies.
+         * @description Calls a live key may make at once before the rate applies.
          * @example 100
          */
         burst: number;
@@ -2813,7 +2853,7 @@ export interface components {
          */
         overagePricePer1000Cents: number | null;
         /**
-         * @description Sustained calls per second per API key.
+         * @description Sustained calls per second per live API key.
          * @example 50
          */
         ratePerSecond: number;
@@ -2822,6 +2862,16 @@ export interface components {
          * @example 20000
          */
         testCallsPerMonth: number;
+        /**
+         * @description Calls a test key may make at once: the plan's burst, at most 20.
+         * @example 20
+         */
+        testKeyBurst: number;
+        /**
+         * @description Sustained calls per second per test key: the plan's rate, at most 10.
+         * @example 10
+         */
+        testKeyRatePerSecond: number;
       }[];
     };
     /** @description An RFC 9457 problem detail. */
@@ -3029,8 +3079,20 @@ export interface components {
          * @example 0b7c6a52-3d0e-4c55-9f59-2b1f4e0d8a11
          */
         lightId?: string;
-        /** @description Modifier kind (see the math library’s modifier list). */
-        modifier?: string;
+        /**
+         * @description Modifier kind; it sets the default modifierSize and modifierLossStops. Default softbox.
+         * @example softbox
+         * @enum {string}
+         */
+        modifier?:
+          | 'bare'
+          | 'umbrella'
+          | 'softbox'
+          | 'softbox-double-diffusion'
+          | 'octabox'
+          | 'beauty-dish'
+          | 'grid'
+          | 'snoot';
         /**
          * @description Id of one of your modifiers (GET /v1/gear/modifiers): its loss, kind and size. Send this or key.modifierLossStops.
          * @example 0b7c6a52-3d0e-4c55-9f59-2b1f4e0d8a11
@@ -3403,8 +3465,20 @@ export interface components {
          * @example 0b7c6a52-3d0e-4c55-9f59-2b1f4e0d8a11
          */
         lightId?: string;
-        /** @description Modifier kind (see the math library’s modifier list). */
-        modifier?: string;
+        /**
+         * @description Modifier kind; it sets the default modifierSize and modifierLossStops. Default softbox.
+         * @example softbox
+         * @enum {string}
+         */
+        modifier?:
+          | 'bare'
+          | 'umbrella'
+          | 'softbox'
+          | 'softbox-double-diffusion'
+          | 'octabox'
+          | 'beauty-dish'
+          | 'grid'
+          | 'snoot';
         /**
          * @description Id of one of your modifiers (GET /v1/gear/modifiers): its loss, kind and size. Send this or key.modifierLossStops.
          * @example 0b7c6a52-3d0e-4c55-9f59-2b1f4e0d8a11
@@ -3620,8 +3694,17 @@ export interface components {
         /**
          * @description Modifier kind used.
          * @example softbox
+         * @enum {string}
          */
-        modifier: string;
+        modifier:
+          | 'bare'
+          | 'umbrella'
+          | 'softbox'
+          | 'softbox-double-diffusion'
+          | 'octabox'
+          | 'beauty-dish'
+          | 'grid'
+          | 'snoot';
         /**
          * @description Light lost in the modifier, stops.
          * @example 1.3
@@ -3853,16 +3936,35 @@ export interface components {
         timeZone?: string;
         /** @description Things to look at: a stable code and a sentence for people. Codes: "time-zone-mismatch" (the zone’s UTC offset on the date is more than 3.5 h from the place’s solar time, longitude / 15 h: probably not the place’s zone). */
         warnings: {
-          /** @description Stable warning code. */
-          code: string;
+          /**
+           * @description Stable warning code.
+           * @example time-zone-mismatch
+           * @enum {string}
+           */
+          code: 'time-zone-mismatch';
           /** @description Explanation. */
           message: string;
         }[];
       };
-      /** @description Things to look at: a stable code and a sentence for people. Besides the plan’s own, these include the twilight’s ("time-zone-mismatch") and the balance’s ("fine-tune-limit", "fine-tune-beyond-range"). */
+      /** @description Things to look at: a stable code and a sentence for people. Besides the plan’s own, these include the twilight’s ("time-zone-mismatch"), the rim light’s backlight warnings (prefixed "rim-"), the first minute where the ambient outweighs the key ("ambient-dominates") and the balance’s ("fine-tune-limit", "fine-tune-beyond-range"). */
       warnings: {
-        /** @description Stable warning code. */
-        code: string;
+        /**
+         * @description Stable warning code.
+         * @example time-zone-mismatch
+         * @enum {string}
+         */
+        code:
+          | 'time-zone-mismatch'
+          | 'no-sunset'
+          | 'too-dark'
+          | 'no-usable-minute'
+          | 'rim-head-outside-beam'
+          | 'rim-ground-outshines-rim'
+          | 'rim-aimed-down'
+          | 'ambient-model'
+          | 'ambient-dominates'
+          | 'fine-tune-limit'
+          | 'fine-tune-beyond-range';
         /** @description Explanation. */
         message: string;
       }[];
@@ -4179,8 +4281,12 @@ export interface components {
       timeZone?: string;
       /** @description Things to look at: a stable code and a sentence for people. Codes: "time-zone-mismatch" (the zone’s UTC offset on the date is more than 3.5 h from the place’s solar time, longitude / 15 h: probably not the place’s zone). */
       warnings: {
-        /** @description Stable warning code. */
-        code: string;
+        /**
+         * @description Stable warning code.
+         * @example time-zone-mismatch
+         * @enum {string}
+         */
+        code: 'time-zone-mismatch';
         /** @description Explanation. */
         message: string;
       }[];
@@ -6055,7 +6161,7 @@ export interface operations {
     parameters: {
       query?: {
         /** @description Page size, a whole number from 1 to 100 (default 20). */
-        limit?: string;
+        limit?: number;
         /** @description nextCursor of the previous page. */
         cursor?: string;
       };
@@ -6132,20 +6238,20 @@ export interface operations {
     requestBody: {
       content: {
         'multipart/form-data': {
-          /** @description The white balance the frame was shot at, kelvin (1500-20000). */
+          /** @description The white balance the frame was shot at, kelvin. Whole number, 1500 to 20000. */
           cameraKelvin?: number;
           /**
            * Format: binary
-           * @description The image; its type is read from its content.
+           * @description The image, JPEG or PNG, at most 25 MB; its type is read from its content. Send it after the other fields.
            */
-          file: string;
-          /** @description Neutral patch height, pixels. */
+          file: Blob;
+          /** @description Neutral patch height, pixels. Whole number, 1 to 100000. */
           patchHeight?: number;
-          /** @description Neutral patch width, pixels. */
+          /** @description Neutral patch width, pixels. Whole number, 1 to 100000. */
           patchWidth?: number;
-          /** @description Neutral patch left edge, pixels (upright image). Give all four or none. */
+          /** @description Neutral patch left edge, pixels (upright image). Give all four or none. Whole number, 0 to 100000. */
           patchX?: number;
-          /** @description Neutral patch top edge, pixels. */
+          /** @description Neutral patch top edge, pixels. Whole number, 0 to 100000. */
           patchY?: number;
         };
       };
@@ -6273,7 +6379,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description No such frame in your organisation. */
+      /** @description No such frame in your organisation; an id that is not a UUID names none (`errors` names `id`). */
       404: {
         headers: {
           [name: string]: unknown;
@@ -6282,8 +6388,72 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description The id is not a UUID; `errors` names it. */
-      422: {
+      /** @description With an API key: the key's rate limit, shared with its computations (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy). Reads use no quota. */
+      429: {
+        headers: {
+          /** @description Calls left in the window and seconds until it refills, e.g. `"key";r=0;t=1`. */
+          RateLimit?: string;
+          /** @description The limit: burst size and window in seconds, e.g. `"key";q=100;w=2`. */
+          'RateLimit-Policy'?: string;
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
+  deleteFrame: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        id: string;
+      };
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      /** @description Deleted. */
+      204: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content?: never;
+      };
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No such frame in your organisation; an id that is not a UUID names none (`errors` names `id`). */
+      404: {
         headers: {
           [name: string]: unknown;
         };
@@ -6346,17 +6516,8 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description No such frame in your organisation. */
+      /** @description No such frame in your organisation; an id that is not a UUID names none (`errors` names `id`). */
       404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/problem+json': components['schemas']['Problem'];
-        };
-      };
-      /** @description The id is not a UUID; `errors` names it. */
-      422: {
         headers: {
           [name: string]: unknown;
         };
@@ -10771,8 +10932,8 @@ export interface operations {
           | 'balance'
           | 'setup'
           | 'frames';
-        /** @description Only this HTTP status. */
-        status?: string;
+        /** @description Only this HTTP status. A whole number from 100 to 599. */
+        status?: number;
         /** @description Only failed calls (4xx or 5xx: "error") or the others ("ok"). */
         outcome?: 'ok' | 'error';
         /** @description From this instant (inclusive), ISO 8601 or YYYY-MM-DD (UTC). */
@@ -10780,7 +10941,7 @@ export interface operations {
         /** @description Before this instant (exclusive), ISO 8601 or YYYY-MM-DD (UTC). */
         to?: string;
         /** @description Page size, a whole number from 1 to 200; default 50. */
-        limit?: string;
+        limit?: number;
         /** @description nextCursor from the previous page. */
         cursor?: string;
       };
@@ -10853,8 +11014,8 @@ export interface operations {
           | 'balance'
           | 'setup'
           | 'frames';
-        /** @description Only this HTTP status. */
-        status?: string;
+        /** @description Only this HTTP status. A whole number from 100 to 599. */
+        status?: number;
         /** @description Only failed calls (4xx or 5xx: "error") or the others ("ok"). */
         outcome?: 'ok' | 'error';
         /** @description From this instant (inclusive), ISO 8601 or YYYY-MM-DD (UTC). */
@@ -10862,7 +11023,7 @@ export interface operations {
         /** @description Before this instant (exclusive), ISO 8601 or YYYY-MM-DD (UTC). */
         to?: string;
         /** @description Page size, a whole number from 1 to 200; default 50. */
-        limit?: string;
+        limit?: number;
         /** @description nextCursor from the previous page. */
         cursor?: string;
       };
@@ -10940,8 +11101,8 @@ export interface operations {
           | 'balance'
           | 'setup'
           | 'frames';
-        /** @description Only calls answered with this HTTP status. */
-        status?: string;
+        /** @description Only calls answered with this HTTP status. A whole number from 100 to 599. */
+        status?: number;
         /** @description Only failed calls (4xx or 5xx: "error") or the others ("ok"). */
         outcome?: 'ok' | 'error';
       };

@@ -8,8 +8,8 @@ export interface PermissionInfo {
 
 /**
  * The permission table. API keys carry no role: a key acts for its organisation on the compute
- * routes and reads its gear (`@ApiKeyAuth`), and can never call a management route or write
- * anything (those are `@SessionAuth`).
+ * routes, reads its gear, and uploads, reads and deletes its test frames (`@ApiKeyAuth`); it can
+ * never call a management route or write anything else (those are `@SessionAuth`).
  */
 export const PERMISSIONS = {
   'organization:read': { roles: ROLES, description: 'See the organisation and its plan' },

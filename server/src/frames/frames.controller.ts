@@ -1,8 +1,9 @@
-import { Controller, Get, HttpCode, Param, Post, Query, Req, Res } from '@nestjs/common';
+import { Controller, Delete, Get, HttpCode, Param, Post, Query, Req, Res } from '@nestjs/common';
 import { RouteConfig } from '@nestjs/platform-fastify';
 import {
   ApiBody,
   ApiConsumes,
+  ApiNoContentResponse,
   ApiOkResponse,
   ApiOperation,
   ApiProduces,
@@ -13,7 +14,7 @@ import type { FastifyReply } from 'fastify';
 import { ApiKeyAuth } from '../common/decorators/access.decorator.js';
 import { meteredTooManyRequests, problem } from '../common/decorators/problem-responses.js';
 import type { RequestWithPrincipal } from '../common/guards/access.guard.js';
-import { ApiQueryFromSchema, SchemaPipe } from '../compute/validation/schema-dto.js';
+import { ApiQueryFromSchema, QuerySchemaPipe } from '../compute/validation/schema-dto.js';
 import { KeyReadLimited } from '../plans/key-read.decorator.js';
 import type { IdempotentRouteConfig } from '../idempotency/idempotency.hook.js';
 import { IdempotentBody } from '../idempotency/idempotency.guard.js';
@@ -26,16 +27,33 @@ import { FrameListResponseDto, FrameResponseDto } from './dto/frame.dto.js';
 import { toFrameDto } from './frame.mapper.js';
 import { FramesService } from './frames.service.js';
 import { FrameIdPipe } from './frame-id.pipe.js';
-import { readFrameForKey } from './upload-reader.js';
+import { readFrameForKey, UPLOAD_FIELD_RANGES } from './upload-reader.js';
+
+/** The 404 of a route with a frame id (FrameIdPipe: an id that is not a UUID names no frame). */
+const FRAME_NOT_FOUND =
+  'No such frame in your organisation; an id that is not a UUID names none (`errors` names `id`).';
+
+/** A whole-number form field of the upload, with the range the reader enforces. */
+const uploadInt = (name: keyof typeof UPLOAD_FIELD_RANGES, description: string) => {
+  const [minimum, maximum] = UPLOAD_FIELD_RANGES[name];
+  return {
+    type: 'integer',
+    minimum,
+    maximum,
+    description: `${description} Whole number, ${minimum} to ${maximum}.`,
+  };
+};
 
 const listQuery = {
   type: 'object' as const,
   additionalProperties: false,
   properties: {
     limit: {
-      type: 'string' as const,
-      pattern: '^([1-9]|[1-9][0-9]|100)$',
-      patternWords: 'a whole number from 1 to 100',
+      type: 'integer' as const,
+      minimum: 1,
+      maximum: 100,
+      default: 20,
+      example: 20,
       description: 'Page size, a whole number from 1 to 100 (default 20).',
     },
     cursor: {
@@ -72,21 +90,23 @@ export class FramesController {
       required: ['file'],
       properties: {
         file: {
+          // A binary part (OpenAPI 3.1 `contentMediaType`; `format: binary` for 3.0-era tools):
+          // the generated SDK types it as a Blob, not a string.
           type: 'string',
           format: 'binary',
-          description: 'The image; its type is read from its content.',
+          // (the decorator's types predate OpenAPI 3.1's keyword)
+          ...({ contentMediaType: 'application/octet-stream' } as object),
+          description:
+            'The image, JPEG or PNG, at most 25 MB; its type is read from its content. Send it after the other fields.',
         },
-        patchX: {
-          type: 'integer',
-          description: 'Neutral patch left edge, pixels (upright image). Give all four or none.',
-        },
-        patchY: { type: 'integer', description: 'Neutral patch top edge, pixels.' },
-        patchWidth: { type: 'integer', description: 'Neutral patch width, pixels.' },
-        patchHeight: { type: 'integer', description: 'Neutral patch height, pixels.' },
-        cameraKelvin: {
-          type: 'integer',
-          description: 'The white balance the frame was shot at, kelvin (1500-20000).',
-        },
+        patchX: uploadInt(
+          'patchX',
+          'Neutral patch left edge, pixels (upright image). Give all four or none.',
+        ),
+        patchY: uploadInt('patchY', 'Neutral patch top edge, pixels.'),
+        patchWidth: uploadInt('patchWidth', 'Neutral patch width, pixels.'),
+        patchHeight: uploadInt('patchHeight', 'Neutral patch height, pixels.'),
+        cameraKelvin: uploadInt('cameraKelvin', 'The white balance the frame was shot at, kelvin.'),
       },
     },
   })
@@ -113,13 +133,9 @@ export class FramesController {
   @ApiOkResponse({ type: FrameListResponseDto })
   async listFrames(
     @Req() req: RequestWithPrincipal,
-    @Query(new SchemaPipe(listQuery)) q: { limit?: string; cursor?: string },
+    @Query(new QuerySchemaPipe(listQuery)) q: { limit?: number; cursor?: string },
   ) {
-    const page = await this.frames.list(
-      req.principal!.organizationId,
-      Number(q.limit ?? 20),
-      q.cursor,
-    );
+    const page = await this.frames.list(req.principal!.organizationId, q.limit ?? 20, q.cursor);
     return { data: page.data.map(toFrameDto), nextCursor: page.nextCursor };
   }
 
@@ -128,10 +144,29 @@ export class FramesController {
   @KeyReadLimited()
   @ApiOperation({ summary: 'One test frame and its analysis.' })
   @ApiOkResponse({ type: FrameResponseDto })
-  @problem(404, 'No such frame in your organisation.')
-  @problem(422, 'The id is not a UUID; `errors` names it.')
+  @problem(404, FRAME_NOT_FOUND)
   async getFrame(@Req() req: RequestWithPrincipal, @Param('id', new FrameIdPipe()) id: string) {
     return toFrameDto(await this.frames.get(req.principal!.organizationId, id));
+  }
+
+  @Delete(':id')
+  @ApiKeyAuth()
+  @KeyReadLimited()
+  @HttpCode(204)
+  @ApiOperation({
+    summary: 'Delete a test frame: its analysis, the original and the thumbnail.',
+    description:
+      'With the key that uploaded it (or any key or member of the organisation). Uses no quota ' +
+      'and is not metered; the key’s rate limit applies. A frame shows people: delete what you ' +
+      'no longer need.',
+  })
+  @ApiNoContentResponse({ description: 'Deleted.' })
+  @problem(404, FRAME_NOT_FOUND)
+  async deleteFrame(
+    @Req() req: RequestWithPrincipal,
+    @Param('id', new FrameIdPipe()) id: string,
+  ): Promise<void> {
+    await this.frames.remove(req.principal!.organizationId, id);
   }
 
   @Get(':id/thumbnail')
@@ -140,8 +175,7 @@ export class FramesController {
   @ApiOperation({ summary: 'The JPEG thumbnail of a test frame (at most 320 px).' })
   @ApiProduces('image/jpeg')
   @ApiOkResponse({ description: 'JPEG image.' })
-  @problem(404, 'No such frame in your organisation.')
-  @problem(422, 'The id is not a UUID; `errors` names it.')
+  @problem(404, FRAME_NOT_FOUND)
   async getFrameThumbnail(
     @Req() req: RequestWithPrincipal,
     @Param('id', new FrameIdPipe()) id: string,

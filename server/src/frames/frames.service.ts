@@ -135,6 +135,18 @@ export class FramesService {
     return row;
   }
 
+  /**
+   * Removes the row first (so the frame is gone for every reader at once), then both objects.
+   * An object that cannot be deleted now has no row and is removed by the orphan sweeper.
+   */
+  async remove(orgId: string, id: string): Promise<void> {
+    const row = await this.get(orgId, id);
+    const { affected } = await this.repo.delete({ id: row.id, organizationId: orgId });
+    if (!affected) throw new DomainError('not_found', 'No such frame in your organisation.');
+    await this.store.deleteQuietly(row.objectKey);
+    await this.store.deleteQuietly(row.thumbnailKey);
+  }
+
   async thumbnail(orgId: string, id: string) {
     const row = await this.get(orgId, id);
     return this.store.get(row.thumbnailKey);

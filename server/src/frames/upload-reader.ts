@@ -26,7 +26,8 @@ export interface FrameUpload {
 
 const FIELDS = ['patchX', 'patchY', 'patchWidth', 'patchHeight', 'cameraKelvin'] as const;
 type FieldName = (typeof FIELDS)[number];
-const RANGES: Record<FieldName, [number, number]> = {
+/** Whole-number range of each form field; the upload body in the spec states the same. */
+export const UPLOAD_FIELD_RANGES: Record<FieldName, [number, number]> = {
   patchX: [0, 100_000],
   patchY: [0, 100_000],
   patchWidth: [1, 100_000],
@@ -62,7 +63,7 @@ export async function readFrameUpload(req: FastifyRequest, maxBytes: number): Pr
         const name = part.fieldname as FieldName;
         sent.add(name);
         const n = Number(part.value);
-        const [min, max] = RANGES[name];
+        const [min, max] = UPLOAD_FIELD_RANGES[name];
         if (
           typeof part.value !== 'string' ||
           !/^\d+$/.test(part.value.trim()) ||

@@ -1,6 +1,7 @@
 import { num, str, bool } from '../compute/schemas/common.js';
 import { schemaDto, type ObjectSchema } from '../compute/validation/schema-dto.js';
 import type { PlanEntity } from './plan.entity.js';
+import { TEST_KEY_RATE } from './plan-catalogue.js';
 
 export interface PlanDto {
   code: string;
@@ -11,6 +12,8 @@ export interface PlanDto {
   testCallsPerMonth: number;
   ratePerSecond: number;
   burst: number;
+  testKeyRatePerSecond: number;
+  testKeyBurst: number;
   overagePricePer1000Cents: number | null;
   features: { uploads: boolean; savedSetups: number | null; seats: number };
 }
@@ -24,6 +27,9 @@ export const toPlanDto = (p: PlanEntity): PlanDto => ({
   testCallsPerMonth: p.testCallsPerMonth,
   ratePerSecond: p.ratePerSecond,
   burst: p.burst,
+  // What the rate-limit guard gives a test key: the plan's, capped at the test-key limits.
+  testKeyRatePerSecond: Math.min(p.ratePerSecond, TEST_KEY_RATE.ratePerSecond),
+  testKeyBurst: Math.min(p.burst, TEST_KEY_RATE.burst),
   overagePricePer1000Cents: p.overagePricePer1000Cents,
   features: { uploads: p.uploads, savedSetups: p.savedSetups, seats: p.seats },
 });
@@ -37,8 +43,16 @@ const planSchema: ObjectSchema = {
     monthlyPriceCents: num('Monthly price, cents.', 2900),
     includedCallsPerMonth: num('Live calls included per calendar month (UTC).', 100000),
     testCallsPerMonth: num('Test-key calls allowed per month (test keys are free).', 20000),
-    ratePerSecond: num('Sustained calls per second per API key.', 50),
-    burst: num('Calls a key may make at once before the rate applies.', 100),
+    ratePerSecond: num('Sustained calls per second per live API key.', 50),
+    burst: num('Calls a live key may make at once before the rate applies.', 100),
+    testKeyRatePerSecond: num(
+      `Sustained calls per second per test key: the plan's rate, at most ${TEST_KEY_RATE.ratePerSecond}.`,
+      TEST_KEY_RATE.ratePerSecond,
+    ),
+    testKeyBurst: num(
+      `Calls a test key may make at once: the plan's burst, at most ${TEST_KEY_RATE.burst}.`,
+      TEST_KEY_RATE.burst,
+    ),
     overagePricePer1000Cents: {
       type: ['number', 'null'],
       description: 'Price per 1,000 live calls over the included amount, cents; null = hard cap.',

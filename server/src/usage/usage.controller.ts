@@ -3,7 +3,7 @@ import { ApiOkResponse, ApiOperation, ApiProduces, ApiTags } from '@nestjs/swagg
 import type { FastifyReply } from 'fastify';
 import { SessionAuth } from '../common/decorators/access.decorator.js';
 import type { RequestWithPrincipal } from '../common/guards/access.guard.js';
-import { ApiQueryFromSchema, SchemaPipe } from '../compute/validation/schema-dto.js';
+import { ApiQueryFromSchema, QuerySchemaPipe } from '../compute/validation/schema-dto.js';
 import {
   eventsQuerySchema,
   summaryQuerySchema,
@@ -13,7 +13,17 @@ import {
 import { EventFilters, UsageService } from './usage.service.js';
 import { DomainError } from '../common/errors/domain-error.js';
 
-type Q = Record<string, string | undefined>;
+/** A validated query: strings, and numbers where the schema says so (`limit`, `status`). */
+interface Q {
+  from?: string;
+  to?: string;
+  keyId?: string;
+  endpoint?: string;
+  status?: number;
+  outcome?: string;
+  limit?: number;
+  cursor?: string;
+}
 const CSV_MAX_ROWS = 100_000;
 
 function instant(field: string, v: string | undefined): Date | undefined {
@@ -31,7 +41,7 @@ function filters(q: Q): EventFilters {
   return {
     keyId: q.keyId?.toLowerCase(),
     endpoint: q.endpoint,
-    status: q.status ? Number(q.status) : undefined,
+    status: q.status,
     outcome: q.outcome as EventFilters['outcome'],
     from: instant('from', q.from),
     to: instant('to', q.to),
@@ -58,7 +68,7 @@ export class UsageController {
   @ApiOkResponse({ type: UsageSummaryResponseDto })
   getUsageSummary(
     @Req() req: RequestWithPrincipal,
-    @Query(new SchemaPipe(summaryQuerySchema)) q: Q,
+    @Query(new QuerySchemaPipe(summaryQuerySchema)) q: Q,
   ) {
     const today = new Date().toISOString().slice(0, 10);
     const from = q.from ?? `${today.slice(0, 8)}01`;
@@ -71,7 +81,7 @@ export class UsageController {
     return this.usage.summary(req.principal!.organizationId, from, to, {
       keyId: q.keyId,
       endpoint: q.endpoint,
-      status: q.status === undefined ? undefined : Number(q.status),
+      status: q.status,
       outcome: q.outcome as EventFilters['outcome'],
     });
   }
@@ -83,9 +93,9 @@ export class UsageController {
   @ApiOkResponse({ type: UsageEventPageResponseDto })
   listUsageEvents(
     @Req() req: RequestWithPrincipal,
-    @Query(new SchemaPipe(eventsQuerySchema)) q: Q,
+    @Query(new QuerySchemaPipe(eventsQuerySchema)) q: Q,
   ) {
-    const limit = q.limit ? Number(q.limit) : 50;
+    const limit = q.limit ?? 50;
     return this.usage.events(req.principal!.organizationId, filters(q), limit, q.cursor);
   }
 
@@ -99,7 +109,7 @@ export class UsageController {
   @ApiOkResponse({ description: 'CSV with a header row.', schema: { type: 'string' } })
   async exportUsageEvents(
     @Req() req: RequestWithPrincipal,
-    @Query(new SchemaPipe(eventsQuerySchema)) q: Q,
+    @Query(new QuerySchemaPipe(eventsQuerySchema)) q: Q,
     @Res({ passthrough: true }) _res: FastifyReply,
   ): Promise<string> {
     const cols = [

@@ -16,10 +16,15 @@ const DATE = '^\\d{4}-\\d{2}-\\d{2}$';
 const INSTANT =
   '^\\d{4}-\\d{2}-\\d{2}(T\\d{2}:\\d{2}(:\\d{2}(\\.\\d{1,6})?)?(Z|[+-]\\d{2}:\\d{2}))?$';
 const INSTANT_WORDS = 'a date (YYYY-MM-DD) or an ISO 8601 date-time with Z or an offset';
-const STATUS = { pattern: '^[1-5]\\d\\d$', patternWords: 'an HTTP status, 100 to 599' };
-// Query values arrive as strings; the console's client sends `limit` as one, so it stays a
-// string here, refused in words.
-const LIMIT_WORDS = 'a whole number from 1 to 200';
+// Query values arrive as strings; QuerySchemaPipe reads the numeric ones as numbers, so the
+// spec types them as whole numbers with their range.
+const status = (description: string): JsonSchema => ({
+  type: 'integer',
+  minimum: 100,
+  maximum: 599,
+  example: 429,
+  description: `${description} A whole number from 100 to 599.`,
+});
 
 export const summaryQuerySchema: ObjectSchema = {
   type: 'object',
@@ -35,7 +40,7 @@ export const summaryQuerySchema: ObjectSchema = {
     }),
     keyId: str('Only calls made with this API key.', undefined, { pattern: UUID, format: 'uuid' }),
     endpoint: str('Only calls to this endpoint.', 'balance', { enum: ENDPOINTS }),
-    status: str('Only calls answered with this HTTP status.', '429', STATUS),
+    status: status('Only calls answered with this HTTP status.'),
     outcome: str('Only failed calls (4xx or 5xx: "error") or the others ("ok").', 'error', {
       enum: ['ok', 'error'],
     }),
@@ -48,7 +53,7 @@ export const eventsQuerySchema: ObjectSchema = {
   properties: {
     keyId: str('Only this API key.', undefined, { pattern: UUID, format: 'uuid' }),
     endpoint: str('Only this endpoint.', 'balance', { enum: ENDPOINTS }),
-    status: str('Only this HTTP status.', '429', STATUS),
+    status: status('Only this HTTP status.'),
     outcome: str('Only failed calls (4xx or 5xx: "error") or the others ("ok").', 'error', {
       enum: ['ok', 'error'],
     }),
@@ -60,10 +65,14 @@ export const eventsQuerySchema: ObjectSchema = {
       pattern: INSTANT,
       patternWords: INSTANT_WORDS,
     }),
-    limit: str('Page size, a whole number from 1 to 200; default 50.', '50', {
-      pattern: '^(?:[1-9]\\d?|1\\d\\d|200)$',
-      patternWords: LIMIT_WORDS,
-    }),
+    limit: {
+      type: 'integer',
+      minimum: 1,
+      maximum: 200,
+      default: 50,
+      example: 50,
+      description: 'Page size, a whole number from 1 to 200; default 50.',
+    },
     cursor: str('nextCursor from the previous page.', undefined, { maxLength: 200 }),
   },
 };

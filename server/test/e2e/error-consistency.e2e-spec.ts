@@ -55,7 +55,10 @@ describe('error consistency', () => {
     const cases: [Record<string, string>, FieldProblem][] = [
       [{ limit: '1000' }, { field: 'limit', reason: 'must be a whole number from 1 to 200' }],
       [{ limit: '0' }, { field: 'limit', reason: 'must be a whole number from 1 to 200' }],
-      [{ status: 'abc' }, { field: 'status', reason: 'must be an HTTP status, 100 to 599' }],
+      [{ limit: '1.5' }, { field: 'limit', reason: 'must be a whole number from 1 to 200' }],
+      [{ limit: 'abc' }, { field: 'limit', reason: 'must be a whole number from 1 to 200' }],
+      [{ status: 'abc' }, { field: 'status', reason: 'must be a whole number from 100 to 599' }],
+      [{ status: '42' }, { field: 'status', reason: 'must be a whole number from 100 to 599' }],
       [{ keyId: 'not-a-uuid' }, { field: 'keyId', reason: 'must be a UUID' }],
       [
         { from: 'yesterday' },

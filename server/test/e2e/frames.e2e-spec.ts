@@ -383,6 +383,37 @@ describe('frames', () => {
     await request(t.url).post('/v1/frames').attach('file', img, 'a.jpg').expect(401);
   });
 
+  it('deletes a frame with a key: row and both objects gone, other organisations refused', async () => {
+    const key = await createKey(studio, 'test');
+    const img = await renderFrame({ patch: { ...PATCH, ...D65, Y: 0.3 } });
+    const up = await request(t.url)
+      .post('/v1/frames')
+      .set('Authorization', `Bearer ${key.secret}`)
+      .attach('file', img, { filename: 'to-delete.jpg', contentType: 'image/jpeg' })
+      .expect(201);
+    const id: string = up.body.id;
+    const objects = await objectsOf(studio.organizationId);
+    expect(objects.filter((k) => k.includes(id))).toHaveLength(2);
+    const stranger = await signUp(t.url);
+    await stranger.agent.delete(`/v1/frames/${id}`).expect(404);
+    const rows = await rowsOf(studio.organizationId);
+    const del = await request(t.url)
+      .delete(`/v1/frames/${id}`)
+      .set('Authorization', `Bearer ${key.secret}`);
+    expect(del.status).toBe(204);
+    expect(del.text).toBe('');
+    expect(await rowsOf(studio.organizationId)).toBe(rows - 1);
+    expect((await objectsOf(studio.organizationId)).filter((k) => k.includes(id))).toEqual([]);
+    await studio.agent.get(`/v1/frames/${id}`).expect(404);
+    await request(t.url)
+      .delete(`/v1/frames/${id}`)
+      .set('Authorization', `Bearer ${key.secret}`)
+      .expect(404);
+    const bad = await studio.agent.delete('/v1/frames/not-a-uuid').expect(404);
+    expect(bad.body.errors[0].field).toBe('id');
+    await request(t.url).delete(`/v1/frames/${id}`).expect(401);
+  });
+
   it('keeps no row when object storage fails mid-upload (503)', async () => {
     const rows = await rowsOf(studio.organizationId);
     await s3fake.stop();

@@ -11,6 +11,7 @@ import {
   requireObject,
   requireString,
 } from '../units/validate.js';
+import type { CodedWarning, BalanceWarningCode } from '../warning-codes.js';
 
 /** Camera fine-tune step on the amber-blue axis, mireds. Common practice, from memory (~5). */
 export const WB_FINE_TUNE_STEP_MIRED = 5;
@@ -91,7 +92,7 @@ export interface BalanceResult {
    * `fine-tune-beyond-range`: cancelling it takes more amber-blue steps than cameras usually offer
    * ({@link WB_FINE_TUNE_USUAL_STEPS} each way); the message says what to do instead.
    */
-  warnings: Array<{ code: string; message: string }>;
+  warnings: CodedWarning<BalanceWarningCode>[];
 }
 
 function readKit(value: unknown): Gel[] {
@@ -117,7 +118,7 @@ function fineTuneRangeWarning(
   maxGels: number,
   fineTuneKelvin: number,
   clamped: boolean,
-): { code: string; message: string } {
+): CodedWarning<'fine-tune-beyond-range'> {
   const kind = residual < 0 ? 'warming' : 'cooling';
   const more = `${residual < 0 ? '+' : '\u2212'}${round(Math.abs(residual), 0)}`;
   const gel =

@@ -9,12 +9,10 @@ import {
 } from './scales.js';
 import { countOf, round } from '../units/math.js';
 import { maybeNumber, requireNumber, requireObject } from '../units/validate.js';
+import type { CodedWarning, ExposureWarningCode } from '../warning-codes.js';
 
-/** A warning attached to a result: a stable code plus a sentence for people. */
-export interface Warning {
-  code: string;
-  message: string;
-}
+/** A warning attached to an exposure result: a listed code plus a sentence for people. */
+export type Warning = CodedWarning<ExposureWarningCode>;
 
 export interface ExposureInput {
   /** Scene (or incident) EV at ISO 100, -10..25. */

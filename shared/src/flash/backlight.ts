@@ -2,6 +2,7 @@ import { countOf, DEG, round } from '../units/math.js';
 import { fromMetres, requireLengthUnit, toMetres, type LengthUnit } from '../units/length.js';
 import { maybeNumber, optionalNumber, requireNumber, requireObject } from '../units/validate.js';
 import { LIGHT_DISTANCE_RANGE } from './key-light.js';
+import type { CodedWarning, BacklightWarningCode } from '../warning-codes.js';
 
 /** Beam angle assumed for a bare flash head, degrees. Common practice, no source. */
 export const BARE_BEAM_DEG = 100;
@@ -33,7 +34,7 @@ export interface BacklightResult {
   groundSpill: { from: number; to: number | null } | null;
   /** Peak ground illuminance relative to the rim on the head, stops (+ = ground brighter). */
   groundVsRimStops: number | null;
-  warnings: Array<{ code: string; message: string }>;
+  warnings: CodedWarning<BacklightWarningCode>[];
 }
 
 /**

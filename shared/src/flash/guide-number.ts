@@ -3,6 +3,7 @@ import { apertureLabel } from '../exposure/scales.js';
 import { countOf, round } from '../units/math.js';
 import { fromMetres, requireLengthUnit, toMetres, type LengthUnit } from '../units/length.js';
 import { optionalNumber, requireNumber, requireObject } from '../units/validate.js';
+import type { CodedWarning, FlashWarningCode } from '../warning-codes.js';
 
 /**
  * Guide number (ISO 1230): GN = distance x f-number for correct exposure at ISO 100, full
@@ -65,7 +66,7 @@ export interface FlashResult {
     /** Light to take away in front of the flash: an ND gel or more diffusion, stops. */
     addLossStops?: number;
   } | null;
-  warnings: Array<{ code: string; message: string }>;
+  warnings: CodedWarning<FlashWarningCode>[];
 }
 
 interface FlashParams {
@@ -114,7 +115,7 @@ export function computeFlash(input: FlashInput): FlashResult {
   const s = stopsBelowFull(fraction);
   const tooMuch = fraction > 1 + 1e-9;
   const tooLittle = fraction < p.minFraction * (1 - 1e-9);
-  const warnings = [];
+  const warnings: FlashResult['warnings'] = [];
   let fixes: FlashResult['fixes'] = null;
   // Fixes are rounded toward enough (to the hundredth; ISO to the whole number), so each one
   // taken as given is feasible.

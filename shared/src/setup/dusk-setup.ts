@@ -16,6 +16,7 @@ import { computeKeyLight, type KeyLightResult } from '../flash/key-light.js';
 import { computeTwilight, type TwilightResult } from '../twilight/compute-twilight.js';
 import type { AmbientPoint } from '../twilight/timeline.js';
 import { countOf, round } from '../units/math.js';
+import type { CodedWarning, SetupWarningCode } from '../warning-codes.js';
 
 export type { DuskSetupInput } from './setup-input.js';
 
@@ -53,7 +54,7 @@ export interface DuskSetupPlan {
   backgroundFalloffStops: number | null;
   look: SceneSwatch[];
   cautions: Caution[];
-  warnings: Array<{ code: string; message: string }>;
+  warnings: CodedWarning<SetupWarningCode>[];
 }
 
 type Setup = ReturnType<typeof readSetup>;
@@ -285,7 +286,11 @@ export function planDuskSetup(input: DuskSetupInput): DuskSetupPlan {
       ...planWarnings(tw, usable.length, backlight, win.tooDark),
       // The first suggested minute where the ambient outweighs the key speaks for the evening.
       ...suggested
-        .flatMap((m) => m.keyFlash.warnings.filter((w) => w.code === 'ambient-dominates'))
+        .flatMap((m) =>
+          m.keyFlash.warnings.filter(
+            (w): w is CodedWarning<'ambient-dominates'> => w.code === 'ambient-dominates',
+          ),
+        )
         .slice(0, 1),
       ...balance.warnings,
     ],
@@ -304,7 +309,7 @@ function planWarnings(
   tooDark: number,
 ) {
   // The twilight's own warnings (a zone far from the place's solar time) come first.
-  const out: Array<{ code: string; message: string }> = [...tw.warnings];
+  const out: CodedWarning<SetupWarningCode>[] = [...tw.warnings];
   if (!tw.sunset)
     out.push({ code: 'no-sunset', message: `No sunset on this date (${tw.reasons.sunset}).` });
   if (tooDark > 0) {
@@ -321,7 +326,7 @@ function planWarnings(
     });
   }
   for (const w of backlight?.warnings ?? [])
-    out.push({ code: `rim-${w.code}`, message: w.message });
+    out.push({ code: `rim-${w.code}` as const, message: w.message });
   out.push({
     code: 'ambient-model',
     message: `Ambient light is modelled (USNO Circular 171), \u00b1${countOf(tw.ambient.uncertaintyStops, 'stop')} or more: meter on the night.`,

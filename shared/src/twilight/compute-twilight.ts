@@ -13,6 +13,7 @@ import {
   toLocalIso,
 } from '../units/time-zone.js';
 import { optionalNumber, requireNumber, requireObject, requireOneOf } from '../units/validate.js';
+import type { CodedWarning, TwilightWarningCode } from '../warning-codes.js';
 
 /** Sun-altitude bounds of a window, degrees of geometric altitude (upper > lower). */
 export interface AltitudeBand {
@@ -84,7 +85,7 @@ export interface TwilightResult {
    * on the date is more than {@link ZONE_SOLAR_MISMATCH_HOURS} h from the place's solar time
    * (longitude / 15 h), so the zone is probably not the place's.
    */
-  warnings: Array<{ code: string; message: string }>;
+  warnings: CodedWarning<TwilightWarningCode>[];
   ambient: {
     sky: SkyCondition;
     model: 'USNO Circular 171';
@@ -170,7 +171,7 @@ const signedHours = (minutes: number): string => {
 export function zoneMismatchWarning(
   p: TwilightParams,
   noonMs: number,
-): { code: string; message: string } | null {
+): CodedWarning<'time-zone-mismatch'> | null {
   const zoneMin = offsetMinutes(p.localNoonMs, p.timeZone);
   const solarMin = p.longitude * 4;
   const diff = ((((zoneMin - solarMin + 720) % 1440) + 1440) % 1440) - 720;

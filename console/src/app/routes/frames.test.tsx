@@ -1,5 +1,5 @@
 import { fireEvent, screen, within } from '@testing-library/react';
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { stubApi } from '@/test/api-stub';
 import { renderApp } from '@/test/render';
 import { jsonResponse } from '@/test/responses';
@@ -15,6 +15,8 @@ const current = (uploads: boolean, name: string) => ({
     testCallsPerMonth: 2000,
     ratePerSecond: 5,
     burst: 10,
+    testKeyRatePerSecond: 5,
+    testKeyBurst: 10,
     overagePricePer1000Cents: null,
     features: { uploads, savedSetups: 10, seats: 2 },
   },
@@ -49,6 +51,22 @@ describe('test frames page', () => {
     await screen.findByText('Drop a test frame here, or choose a file');
     expect(document.querySelector('input[type="file"]')).not.toBeNull();
     expect(screen.queryByText(/aren’t in the/)).toBeNull();
+  });
+
+  it('asks for the latest twelve frames with a whole-number limit', async () => {
+    const seen: URL[] = [];
+    stubApi((path, _init, request) => {
+      if (path === '/v1/plans/current') return jsonResponse(current(true, 'Studio'));
+      if (path === '/v1/frames') {
+        seen.push(new URL(request.url));
+        return jsonResponse({ data: [], nextCursor: null });
+      }
+      return jsonResponse({ title: 'Not Found', status: 404 }, 404, 'application/problem+json');
+    });
+    renderApp('/frames');
+    await screen.findByText('Drop a test frame here, or choose a file');
+    await vi.waitFor(() => expect(seen.length).toBeGreaterThan(0));
+    expect(seen[0]!.searchParams.get('limit')).toBe('12');
   });
 
   it('refuses a file named as a JPEG that is not one, before any preview', async () => {

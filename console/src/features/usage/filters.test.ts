@@ -17,9 +17,9 @@ describe('usage filters from the URL', () => {
       ),
     );
     expect(filter).toEqual({
-      limit: '50',
+      limit: 50,
       endpoint: 'flash',
-      status: '429',
+      status: 429,
       from: '2026-12-01',
       to: '2027-01-01',
       keyId: 'k1',
@@ -27,7 +27,7 @@ describe('usage filters from the URL', () => {
     });
     expect(
       filterFromParams(new URLSearchParams('endpoint=teleport&status=99&from=yesterday')),
-    ).toEqual({ limit: '50' });
+    ).toEqual({ limit: 50 });
   });
 
   it('nextDay crosses month and leap-day boundaries', () => {
@@ -47,7 +47,7 @@ describe('usage filters from the URL', () => {
       from: '2026-12-01',
       to: '2026-12-31',
       endpoint: 'flash',
-      status: '429',
+      status: 429,
       keyId: 'k1',
     });
   });
@@ -62,7 +62,7 @@ describe('usage filters from the URL', () => {
       'the range 2026-12-10 to 2026-12-01 ends before it starts',
     ]);
     expect(summaryFromParams(params)).toEqual({ keyId: 'k1' });
-    expect(filterFromParams(params)).toEqual({ limit: '50', keyId: 'k1' });
+    expect(filterFromParams(params)).toEqual({ limit: 50, keyId: 'k1' });
     // 31 November is not a day, though it has the shape of one.
     expect(ignoredParams(new URLSearchParams('from=2026-11-31'))).toEqual([
       'from “2026-11-31” is not a YYYY-MM-DD day',
@@ -70,7 +70,7 @@ describe('usage filters from the URL', () => {
     expect(ignoredParams(new URLSearchParams('from=2026-11-30&endpoint=flash'))).toEqual([]);
     const failed = new URLSearchParams('outcome=error');
     expect(summaryFromParams(failed)).toEqual({ outcome: 'error' });
-    expect(filterFromParams(failed)).toEqual({ limit: '50', outcome: 'error' });
+    expect(filterFromParams(failed)).toEqual({ limit: 50, outcome: 'error' });
     expect(ignoredParams(new URLSearchParams('outcome=maybe'))).toEqual([
       'outcome “maybe” is neither ok nor error',
     ]);
@@ -86,10 +86,10 @@ describe('usage filters from the URL', () => {
   });
 
   it('the CSV link carries the filters but not the page position', () => {
-    expect(usageCsvHref({ limit: '50', endpoint: 'flash', cursor: 'abc', status: '500' })).toBe(
+    expect(usageCsvHref({ limit: 50, endpoint: 'flash', cursor: 'abc', status: 500 })).toBe(
       '/v1/usage/events.csv?endpoint=flash&status=500',
     );
-    expect(usageCsvHref({ limit: '50' })).toBe('/v1/usage/events.csv');
+    expect(usageCsvHref({ limit: 50 })).toBe('/v1/usage/events.csv');
   });
 });
 

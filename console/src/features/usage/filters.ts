@@ -30,7 +30,7 @@ function readParams(params: URLSearchParams) {
       endpoint && (ENDPOINTS as readonly string[]).includes(endpoint)
         ? (endpoint as Endpoint)
         : undefined,
-    status: status && STATUS.test(status) ? status : undefined,
+    status: status && STATUS.test(status) ? Number(status) : undefined,
     outcome: outcome === 'ok' || outcome === 'error' ? (outcome as 'ok' | 'error') : undefined,
     keyId: params.get('keyId') || undefined,
     from: from ?? undefined,
@@ -47,7 +47,7 @@ function defined<T extends object>(value: T): T {
 export function filterFromParams(params: URLSearchParams, pageSize = 50): UsageEventFilter {
   const p = readParams(params);
   return defined({
-    limit: String(pageSize),
+    limit: pageSize,
     endpoint: p.endpoint,
     status: p.status,
     outcome: p.outcome,

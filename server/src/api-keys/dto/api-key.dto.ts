@@ -27,6 +27,7 @@ export class CreateApiKeyRequestDto {
 
 export class RotateApiKeyRequestDto {
   @ApiPropertyOptional({
+    type: 'integer',
     minimum: 0,
     maximum: 604800,
     default: 86400,

@@ -4,7 +4,7 @@ import { IsInt, IsOptional, IsString, Max, MaxLength, Min } from 'class-validato
 
 /** Cursor pagination: pass back `nextCursor` as `cursor` until it is null. */
 export class PageQueryDto {
-  @ApiPropertyOptional({ minimum: 1, maximum: 100, default: 20, example: 20 })
+  @ApiPropertyOptional({ type: 'integer', minimum: 1, maximum: 100, default: 20, example: 20 })
   @IsOptional()
   @Type(() => Number)
   @IsInt()

@@ -1,5 +1,6 @@
 import { schemaDto, type ObjectSchema } from '../validation/schema-dto.js';
-import { bool, lengthUnit, nullableNum, outNum, ranged, str, WARNINGS } from './common.js';
+import { BACKLIGHT_WARNING_CODES } from '@lumenwright/shared';
+import { bool, lengthUnit, nullableNum, outNum, ranged, str, warningsWith } from './common.js';
 
 export const backlightRequestSchema: ObjectSchema = {
   type: 'object',
@@ -70,7 +71,7 @@ export const backlightResponseSchema: ObjectSchema = {
     groundVsRimStops: nullableNum(
       'Peak ground illuminance relative to the rim, stops (+ = ground brighter).',
     ),
-    warnings: WARNINGS,
+    warnings: warningsWith(BACKLIGHT_WARNING_CODES),
   },
 };
 

@@ -1,4 +1,4 @@
-import { WB_FINE_TUNE_USUAL_STEPS } from '@lumenwright/shared';
+import { BALANCE_WARNING_CODES, WB_FINE_TUNE_USUAL_STEPS } from '@lumenwright/shared';
 import type { JsonSchema } from '../validation/json-schema.js';
 import { schemaDto, type ObjectSchema } from '../validation/schema-dto.js';
 import { outNum, ranged, rangedInt, str, warningsWith } from './common.js';
@@ -89,7 +89,7 @@ export const WB_FINE_TUNE: JsonSchema = {
 };
 
 /** The balance's warnings (the setup plan's list includes them). */
-const BALANCE_WARNINGS: JsonSchema = warningsWith({
+const BALANCE_WARNINGS: JsonSchema = warningsWith(BALANCE_WARNING_CODES, {
   'fine-tune-limit':
     'the camera white balance that would cancel the residual is outside 1500–20000 K, so it is ' +
     'clamped',

@@ -93,23 +93,33 @@ export const lengthUnit = (description: string): JsonSchema => ({
   example: 'm',
 });
 
-export const WARNINGS: JsonSchema = {
-  type: 'array',
-  description: 'Things to look at: a stable code and a sentence for people.',
-  items: {
-    type: 'object',
-    required: ['code', 'message'],
-    properties: { code: str('Stable warning code.'), message: str('Explanation.') },
-  },
-};
+const WARNINGS_DESCRIPTION = 'Things to look at: a stable code and a sentence for people.';
 
-/** {@link WARNINGS} with the codes an answer can carry, each with what it means. */
-export const warningsWith = (codes: Record<string, string>): JsonSchema => ({
-  ...WARNINGS,
-  description: `${WARNINGS.description} Codes: ${Object.entries(codes)
-    .map(([code, meaning]) => `"${code}" (${meaning})`)
-    .join('; ')}.`,
-});
+/**
+ * A list of warnings whose `code` is one of `codes` (the shared library's list for the answer,
+ * published as the enum), with what some of them mean in the description.
+ */
+export const warningsWith = (
+  codes: readonly string[],
+  meanings: Record<string, string> = {},
+  description = WARNINGS_DESCRIPTION,
+): JsonSchema => {
+  const explained = Object.entries(meanings);
+  return {
+    type: 'array',
+    description: explained.length
+      ? `${description} Codes: ${explained.map(([code, meaning]) => `"${code}" (${meaning})`).join('; ')}.`
+      : description,
+    items: {
+      type: 'object',
+      required: ['code', 'message'],
+      properties: {
+        code: str('Stable warning code.', codes[0], { enum: [...codes] }),
+        message: str('Explanation.'),
+      },
+    },
+  };
+};
 
 export const object = (
   description: string,

@@ -1,5 +1,6 @@
 import { schemaDto, type ObjectSchema } from '../validation/schema-dto.js';
-import { bool, nullableNum, object, outNum, ranged, str, WARNINGS } from './common.js';
+import { EXPOSURE_WARNING_CODES } from '@lumenwright/shared';
+import { bool, nullableNum, object, outNum, ranged, str, warningsWith } from './common.js';
 
 export const exposureRequestSchema: ObjectSchema = {
   type: 'object',
@@ -104,7 +105,12 @@ export const exposureResponseSchema: ObjectSchema = {
       iso: outNum('Nominal ISO.'),
       errorStops: outNum('Exposure error of the nominal settings, stops (+ = brighter).'),
     }),
-    warnings: WARNINGS,
+    warnings: warningsWith(EXPOSURE_WARNING_CODES, {
+      'too-dark': 'background mode',
+      'needs-tripod': 'background mode',
+      'subject-motion': 'background mode',
+      'exceeds-sync': 'background mode',
+    }),
     biasStops: outNum('Background mode: the bias applied, stops.'),
     targetEv100: outNum('Background mode: the EV100 the settings expose for (ev100 - biasStops).'),
     ambientSource: str('Background mode: where ev100 came from.', 'place', {

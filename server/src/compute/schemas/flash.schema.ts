@@ -1,5 +1,6 @@
 import { schemaDto, type ObjectSchema } from '../validation/schema-dto.js';
-import { bool, lengthUnit, outNum, ranged, str, WARNINGS } from './common.js';
+import { FLASH_WARNING_CODES } from '@lumenwright/shared';
+import { bool, lengthUnit, outNum, ranged, str, warningsWith } from './common.js';
 
 export const flashRequestSchema: ObjectSchema = {
   type: 'object',
@@ -66,7 +67,9 @@ export const flashResponseSchema: ObjectSchema = {
         ),
       },
     },
-    warnings: WARNINGS,
+    warnings: warningsWith(FLASH_WARNING_CODES, {
+      'ambient-dominates': 'the dusk setup’s key light only: the ambient outweighs the key',
+    }),
   },
 };
 

@@ -4,7 +4,17 @@ import { backlightResponseSchema } from './backlight.schema.js';
 import { balanceRequestSchema, balanceResponseSchema, SCENE_SWATCH } from './balance.schema.js';
 import { exposureResponseSchema } from './exposure.schema.js';
 import { flashResponseSchema } from './flash.schema.js';
-import { bool, lengthUnit, object, outNum, ranged, rangedInt, str, WARNINGS } from './common.js';
+import { MODIFIER_NAMES, SETUP_WARNING_CODES } from '@lumenwright/shared';
+import {
+  bool,
+  lengthUnit,
+  object,
+  outNum,
+  ranged,
+  rangedInt,
+  str,
+  warningsWith,
+} from './common.js';
 import { twilightRequestSchema, twilightResponseSchema } from './twilight.schema.js';
 
 const closed = (
@@ -82,9 +92,11 @@ export const setupRequestSchema: ObjectSchema = {
           180,
           45,
         ),
-        modifier: str('Modifier kind (see the math library’s modifier list).', undefined, {
-          maxLength: 40,
-        }),
+        modifier: str(
+          'Modifier kind; it sets the default modifierSize and modifierLossStops. Default softbox.',
+          'softbox',
+          { enum: MODIFIER_NAMES },
+        ),
         modifierSize: ranged(
           'Modifier size in distanceUnit: 0.01–10 m or 0.033–33 ft (the range given spans both).',
           0.01,
@@ -265,7 +277,7 @@ export const setupResponseSchema: ObjectSchema = {
       lightingRatio: outNum('(key + fill) : fill, e.g. 3 for 3:1.', 3),
       lightingRatioLabel: str('The ratio as written, e.g. "3:1".', '3:1'),
       shadowDepthStops: outNum('Lit side minus shadow side, stops.', 1.58),
-      modifier: str('Modifier kind used.', 'softbox'),
+      modifier: str('Modifier kind used.', 'softbox', { enum: MODIFIER_NAMES }),
       modifierLossStops: outNum('Light lost in the modifier, stops.', 1.3),
     }),
     backlight: refTo(
@@ -296,12 +308,14 @@ export const setupResponseSchema: ObjectSchema = {
         text: str('What to do.'),
       }),
     },
-    warnings: {
-      ...WARNINGS,
-      description:
-        `${WARNINGS.description} Besides the plan’s own, these include the twilight’s ` +
-        '("time-zone-mismatch") and the balance’s ("fine-tune-limit", "fine-tune-beyond-range").',
-    },
+    warnings: warningsWith(
+      SETUP_WARNING_CODES,
+      {},
+      'Things to look at: a stable code and a sentence for people. Besides the plan’s own, these ' +
+        'include the twilight’s ("time-zone-mismatch"), the rim light’s backlight warnings ' +
+        '(prefixed "rim-"), the first minute where the ambient outweighs the key ' +
+        '("ambient-dominates") and the balance’s ("fine-tune-limit", "fine-tune-beyond-range").',
+    ),
   },
 };
 

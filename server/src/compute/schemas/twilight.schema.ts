@@ -1,4 +1,8 @@
-import { MISSING_REASONS, ZONE_SOLAR_MISMATCH_HOURS } from '@lumenwright/shared';
+import {
+  MISSING_REASONS,
+  TWILIGHT_WARNING_CODES,
+  ZONE_SOLAR_MISMATCH_HOURS,
+} from '@lumenwright/shared';
 import type { JsonSchema } from '../validation/json-schema.js';
 import { schemaDto, type ObjectSchema } from '../validation/schema-dto.js';
 import { object, outNum, ranged, str, warningsWith } from './common.js';
@@ -104,7 +108,7 @@ export const twilightResponseSchema: ObjectSchema = {
       description: 'Notes, e.g. an event after local midnight.',
       items: { type: 'string' },
     },
-    warnings: warningsWith({
+    warnings: warningsWith(TWILIGHT_WARNING_CODES, {
       'time-zone-mismatch':
         `the zone’s UTC offset on the date is more than ${ZONE_SOLAR_MISMATCH_HOURS} h from the ` +
         'place’s solar time, longitude / 15 h: probably not the place’s zone',

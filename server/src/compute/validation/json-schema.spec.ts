@@ -2,6 +2,8 @@ import { compileSchema, UUID_PATTERN } from './json-schema.js';
 import { forDocs } from './schema-dto.js';
 import { balanceRequestSchema } from '../schemas/balance.schema.js';
 import { twilightRequestSchema } from '../schemas/twilight.schema.js';
+import { setupRequestSchema } from '../schemas/setup.schema.js';
+import { LightingInputError, planDuskSetup } from '@lumenwright/shared';
 
 describe('compiled JSON-schema validator', () => {
   const balance = compileSchema(balanceRequestSchema);
@@ -111,6 +113,26 @@ describe('compiled JSON-schema validator', () => {
     ]);
     const name = compileSchema({ type: 'string', minLength: 3, pattern: '^[a-z]+$' });
     expect(name('A')).toEqual([{ field: 'body', reason: 'must have at least 3 characters' }]);
+  });
+
+  it('refuses an unknown modifier kind in the same words as the math library', () => {
+    const body = {
+      latitude: 51.507,
+      longitude: -0.1,
+      date: '2026-06-20',
+      timeZone: 'Europe/London',
+      key: { guideNumber: 60, distance: 2.5, modifier: 'parabolic-dish' },
+    };
+    const [problem, ...rest] = compileSchema(setupRequestSchema)(body);
+    expect(rest).toEqual([]);
+    let fromLibrary: LightingInputError | undefined;
+    try {
+      planDuskSetup(body as never);
+    } catch (e) {
+      fromLibrary = e as LightingInputError;
+    }
+    expect(fromLibrary).toBeInstanceOf(LightingInputError);
+    expect(problem).toEqual({ field: fromLibrary!.field, reason: fromLibrary!.reason });
   });
 
   it('publishes schemas without the wording hints', () => {

@@ -97,6 +97,60 @@ export class SchemaPipe implements PipeTransform {
   }
 }
 
+/** A decimal as a query string writes it: "20", "-3", "1.5" (no exponent, no blanks, no hex). */
+const DECIMAL = /^-?\d+(?:\.\d+)?$/;
+
+/**
+ * Validates a query string against an object schema. Query values arrive as strings, so a
+ * property the schema types as a number or a whole number is read as one when it is written as
+ * a decimal; anything else ("abc", "", a repeated parameter) stays as sent and is refused in
+ * words ("limit must be a whole number"), as are numbers outside the published range
+ * ("must be at least 1") and fractions where a whole number is wanted. The handler gets numbers.
+ */
+export class QuerySchemaPipe implements PipeTransform {
+  private readonly validate: Validator;
+  /** Numeric parameters, each with the words its refusal reads when it has a range. */
+  private readonly numeric = new Map<string, string | null>();
+
+  constructor(schema: ObjectSchema) {
+    this.validate = compileSchema(schema);
+    for (const [k, p] of Object.entries(schema.properties)) {
+      const types = Array.isArray(p.type) ? p.type : [p.type];
+      const whole = types.includes('integer');
+      if (!whole && !types.includes('number')) continue;
+      const ranged = p.minimum !== undefined && p.maximum !== undefined;
+      this.numeric.set(
+        k,
+        ranged
+          ? `must be ${whole ? 'a whole number' : 'a number'} from ${p.minimum} to ${p.maximum}`
+          : null,
+      );
+    }
+  }
+
+  transform(value: unknown): unknown {
+    const query: Record<string, unknown> = { ...((value as Record<string, unknown>) ?? {}) };
+    for (const k of this.numeric.keys()) {
+      const v = query[k];
+      if (typeof v === 'string' && DECIMAL.test(v)) query[k] = Number(v);
+    }
+    // A ranged number reads one way whatever was wrong ("abc", 0, 1000, 1.5): its whole range.
+    const problems = this.validate(query).map((p) => {
+      const words = this.numeric.get(p.field);
+      return words ? { ...p, reason: words } : p;
+    });
+    if (problems.length) {
+      const first = problems[0]!;
+      throw new DomainError(
+        'invalid_input',
+        `${first.field} ${first.reason}${problems.length > 1 ? ` (and ${problems.length - 1} more)` : ''}.`,
+        problems,
+      );
+    }
+    return query;
+  }
+}
+
 /** Documents each property of a query-string schema as an optional query parameter. */
 export function ApiQueryFromSchema(schema: ObjectSchema): MethodDecorator {
   const required = new Set(schema.required ?? []);

@@ -18,6 +18,8 @@ export const MAX_GEL_PIECES = 30;
 
 class GelPieceFieldsDto {
   @ApiPropertyOptional({
+    minimum: -400,
+    maximum: 400,
     description:
       'Mired shift (−400..400; + = warmer, CTO family; − = cooler, CTB family). Default 0.',
     example: 93,
@@ -29,6 +31,8 @@ class GelPieceFieldsDto {
   miredShift?: number;
 
   @ApiPropertyOptional({
+    minimum: -60,
+    maximum: 60,
     description: 'Green shift, CC units (−60..60; + = plus-green, − = minus-green). Default 0.',
     example: 0,
   })
@@ -46,7 +50,12 @@ export class CreateGelPieceRequestDto extends GelPieceFieldsDto {
   @Length(1, 60)
   name: string;
 
-  @ApiProperty({ description: 'Light the gel absorbs, stops (0..6).', example: 0.4 })
+  @ApiProperty({
+    minimum: 0,
+    maximum: 6,
+    description: 'Light the gel absorbs, stops (0..6).',
+    example: 0.4,
+  })
   @IsNumber()
   @Min(0)
   @Max(6)
@@ -61,7 +70,11 @@ export class UpdateGelPieceRequestDto extends GelPieceFieldsDto {
   @Length(1, 60)
   name?: string;
 
-  @ApiPropertyOptional({ description: 'Light the gel absorbs, stops (0..6).' })
+  @ApiPropertyOptional({
+    minimum: 0,
+    maximum: 6,
+    description: 'Light the gel absorbs, stops (0..6).',
+  })
   @OptionalNotNull()
   @IsNumber()
   @Min(0)

@@ -24,13 +24,20 @@ import {
 
 /** One flash-meter reading of the light at full power (or a known power), ISO 100 by default. */
 export class MeterReadingDto {
-  @ApiProperty({ description: 'f-number the meter read (0.7..128).', example: 8 })
+  @ApiProperty({
+    minimum: 0.7,
+    maximum: 128,
+    description: 'f-number the meter read (0.7..128).',
+    example: 8,
+  })
   @IsNumber()
   @Min(0.7)
   @Max(128)
   aperture: number;
 
   @ApiProperty({
+    minimum: 0.05,
+    maximum: 1000,
     description: 'Light-to-meter distance (0.05..1000), in distanceUnit.',
     example: 5,
   })
@@ -45,6 +52,8 @@ export class MeterReadingDto {
   distanceUnit?: LengthUnit;
 
   @ApiPropertyOptional({
+    minimum: 3,
+    maximum: 409600,
     description: 'ISO set on the meter (3..409600); default 100.',
     example: 100,
   })
@@ -55,6 +64,8 @@ export class MeterReadingDto {
   iso?: number;
 
   @ApiPropertyOptional({
+    minimum: 1 / 4096,
+    maximum: 1,
     description: 'Power fraction during the reading (1/4096..1); default 1 (full power).',
     example: 1,
   })
@@ -73,6 +84,8 @@ export class CreateLightRequestDto {
   name: string;
 
   @ApiPropertyOptional({
+    minimum: 1,
+    maximum: 500,
     description:
       'Guide number at ISO 100, full power (1..500), in guideNumberUnit. Send this or meterReading.',
     example: 60,
@@ -125,6 +138,8 @@ export class UpdateLightRequestDto {
   name?: string;
 
   @ApiPropertyOptional({
+    minimum: 1,
+    maximum: 500,
     description: 'New guide number (replaces any meter reading).',
     example: 58,
   })

@@ -22,6 +22,8 @@ class ModifierFieldsDto {
   kind?: ModifierName | null;
 
   @ApiPropertyOptional({
+    minimum: 1,
+    maximum: 180,
     nullable: true,
     type: Number,
     description: 'Full beam angle of a grid or reflector, degrees (1..180).',
@@ -34,6 +36,8 @@ class ModifierFieldsDto {
   beamAngleDeg?: number | null;
 
   @ApiPropertyOptional({
+    minimum: 0.01,
+    maximum: 10,
     nullable: true,
     type: Number,
     description: 'Diameter or diagonal (0.01..10), in sizeUnit.',
@@ -66,6 +70,8 @@ export class CreateModifierRequestDto extends ModifierFieldsDto {
   name: string;
 
   @ApiPropertyOptional({
+    minimum: 0,
+    maximum: 8,
     description:
       'Light lost in the modifier, stops (0..8). Default: the typical loss for its kind.',
     example: 2,
@@ -85,7 +91,12 @@ export class UpdateModifierRequestDto extends ModifierFieldsDto {
   @Length(1, 80)
   name?: string;
 
-  @ApiPropertyOptional({ description: 'Light lost in the modifier, stops (0..8).', example: 2 })
+  @ApiPropertyOptional({
+    minimum: 0,
+    maximum: 8,
+    description: 'Light lost in the modifier, stops (0..8).',
+    example: 2,
+  })
   @OptionalNotNull()
   @IsNumber()
   @Min(0)

@@ -180,7 +180,7 @@ export class SavedSetupPageResponseDto {
 }
 
 export class UpcomingSetupsQueryDto {
-  @ApiPropertyOptional({ minimum: 1, maximum: 10, default: 3, example: 3 })
+  @ApiPropertyOptional({ type: 'integer', minimum: 1, maximum: 10, default: 3, example: 3 })
   @IsOptional()
   @Type(() => Number)
   @IsInt()

@@ -136,6 +136,10 @@ export function BillingPage() {
                         {formatCount(plan.ratePerSecond)} calls/s (bursts of{' '}
                         {formatCount(plan.burst)})
                       </li>
+                      <li>
+                        Test keys: {formatCount(plan.testKeyRatePerSecond)} calls/s (bursts of{' '}
+                        {formatCount(plan.testKeyBurst)})
+                      </li>
                       <li>{plan.features.seats} seats</li>
                       <li>
                         {plan.features.savedSetups === null

@@ -15,7 +15,7 @@ export const framesQueryOptions = () =>
   queryOptions({
     queryKey: frameKeys.list(),
     queryFn: ({ signal }) =>
-      unwrap(client.GET('/v1/frames', { params: { query: { limit: '12' } }, signal })),
+      unwrap(client.GET('/v1/frames', { params: { query: { limit: 12 } }, signal })),
   });
 export const useFrames = () => useQuery(framesQueryOptions());
 

@@ -13,7 +13,7 @@ export function OverviewUsage({ usageHref }: { usageHref: string }) {
   const plan = useCurrentPlan();
   const summary = useUsageSummary({});
   // The latest failed calls, however many successful ones came after them.
-  const recent = useUsageEvents({ limit: '8', outcome: 'error' });
+  const recent = useUsageEvents({ limit: 8, outcome: 'error' });
 
   const included = plan.data?.plan.includedCallsPerMonth ?? 0;
   const used = plan.data?.usage.billableUnits ?? 0;
