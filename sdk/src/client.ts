@@ -1,7 +1,8 @@
 // A thin, typed client over openapi-fetch: one method per compute endpoint, gear reads, test frames,
 // who-am-I and this month's usage; problem+json turned
 // into LumenwrightError, bounded retries on 429 (rate limited) and 503 honouring Retry-After,
-// and a timeout per attempt.
+// and a timeout per attempt. Metered calls carry an Idempotency-Key, the same on every attempt,
+// so they are retried after timeouts and dropped connections too without being counted twice.
 import createClient, { type Client } from 'openapi-fetch';
 import type { components, paths } from './generated/schema.js';
 import { LumenwrightError, type Problem } from './errors.js';
@@ -78,6 +79,16 @@ export function frameUploadForm(body: FrameUploadBody, filename: string): FormDa
 
 export type FetchLike = (request: Request) => Promise<Response>;
 
+/** Per-call options of the metered calls (computations and frame uploads). */
+export interface CallOptions {
+  /**
+   * The call's Idempotency-Key. Every attempt of one call sends the same key, so a retry after a
+   * timeout or a dropped connection is answered from the first attempt and not counted or billed
+   * twice. Default: a new random UUID per call. Pass your own to retry a call across restarts.
+   */
+  idempotencyKey?: string;
+}
+
 export interface LumenwrightOptions {
   /** A secret API key: lw_live_… or lw_test_… */
   apiKey: string;
@@ -143,13 +154,20 @@ export class Lumenwright {
     this.maxRetryAfter = opts.maxRetryAfterSeconds ?? 30;
   }
 
-  twilight = (body: TwilightRequest) => this.compute<TwilightResponse>('/v1/twilight', body);
-  exposure = (body: ExposureRequest) => this.compute<ExposureResponse>('/v1/exposure', body);
-  flash = (body: FlashRequest) => this.compute<FlashResponse>('/v1/flash', body);
-  falloff = (body: FalloffRequest) => this.compute<FalloffResponse>('/v1/falloff', body);
-  backlight = (body: BacklightRequest) => this.compute<BacklightResponse>('/v1/backlight', body);
-  balance = (body: BalanceRequest) => this.compute<BalanceResponse>('/v1/balance', body);
-  setup = (body: SetupRequest) => this.compute<SetupResponse>('/v1/setup', body);
+  twilight = (body: TwilightRequest, o?: CallOptions) =>
+    this.compute<TwilightResponse>('/v1/twilight', body, o);
+  exposure = (body: ExposureRequest, o?: CallOptions) =>
+    this.compute<ExposureResponse>('/v1/exposure', body, o);
+  flash = (body: FlashRequest, o?: CallOptions) =>
+    this.compute<FlashResponse>('/v1/flash', body, o);
+  falloff = (body: FalloffRequest, o?: CallOptions) =>
+    this.compute<FalloffResponse>('/v1/falloff', body, o);
+  backlight = (body: BacklightRequest, o?: CallOptions) =>
+    this.compute<BacklightResponse>('/v1/backlight', body, o);
+  balance = (body: BalanceRequest, o?: CallOptions) =>
+    this.compute<BalanceResponse>('/v1/balance', body, o);
+  setup = (body: SetupRequest, o?: CallOptions) =>
+    this.compute<SetupResponse>('/v1/setup', body, o);
 
   /**
    * The studio's gear list, read with the key (writing it is a console action). Compute calls
@@ -182,16 +200,22 @@ export class Lumenwright {
    * key's rate limit.
    */
   readonly frames = {
-    upload: (upload: FrameUpload): Promise<Frame> =>
-      this.read((signal) =>
-        this.client.POST('/v1/frames', {
-          // Typed as the spec says; sent as multipart/form-data (fetch sets the boundary). The
-          // form is rebuilt on each attempt, so a retried upload sends the whole file again.
-          body: frameUploadBody(upload),
-          bodySerializer: (body) => frameUploadForm(body, upload.filename),
-          signal,
-        }),
-      ),
+    upload: (upload: FrameUpload, o?: CallOptions): Promise<Frame> => {
+      const headers = { 'Idempotency-Key': o?.idempotencyKey ?? newIdempotencyKey() };
+      return this.attempt(
+        (signal) =>
+          this.client.POST('/v1/frames', {
+            // Typed as the spec says; sent as multipart/form-data (fetch sets the boundary). The
+            // form is rebuilt on each attempt, so a retried upload sends the whole file again;
+            // its Idempotency-Key makes the server store it once.
+            body: frameUploadBody(upload),
+            bodySerializer: (body) => frameUploadForm(body, upload.filename),
+            headers,
+            signal,
+          }),
+        true,
+      ) as Promise<Frame>;
+    },
     list: (query: FrameListQuery = {}): Promise<FrameList> =>
       this.read((signal) => this.client.GET('/v1/frames', { params: { query }, signal })),
     get: (id: string): Promise<Frame> =>
@@ -229,21 +253,31 @@ export class Lumenwright {
   plans = (): Promise<PlanList> =>
     this.attempt(async (signal) => this.client.GET('/v1/plans', { signal })) as Promise<PlanList>;
 
+  /** A read: safe to repeat, so retried after a timeout or a network error too. */
   private read<T>(
     call: (signal: AbortSignal) => Promise<{ data?: T; error?: unknown; response: Response }>,
   ): Promise<T> {
-    return this.attempt(call) as Promise<T>;
+    return this.attempt(call, true) as Promise<T>;
   }
 
-  private compute<T>(path: ComputePath, body: unknown): Promise<T> {
-    return this.attempt((signal) =>
-      // The path/body pairing is enforced by the public methods' signatures.
-      this.client.POST(path as '/v1/balance', { body: body as BalanceRequest, signal }),
+  private compute<T>(path: ComputePath, body: unknown, o?: CallOptions): Promise<T> {
+    const headers = { 'Idempotency-Key': o?.idempotencyKey ?? newIdempotencyKey() };
+    return this.attempt(
+      (signal) =>
+        // The path/body pairing is enforced by the public methods' signatures.
+        this.client.POST(path as '/v1/balance', { body: body as BalanceRequest, headers, signal }),
+      true,
     ) as Promise<T>;
   }
 
+  /**
+   * Runs a call, retrying 429 (not an exhausted quota), 503 and 409 "still in progress". A call
+   * that is safe to repeat (`idempotent`: a read, or a POST with its Idempotency-Key) is also
+   * retried after a timeout or a network error.
+   */
   private async attempt(
     call: (signal: AbortSignal) => Promise<{ data?: unknown; error?: unknown; response: Response }>,
+    idempotent = false,
   ): Promise<unknown> {
     for (let attempt = 0; ; attempt++) {
       let result: { data?: unknown; error?: unknown; response: Response };
@@ -251,6 +285,10 @@ export class Lumenwright {
         result = await call(AbortSignal.timeout(this.timeoutMs));
       } catch (err) {
         const timeout = (err as { name?: string })?.name === 'TimeoutError';
+        if (idempotent && attempt < this.maxRetries) {
+          await sleep(2 ** attempt * 250 + Math.random() * 100);
+          continue;
+        }
         throw new LumenwrightError({
           kind: timeout ? 'timeout' : 'network',
           status: 0,
@@ -268,6 +306,7 @@ export class Lumenwright {
       const wait = retryAfter(response);
       const retryable =
         (response.status === 503 ||
+          (response.status === 409 && !!problem?.type?.endsWith('/idempotency-key-in-use')) ||
           (response.status === 429 && !problem?.type?.endsWith('/quota-exceeded'))) &&
         attempt < this.maxRetries &&
         (wait ?? 1) <= this.maxRetryAfter;
@@ -292,6 +331,11 @@ export class Lumenwright {
       });
     }
   }
+}
+
+/** A fresh Idempotency-Key: a random UUID (Web Crypto, in Node 20 and every current browser). */
+function newIdempotencyKey(): string {
+  return globalThis.crypto.randomUUID();
 }
 
 /**

@@ -374,6 +374,49 @@ describe('Lumenwright SDK', () => {
     expect(after.usage.liveCalls).toBe(3);
   });
 
+  it('retries a call whose answer was lost with the same Idempotency-Key: answered once, counted once', async () => {
+    const secret = await newKey('live');
+    const keysSent: (string | null)[] = [];
+    const replayed: (string | null)[] = [];
+    let dropped = 0;
+    const lossy = new Lumenwright({
+      apiKey: secret,
+      baseUrl,
+      fetch: async (req) => {
+        const res = await globalThis.fetch(req);
+        if (req.method !== 'POST') return res;
+        keysSent.push(req.headers.get('idempotency-key'));
+        replayed.push(res.headers.get('idempotency-replayed'));
+        // The first answer reaches the server's side of the wire and is lost on the way back.
+        if (dropped++ === 0) throw new TypeError('fetch failed: connection reset');
+        return res;
+      },
+    });
+    const r = await lossy.balance({ cameraKelvin: 3800, flashKelvin: 5600 });
+    // 1e6/3800 − 1e6/5600 = 84.59 mireds (definition of the mired).
+    expect(r.requiredMiredShift).toBeCloseTo(84.59, 1);
+    expect(keysSent).toHaveLength(2);
+    expect(keysSent[0]).toMatch(UUID);
+    expect(keysSent[1]).toBe(keysSent[0]);
+    expect(replayed).toEqual([null, 'true']);
+    // A key of the caller's own is sent as given; separate calls get separate keys.
+    await lossy.balance({ cameraKelvin: 4300, flashKelvin: 5600 }, { idempotencyKey: 'shoot-42' });
+    await lossy.balance({ cameraKelvin: 4300, flashKelvin: 5600 });
+    expect(keysSent.slice(2)).toHaveLength(2);
+    expect(keysSent[2]).toBe('shoot-42');
+    expect(keysSent[3]).not.toBe(keysSent[0]);
+    // Three calls counted, though four requests reached the server.
+    const own = new Lumenwright({ apiKey: secret, baseUrl });
+    let usage = await own.usage();
+    for (let i = 0; i < 40 && usage.usage.liveCallsCounted < 3; i++) {
+      await new Promise((res) => setTimeout(res, 250));
+      usage = await own.usage();
+    }
+    await new Promise((res) => setTimeout(res, 500));
+    usage = await own.usage();
+    expect(usage.usage.liveCallsCounted).toBe(3);
+  });
+
   it('lists the plans', async () => {
     const plans = await lw.plans();
     expect(plans.data.map((p) => p.code)).toEqual(['free', 'studio', 'platform']);
