@@ -22,6 +22,20 @@ describe('accounts: API keys', () => {
   let owner: SignedInAgent;
   const bearer = (key: string, app = t) =>
     request(app.url).get('/v1/whoami').set('Authorization', `Bearer ${key}`);
+  /**
+   * The other instance hears of a revocation by PostgreSQL notification (measured in tens of
+   * milliseconds); the promise is 1 s. Asks it until it refuses, and says how long that took.
+   */
+  const refusedWithinOneSecond = async (key: string, app: TestApp) => {
+    const t0 = Date.now();
+    for (;;) {
+      const res = await bearer(key, app);
+      if (res.status === 401) return Date.now() - t0;
+      expect(res.status).toBe(200);
+      if (Date.now() - t0 > 1000) throw new Error('still accepted after 1 s');
+      await new Promise((r) => setTimeout(r, 20));
+    }
+  };
 
   beforeAll(async () => {
     mail = await startMaildev();
@@ -114,7 +128,7 @@ describe('accounts: API keys', () => {
     }
   });
 
-  it('revokes: the very next request fails, on this and on another instance, warm caches included', async () => {
+  it('revokes: the very next request fails on this instance, and within 1 s on another, warm caches included', async () => {
     const res = await owner.agent
       .post('/v1/keys')
       .send({ name: 'to revoke', environment: 'live' })
@@ -127,12 +141,12 @@ describe('accounts: API keys', () => {
     const del = await owner.agent.delete(`/v1/keys/${res.body.id}`).expect(200);
     expect(del.body.status).toBe('revoked');
     await bearer(res.body.secret, t).expect(401);
-    await bearer(res.body.secret, t2).expect(401);
+    expect(await refusedWithinOneSecond(res.body.secret, t2)).toBeLessThanOrEqual(1000);
     const msg = await waitForMail(mail.webUrl, owner.email, /API key "to revoke" revoked/);
     expect(msg.text).toContain(res.body.prefix);
   });
 
-  it('rotates with a caller-chosen grace period; grace 0 stops the old secret at once', async () => {
+  it('rotates with a caller-chosen grace period; grace 0 stops the old secret at once (within 1 s elsewhere)', async () => {
     const res = await owner.agent
       .post('/v1/keys')
       .send({ name: 'rotating', environment: 'test' })
@@ -152,7 +166,7 @@ describe('accounts: API keys', () => {
       .send({ gracePeriodSeconds: 0 })
       .expect(201);
     await bearer(rot.body.secret, t).expect(401);
-    await bearer(rot.body.secret, t2).expect(401);
+    expect(await refusedWithinOneSecond(rot.body.secret, t2)).toBeLessThanOrEqual(1000);
     await bearer(res.body.secret, t2).expect(401);
     await bearer(rot2.body.secret, t2).expect(200);
     await owner.agent
