@@ -6461,7 +6461,7 @@ export interface operations {
           'application/problem+json': components['schemas']['Problem'];
         };
       };
-      /** @description With an API key: the key's rate limit, shared with its computations (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy). Reads use no quota. */
+      /** @description With an API key: the key's rate limit, shared with its computations (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy). Deletions use no quota. */
       429: {
         headers: {
           /** @description Calls left in the window and seconds until it refills, e.g. `"key";r=0;t=1`. */

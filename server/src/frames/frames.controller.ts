@@ -151,7 +151,7 @@ export class FramesController {
 
   @Delete(':id')
   @ApiKeyAuth()
-  @KeyReadLimited()
+  @KeyReadLimited('Deletions')
   @HttpCode(204)
   @ApiOperation({
     summary: 'Delete a test frame: its analysis, the original and the thumbnail.',
