@@ -8,7 +8,7 @@ import type { FastifyRequest } from 'fastify';
 import { DomainError } from '../common/errors/domain-error.js';
 import type { Principal, RequestWithPrincipal } from '../common/guards/access.guard.js';
 import { APP_CONFIG, type AppConfig } from '../config/config.js';
-import { MeteredCallGuard } from '../plans/metered-call.guard.js';
+import { KeyReadGuard, MeteredCallGuard } from '../plans/metered-call.guard.js';
 import type { MeteredRequestExtras } from '../usage/usage-event.js';
 import { IDEMPOTENCY_KEY_HEADER, parseIdempotencyKey } from './idempotency-header.js';
 import { IdempotencyService, type HeldKey, type StoredAnswer } from './idempotency.service.js';
@@ -97,23 +97,37 @@ export class IdempotencyGuard implements CanActivate {
   }
 }
 
+/** Refusals about the key itself: they did no work, but they still cost the caller a token. */
+const KEY_REFUSALS = new Set(['idempotency_key_in_use', 'idempotency_key_reused', 'invalid_input']);
+
 /**
  * The metered routes' one guard: Idempotency-Key (above), then the metered call's rate limit and
  * quota. One guard rather than two, so a call without the header pays a header lookup and
- * nothing else: Nest awaits each guard in turn.
+ * nothing else: Nest awaits each guard in turn. A replay takes nothing from the rate limit; a
+ * refusal of the key (in use, reused, malformed) takes one token like a read (no quota), so a
+ * loop of clashing retries is limited like any other loop of calls.
  */
 @Injectable()
 export class IdempotentMeteredCallGuard implements CanActivate {
   constructor(
     private readonly idempotency: IdempotencyGuard,
     private readonly metered: MeteredCallGuard,
+    private readonly refusals: KeyReadGuard,
   ) {}
 
   canActivate(ctx: ExecutionContext): boolean | Promise<boolean> {
     const req = ctx.switchToHttp().getRequest<IdempotentRequest>();
     if (req.headers['idempotency-key'] === undefined) return this.metered.canActivate(ctx);
-    return Promise.resolve(this.idempotency.canActivate(ctx)).then((ok) =>
-      ok ? this.metered.canActivate(ctx) : false,
-    );
+    return Promise.resolve()
+      .then(() => this.idempotency.canActivate(ctx))
+      .then(
+        (ok) => (ok ? this.metered.canActivate(ctx) : false),
+        async (err: unknown) => {
+          if (err instanceof DomainError && KEY_REFUSALS.has(err.code)) {
+            await this.refusals.canActivate(ctx); // a 429 here replaces the refusal
+          }
+          throw err;
+        },
+      );
   }
 }

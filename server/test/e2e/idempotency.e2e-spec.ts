@@ -198,6 +198,43 @@ describe('Idempotency-Key', () => {
     expect(again.text).toBe(first.text);
   });
 
+  it("limits a loop of refused retries with the key's rate limit, and replays take nothing from it", async () => {
+    const owner = await signUp(t.url, { organizationName: 'Bramblecote Portraits' });
+    const key = await createKey(owner, 'live');
+    const [free] = await ds.query(
+      `SELECT rate_per_second AS rate, burst FROM plans WHERE code = 'free'`,
+    );
+    const k = newKey();
+    expect(
+      (await compute(key.secret, 'balance', { cameraKelvin: 3800, flashKelvin: 5600 }, k)).status,
+    ).toBe(200);
+    // The same key with other bodies, as fast as one connection sends them: once the burst is
+    // spent the refusals become 429 rate-limited.
+    const statuses: number[] = [];
+    for (let i = 0; i < free.burst + 10; i++) {
+      const r = await compute(
+        key.secret,
+        'balance',
+        { cameraKelvin: 3000 + i, flashKelvin: 5600 },
+        k,
+      );
+      statuses.push(r.status);
+      if (r.status === 429) expect(r.body.type).toBe(`${PROBLEMS}rate-limited`);
+    }
+    expect(statuses.filter((x) => x === 422).length).toBeGreaterThan(0);
+    expect(statuses.filter((x) => x === 429).length).toBeGreaterThan(0);
+    expect(statuses.every((x) => x === 422 || x === 429)).toBe(true);
+    // Replays pass even with the bucket empty: they take nothing from it.
+    const replay = await compute(
+      key.secret,
+      'balance',
+      { cameraKelvin: 3800, flashKelvin: 5600 },
+      k,
+    );
+    expect(replay.status).toBe(200);
+    expect(replay.headers['idempotency-replayed']).toBe('true');
+  });
+
   it('answers 409 with Retry-After while the first request with the key is still running', async () => {
     const img = await frameImage();
     const k = newKey();
