@@ -9,6 +9,7 @@ import {
   LightingInputError,
   LIGHT_DISTANCE_RANGE,
   MODIFIER_SIZE_RANGE,
+  LOWEST_CAMERA_ISO,
   fractionLabel,
   guideNumberFromMeter,
   stopsBetween,
@@ -233,12 +234,11 @@ describe('flash below its lowest power (ISO 1230 guide-number relation)', () => 
     };
     atOrJustAbove(r.fixes?.moveBackTo, Math.sqrt(900 / 256));
     atOrJustAbove(r.fixes?.stopDownTo, 2 * Math.sqrt(900 / 256));
-    // The same surplus in stops, log2(900/256) = 1.81: ISO 100 down to 100 x 256/900 = 28, or
-    // 1.81 stops of ND or diffusion in front of the flash [DER].
+    // The same surplus in stops, log2(900/256) = 1.81, of ND or diffusion in front of the flash
+    // [DER]. ISO 100 would have to fall to 100 x 256/900 = 28, below any camera: not offered.
     const surplus = Math.log2(900 / 256);
     atOrJustAbove(r.fixes?.stopDownByStops, surplus);
-    expect(r.fixes?.lowerIsoTo).toBe(Math.floor((100 * 256) / 900));
-    atOrJustAbove(r.fixes?.lowerIsoByStops, surplus);
+    expect(r.fixes?.lowerIsoTo).toBeUndefined();
     atOrJustAbove(r.fixes?.addLossStops, surplus);
     // Each fix taken as given (rounded toward enough) makes the shot feasible, just above the
     // lowest power.
@@ -247,12 +247,28 @@ describe('flash below its lowest power (ISO 1230 guide-number relation)', () => 
       computeFlash({ ...base, modifierLossStops: r.fixes!.addLossStops! }),
       computeFlash({ ...base, distance: r.fixes!.moveBackTo! }),
       computeFlash({ ...base, aperture: r.fixes!.stopDownTo! }),
-      computeFlash({ ...base, iso: r.fixes!.lowerIsoTo! }),
     ]) {
       expect(fixed.feasible).toBe(true);
       expect(fixed.powerFraction).toBeGreaterThanOrEqual(1 / 256);
       expect(fixed.powerFraction).toBeLessThan(1.05 / 256);
     }
+  });
+  it('offers a lower ISO only while it stays at or above the lowest settable ISO', () => {
+    // GN 60 at 0.5 m, f/2.8, ISO 800 (ISO 1230): (2.8 x 0.5 / (60 x sqrt(8)))^2 = 1/14,694 of
+    // full power, log2(14694/256) = 5.84 stops under 1/256; ISO 800 / 2^5.84 = 14, below
+    // LOWEST_CAMERA_ISO (50): no ISO fix, the others stay.
+    const r = computeFlash({ guideNumber: 60, distance: 0.5, aperture: 2.8, iso: 800 });
+    expect(r.fixes?.addLossStops).toBeCloseTo(Math.log2(((60 * Math.sqrt(8)) / 1.4) ** 2 / 256), 1);
+    expect(r.fixes?.lowerIsoTo).toBeUndefined();
+    expect(r.fixes?.lowerIsoByStops).toBeUndefined();
+    expect(r.fixes?.moveBackTo).toBeDefined();
+    // GN 60 at 1 m, f/3.5, ISO 100: (3.5/60)^2 = 1/294 of full power, 0.2 stops under 1/256;
+    // ISO 100 x 256/294 = 87.1 → 87, above 50: offered, and feasible as given.
+    const small = computeFlash({ guideNumber: 60, distance: 1, aperture: 3.5 });
+    expect(small.fixes?.lowerIsoTo).toBe(Math.floor(100 * (3.5 / 60) ** 2 * 256));
+    const fixed = computeFlash({ guideNumber: 60, distance: 1, aperture: 3.5, iso: 87 });
+    expect(fixed.feasible).toBe(true);
+    expect(LOWEST_CAMERA_ISO).toBe(50);
   });
   it('exposureStops scales the power: -1 stop is half the power [DER]', () => {
     const full = computeFlash({ guideNumber: 40, distance: 3, aperture: 5.6 });

@@ -2145,9 +2145,9 @@ export interface components {
       fixes: {
         /** @description Light to take away in front of the flash, stops: an ND gel or more diffusion (below minimum power). */
         addLossStops?: number;
-        /** @description Stops of ISO to take away (below minimum power). */
+        /** @description Stops of ISO to take away (below minimum power); left out with lowerIsoTo. */
         lowerIsoByStops?: number;
-        /** @description ISO that would work (below minimum power). */
+        /** @description ISO that would work (below minimum power); left out when it would be under ISO 50. */
         lowerIsoTo?: number;
         /** @description Distance to move back to (below minimum power). */
         moveBackTo?: number;

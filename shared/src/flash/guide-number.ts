@@ -104,6 +104,12 @@ function readFlash(o: Record<string, unknown>, needAperture: boolean): FlashPara
   };
 }
 
+/**
+ * The lowest ISO most cameras can be set to (their extended low setting): a fix that would need
+ * less is not offered. Common practice, no source.
+ */
+export const LOWEST_CAMERA_ISO = 50;
+
 /** Power needed for an aperture at a distance, with ISO and losses. */
 export function computeFlash(input: FlashInput): FlashResult {
   const p = readFlash(requireObject('input', input), true);
@@ -140,10 +146,14 @@ export function computeFlash(input: FlashInput): FlashResult {
       moveBackTo: up(fromMetres(p.dM * 2 ** (surplus / 2), p.dUnit)),
       stopDownTo: up(p.aperture * 2 ** (surplus / 2)),
       stopDownByStops: up(surplus),
-      lowerIsoTo: Math.floor(p.iso * 2 ** -surplus + 1e-6),
-      lowerIsoByStops: up(surplus),
       addLossStops: up(surplus),
     };
+    // Lowering ISO is offered only while it stays at a setting cameras have.
+    const iso = Math.floor(p.iso * 2 ** -surplus + 1e-6);
+    if (iso >= LOWEST_CAMERA_ISO) {
+      fixes.lowerIsoTo = iso;
+      fixes.lowerIsoByStops = up(surplus);
+    }
     warnings.push({
       code: 'below-min-power',
       message: `Needs ${countOf(round(surplus, 1), 'stop')} less than the lowest power: move back, stop down, lower ISO or add ND/diffusion.`,

@@ -60,8 +60,12 @@ export const flashResponseSchema: ObjectSchema = {
         moveBackTo: outNum('Distance to move back to (below minimum power).'),
         stopDownTo: outNum('f-number to stop down to (below minimum power).'),
         stopDownByStops: outNum('Stops to stop down (below minimum power).'),
-        lowerIsoTo: outNum('ISO that would work (below minimum power).'),
-        lowerIsoByStops: outNum('Stops of ISO to take away (below minimum power).'),
+        lowerIsoTo: outNum(
+          'ISO that would work (below minimum power); left out when it would be under ISO 50.',
+        ),
+        lowerIsoByStops: outNum(
+          'Stops of ISO to take away (below minimum power); left out with lowerIsoTo.',
+        ),
         addLossStops: outNum(
           'Light to take away in front of the flash, stops: an ND gel or more diffusion (below minimum power).',
         ),
