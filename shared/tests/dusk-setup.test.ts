@@ -94,6 +94,42 @@ describe('planDuskSetup', () => {
       expect(m.background.shutterSeconds).toBeLessThanOrEqual((1 / 15) * 1.001);
     expect(tripod.window.usableEnd).not.toBeNull();
   });
+  it('with no usable minute because the key is too strong, says when and what would free it', () => {
+    // A strong key close in on a tripod at f/2.8: the background fits early in the window, but
+    // the key would need less than its lowest power (1/256). The warning names the first minute
+    // whose background fits and the key's own fixes there (ISO 1230 relation, flash.test.ts).
+    const base = {
+      ...input,
+      camera: { aperture: 2.8, isoMax: 6400, support: 'tripod' as const },
+      rim: undefined,
+      stepMinutes: 1,
+    };
+    const strong = planDuskSetup({
+      ...base,
+      key: { guideNumber: 60, distance: 1, modifierLossStops: 0 },
+    } as never);
+    expect(strong.window.usableStart).toBeNull();
+    const w = strong.warnings.find((x) => x.code === 'no-usable-minute')!;
+    expect(w.message).toMatch(
+      /At \d\d:\d\d the background fits, but the key needs [\d.]+ stops? less/,
+    );
+    const back = Number(w.message.match(/move it back to ([\d.]+) m/)?.[1]);
+    const nd = Number(w.message.match(/add ([\d.]+) stops? of ND or diffusion/)?.[1]);
+    expect(back).toBeGreaterThan(1);
+    expect(nd).toBeGreaterThan(0);
+    // Each fix, taken as given, frees at least one minute of the same evening.
+    for (const key of [
+      { guideNumber: 60, distance: back, modifierLossStops: 0 },
+      { guideNumber: 60, distance: 1, modifierLossStops: nd },
+    ]) {
+      const freed = planDuskSetup({ ...base, key } as never);
+      expect({ key, usableStart: freed.window.usableStart }).not.toEqual({
+        key,
+        usableStart: null,
+      });
+      expect(freed.warnings.map((x) => x.code)).not.toContain('no-usable-minute');
+    }
+  });
   it('warns when the ambient alone almost exposes the subject', () => {
     const bright = planDuskSetup({ ...input, camera: { ...input.camera, biasStops: 0 } });
     const m = bright.suggestedMinutes.find((x) => x.background.shortfallStops === 0);

@@ -31,8 +31,10 @@ export const DEMO_SETUPS: DemoSetup[] = [
       ...PLACE,
       date: '2026-09-12',
       sky: 'clear',
-      camera: { aperture: 4, isoMax: 3200, support: 'handheld', kelvin: 3800 },
-      key: { lightId: g.keyLight, modifierId: g.octa, distance: 2.2, angleFromCameraDeg: 50 },
+      // On a tripod at f/2.8, with the strobe well back: close in, even its lowest power would
+      // be too much for the blue-hour ISO (the planner says so).
+      camera: { aperture: 2.8, isoMax: 3200, support: 'tripod', kelvin: 3800 },
+      key: { lightId: g.keyLight, modifierId: g.octa, distance: 4.5, angleFromCameraDeg: 50 },
       rim: { lightId: g.rimLight, modifierId: g.grid, distanceBehind: 3, lightHeight: 1.2 },
       gelKitId: g.gelKit,
       targetMiredOffset: 10,
@@ -53,9 +55,9 @@ export const DEMO_SETUPS: DemoSetup[] = [
       key: {
         guideNumber: 60,
         guideNumberUnit: 'm',
-        distance: 2,
-        modifier: 'softbox',
-        modifierLossStops: 1.5,
+        distance: 4,
+        modifier: 'softbox-double-diffusion',
+        modifierLossStops: 2.5,
       },
       rim: { guideNumber: 36, distanceBehind: 2.5, lightHeight: 1, beamAngleDeg: 40 },
       backgroundDistance: 25,

@@ -283,7 +283,7 @@ export function planDuskSetup(input: DuskSetupInput): DuskSetupPlan {
     look: duskScene(s.kelvin, balance.resultingFlashKelvin, rimKelvin, balance.flashKelvin),
     cautions: cautionsFor({ ...s.conditions, standsCount: 1 + (s.rim ? 1 : 0) }),
     warnings: [
-      ...planWarnings(tw, usable.length, backlight, win.tooDark),
+      ...planWarnings(tw, usable.length, backlight, win.tooDark, minutes, s),
       // The first suggested minute where the ambient outweighs the key speaks for the evening.
       ...suggested
         .flatMap((m) =>
@@ -302,11 +302,49 @@ function withoutAmbient(tw: TwilightResult): Omit<TwilightResult, 'ambient'> {
   return rest;
 }
 
+/**
+ * When no minute is usable but some minute's background fits, the lights are what stands in the
+ * way: say at which minute and the single changes that would free it (the first such minute:
+ * the ambient only falls after it, so later ones need the flashes further from what they give).
+ */
+function lightsInTheWay(minutes: SuggestedMinute[], s: Setup): string {
+  const m = minutes.find((x) => x.background.warnings.length === 0);
+  if (!m) return '';
+  const unit = (s.key.distanceUnit as string | undefined) ?? 'm';
+  // Stops in prose to a tenth, rounded up (toward enough).
+  const st = (v: number) => countOf(Math.ceil(v * 10 - 1e-6) / 10, 'stop');
+  const parts: string[] = [];
+  for (const [name, f] of [
+    ['key', m.keyFlash],
+    ['rim', m.rimFlash],
+  ] as const) {
+    if (!f || f.feasible || !f.fixes) continue;
+    const x = f.fixes;
+    if (x.addLossStops !== undefined) {
+      parts.push(
+        `the ${name} needs ${st(x.addLossStops)} less than its lowest power: ` +
+          `${name === 'key' && x.moveBackTo !== undefined ? `move it back to ${x.moveBackTo} ${unit} or ` : ''}` +
+          `add ${st(x.addLossStops)} of ND or diffusion`,
+      );
+    } else if (x.raiseIsoByStops !== undefined) {
+      parts.push(
+        `the ${name} needs ${st(x.raiseIsoByStops)} more than full power: ` +
+          `${name === 'key' && x.moveCloserTo !== undefined ? `move it in to ${x.moveCloserTo} ${unit}, ` : ''}` +
+          'take away modifier or gel loss, or use a stronger light',
+      );
+    }
+  }
+  if (!parts.length) return '';
+  return ` At ${m.time.slice(11, 16)} the background fits, but ${parts.join('; ')}.`;
+}
+
 function planWarnings(
   tw: TwilightResult,
   usableCount: number,
   backlight: BacklightResult | null,
   tooDark: number,
+  minutes: SuggestedMinute[],
+  s: Setup,
 ) {
   // The twilight's own warnings (a zone far from the place's solar time) come first.
   const out: CodedWarning<SetupWarningCode>[] = [...tw.warnings];
@@ -322,7 +360,8 @@ function planWarnings(
     out.push({
       code: 'no-usable-minute',
       message:
-        'No minute in the window fits every limit: see each minute\u2019s warnings (ISO ceiling, tripod, ghosting past 1/15 s, sync, flash power).',
+        'No minute in the window fits every limit: see each minute\u2019s warnings (ISO ceiling, tripod, ghosting past 1/15 s, sync, flash power).' +
+        lightsInTheWay(minutes, s),
     });
   }
   for (const w of backlight?.warnings ?? [])
