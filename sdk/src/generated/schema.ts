@@ -2134,6 +2134,12 @@ export interface components {
        * @example 7
        */
       decimalPower?: number;
+      /**
+       * @description Unit of the distances in `fixes` (as sent). Metres ("m", default) or feet ("ft").
+       * @example m
+       * @enum {string}
+       */
+      distanceUnit?: 'm' | 'ft';
       /** @description Guide number after ISO and losses, in guideNumberUnit. */
       effectiveGuideNumber?: number;
       /**
@@ -2167,6 +2173,12 @@ export interface components {
         stopDownTo?: number;
       } | null;
       /**
+       * @description Unit of the guide numbers in this answer (as sent). Metres ("m", default) or feet ("ft").
+       * @example m
+       * @enum {string}
+       */
+      guideNumberUnit?: 'm' | 'ft';
+      /**
        * @description Fraction of full power needed (above 1 when not feasible).
        * @example 0.125
        */
@@ -2176,7 +2188,7 @@ export interface components {
        * @example 1/8
        */
       powerLabel?: string;
-      /** @description Guide number the shot needs at full power, ISO 100, no losses. */
+      /** @description Guide number the shot needs at full power, ISO 100, no losses, in guideNumberUnit. */
       requiredGuideNumber?: number;
       /**
        * @description Stops below full power (negative = more than full needed).

@@ -46,6 +46,10 @@ export interface FlashResult {
   /** Stops below full power (negative = more than full is needed). */
   stopsBelowFull: number;
   feasible: boolean;
+  /** The unit of the guide numbers below (as given). */
+  guideNumberUnit: LengthUnit;
+  /** The unit of the distances in `fixes` (as given). */
+  distanceUnit: LengthUnit;
   /** GN the shot needs at full power (ISO 100, no losses), in the guide-number unit. */
   requiredGuideNumber: number;
   /** Effective GN after ISO and losses, in the guide-number unit. */
@@ -165,6 +169,8 @@ export function computeFlash(input: FlashInput): FlashResult {
     decimalPower: decimalScale(fraction),
     stopsBelowFull: round(s, 3),
     feasible: !tooMuch && !tooLittle,
+    guideNumberUnit: p.gnUnit,
+    distanceUnit: p.dUnit,
     requiredGuideNumber: round(fromMetres(requiredM, p.gnUnit), 2),
     effectiveGuideNumber: round(fromMetres((p.gnM * isoGain) / lossFactor, p.gnUnit), 2),
     totalLossStops: round(p.loss, 3),

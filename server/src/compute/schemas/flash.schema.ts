@@ -44,7 +44,11 @@ export const flashResponseSchema: ObjectSchema = {
     decimalPower: outNum('Power on a decimal ten-stop scale (10 = full).', 7),
     stopsBelowFull: outNum('Stops below full power (negative = more than full needed).', 3),
     feasible: bool('Whether the light can deliver this at or below full power.', true),
-    requiredGuideNumber: outNum('Guide number the shot needs at full power, ISO 100, no losses.'),
+    guideNumberUnit: lengthUnit('Unit of the guide numbers in this answer (as sent).'),
+    distanceUnit: lengthUnit('Unit of the distances in `fixes` (as sent).'),
+    requiredGuideNumber: outNum(
+      'Guide number the shot needs at full power, ISO 100, no losses, in guideNumberUnit.',
+    ),
     effectiveGuideNumber: outNum('Guide number after ISO and losses, in guideNumberUnit.'),
     totalLossStops: outNum('Modifier plus gel losses, stops.', 2.17),
     fixes: {
