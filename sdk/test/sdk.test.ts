@@ -296,6 +296,8 @@ describe('Lumenwright SDK', () => {
     expect(f.colour.cameraKelvinSource).toBe('caller');
     // Its luminance is the sRGB decoding of code value 128 (IEC 61966-2-1): about 0.2158.
     expect(f.patch.luminance).toBeCloseTo(srgbToLinear(128), 3);
+    // An even, mid-grey, unclipped patch: nothing to warn about.
+    expect(f.warnings).toEqual([]);
 
     const blob = await demo.frames.upload({
       file: new Blob([new Uint8Array(greyPng(32, 32, 200))], { type: 'image/png' }),
@@ -303,6 +305,9 @@ describe('Lumenwright SDK', () => {
     });
     expect(blob.fileName).toBe('second.png');
     expect(blob.patch.source).toBe('auto');
+    // No cameraKelvin given: the note says which white balance was assumed, as a stable code.
+    expect(blob.colour.cameraKelvinSource).toBe('assumed');
+    expect(blob.colour.notes.map((n) => n.code)).toContain('camera-white-balance-assumed');
 
     const page = await demo.frames.list({ limit: 2 });
     expect(page.data.map((x) => x.id)).toEqual([blob.id, f.id]);

@@ -8,6 +8,8 @@ import {
   BALANCE_WARNING_CODES,
   EXPOSURE_WARNING_CODES,
   FLASH_WARNING_CODES,
+  FRAME_NOTE_CODES,
+  FRAME_WARNING_CODES,
   MODIFIER_NAMES,
   SETUP_WARNING_CODES,
   TWILIGHT_WARNING_CODES,
@@ -167,6 +169,16 @@ describe('the spec is as precise as the code', () => {
     expect(codes(response('SetupResponseDto').twilight!.properties!.warnings)).toEqual([
       ...TWILIGHT_WARNING_CODES,
     ]);
+  });
+
+  it("publishes a test frame's warning and note codes as the shared library's lists", () => {
+    const codes = (s: Schema | undefined) => s?.items?.properties?.code?.enum;
+    const frame = schemas['FrameResponseDto']!.properties!;
+    expect(codes(frame.warnings)).toEqual([...FRAME_WARNING_CODES]);
+    expect(codes(frame.colour!.properties!.notes)).toEqual([...FRAME_NOTE_CODES]);
+    const listed = schemas['FrameListResponseDto']!.properties!.data!.items!.properties!;
+    expect(codes(listed.warnings)).toEqual([...FRAME_WARNING_CODES]);
+    expect(codes(listed.colour!.properties!.notes)).toEqual([...FRAME_NOTE_CODES]);
   });
 
   it("publishes the setup's modifier kinds as the shared library's list, in and out", () => {

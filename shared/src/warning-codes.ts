@@ -65,3 +65,31 @@ export const SETUP_WARNING_CODES = [
   ...BALANCE_WARNING_CODES,
 ] as const;
 export type SetupWarningCode = (typeof SETUP_WARNING_CODES)[number];
+
+/**
+ * A test frame's analysis: warnings about the measured patch. `unclassified` is what a frame
+ * stored before the codes existed carries (its text kept as the message).
+ */
+export const FRAME_WARNING_CODES = [
+  'patch-clipped',
+  'patch-uneven',
+  'patch-dark',
+  'warmer-than-cct-range',
+  'bluer-than-cct-range',
+  'unclassified',
+] as const;
+export type FrameWarningCode = (typeof FRAME_WARNING_CODES)[number];
+
+/** A test frame's colour notes (about the correction); `unclassified` as for the warnings. */
+export const FRAME_NOTE_CODES = [
+  'camera-white-balance-assumed',
+  'warmer-than-cct-range',
+  'bluer-than-cct-range',
+  'far-from-locus',
+  'fine-tune-beyond-range',
+  'gel-not-solved',
+  'light-outside-gel-range',
+  'tint',
+  'unclassified',
+] as const;
+export type FrameNoteCode = (typeof FRAME_NOTE_CODES)[number];

@@ -2270,7 +2270,26 @@ export interface components {
             /** @description y */
             y: number;
           };
-          notes: string[];
+          /** @description Notes on the correction: a stable code and a sentence for people. Codes: "camera-white-balance-assumed" (cameraKelvin was not given and is assumed); "warmer-than-cct-range" (past an end of the CCT method's range: cctKelvin is null); "bluer-than-cct-range" (past an end of the CCT method's range: cctKelvin is null); "far-from-locus" (|Duv| is too large for a colour temperature to mean much); "fine-tune-beyond-range" (more amber-blue steps than cameras usually offer); "gel-not-solved" (the gel solver refused the light; the message says why); "light-outside-gel-range" (the light is outside 2500-10000 K: no gel suggestion); "tint" (the patch leans green or magenta); "unclassified" (a frame analysed before warnings had codes; the message is its original text). */
+          notes: {
+            /**
+             * @description Stable warning code.
+             * @example camera-white-balance-assumed
+             * @enum {string}
+             */
+            code:
+              | 'camera-white-balance-assumed'
+              | 'warmer-than-cct-range'
+              | 'bluer-than-cct-range'
+              | 'far-from-locus'
+              | 'fine-tune-beyond-range'
+              | 'gel-not-solved'
+              | 'light-outside-gel-range'
+              | 'tint'
+              | 'unclassified';
+            /** @description Explanation. */
+            message: string;
+          }[];
           /**
            * @description Green-magenta lean of the patch.
            * @enum {string}
@@ -2364,7 +2383,23 @@ export interface components {
         sha256: string;
         /** @description Where to fetch the JPEG thumbnail (same credentials). */
         thumbnailUrl: string;
-        warnings: string[];
+        /** @description Warnings about the measurement: a stable code and a sentence for people. Codes: "patch-clipped" (over 1 % of the patch is nearly clipped); "patch-uneven" (the patch luminance varies by over 10 %); "patch-dark" (the patch luminance is under 1 %); "warmer-than-cct-range" (past an end of the CCT method's range: cctKelvin is null); "bluer-than-cct-range" (past an end of the CCT method's range: cctKelvin is null); "unclassified" (a frame analysed before warnings had codes; the message is its original text). */
+        warnings: {
+          /**
+           * @description Stable warning code.
+           * @example patch-clipped
+           * @enum {string}
+           */
+          code:
+            | 'patch-clipped'
+            | 'patch-uneven'
+            | 'patch-dark'
+            | 'warmer-than-cct-range'
+            | 'bluer-than-cct-range'
+            | 'unclassified';
+          /** @description Explanation. */
+          message: string;
+        }[];
         /** @description Upright width, pixels. */
         width: number;
       }[];
@@ -2428,7 +2463,26 @@ export interface components {
           /** @description y */
           y: number;
         };
-        notes: string[];
+        /** @description Notes on the correction: a stable code and a sentence for people. Codes: "camera-white-balance-assumed" (cameraKelvin was not given and is assumed); "warmer-than-cct-range" (past an end of the CCT method's range: cctKelvin is null); "bluer-than-cct-range" (past an end of the CCT method's range: cctKelvin is null); "far-from-locus" (|Duv| is too large for a colour temperature to mean much); "fine-tune-beyond-range" (more amber-blue steps than cameras usually offer); "gel-not-solved" (the gel solver refused the light; the message says why); "light-outside-gel-range" (the light is outside 2500-10000 K: no gel suggestion); "tint" (the patch leans green or magenta); "unclassified" (a frame analysed before warnings had codes; the message is its original text). */
+        notes: {
+          /**
+           * @description Stable warning code.
+           * @example camera-white-balance-assumed
+           * @enum {string}
+           */
+          code:
+            | 'camera-white-balance-assumed'
+            | 'warmer-than-cct-range'
+            | 'bluer-than-cct-range'
+            | 'far-from-locus'
+            | 'fine-tune-beyond-range'
+            | 'gel-not-solved'
+            | 'light-outside-gel-range'
+            | 'tint'
+            | 'unclassified';
+          /** @description Explanation. */
+          message: string;
+        }[];
         /**
          * @description Green-magenta lean of the patch.
          * @enum {string}
@@ -2522,7 +2576,23 @@ export interface components {
       sha256: string;
       /** @description Where to fetch the JPEG thumbnail (same credentials). */
       thumbnailUrl: string;
-      warnings: string[];
+      /** @description Warnings about the measurement: a stable code and a sentence for people. Codes: "patch-clipped" (over 1 % of the patch is nearly clipped); "patch-uneven" (the patch luminance varies by over 10 %); "patch-dark" (the patch luminance is under 1 %); "warmer-than-cct-range" (past an end of the CCT method's range: cctKelvin is null); "bluer-than-cct-range" (past an end of the CCT method's range: cctKelvin is null); "unclassified" (a frame analysed before warnings had codes; the message is its original text). */
+      warnings: {
+        /**
+         * @description Stable warning code.
+         * @example patch-clipped
+         * @enum {string}
+         */
+        code:
+          | 'patch-clipped'
+          | 'patch-uneven'
+          | 'patch-dark'
+          | 'warmer-than-cct-range'
+          | 'bluer-than-cct-range'
+          | 'unclassified';
+        /** @description Explanation. */
+        message: string;
+      }[];
       /** @description Upright width, pixels. */
       width: number;
     };

@@ -124,7 +124,8 @@ describe('analyseFrame says when the white-balance fine-tune runs past the usual
     });
     const c = (await analyse(buf)).colour;
     expect(Math.abs(c.whiteBalance!.amberBlueSteps - stepsFor(2856))).toBeLessThanOrEqual(1);
-    const note = c.notes.find((n) => n.startsWith('Fine-tuning this takes'));
+    const note = c.notes.find((n) => n.code === 'fine-tune-beyond-range')?.message;
+    expect(note).toMatch(/^Fine-tuning this takes/);
     expect(note).toContain(`${Math.abs(c.whiteBalance!.amberBlueSteps)} steps toward blue`);
     expect(note).toContain(`set the white balance to about ${c.whiteBalance!.kelvin} K instead`);
   });
@@ -138,7 +139,7 @@ describe('analyseFrame says when the white-balance fine-tune runs past the usual
     });
     const c = (await analyse(buf)).colour;
     expect(Math.abs(c.whiteBalance!.amberBlueSteps)).toBeLessThanOrEqual(2);
-    expect(c.notes.some((n) => n.startsWith('Fine-tuning this takes'))).toBe(false);
+    expect(c.notes.some((n) => n.code === 'fine-tune-beyond-range')).toBe(false);
   });
 });
 
@@ -154,8 +155,9 @@ describe('analyseFrame flags patches outside the CCT method range', () => {
     expect(a.colour.cctMeaningful).toBe(false);
     expect(a.colour.gel).toBeNull();
     expect(a.warnings).toHaveLength(1);
-    expect(a.warnings[0]).toMatch(/warmer than 1667 K/);
-    expect(a.colour.notes).toContain(a.warnings[0]);
+    expect(a.warnings[0]!.code).toBe('warmer-than-cct-range');
+    expect(a.warnings[0]!.message).toMatch(/warmer than 1667 K/);
+    expect(a.colour.notes).toContainEqual(a.warnings[0]);
   });
 
   it('a patch bluer than any black body: no CCT, and a warning naming the blue end', async () => {
@@ -166,8 +168,9 @@ describe('analyseFrame flags patches outside the CCT method range', () => {
     expect(a.colour.cctKelvin).toBeNull();
     expect(a.colour.cctMeaningful).toBe(false);
     expect(a.warnings).toHaveLength(1);
-    expect(a.warnings[0]).toMatch(/bluer than any black body/);
-    expect(a.colour.notes).toContain(a.warnings[0]);
+    expect(a.warnings[0]!.code).toBe('bluer-than-cct-range');
+    expect(a.warnings[0]!.message).toMatch(/bluer than any black body/);
+    expect(a.colour.notes).toContainEqual(a.warnings[0]);
   });
 
   it('an off-locus patch inside the range keeps the Duv note and no range warning', async () => {
@@ -177,7 +180,38 @@ describe('analyseFrame flags patches outside the CCT method range', () => {
     expect(a.colour.cctMeaningful).toBe(false);
     expect(a.colour.duv!).toBeGreaterThan(0.05);
     expect(a.warnings).toEqual([]);
-    expect(a.colour.notes.join(' ')).toMatch(/too far from the Planckian locus/);
+    const far = a.colour.notes.find((n) => n.code === 'far-from-locus');
+    expect(far?.message).toMatch(/too far from the Planckian locus/);
+  });
+});
+
+describe('analyseFrame codes its warnings about the patch itself', () => {
+  // Flat grey PNGs made with sharp; the code values turn into luminance through the sRGB
+  // transfer function (IEC 61966-2-1). The thresholds (1 % clipped, 10 % unevenness, Y < 0.01)
+  // are the analysis' own: common practice, no source.
+  const flat = (width: number, height: number, v: number) =>
+    sharp({ create: { width, height, channels: 3, background: { r: v, g: v, b: v } } });
+  const whole = { x: 0, y: 0, width: 64, height: 64 };
+
+  it('code value 255 everywhere: clipped (every channel at or above 250)', async () => {
+    const a = await analyse(await flat(64, 64, 255).png().toBuffer(), whole);
+    expect(a.warnings.map((w) => w.code)).toEqual(['patch-clipped']);
+  });
+
+  it('code value 20 everywhere: Y = ((20/255 + 0.055)/1.055)^2.4 = 0.0070, under 0.01: dark', async () => {
+    const a = await analyse(await flat(64, 64, 20).png().toBuffer(), whole);
+    expect(a.patch.luminance).toBeCloseTo(0.007, 3);
+    expect(a.warnings.map((w) => w.code)).toEqual(['patch-dark']);
+  });
+
+  it('half code value 60, half 200: Y 0.045 and 0.578, far over 10 % variation: uneven', async () => {
+    const buf = await flat(64, 64, 60)
+      .composite([{ input: await flat(32, 64, 200).png().toBuffer(), left: 32, top: 0 }])
+      .png()
+      .toBuffer();
+    const a = await analyse(buf, whole);
+    expect(a.patch.luminanceCv).toBeGreaterThan(0.1);
+    expect(a.warnings.map((w) => w.code)).toEqual(['patch-uneven']);
   });
 });
 

@@ -1,4 +1,5 @@
 // One frame's analysis, from bytes to numbers: no storage, no database.
+import type { CodedWarning, FrameWarningCode } from '@lumenwright/shared';
 import { DomainError } from '../common/errors/domain-error.js';
 import {
   colourWarnings,
@@ -21,8 +22,11 @@ export interface FrameAnalysis {
   };
   colour: Correction;
   exposure: ExposureEstimate;
-  warnings: string[];
+  warnings: FrameWarning[];
 }
+
+/** What the analysis writes: any listed code but `unclassified` (kept for older rows). */
+export type FrameWarning = CodedWarning<Exclude<FrameWarningCode, 'unclassified'>>;
 
 export interface AnalysisInput {
   buf: Buffer;
@@ -58,14 +62,25 @@ export async function analyseFrame(
     measureRect(input.buf, rect, input.maxPixels),
     readExif(input.buf),
   ]);
-  const warnings: string[] = [];
+  const warnings: FrameWarning[] = [];
   if (stats.clippedFraction > 0.01) {
-    warnings.push('Part of the patch is clipped: its colour and brightness are unreliable.');
+    warnings.push({
+      code: 'patch-clipped',
+      message: 'Part of the patch is clipped: its colour and brightness are unreliable.',
+    });
   }
   if (stats.luminanceCv > 0.1) {
-    warnings.push('The patch is uneven (texture or a gradient): pick a flatter area.');
+    warnings.push({
+      code: 'patch-uneven',
+      message: 'The patch is uneven (texture or a gradient): pick a flatter area.',
+    });
   }
-  if (stats.luminance < 0.01) warnings.push('The patch is very dark: its colour is unreliable.');
+  if (stats.luminance < 0.01) {
+    warnings.push({
+      code: 'patch-dark',
+      message: 'The patch is very dark: its colour is unreliable.',
+    });
+  }
   warnings.push(...colourWarnings(stats));
   return {
     width,

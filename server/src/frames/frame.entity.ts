@@ -62,6 +62,10 @@ export class FrameEntity {
   @Column({ type: 'jsonb' })
   exif: FrameExif;
 
+  /**
+   * Rows written before warnings had codes hold plain strings in `warnings` and `colour.notes`;
+   * `toFrameDto` reads them as `unclassified`.
+   */
   @Column({ type: 'jsonb' })
   analysis: FrameAnalysis;
 

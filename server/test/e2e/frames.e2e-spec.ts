@@ -331,9 +331,41 @@ describe('frames', () => {
     expect(res.status).toBe(201);
     expect(res.body.colour).toMatchObject({ cctKelvin: null, duv: null, cctMeaningful: false });
     expect(res.body.colour.gel).toBeNull();
-    expect(res.body.warnings).toEqual([expect.stringMatching(/bluer than any black body/)]);
+    expect(res.body.warnings).toEqual([
+      { code: 'bluer-than-cct-range', message: expect.stringMatching(/bluer than any black body/) },
+    ]);
+    expect(res.body.colour.notes).toContainEqual(res.body.warnings[0]);
     const again = await studio.agent.get(`/v1/frames/${res.body.id}`).expect(200);
     expect(again.body.warnings).toEqual(res.body.warnings);
+  });
+
+  it('reads a frame stored before warnings had codes: its strings come back as "unclassified"', async () => {
+    const img = await renderFrame({ patch: { ...PATCH, ...ILLUMINANT_A, Y: 0.2 }, format: 'png' });
+    const res = await patchFields(studio.agent.post('/v1/frames').attach('file', img, 'old.png'));
+    expect(res.status).toBe(201);
+    // The row as the earlier analysis wrote it: plain strings in `warnings` and `colour.notes`.
+    await ds.query(
+      `UPDATE frames SET analysis = jsonb_set(jsonb_set(analysis, '{warnings}', $2::jsonb),
+         '{colour,notes}', $3::jsonb) WHERE id = $1`,
+      [
+        res.body.id,
+        JSON.stringify(['The patch is very dark: its colour is unreliable.']),
+        JSON.stringify(['An older note.', { code: 'tint', message: 'A coded note.' }]),
+      ],
+    );
+    const one = await studio.agent.get(`/v1/frames/${res.body.id}`).expect(200);
+    expect(one.body.warnings).toEqual([
+      { code: 'unclassified', message: 'The patch is very dark: its colour is unreliable.' },
+    ]);
+    expect(one.body.colour.notes).toEqual([
+      { code: 'unclassified', message: 'An older note.' },
+      { code: 'tint', message: 'A coded note.' },
+    ]);
+    const list = await studio.agent.get('/v1/frames').expect(200);
+    const listed = (list.body.data as { id: string; warnings: unknown }[]).find(
+      (f) => f.id === res.body.id,
+    );
+    expect(listed?.warnings).toEqual(one.body.warnings);
   });
 
   it('meters uploads like computations: rate-limit headers, a usage event each, live stored frames billed', async () => {

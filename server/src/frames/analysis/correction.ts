@@ -12,6 +12,8 @@ import {
   WB_FINE_TUNE_STEP_MIRED,
   WB_FINE_TUNE_USUAL_STEPS,
   type CctResult,
+  type CodedWarning,
+  type FrameNoteCode,
 } from '@lumenwright/shared';
 import type { FrameExif } from './exif.js';
 import type { PatchStats } from './patch.js';
@@ -46,8 +48,11 @@ export interface Correction {
     residualMired: number;
     lossStops: number;
   } | null;
-  notes: string[];
+  notes: FrameNote[];
 }
+
+/** What the analysis writes: any listed code but `unclassified` (kept for older rows). */
+export type FrameNote = CodedWarning<Exclude<FrameNoteCode, 'unclassified'>>;
 
 export interface ExposureEstimate {
   settingsEv100: number | null;
@@ -60,33 +65,45 @@ export interface ExposureEstimate {
  * Why there is no colour temperature when the patch lies past an end of the CCT method's range
  * (Robertson's table, 1667 K to infinite temperature; shared/ cctFromXy); null inside it.
  */
-export function cctRangeWarning(range: CctResult['range']): string | null {
+export function cctRangeWarning(
+  range: CctResult['range'],
+): CodedWarning<'warmer-than-cct-range' | 'bluer-than-cct-range'> | null {
   if (range === 'warmer') {
-    return `The patch is warmer than ${Math.round(ROBERTSON_RANGE_KELVIN.min)} K, the warm end of the colour-temperature method's range: no colour temperature is reported.`;
+    return {
+      code: 'warmer-than-cct-range',
+      message: `The patch is warmer than ${Math.round(ROBERTSON_RANGE_KELVIN.min)} K, the warm end of the colour-temperature method's range: no colour temperature is reported.`,
+    };
   }
   if (range === 'bluer') {
-    return "The patch is bluer than any black body, past the infinite-temperature end of the colour-temperature method's range: no colour temperature is reported.";
+    return {
+      code: 'bluer-than-cct-range',
+      message:
+        "The patch is bluer than any black body, past the infinite-temperature end of the colour-temperature method's range: no colour temperature is reported.",
+    };
   }
   return null;
 }
 
 /** Warnings about the patch's colour for the analysis' `warnings` list. */
-export function colourWarnings(stats: PatchStats): string[] {
+export function colourWarnings(
+  stats: PatchStats,
+): CodedWarning<'warmer-than-cct-range' | 'bluer-than-cct-range'>[] {
   if (!stats.xy) return [];
   const w = cctRangeWarning(cctFromXy(stats.xy.x, stats.xy.y).range);
   return w ? [w] : [];
 }
 
 export function correctionFor(stats: PatchStats, cameraKelvin: number | null): Correction {
-  const notes: string[] = [];
+  const notes: FrameNote[] = [];
   const xy = stats.xy ?? SRGB_WHITE;
   const c = cctFromXy(xy.x, xy.y);
   const neutralCct = cctFromXy(SRGB_WHITE.x, SRGB_WHITE.y).cct!;
   const camera = cameraKelvin ?? ASSUMED_CAMERA_KELVIN;
   if (cameraKelvin === null) {
-    notes.push(
-      `The camera's white balance was not given; ${ASSUMED_CAMERA_KELVIN} K is assumed for the light and gel figures.`,
-    );
+    notes.push({
+      code: 'camera-white-balance-assumed',
+      message: `The camera's white balance was not given; ${ASSUMED_CAMERA_KELVIN} K is assumed for the light and gel figures.`,
+    });
   }
   const base = {
     chromaticity: { x: round(xy.x, 5), y: round(xy.y, 5) },
@@ -105,8 +122,11 @@ export function correctionFor(stats: PatchStats, cameraKelvin: number | null): C
   };
   if (c.cct === null || !c.meaningful) {
     notes.push(
-      cctRangeWarning(c.range) ??
-        'The patch is too far from the Planckian locus for a colour temperature to mean much.',
+      cctRangeWarning(c.range) ?? {
+        code: 'far-from-locus',
+        message:
+          'The patch is too far from the Planckian locus for a colour temperature to mean much.',
+      },
     );
     return { ...base, miredOffset: null, lightKelvin: null, whiteBalance: null, gel: null, notes };
   }
@@ -123,9 +143,10 @@ export function correctionFor(stats: PatchStats, cameraKelvin: number | null): C
       : null;
   if (whiteBalance && Math.abs(whiteBalance.amberBlueSteps) > WB_FINE_TUNE_USUAL_STEPS) {
     const s = whiteBalance.amberBlueSteps;
-    notes.push(
-      `Fine-tuning this takes ${Math.abs(s)} steps toward ${s > 0 ? 'amber' : 'blue'}; cameras usually offer about \u00b1${WB_FINE_TUNE_USUAL_STEPS}: set the white balance to about ${whiteBalance.kelvin} K instead.`,
-    );
+    notes.push({
+      code: 'fine-tune-beyond-range',
+      message: `Fine-tuning this takes ${Math.abs(s)} steps toward ${s > 0 ? 'amber' : 'blue'}; cameras usually offer about \u00b1${WB_FINE_TUNE_USUAL_STEPS}: set the white balance to about ${whiteBalance.kelvin} K instead.`,
+    });
   }
   let gel: Correction['gel'] = null;
   if (lightKelvin !== null && lightKelvin >= 2500 && lightKelvin <= 10000) {
@@ -139,15 +160,19 @@ export function correctionFor(stats: PatchStats, cameraKelvin: number | null): C
       };
     } catch (e) {
       if (!(e instanceof LightingInputError)) throw e;
-      notes.push(`No gel suggestion: ${e.field} ${e.reason}.`);
+      notes.push({ code: 'gel-not-solved', message: `No gel suggestion: ${e.field} ${e.reason}.` });
     }
   } else {
-    notes.push('The light is outside 2500-10000 K at this white balance: no gel suggestion.');
+    notes.push({
+      code: 'light-outside-gel-range',
+      message: 'The light is outside 2500-10000 K at this white balance: no gel suggestion.',
+    });
   }
   if (base.tint !== 'none') {
-    notes.push(
-      `The patch leans ${base.tint} (Duv ${base.duv}): a ${base.tint === 'green' ? 'minus-green' : 'plus-green'} correction may be needed too.`,
-    );
+    notes.push({
+      code: 'tint',
+      message: `The patch leans ${base.tint} (Duv ${base.duv}): a ${base.tint === 'green' ? 'minus-green' : 'plus-green'} correction may be needed too.`,
+    });
   }
   return {
     ...base,

@@ -1,5 +1,6 @@
 // Frame responses: one JSON schema each, turned into documented DTO classes.
-import { bool, outNum, str } from '../../compute/schemas/common.js';
+import { FRAME_NOTE_CODES, FRAME_WARNING_CODES } from '@lumenwright/shared';
+import { bool, outNum, str, warningsWith } from '../../compute/schemas/common.js';
 import type { JsonSchema } from '../../compute/validation/json-schema.js';
 import { schemaDto, type ObjectSchema } from '../../compute/validation/schema-dto.js';
 
@@ -18,6 +19,9 @@ const obj = (
   required: Object.keys(properties),
   properties,
 });
+
+const UNCLASSIFIED = 'a frame analysed before warnings had codes; the message is its original text';
+const OUT_OF_CCT_RANGE = "past an end of the CCT method's range: cctKelvin is null";
 
 const exifSchema = obj('EXIF exposure settings (null when absent).', {
   exposureTime: nNum('Shutter time, seconds.'),
@@ -79,7 +83,21 @@ const colourSchema = obj('Colour of the patch and the correction.', {
     true,
   ),
   gel: gelSchema,
-  notes: { type: 'array', items: str('A note.') },
+  notes: warningsWith(
+    FRAME_NOTE_CODES,
+    {
+      'camera-white-balance-assumed': 'cameraKelvin was not given and is assumed',
+      'warmer-than-cct-range': OUT_OF_CCT_RANGE,
+      'bluer-than-cct-range': OUT_OF_CCT_RANGE,
+      'far-from-locus': '|Duv| is too large for a colour temperature to mean much',
+      'fine-tune-beyond-range': 'more amber-blue steps than cameras usually offer',
+      'gel-not-solved': 'the gel solver refused the light; the message says why',
+      'light-outside-gel-range': 'the light is outside 2500-10000 K: no gel suggestion',
+      tint: 'the patch leans green or magenta',
+      unclassified: UNCLASSIFIED,
+    },
+    'Notes on the correction: a stable code and a sentence for people.',
+  ),
 });
 
 const frameSchema: ObjectSchema = {
@@ -116,7 +134,18 @@ const frameSchema: ObjectSchema = {
       sceneEv100: nNum('Scene EV100, taking the patch as an 18 % grey card.'),
       basis: str('What the estimate assumes.'),
     }),
-    warnings: { type: 'array', items: str('A warning about the measurement.') },
+    warnings: warningsWith(
+      FRAME_WARNING_CODES,
+      {
+        'patch-clipped': 'over 1 % of the patch is nearly clipped',
+        'patch-uneven': 'the patch luminance varies by over 10 %',
+        'patch-dark': 'the patch luminance is under 1 %',
+        'warmer-than-cct-range': OUT_OF_CCT_RANGE,
+        'bluer-than-cct-range': OUT_OF_CCT_RANGE,
+        unclassified: UNCLASSIFIED,
+      },
+      'Warnings about the measurement: a stable code and a sentence for people.',
+    ),
     createdAt: str('When it was uploaded (ISO 8601).'),
   },
 };

@@ -4,6 +4,8 @@ import { client, unwrap } from '@/lib/api';
 import type { PixelRect } from '../patch';
 
 export type Frame = components['schemas']['FrameListResponseDto']['data'][number];
+export type FrameWarning = Frame['warnings'][number];
+export type FrameNote = Frame['colour']['notes'][number];
 
 export const frameKeys = {
   all: ['frames'] as const,
@@ -23,6 +25,8 @@ export interface UploadFrameInput {
   file: File;
   patch: PixelRect | null;
   cameraKelvin?: number;
+  /** Sent as Idempotency-Key: the same on a retry of this upload (see upload-key.ts). */
+  key: string;
 }
 
 /** POST /v1/frames (multipart): stores the frame and measures the patch (or finds one). */
@@ -41,6 +45,7 @@ export function uploadFrame(input: UploadFrameInput): Promise<Frame> {
     client.POST('/v1/frames', {
       // openapi-fetch passes FormData through untouched (the browser sets the boundary).
       body: form as unknown as never,
+      headers: { 'Idempotency-Key': input.key },
     }),
   ).then((frame) => frame as unknown as Frame);
 }
@@ -49,6 +54,21 @@ export function useUploadFrame() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: uploadFrame,
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: frameKeys.all }),
+  });
+}
+
+/** DELETE /v1/frames/{id}: the frame, its original and its thumbnail. */
+export function deleteFrame(id: string): Promise<void> {
+  return unwrap(client.DELETE('/v1/frames/{id}', { params: { path: { id } } })).then(
+    () => undefined,
+  );
+}
+
+export function useDeleteFrame() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: deleteFrame,
     onSuccess: () => queryClient.invalidateQueries({ queryKey: frameKeys.all }),
   });
 }

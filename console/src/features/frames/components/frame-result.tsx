@@ -16,6 +16,9 @@ function signed(value: number | null | undefined, digits = 0) {
 /** What the server measured in the patch, and the change that would neutralise it. */
 export function FrameResult({ frame }: { frame: Frame }) {
   const { colour, exposure, exif, patch } = frame;
+  // A warning about the patch's colour is also a note on the correction: show it once.
+  const warned = new Set(frame.warnings.map((w) => w.message));
+  const notes = colour.notes.filter((note) => !warned.has(note.message));
   return (
     <Card aria-labelledby="frame-result-heading" data-testid="frame-result">
       <h2 id="frame-result-heading" className="text-title font-semibold">
@@ -76,10 +79,12 @@ export function FrameResult({ frame }: { frame: Frame }) {
         ) : null}
         {!colour.gel && !colour.whiteBalance ? <li>No correction could be worked out.</li> : null}
       </ul>
-      {colour.notes.length ? (
-        <ul className="mt-2 space-y-1 text-small text-ink-muted">
-          {colour.notes.map((note) => (
-            <li key={note}>{note}</li>
+      {notes.length ? (
+        <ul className="mt-2 space-y-1 text-small text-ink-muted" aria-label="Notes">
+          {notes.map((note, i) => (
+            <li key={`${note.code}-${i}`} data-code={note.code}>
+              {note.message}
+            </li>
           ))}
         </ul>
       ) : null}
@@ -93,9 +98,11 @@ export function FrameResult({ frame }: { frame: Frame }) {
       </p>
       {frame.warnings.length ? (
         <Notice tone="caution" className="mt-3">
-          <ul>
-            {frame.warnings.map((warning) => (
-              <li key={warning}>{warning}</li>
+          <ul aria-label="Warnings">
+            {frame.warnings.map((warning, i) => (
+              <li key={`${warning.code}-${i}`} data-code={warning.code}>
+                {warning.message}
+              </li>
             ))}
           </ul>
         </Notice>

@@ -1,15 +1,17 @@
-import { useEffect, useId, useState } from 'react';
+import { useEffect, useId, useRef, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { Notice } from '@/components/ui/notice';
 import { TextField } from '@/components/ui/text-field';
 import { paths } from '@/config/paths';
 import { ApiProblem } from '@/lib/api';
 import { problemMessage } from '@/lib/form-errors';
 import { formatDateTime } from '@/lib/format';
-import { useFrames, useUploadFrame, type Frame } from '../api/frames';
+import { useDeleteFrame, useFrames, useUploadFrame, type Frame } from '../api/frames';
 import { checkFile, type PixelRect, type Size } from '../patch';
+import { keepKeyAfter, nextAttempt, type UploadAttempt } from '../upload-key';
 import { FrameResult } from './frame-result';
 import { PatchPicker } from './patch-picker';
 
@@ -91,6 +93,11 @@ export function FramesPage({ plan }: { plan?: FramesPlan }) {
   const [fileError, setFileError] = useState<string | null>(null);
   const [dragging, setDragging] = useState(false);
   const [result, setResult] = useState<Frame | null>(null);
+  // The last upload that got no usable answer: retrying it sends its Idempotency-Key again.
+  const unanswered = useRef<UploadAttempt | null>(null);
+  const remove = useDeleteFrame();
+  const [doomed, setDoomed] = useState<Frame | null>(null);
+  const [deleteError, setDeleteError] = useState<string | null>(null);
 
   // The preview URL lives as long as it is shown; the old one is released when it changes.
   useEffect(() => {
@@ -117,14 +124,33 @@ export function FramesPage({ plan }: { plan?: FramesPlan }) {
   const submit = () => {
     if (!file || kelvinError) return;
     const cameraKelvin = Number(kelvin);
-    upload.mutate(
-      {
-        file,
-        patch,
-        cameraKelvin: kelvin && Number.isFinite(cameraKelvin) ? cameraKelvin : undefined,
+    const attempt = nextAttempt(unanswered.current, {
+      file,
+      patch,
+      cameraKelvin: kelvin && Number.isFinite(cameraKelvin) ? cameraKelvin : undefined,
+    });
+    unanswered.current = attempt;
+    upload.mutate(attempt, {
+      onSuccess: (frame) => {
+        unanswered.current = null;
+        setResult(frame);
       },
-      { onSuccess: (frame) => setResult(frame) },
-    );
+      onError: (error) => {
+        if (!keepKeyAfter(error)) unanswered.current = null;
+      },
+    });
+  };
+
+  const confirmDelete = async () => {
+    if (!doomed) return;
+    setDeleteError(null);
+    try {
+      await remove.mutateAsync(doomed.id);
+      if (result?.id === doomed.id) setResult(null);
+      setDoomed(null);
+    } catch (error) {
+      setDeleteError(problemMessage(error));
+    }
   };
 
   return (
@@ -232,7 +258,7 @@ export function FramesPage({ plan }: { plan?: FramesPlan }) {
           </h2>
           <ul className="grid grid-cols-2 gap-3 sm:grid-cols-4">
             {frames.data.data.map((frame) => (
-              <li key={frame.id}>
+              <li key={frame.id} className="flex flex-col gap-1">
                 <button
                   type="button"
                   onClick={() => setResult(frame)}
@@ -251,11 +277,35 @@ export function FramesPage({ plan }: { plan?: FramesPlan }) {
                     {formatDateTime(frame.createdAt)}
                   </span>
                 </button>
+                <Button
+                  variant="secondary"
+                  className="self-start"
+                  aria-label={`Delete ${frame.fileName ?? 'frame'} (${formatDateTime(frame.createdAt)})`}
+                  onClick={() => {
+                    setDeleteError(null);
+                    setDoomed(frame);
+                  }}
+                >
+                  Delete
+                </Button>
               </li>
             ))}
           </ul>
         </section>
       ) : null}
+      <ConfirmDialog
+        open={doomed !== null}
+        title={`Delete ${doomed?.fileName ?? 'this frame'}?`}
+        description="This removes the frame, its thumbnail and its analysis for everyone in the studio. It cannot be undone."
+        confirmLabel="Delete frame"
+        pending={remove.isPending}
+        error={deleteError}
+        onClose={() => {
+          setDoomed(null);
+          setDeleteError(null);
+        }}
+        onConfirm={() => void confirmDelete()}
+      />
     </div>
   );
 }
