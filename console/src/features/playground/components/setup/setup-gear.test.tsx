@@ -183,4 +183,37 @@ describe('Dusk setup: gear pickers', () => {
     fireEvent.click(within(camera).getByRole('button', { name: 'Use the built-in gels' }));
     await waitFor(() => expect(lastAsked()).not.toHaveProperty('gels'), { timeout: 4000 });
   });
+
+  it('saves picked gear by id, and a value changed after picking as typed', async () => {
+    const { panel, camera, key, rim } = await openSetup();
+    await pick(within(key), 'Key light from your gear', id(2));
+    await pick(within(key), 'Key modifier from your gear', id(3));
+    await pick(within(rim), 'Rim light from your gear', id(2));
+    await pick(within(rim), 'Rim modifier from your gear', id(4));
+    await pick(within(camera), 'Gel kit from your gear', id(6));
+    // The rim's guide number is changed by hand: it no longer stands for the light.
+    fireEvent.change(within(rim).getByLabelText('Guide number'), { target: { value: '50' } });
+    await waitFor(() => expect(lastAsked()?.rim).toMatchObject({ guideNumber: 50 }), {
+      timeout: 4000,
+    });
+    fireEvent.click(within(panel).getByRole('button', { name: 'Save setup' }));
+    const dialog = await screen.findByRole('dialog');
+    fireEvent.change(within(dialog).getByLabelText('Name'), { target: { value: 'Garden' } });
+    fireEvent.click(within(dialog).getByRole('button', { name: 'Save setup' }));
+    await waitFor(() =>
+      expect(calls.some((c) => c.method === 'POST' && c.path === '/v1/setups')).toBe(true),
+    );
+    const saved = calls.find((c) => c.method === 'POST' && c.path === '/v1/setups')!.body as {
+      inputs: SetupBody & { gelKitId?: string };
+    };
+    const { inputs } = saved;
+    expect(inputs.gelKitId).toBe(id(6));
+    expect(inputs).not.toHaveProperty('gels');
+    expect(inputs.key).toMatchObject({ lightId: id(2), modifierId: id(3), modifier: 'octabox' });
+    for (const field of ['guideNumber', 'guideNumberUnit', 'modifierLossStops', 'modifierSize'])
+      expect(inputs.key).not.toHaveProperty(field);
+    expect(inputs.rim).toMatchObject({ guideNumber: 50, guideNumberUnit: 'm', modifierId: id(4) });
+    for (const field of ['lightId', 'modifierLossStops', 'beamAngleDeg'])
+      expect(inputs.rim).not.toHaveProperty(field);
+  });
 });

@@ -30,7 +30,7 @@ import { CalculationResult } from '../calculation-result';
 import { FormGrid } from '../form-grid';
 import { modifierOptions } from '../flash/flash-panel';
 import { usePlaygroundScene, type SiteConditions } from '../playground-scene';
-import { kitGels, type PickedGear } from './gear-links';
+import { withGearIds, kitGels, type PickedGear } from './gear-links';
 import { SaveSetupDialog } from './save-setup-dialog';
 import {
   carriedInputs,
@@ -524,7 +524,7 @@ export function SetupPanel() {
         <SaveSetupDialog
           open={saving}
           onClose={() => setSaving(false)}
-          input={input}
+          input={withGearIds(input, picked)}
           initial={
             opened.data
               ? {
