@@ -30,7 +30,7 @@ import { CalculationResult } from '../calculation-result';
 import { FormGrid } from '../form-grid';
 import { modifierOptions } from '../flash/flash-panel';
 import { usePlaygroundScene, type SiteConditions } from '../playground-scene';
-import { withGearIds, kitGels, type PickedGear } from './gear-links';
+import { kitGels, lengthTo, withGearIds, type PickedGear } from './gear-links';
 import { SaveSetupDialog } from './save-setup-dialog';
 import {
   carriedInputs,
@@ -449,13 +449,21 @@ export function SetupPanel() {
             />
             <TextField
               label="Modifier loss (stops)"
-              hint={`Empty: about ${MODIFIERS[modifier].lossStops}`}
-              {...numberField('keyModifierLossStops', 'key.modifierLossStops', 'from the modifier')}
+              hint="Empty: the modifier's usual"
+              {...numberField(
+                'keyModifierLossStops',
+                'key.modifierLossStops',
+                `default ${MODIFIERS[modifier].lossStops}`,
+              )}
             />
             <TextField
               label={`Modifier size (${unit})`}
-              hint="Empty: from the modifier"
-              {...numberField('keyModifierSize', 'key.modifierSize', 'from the modifier')}
+              hint="Empty: the modifier's usual"
+              {...numberField(
+                'keyModifierSize',
+                'key.modifierSize',
+                `default ${lengthTo(MODIFIERS[modifier].sizeM, 'm', unit)}`,
+              )}
             />
             <TextField
               label={`Key to background (${unit})`}
