@@ -101,7 +101,7 @@ describe('a dusk portrait planned on a phone', () => {
     await fill(key, 'Guide number', typed.keyGuideNumber);
     await fill(key, 'Distance (m)', typed.keyDistance.m);
     await fill(key, 'Angle from camera (°)', typed.keyAngle);
-    await key.getByLabel('Modifier').selectOption('umbrella');
+    await key.getByLabel('Modifier', { exact: true }).selectOption('umbrella');
     await fill(key, 'Key to background (m)', typed.background.m);
     const rim = group('Rim light');
     await fill(rim, 'Guide number', typed.rimGuideNumber);

@@ -13,6 +13,7 @@ import { useGearLights, useGearModifiers } from '../../api/gear-options';
 import { given, useCalculationForm } from '../../hooks/use-calculation-form';
 import { fixed } from '../../utils/format';
 import { CalculationResult } from '../calculation-result';
+import { GearPicker } from '../gear-picker';
 import { FormGrid, Readouts } from '../form-grid';
 import { usePlaygroundScene } from '../playground-scene';
 import { PowerScale } from './power-scale';
@@ -236,33 +237,5 @@ export function FlashPanel() {
         )}
       </CalculationResult>
     </div>
-  );
-}
-
-/** A "from your gear" select: picking an item fills the fields it stands for; hidden when empty. */
-function GearPicker<T extends { id: string }>(props: {
-  label: string;
-  hint: string;
-  placeholder: string;
-  items: readonly T[];
-  describe: (item: T) => string;
-  onPick: (item: T) => void;
-}) {
-  if (!props.items.length) return null;
-  return (
-    <SelectField
-      label={props.label}
-      className="col-span-2"
-      hint={props.hint}
-      value=""
-      options={[
-        { value: '', label: props.placeholder },
-        ...props.items.map((item) => ({ value: item.id, label: props.describe(item) })),
-      ]}
-      onChange={(event) => {
-        const item = props.items.find((i) => i.id === event.target.value);
-        if (item) props.onPick(item);
-      }}
-    />
   );
 }

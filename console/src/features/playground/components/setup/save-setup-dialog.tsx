@@ -1,5 +1,4 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import type { DuskSetupInput } from '@lumenwright/shared';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
@@ -7,7 +6,12 @@ import { Dialog } from '@/components/ui/dialog';
 import { FormActions } from '@/components/ui/form-actions';
 import { TextField } from '@/components/ui/text-field';
 import { applyServerErrors } from '@/lib/form-errors';
-import { useSaveSetup, type NewSavedSetup, type OpenedSetup } from '../../api/saved-setups';
+import {
+  useSaveSetup,
+  type NewSavedSetup,
+  type OpenedSetup,
+  type SavedSetupInputs,
+} from '../../api/saved-setups';
 
 const schema = z.object({
   name: z.string().trim().min(1, 'Name the setup').max(120, 'Use at most 120 characters'),
@@ -25,14 +29,14 @@ const fieldMap = { 'inputs.date': 'date', 'inputs.timeZone': 'timeZone' } as con
 interface SaveSetupDialogProps {
   open: boolean;
   onClose: () => void;
-  /** The Dusk setup tab's current input (what the preview shows). */
-  input: DuskSetupInput;
+  /** The Dusk setup tab's current input (what the preview shows), gear it came from named by id. */
+  input: SavedSetupInputs;
   /** Prefill, e.g. venue and notes of a reopened setup (names must be new: the server refuses repeats). */
   initial?: Partial<Pick<SaveValues, 'name' | 'venue' | 'notes'>>;
   onSaved: (setup: OpenedSetup) => void;
 }
 
-export function toSaveBody(values: SaveValues, input: DuskSetupInput): NewSavedSetup {
+export function toSaveBody(values: SaveValues, input: SavedSetupInputs): NewSavedSetup {
   return {
     name: values.name,
     ...(values.venue ? { venue: values.venue } : {}),

@@ -31,9 +31,6 @@ const CARRIED = {
   'camera.isoMin': 'lowest ISO',
   'camera.slowestHandheldSeconds': 'slowest hand-held shutter',
   'camera.tint': 'camera tint',
-  'key.modifierSize': 'key modifier size',
-  'key.modifierLossStops': 'key modifier loss',
-  'rim.modifierLossStops': 'rim modifier loss',
 } as const;
 type CarriedPath = keyof typeof CARRIED;
 
@@ -52,9 +49,7 @@ export interface CarriedInputs {
   camera: Record<string, unknown>;
   key: Record<string, unknown>;
   rim: Record<string, unknown>;
-  /** The key modifier these were saved with: its loss and size only hold while it is chosen. */
-  keyModifier: string | undefined;
-  /** What the notice lists, e.g. "key modifier loss 1.5 stops". */
+  /** What the notice lists, e.g. "lowest ISO 200". */
   described: string[];
 }
 
@@ -63,7 +58,6 @@ export const NOTHING_CARRIED: CarriedInputs = {
   camera: {},
   key: {},
   rim: {},
-  keyModifier: undefined,
   described: [],
 };
 
@@ -71,7 +65,6 @@ function describeValue(path: CarriedPath, value: unknown): string {
   const label = CARRIED[path];
   if (Array.isArray(value))
     return `${label} (${value.length} ${value.length === 1 ? 'piece' : 'pieces'})`;
-  if (path.endsWith('LossStops')) return `${label} ${String(value)} stops`;
   if (
     path === 'camera.slowestHandheldSeconds' &&
     typeof value === 'number' &&
@@ -90,7 +83,6 @@ export function carriedInputs(inputs: SavedSetupInputs): CarriedInputs {
     camera: {},
     key: {},
     rim: {},
-    keyModifier: inputs.key.modifier,
     described: [],
   };
   for (const path of Object.keys(CARRIED) as CarriedPath[]) {
@@ -170,6 +162,8 @@ export function fromSetupInput(inputs: SavedSetupInputs, unit: DisplayUnit): Set
     keyDistance: lengthIn(key.distance, keyUnit, unit),
     keyAngle: optional(key.angleFromCameraDeg),
     modifier: isModifier(key.modifier) ? key.modifier : 'softbox',
+    keyModifierLossStops: optional(key.modifierLossStops),
+    keyModifierSize: lengthIn(key.modifierSize, keyUnit, unit),
     rimEnabled: rim !== undefined,
     rimGuideNumber: rimGn,
     rimDistanceBehind: lengthIn(rim?.distanceBehind, rimUnit, unit),
@@ -177,6 +171,7 @@ export function fromSetupInput(inputs: SavedSetupInputs, unit: DisplayUnit): Set
     rimBeam: nearestBeam(rim?.beamAngleDeg),
     rimOverKeyStops: optional(rim?.rimOverKeyStops),
     rimGelled: rim?.gelled ?? true,
+    rimModifierLossStops: optional(rim?.modifierLossStops),
     backgroundDistance: lengthIn(inputs.backgroundDistance, keyUnit, unit),
     // Saved without one, the plan was made with the closest stack.
     miredTolerance: inputs.miredTolerance ?? 0,

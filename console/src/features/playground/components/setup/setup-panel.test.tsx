@@ -164,7 +164,9 @@ describe('Dusk setup: saved setups', () => {
         : jsonResponse({ title: 'Not Found', status: 404 }, 404, 'application/problem+json');
     const { panel, key } = await openSaved();
     const notice = within(panel).getByText(/Also planned with these saved values/);
-    expect(notice.textContent).toContain('key modifier loss 3 stops');
+    // The key modifier's loss has a field now: it shows there, not in the notice.
+    expect(valueOf(within(key).getByLabelText('Modifier loss (stops)'))).toBe('3');
+    expect(notice.textContent).not.toContain('modifier loss');
     expect(notice.textContent).toContain('minutes between points 2');
     expect(notice.textContent).toContain('lowest ISO 200');
     // The preview is the saved plan: the shared library on the saved (resolved) inputs.
@@ -181,6 +183,7 @@ describe('Dusk setup: saved setups', () => {
     await waitFor(() => expect(firstKey()).toBe(asSaved.suggestedMinutes[0]!.keyFlash.powerLabel));
     // Another modifier drops the saved modifier's loss; the other saved values stay.
     fireEvent.change(within(key).getByLabelText('Modifier'), { target: { value: 'umbrella' } });
+    expect(valueOf(within(key).getByLabelText('Modifier loss (stops)'))).toBe('');
     const umbrella = planDuskSetup({
       ...extras,
       key: { ...savedInputs.key, modifier: 'umbrella' },

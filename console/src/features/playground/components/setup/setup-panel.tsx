@@ -1,4 +1,5 @@
 import {
+  MODIFIERS,
   MODIFIER_NAMES,
   planDuskSetup,
   type DuskSetupInput,
@@ -29,6 +30,7 @@ import { CalculationResult } from '../calculation-result';
 import { FormGrid } from '../form-grid';
 import { modifierOptions } from '../flash/flash-panel';
 import { usePlaygroundScene, type SiteConditions } from '../playground-scene';
+import { kitGels, lengthTo, withGearIds, type PickedGear } from './gear-links';
 import { SaveSetupDialog } from './save-setup-dialog';
 import {
   carriedInputs,
@@ -40,6 +42,13 @@ import {
   type CarriedInputs,
   type SavedPlace,
 } from './saved-inputs';
+import {
+  GelKitPicker,
+  KeyLightPicker,
+  KeyModifierPicker,
+  RimLightPicker,
+  RimModifierPicker,
+} from './setup-gear';
 import { SetupResultView } from './setup-result';
 
 const maybe = z.union([z.number(), z.nan()]).optional();
@@ -56,11 +65,14 @@ const schema = z.object({
   keyDistance: number,
   keyAngle: maybe,
   modifier: z.enum(MODIFIER_NAMES as [ModifierName, ...ModifierName[]]),
+  keyModifierLossStops: maybe,
+  keyModifierSize: maybe,
   rimEnabled: z.boolean(),
   rimGuideNumber: maybe,
   rimDistanceBehind: maybe,
   rimHeight: maybe,
   rimBeam: z.string(),
+  rimModifierLossStops: maybe,
   rimOverKeyStops: maybe,
   rimGelled: z.boolean(),
   backgroundDistance: maybe,
@@ -81,12 +93,16 @@ const labels: Record<string, string> = {
   'rim.distanceBehind': 'Rim distance behind',
   'rim.lightHeight': 'Rim height',
   'rim.rimOverKeyStops': 'Rim over key',
+  'key.modifierSize': 'Key modifier size',
+  'key.modifierLossStops': 'Key modifier loss',
+  'rim.modifierLossStops': 'Rim modifier loss',
+  'rim.beamAngleDeg': 'Rim beam',
   backgroundDistance: 'Key to background',
   miredTolerance: 'Gels close enough',
   // Carried from a reopened saved setup (no field here).
   elevation: 'Elevation (saved)',
   flashKelvin: 'Flash colour temperature (saved)',
-  gels: 'Gel list (saved)',
+  gels: 'Gel list',
   maxGels: 'Most gels in a stack (saved)',
   targetMiredOffset: 'Skin warmth offset (saved)',
   stepMinutes: 'Minutes between points (saved)',
@@ -94,9 +110,6 @@ const labels: Record<string, string> = {
   'camera.isoMin': 'Lowest ISO (saved)',
   'camera.slowestHandheldSeconds': 'Slowest hand-held shutter (saved)',
   'camera.tint': 'Camera tint (saved)',
-  'key.modifierSize': 'Key modifier size (saved)',
-  'key.modifierLossStops': 'Key modifier loss (saved)',
-  'rim.modifierLossStops': 'Rim modifier loss (saved)',
 };
 
 /** Drop keys whose value is undefined, so the request (and the copied snippet) stays short. */
@@ -110,17 +123,10 @@ export function toSetupInput(
   moment: SavedPlace | null,
   conditions: SiteConditions,
   carried: CarriedInputs = NOTHING_CARRIED,
+  /** The gels to choose from, when a gel kit was picked (else the saved or built-in ones). */
+  gels?: DuskSetupInput['gels'],
 ): DuskSetupInput | undefined {
   if (!moment) return undefined;
-  // A saved modifier's loss and size hold only while that modifier is still the one chosen.
-  const keyCarried =
-    form.modifier === (carried.keyModifier ?? 'softbox')
-      ? carried.key
-      : Object.fromEntries(
-          Object.entries(carried.key).filter(
-            ([k]) => k !== 'modifierLossStops' && k !== 'modifierSize',
-          ),
-        );
   const input: DuskSetupInput = {
     ...carried.top,
     latitude: moment.latitude,
@@ -138,13 +144,15 @@ export function toSetupInput(
       kelvin: given(form.kelvin),
     }),
     key: compact({
-      ...keyCarried,
+      ...carried.key,
       guideNumber: form.keyGuideNumber,
       guideNumberUnit: form.guideNumberUnit,
       distance: form.keyDistance,
       distanceUnit: unit,
       angleFromCameraDeg: given(form.keyAngle),
       modifier: form.modifier,
+      modifierSize: given(form.keyModifierSize),
+      modifierLossStops: given(form.keyModifierLossStops),
     }),
     conditions: compact({ ...conditions }),
   };
@@ -159,13 +167,30 @@ export function toSetupInput(
       beamAngleDeg: Number(form.rimBeam),
       rimOverKeyStops: given(form.rimOverKeyStops),
       gelled: form.rimGelled,
+      modifierLossStops: given(form.rimModifierLossStops),
     });
   }
+  if (gels) input.gels = gels;
   if (given(form.backgroundDistance) !== undefined)
     input.backgroundDistance = form.backgroundDistance;
   const tolerance = given(form.miredTolerance);
   if (tolerance !== undefined && tolerance !== 0) input.miredTolerance = tolerance;
   return input;
+}
+
+const BEAMS = [
+  { value: '100', label: 'Bare' },
+  { value: '40', label: '40° grid' },
+  { value: '30', label: '30° grid' },
+  { value: '20', label: '20° grid' },
+  { value: '10', label: '10° grid' },
+];
+
+/** The usual beams, plus a modifier's own beam angle when one from the gear set another. */
+function beamOptions(current: string) {
+  return BEAMS.some((b) => b.value === current)
+    ? BEAMS
+    : [...BEAMS, { value: current, label: `${current}°` }];
 }
 
 /** Roles that may save setups (the server checks `setups:manage` too). */
@@ -213,6 +238,9 @@ export function SetupPanel() {
   const maySave = role !== undefined && SAVERS.includes(role);
   const [saving, setSaving] = useState(false);
   const [saved, setSaved] = useState<OpenedSetup | null>(null);
+  const [picked, setPicked] = useState<PickedGear>({});
+  const pick = (more: PickedGear) => setPicked((was) => ({ ...was, ...more }));
+  const kitGelList = useMemo(() => (picked.gelKit ? kitGels(picked.gelKit) : undefined), [picked]);
 
   const { form, unit, input, preview, numberField } = useCalculationForm<
     SetupForm,
@@ -234,6 +262,8 @@ export function SetupPanel() {
       keyDistance: 3,
       keyAngle: 60,
       modifier: 'softbox',
+      keyModifierLossStops: Number.NaN,
+      keyModifierSize: Number.NaN,
       rimEnabled: true,
       rimGuideNumber: 40,
       rimDistanceBehind: 2.5,
@@ -241,15 +271,25 @@ export function SetupPanel() {
       rimBeam: '30',
       rimOverKeyStops: 1,
       rimGelled: true,
+      rimModifierLossStops: Number.NaN,
       backgroundDistance: 12,
       // As on the Balance tab: up to 10 mired off for a shorter gel stack.
       miredTolerance: 10,
     },
-    lengthFields: ['keyDistance', 'rimDistanceBehind', 'rimHeight', 'backgroundDistance'],
-    toInput: (values, displayUnit) => toSetupInput(values, displayUnit, place, conditions, carried),
+    lengthFields: [
+      'keyDistance',
+      'keyModifierSize',
+      'rimDistanceBehind',
+      'rimHeight',
+      'backgroundDistance',
+    ],
+    toInput: (values, displayUnit) =>
+      toSetupInput(values, displayUnit, place, conditions, carried, kitGelList),
     compute: planDuskSetup,
   });
   const rimEnabled = form.watch('rimEnabled');
+  const modifier = form.watch('modifier');
+  const rimBeam = form.watch('rimBeam');
 
   // Fill the form once per reopened setup (not again on refetch, so edits survive).
   const filledFrom = useRef<string | null>(null);
@@ -259,6 +299,7 @@ export function SetupPanel() {
     form.reset(fromSetupInput(openedInputs, unit));
     setConditions(savedConditions(openedInputs));
     setCarried(carriedInputs(openedInputs));
+    setPicked({});
     requestPlace(savedPlace(openedInputs));
   }, [opened.data, openedInputs, unit, form, setConditions, requestPlace]);
   const links = openedInputs ? linkedGear(openedInputs) : [];
@@ -372,8 +413,10 @@ export function SetupPanel() {
               hint="Fewer gels when within this; 0 = closest"
               {...numberField('miredTolerance', undefined, 'default 0')}
             />
+            <GelKitPicker picked={picked.gelKit} onPicked={pick} />
           </FormGrid>
           <FormGrid legend="Key light">
+            <KeyLightPicker form={form} onPicked={pick} />
             <TextField label="Guide number" {...numberField('keyGuideNumber', 'key.guideNumber')} />
             <SelectField
               label="Guide numbers in"
@@ -391,11 +434,36 @@ export function SetupPanel() {
               label="Angle from camera (°)"
               {...numberField('keyAngle', 'key.angleFromCameraDeg', 'default 60')}
             />
+            <KeyModifierPicker form={form} onPicked={pick} unit={unit} />
             <SelectField
               label="Modifier"
               className="col-span-2"
               options={modifierOptions}
-              {...form.register('modifier')}
+              {...form.register('modifier', {
+                // A loss or size belongs to the modifier it was given for: another one drops them.
+                onChange: () => {
+                  form.setValue('keyModifierLossStops', Number.NaN, { shouldValidate: true });
+                  form.setValue('keyModifierSize', Number.NaN, { shouldValidate: true });
+                },
+              })}
+            />
+            <TextField
+              label="Modifier loss (stops)"
+              hint="Empty: the modifier's usual"
+              {...numberField(
+                'keyModifierLossStops',
+                'key.modifierLossStops',
+                `default ${MODIFIERS[modifier].lossStops}`,
+              )}
+            />
+            <TextField
+              label={`Modifier size (${unit})`}
+              hint="Empty: the modifier's usual"
+              {...numberField(
+                'keyModifierSize',
+                'key.modifierSize',
+                `default ${lengthTo(MODIFIERS[modifier].sizeM, 'm', unit)}`,
+              )}
             />
             <TextField
               label={`Key to background (${unit})`}
@@ -415,6 +483,7 @@ export function SetupPanel() {
             </label>
             {rimEnabled ? (
               <>
+                <RimLightPicker form={form} onPicked={pick} />
                 <TextField
                   label="Guide number"
                   {...numberField('rimGuideNumber', 'rim.guideNumber')}
@@ -427,16 +496,17 @@ export function SetupPanel() {
                   label={`Height (${unit})`}
                   {...numberField('rimHeight', 'rim.lightHeight')}
                 />
+                <RimModifierPicker form={form} onPicked={pick} />
                 <SelectField
                   label="Beam"
-                  options={[
-                    { value: '100', label: 'Bare' },
-                    { value: '40', label: '40° grid' },
-                    { value: '30', label: '30° grid' },
-                    { value: '20', label: '20° grid' },
-                    { value: '10', label: '10° grid' },
-                  ]}
+                  options={beamOptions(rimBeam)}
                   {...form.register('rimBeam')}
+                  // Controlled: a beam from the gear is set before its option exists.
+                  value={rimBeam}
+                />
+                <TextField
+                  label="Modifier loss (stops)"
+                  {...numberField('rimModifierLossStops', 'rim.modifierLossStops', 'default 0')}
                 />
                 <TextField
                   label="Rim over key (stops)"
@@ -462,7 +532,7 @@ export function SetupPanel() {
         <SaveSetupDialog
           open={saving}
           onClose={() => setSaving(false)}
-          input={input}
+          input={withGearIds(input, picked)}
           initial={
             opened.data
               ? {

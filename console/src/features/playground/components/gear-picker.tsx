@@ -1,0 +1,29 @@
+import { SelectField } from '@/components/ui/select-field';
+
+/** A "from your gear" select: picking an item fills the fields it stands for; hidden when empty. */
+export function GearPicker<T extends { id: string }>(props: {
+  label: string;
+  hint: string;
+  placeholder: string;
+  items: readonly T[];
+  describe: (item: T) => string;
+  onPick: (item: T) => void;
+}) {
+  if (!props.items.length) return null;
+  return (
+    <SelectField
+      label={props.label}
+      className="col-span-2"
+      hint={props.hint}
+      value=""
+      options={[
+        { value: '', label: props.placeholder },
+        ...props.items.map((item) => ({ value: item.id, label: props.describe(item) })),
+      ]}
+      onChange={(event) => {
+        const item = props.items.find((i) => i.id === event.target.value);
+        if (item) props.onPick(item);
+      }}
+    />
+  );
+}
