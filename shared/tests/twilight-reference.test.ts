@@ -15,7 +15,7 @@ import {
   type AstroTime,
 } from 'astronomy-engine';
 import { describe, expect, it } from 'vitest';
-import { computeTwilight } from '../src/index.js';
+import { computeTwilight, ELEVATION_RANGE } from '../src/index.js';
 
 interface Case {
   place: string;
@@ -575,5 +575,21 @@ describe('sun azimuth at sunset and observer elevation', () => {
     const high = at(500);
     expect(Date.parse(high.sunset ?? '')).toBeGreaterThan(Date.parse(low.sunset ?? '') + 60_000);
     expect(high.civilDusk).toBe(low.civilDusk);
+  });
+  it('an elevation in feet is the same height in metres (1 ft = 0.3048 m exactly)', () => {
+    const base = { latitude: 45, longitude: 7, date: '2026-09-01', timeZone: 'Europe/Rome' };
+    const metres = computeTwilight({ ...base, elevation: 1524 }); // 5000 ft
+    const feet = computeTwilight({ ...base, elevation: 5000, elevationUnit: 'ft' });
+    expect(feet.sunset).toBe(metres.sunset);
+    expect(feet.sunrise).toBe(metres.sunrise);
+    expect(feet.sunset).not.toBe(computeTwilight({ ...base, elevation: 5000 }).sunset);
+    // 9000 m = 29,527.6 ft: the feet range stops inside the metre one.
+    expect(ELEVATION_RANGE.ft.max * 0.3048).toBeLessThanOrEqual(ELEVATION_RANGE.m.max);
+    expect(() => computeTwilight({ ...base, elevation: 29528, elevationUnit: 'ft' })).toThrow(
+      /elevation/,
+    );
+    expect(() => computeTwilight({ ...base, elevation: 10, elevationUnit: 'yd' as never })).toThrow(
+      /elevationUnit/,
+    );
   });
 });

@@ -3090,10 +3090,16 @@ export interface components {
        */
       date: string;
       /**
-       * @description Observer height above the visible horizon, metres. Range: 0 to 9000.
+       * @description Observer height above the visible horizon, in elevationUnit: 0–9000 m or 0–29,527 ft (the range given spans both); default 0. Range: 0 to 29527.
        * @example 0
        */
       elevation?: number;
+      /**
+       * @description Unit of the elevation; default m. Metres ("m", default) or feet ("ft").
+       * @example m
+       * @enum {string}
+       */
+      elevationUnit?: 'm' | 'ft';
       /**
        * @description Bare flash colour temperature, kelvin; default 5500. Range: 2500 to 10000.
        * @example 5600
@@ -3476,10 +3482,16 @@ export interface components {
        */
       date: string;
       /**
-       * @description Observer height above the visible horizon, metres. Range: 0 to 9000.
+       * @description Observer height above the visible horizon, in elevationUnit: 0–9000 m or 0–29,527 ft (the range given spans both); default 0. Range: 0 to 29527.
        * @example 0
        */
       elevation?: number;
+      /**
+       * @description Unit of the elevation; default m. Metres ("m", default) or feet ("ft").
+       * @example m
+       * @enum {string}
+       */
+      elevationUnit?: 'm' | 'ft';
       /**
        * @description Bare flash colour temperature, kelvin; default 5500. Range: 2500 to 10000.
        * @example 5600
@@ -4149,10 +4161,16 @@ export interface components {
        */
       date: string;
       /**
-       * @description Observer height above the visible horizon, metres. Range: 0 to 9000.
+       * @description Observer height above the visible horizon, in elevationUnit: 0–9000 m or 0–29,527 ft (the range given spans both); default 0. Range: 0 to 29527.
        * @example 0
        */
       elevation?: number;
+      /**
+       * @description Unit of the elevation; default m. Metres ("m", default) or feet ("ft").
+       * @example m
+       * @enum {string}
+       */
+      elevationUnit?: 'm' | 'ft';
       /** @description Golden-hour band; default +6° to −4° (common practice, no standard). */
       goldenHour?: {
         /**

@@ -204,6 +204,7 @@ export function planDuskSetup(input: DuskSetupInput): DuskSetupPlan {
     date: o.date,
     timeZone: o.timeZone,
     elevation: o.elevation,
+    elevationUnit: o.elevationUnit,
     sky: o.sky,
     stepMinutes: o.stepMinutes,
   } as never);

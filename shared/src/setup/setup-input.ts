@@ -19,6 +19,8 @@ export interface DuskSetupInput {
   /** IANA time zone. */
   timeZone: string;
   elevation?: number;
+  /** Unit of `elevation`; default metres. */
+  elevationUnit?: LengthUnit;
   sky?: SkyCondition;
   /** Timeline step, minutes; default 2. */
   stepMinutes?: number;

@@ -4,6 +4,7 @@ import { findCrossing, geometricAltitudeDeg, sunAzimuthDeg } from './sun-positio
 import { ambientTimeline, type AmbientPoint } from './timeline.js';
 import { LightingInputError } from '../errors.js';
 import { round } from '../units/math.js';
+import { requireLengthUnit, toMetres, type LengthUnit } from '../units/length.js';
 import {
   clockOf,
   localToEpoch,
@@ -30,8 +31,13 @@ export interface TwilightInput {
   date: string;
   /** IANA time zone, e.g. `Europe/London`. */
   timeZone: string;
-  /** Observer height above the visible horizon, metres, 0..9000 (lowers sunset's horizon). */
+  /**
+   * Observer height above the visible horizon, in `elevationUnit`: 0..9000 m or 0..29,527 ft
+   * (lowers sunset's horizon).
+   */
   elevation?: number;
+  /** Unit of `elevation`; default metres. */
+  elevationUnit?: LengthUnit;
   /** Golden-hour bounds; default +6° to -4° (no standard; common practice). */
   goldenHour?: AltitudeBand;
   /** Blue-hour bounds; default -4° to -8° (no standard; common practice). */
@@ -146,13 +152,27 @@ export function readTwilightInput(input: unknown): TwilightParams {
     longitude,
     date: o.date as string,
     timeZone,
-    elevation: optionalNumber('elevation', o.elevation, 0, { min: 0, max: 9000 }),
+    elevation: readElevation(o),
     golden: readBand('goldenHour', o.goldenHour, DEFAULT_GOLDEN),
     blue: readBand('blueHour', o.blueHour, DEFAULT_BLUE),
     stepMinutes: optionalNumber('stepMinutes', o.stepMinutes, 2, { min: 0.5, max: 60 }),
     sky: requireOneOf('sky', o.sky, SKY_CONDITIONS, 'clear'),
     localNoonMs: localToEpoch(cal, 12, timeZone),
   };
+}
+
+/**
+ * The observer's height in metres, from `elevation` in `elevationUnit`: at most 9000 m, or
+ * 29,527 ft (9000 m = 29,527.6 ft, rounded inward so feet never reach past the metre limit).
+ */
+export const ELEVATION_RANGE: Readonly<Record<LengthUnit, { min: number; max: number }>> = {
+  m: { min: 0, max: 9000 },
+  ft: { min: 0, max: 29527 },
+};
+
+function readElevation(o: Record<string, unknown>): number {
+  const unit = requireLengthUnit('elevationUnit', o.elevationUnit);
+  return toMetres(optionalNumber('elevation', o.elevation, 0, ELEVATION_RANGE[unit]), unit);
 }
 
 const signedHours = (minutes: number): string => {

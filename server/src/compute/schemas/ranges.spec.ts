@@ -129,6 +129,8 @@ const CONTEXT: Record<string, Body> = {
   'setup rim.distanceBehind': { rim: { distanceUnit: 'ft' } },
   'setup key.distance': { key: { distanceUnit: 'ft' } },
   'setup key.modifierSize': { key: { distanceUnit: 'ft' } },
+  'twilight elevation': { elevationUnit: 'ft' },
+  'setup elevation': { elevationUnit: 'ft' },
 };
 
 /**
@@ -163,6 +165,9 @@ const UNIT_RANGES: Record<
   // key-light.ts: the key 0.1..50 m or 0.33..164 ft away, its modifier 0.01..10 m or 0.033..33 ft.
   'setup key.distance': { unitField: 'key.distanceUnit', m: [0.1, 50], ft: [0.33, 164] },
   'setup key.modifierSize': { unitField: 'key.distanceUnit', m: [0.01, 10], ft: [0.033, 33] },
+  // compute-twilight.ts: the observer 0..9000 m or 0..29,527 ft up.
+  'twilight elevation': { unitField: 'elevationUnit', m: [0, 9000], ft: [0, 29527] },
+  'setup elevation': { unitField: 'elevationUnit', m: [0, 9000], ft: [0, 29527] },
 };
 
 /**

@@ -45,6 +45,7 @@ export const setupRequestSchema: ObjectSchema = {
     date: tw.date!,
     timeZone: tw.timeZone!,
     elevation: tw.elevation!,
+    elevationUnit: tw.elevationUnit!,
     sky: tw.sky!,
     stepMinutes: tw.stepMinutes!,
     camera: closed('Camera limits and taste.', {

@@ -5,7 +5,7 @@ import {
 } from '@lumenwright/shared';
 import type { JsonSchema } from '../validation/json-schema.js';
 import { schemaDto, type ObjectSchema } from '../validation/schema-dto.js';
-import { object, outNum, ranged, str, warningsWith } from './common.js';
+import { lengthUnit, object, outNum, ranged, str, warningsWith } from './common.js';
 
 const band = (description: string): JsonSchema => ({
   type: 'object',
@@ -33,7 +33,14 @@ export const twilightRequestSchema: ObjectSchema = {
       'Europe/London',
       { minLength: 1, maxLength: 64 },
     ),
-    elevation: ranged('Observer height above the visible horizon, metres.', 0, 9000, 0),
+    elevation: ranged(
+      'Observer height above the visible horizon, in elevationUnit: 0–9000 m or 0–29,527 ft ' +
+        '(the range given spans both); default 0.',
+      0,
+      29527,
+      0,
+    ),
+    elevationUnit: lengthUnit('Unit of the elevation; default m.'),
     goldenHour: band('Golden-hour band; default +6° to −4° (common practice, no standard).'),
     blueHour: band('Blue-hour band; default −4° to −8° (common practice, no standard).'),
     stepMinutes: ranged('Ambient timeline step, minutes; default 2.', 0.5, 60, 5),
