@@ -85,16 +85,16 @@ export class SchemaPipe implements PipeTransform {
       ]);
     }
     const problems = this.validate(value);
-    if (problems.length) {
-      const first = problems[0]!;
-      throw new DomainError(
-        'invalid_input',
-        `${first.field} ${first.reason}${problems.length > 1 ? ` (and ${problems.length - 1} more)` : ''}.`,
-        problems,
-      );
-    }
+    if (problems.length) throw invalidInput(problems);
     return value;
   }
+}
+
+/** The 422 for schema problems: the first in the detail, every one in `errors`. */
+function invalidInput(problems: { field: string; reason: string }[]): DomainError {
+  const first = problems[0]!;
+  const more = problems.length > 1 ? ` (and ${problems.length - 1} more)` : '';
+  return new DomainError('invalid_input', `${first.field} ${first.reason}${more}.`, problems);
 }
 
 /** A decimal as a query string writes it: "20", "-3", "1.5" (no exponent, no blanks, no hex). */
@@ -139,14 +139,7 @@ export class QuerySchemaPipe implements PipeTransform {
       const words = this.numeric.get(p.field);
       return words ? { ...p, reason: words } : p;
     });
-    if (problems.length) {
-      const first = problems[0]!;
-      throw new DomainError(
-        'invalid_input',
-        `${first.field} ${first.reason}${problems.length > 1 ? ` (and ${problems.length - 1} more)` : ''}.`,
-        problems,
-      );
-    }
+    if (problems.length) throw invalidInput(problems);
     return query;
   }
 }
