@@ -2,7 +2,7 @@ import { MODIFIER_NAMES, fromMetres, toMetres, type ModifierName } from '@lumenw
 import type { SavedSetupInputs } from '../../api/saved-setups';
 import type { DisplayUnit } from '../../hooks/use-length-unit';
 import type { SiteConditions } from '../playground-scene';
-import type { SetupForm } from './setup-panel';
+import type { SetupForm } from './setup-form';
 
 /** The place and date a saved setup was planned for (the form's inputs take these from the scene). */
 export interface SavedPlace {

@@ -5,7 +5,7 @@ import type { DisplayUnit } from '../../hooks/use-length-unit';
 import { fixed } from '../../utils/format';
 import { GearPicker } from '../gear-picker';
 import { guideNumberIn, lengthTo, modifierSizeIn, type PickedGear } from './gear-links';
-import type { SetupForm } from './setup-panel';
+import type { SetupForm } from './setup-form';
 
 // The Dusk setup tab's "from your gear" pickers. Each fills the fields its gear stands for and
 // reports the pick, so saving can name the gear by id while the fields still hold its values.
