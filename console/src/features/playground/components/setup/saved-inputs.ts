@@ -13,9 +13,6 @@ export interface SavedPlace {
   sky: 'clear' | 'partly-cloudy' | 'overcast';
 }
 
-/** The rim beam choices the form offers, in degrees. */
-export const RIM_BEAMS = [100, 40, 30, 20, 10] as const;
-
 /**
  * Saved values with no field in the Dusk setup form, with what the notice calls them. A reopened
  * setup carries them into its plan unchanged, so the preview matches the saved plan and its sheet.
@@ -121,11 +118,9 @@ function optional(value: number | undefined): number {
   return value ?? Number.NaN;
 }
 
-function nearestBeam(deg: number | undefined): string {
-  if (deg === undefined) return '30';
-  let best: number = RIM_BEAMS[0];
-  for (const beam of RIM_BEAMS) if (Math.abs(beam - deg) < Math.abs(best - deg)) best = beam;
-  return String(best);
+/** The saved beam as it was planned: the beam select offers any angle, so none is rounded. */
+function savedBeam(deg: number | undefined): string {
+  return deg === undefined ? '30' : String(deg);
 }
 
 function isModifier(value: string | undefined): value is ModifierName {
@@ -168,7 +163,7 @@ export function fromSetupInput(inputs: SavedSetupInputs, unit: DisplayUnit): Set
     rimGuideNumber: rimGn,
     rimDistanceBehind: lengthIn(rim?.distanceBehind, rimUnit, unit),
     rimHeight: lengthIn(rim?.lightHeight, rimUnit, unit),
-    rimBeam: nearestBeam(rim?.beamAngleDeg),
+    rimBeam: savedBeam(rim?.beamAngleDeg),
     rimOverKeyStops: optional(rim?.rimOverKeyStops),
     rimGelled: rim?.gelled ?? true,
     rimModifierLossStops: optional(rim?.modifierLossStops),
