@@ -1,4 +1,10 @@
-import { MODIFIER_NAMES, fromMetres, toMetres, type ModifierName } from '@lumenwright/shared';
+import {
+  BARE_BEAM_DEG,
+  MODIFIER_NAMES,
+  fromMetres,
+  toMetres,
+  type ModifierName,
+} from '@lumenwright/shared';
 import type { SavedSetupInputs } from '../../api/saved-setups';
 import type { DisplayUnit } from '../../hooks/use-length-unit';
 import type { SiteConditions } from '../playground-scene';
@@ -118,9 +124,12 @@ function optional(value: number | undefined): number {
   return value ?? Number.NaN;
 }
 
-/** The saved beam as it was planned: the beam select offers any angle, so none is rounded. */
+/**
+ * The saved beam as it was planned: the beam select offers any angle, so none is rounded. A rim
+ * saved without one was planned bare (the library's default), so it reopens bare.
+ */
 function savedBeam(deg: number | undefined): string {
-  return deg === undefined ? '30' : String(deg);
+  return String(deg ?? BARE_BEAM_DEG);
 }
 
 function isModifier(value: string | undefined): value is ModifierName {

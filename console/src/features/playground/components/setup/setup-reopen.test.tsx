@@ -178,3 +178,14 @@ describe('Dusk setup: reopening a saved setup', () => {
     );
   });
 });
+
+describe('Dusk setup: reopening a rim saved without a beam', () => {
+  it('shows it bare, as it was planned, not the new form’s 30° grid', async () => {
+    const { beamAngleDeg: _beam, ...rimWithout } = resolvedInputs.rim;
+    const noBeam = { ...resolvedInputs, rim: rimWithout };
+    opened = savedSetup(noBeam, noBeam);
+    const { rim } = await reopen();
+    // The shared library plans a rim without a beam as bare: 100° (flash/backlight.ts, BARE_BEAM_DEG).
+    expect(valueOf(within(rim).getByLabelText('Beam'))).toBe('100');
+  });
+});
