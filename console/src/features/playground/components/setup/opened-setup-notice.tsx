@@ -6,6 +6,7 @@ import { ApiProblem } from '@/lib/api';
 import { problemMessage } from '@/lib/form-errors';
 import type { OpenedSetup } from '../../api/saved-setups';
 import type { useOpenedSetup } from './use-opened-setup';
+import { listed, type RestoredGear } from './restore-gear';
 import type { CarriedInputs } from './saved-inputs';
 
 function openFailure(error: unknown): string {
@@ -26,17 +27,50 @@ const setupsLink = (
   </Link>
 );
 
+const note = 'mt-1 block text-ink-muted';
+
+/** What became of the studio gear the setup named by id. The boxes hold the saved values. */
+function GearLinkNotes({ gear }: { gear: RestoredGear }) {
+  const { missing, changed, unknown } = gear;
+  return (
+    <>
+      {missing.length ? (
+        <span className={note} data-testid="gear-missing">
+          {capital(listed(missing))} this setup was saved with {missing.length === 1 ? 'is' : 'are'}{' '}
+          no longer in your studio’s gear. The boxes keep the values it was planned with; saving
+          again keeps those values, without the {missing.length === 1 ? 'link' : 'links'}.
+        </span>
+      ) : null}
+      {changed.length ? (
+        <span className={note} data-testid="gear-changed">
+          {capital(listed(changed))} {changed.length === 1 ? 'has' : 'have'} changed since this
+          setup was saved. The boxes keep the saved values; pick it again from your gear to plan
+          with its values now.
+        </span>
+      ) : null}
+      {unknown.length ? (
+        <span className={note} data-testid="gear-unknown">
+          Your studio’s gear could not be loaded, so the links to {listed(unknown)} were not
+          restored. The boxes keep the saved values.
+        </span>
+      ) : null}
+    </>
+  );
+}
+
+const capital = (text: string) => text.charAt(0).toUpperCase() + text.slice(1);
+
 /** Opening, failed to open, or opened: with the saved values the form has no field for. */
 export function OpenedSetupNotice({
   setupId,
   opened,
   carried,
   onDropCarried,
-  links,
+  restored,
 }: Pick<ReturnType<typeof useOpenedSetup>, 'setupId' | 'opened'> & {
   carried: CarriedInputs;
   onDropCarried: () => void;
-  links: readonly string[];
+  restored: RestoredGear | null;
 }) {
   return (
     <>
@@ -50,7 +84,7 @@ export function OpenedSetupNotice({
         <Notice tone="ok">
           Opened saved setup {describeSetup(opened.data)}. {setupsLink}
           {carried.described.length ? (
-            <span className="mt-1 block text-ink-muted">
+            <span className={note}>
               Also planned with these saved values, which have no field here:{' '}
               {carried.described.join('; ')}.{' '}
               <Button variant="quiet" className="px-0 py-0" onClick={onDropCarried}>
@@ -58,12 +92,7 @@ export function OpenedSetupNotice({
               </Button>
             </span>
           ) : null}
-          {links.length ? (
-            <span className="mt-1 block text-ink-muted">
-              This setup was saved with links to studio gear; it reopens with the values it was
-              planned with, not the links.
-            </span>
-          ) : null}
+          {restored ? <GearLinkNotes gear={restored} /> : null}
         </Notice>
       ) : null}
     </>

@@ -35,16 +35,7 @@ const CARRIED = {
   'camera.slowestHandheldSeconds': 'slowest hand-held shutter',
   'camera.tint': 'camera tint',
 } as const;
-type CarriedPath = keyof typeof CARRIED;
-
-/** Gear links the saved inputs name: their values are in the resolved inputs, the links are not kept. */
-const LINKS = [
-  'gelKitId',
-  'key.lightId',
-  'key.modifierId',
-  'rim.lightId',
-  'rim.modifierId',
-] as const;
+export type CarriedPath = keyof typeof CARRIED;
 
 /** Saved values the form cannot show, by part of the input; applied under the form's values. */
 export interface CarriedInputs {
@@ -78,8 +69,14 @@ function describeValue(path: CarriedPath, value: unknown): string {
   return `${label} ${String(value)}`;
 }
 
-/** The saved values `toSetupInput` should carry, read from a saved setup's (resolved) inputs. */
-export function carriedInputs(inputs: SavedSetupInputs): CarriedInputs {
+/**
+ * The saved values `toSetupInput` should carry, read from a saved setup's (resolved) inputs;
+ * `skip` leaves some out (the gels, when the gel kit they came from is picked again).
+ */
+export function carriedInputs(
+  inputs: SavedSetupInputs,
+  skip: readonly CarriedPath[] = [],
+): CarriedInputs {
   const record = inputs as unknown as Record<string, unknown>;
   const out: CarriedInputs = {
     top: {},
@@ -89,6 +86,7 @@ export function carriedInputs(inputs: SavedSetupInputs): CarriedInputs {
     described: [],
   };
   for (const path of Object.keys(CARRIED) as CarriedPath[]) {
+    if (skip.includes(path)) continue;
     const [head, tail] = path.split('.') as [string, string | undefined];
     const part = tail ? (record[head] as Record<string, unknown> | undefined) : record;
     const value = part?.[tail ?? head];
@@ -100,16 +98,6 @@ export function carriedInputs(inputs: SavedSetupInputs): CarriedInputs {
     out.described.push(describeValue(path, value));
   }
   return out;
-}
-
-/** Gear links (ids) in the saved inputs: the resolved values stand in for them. */
-export function linkedGear(inputs: SavedSetupInputs): string[] {
-  const record = inputs as unknown as Record<string, Record<string, unknown> | undefined>;
-  return LINKS.filter((path) => {
-    const [head, tail] = path.split('.') as [string, string | undefined];
-    const value = tail ? record[head]?.[tail] : record[head];
-    return value !== undefined && value !== null;
-  });
 }
 
 /** A length in `from` as the display unit shows it (2 decimals when converted, as the unit toggle does). */

@@ -7,6 +7,7 @@ import type { DisplayUnit } from '../../hooks/use-length-unit';
 import { FormGrid } from '../form-grid';
 import { modifierOptions } from '../flash/flash-panel';
 import { lengthTo, type PickedGear } from './gear-links';
+import type { SavedGearIds } from './restore-gear';
 import type { SetupForm } from './setup-form';
 import {
   GelKitPicker,
@@ -25,6 +26,8 @@ export interface FieldsetProps {
   numberField: Calculation['numberField'];
   unit: DisplayUnit;
   picked: PickedGear;
+  /** The gear ids saving would keep, shown in the pickers. */
+  linked: SavedGearIds;
   onPicked: (picked: PickedGear) => void;
 }
 
@@ -66,11 +69,11 @@ export function CameraFieldset({ form, numberField, picked, onPicked }: Fieldset
   );
 }
 
-export function KeyFieldset({ form, numberField, unit, onPicked }: FieldsetProps) {
+export function KeyFieldset({ form, numberField, unit, linked, onPicked }: FieldsetProps) {
   const modifier = useWatch({ control: form.control, name: 'modifier' });
   return (
     <FormGrid legend="Key light">
-      <KeyLightPicker form={form} onPicked={onPicked} />
+      <KeyLightPicker form={form} onPicked={onPicked} selected={linked.keyLight} />
       <TextField label="Guide number" {...numberField('keyGuideNumber', 'key.guideNumber')} />
       <SelectField
         label="Guide numbers in"
@@ -85,7 +88,12 @@ export function KeyFieldset({ form, numberField, unit, onPicked }: FieldsetProps
         label="Angle from camera (°)"
         {...numberField('keyAngle', 'key.angleFromCameraDeg', 'default 60')}
       />
-      <KeyModifierPicker form={form} onPicked={onPicked} unit={unit} />
+      <KeyModifierPicker
+        form={form}
+        onPicked={onPicked}
+        unit={unit}
+        selected={linked.keyModifier}
+      />
       <SelectField
         label="Modifier"
         className="col-span-2"
@@ -141,7 +149,7 @@ function beamOptions(current: string) {
     : [...BEAMS, { value: current, label: `${current}°` }];
 }
 
-export function RimFieldset({ form, numberField, unit, onPicked }: FieldsetProps) {
+export function RimFieldset({ form, numberField, unit, linked, onPicked }: FieldsetProps) {
   const rimEnabled = useWatch({ control: form.control, name: 'rimEnabled' });
   const rimBeam = useWatch({ control: form.control, name: 'rimBeam' });
   return (
@@ -156,14 +164,14 @@ export function RimFieldset({ form, numberField, unit, onPicked }: FieldsetProps
       </label>
       {rimEnabled ? (
         <>
-          <RimLightPicker form={form} onPicked={onPicked} />
+          <RimLightPicker form={form} onPicked={onPicked} selected={linked.rimLight} />
           <TextField label="Guide number" {...numberField('rimGuideNumber', 'rim.guideNumber')} />
           <TextField
             label={`Behind subject (${unit})`}
             {...numberField('rimDistanceBehind', 'rim.distanceBehind')}
           />
           <TextField label={`Height (${unit})`} {...numberField('rimHeight', 'rim.lightHeight')} />
-          <RimModifierPicker form={form} onPicked={onPicked} />
+          <RimModifierPicker form={form} onPicked={onPicked} selected={linked.rimModifier} />
           <SelectField
             label="Beam"
             options={beamOptions(rimBeam)}

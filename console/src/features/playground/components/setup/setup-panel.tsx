@@ -1,5 +1,5 @@
 import { planDuskSetup, type DuskSetupInput, type DuskSetupPlan } from '@lumenwright/shared';
-import { useEffect, useMemo, useRef, useState } from 'react';
+import { useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -13,15 +13,8 @@ import { usePlaygroundScene } from '../playground-scene';
 import { kitGels, withGearIds, type PickedGear } from './gear-links';
 import { describeSetup, OpenedSetupNotice } from './opened-setup-notice';
 import { SaveSetupDialog } from './save-setup-dialog';
-import {
-  carriedInputs,
-  fromSetupInput,
-  linkedGear,
-  NOTHING_CARRIED,
-  savedConditions,
-  savedPlace,
-  type CarriedInputs,
-} from './saved-inputs';
+import { pickedIds, savedGearIds } from './restore-gear';
+import { NOTHING_CARRIED, type CarriedInputs } from './saved-inputs';
 import { CameraFieldset, KeyFieldset, RimFieldset } from './setup-fieldsets';
 import {
   SETUP_DEFAULTS,
@@ -33,6 +26,7 @@ import {
 } from './setup-form';
 import { SetupResultView } from './setup-result';
 import { useOpenedSetup } from './use-opened-setup';
+import { useReopenForm } from './use-reopen-form';
 
 /** Roles that may save setups (the server checks `setups:manage` too). */
 const SAVERS: readonly Role[] = ['owner', 'admin', 'photographer'];
@@ -62,19 +56,19 @@ export function SetupPanel() {
     compute: planDuskSetup,
   });
 
-  // Fill the form once per reopened setup (not again on refetch, so edits survive).
-  const filledFrom = useRef<string | null>(null);
-  useEffect(() => {
-    if (!opened.data || !openedInputs || filledFrom.current === opened.data.id) return;
-    filledFrom.current = opened.data.id;
-    form.reset(fromSetupInput(openedInputs, unit));
-    setConditions(savedConditions(openedInputs));
-    setCarried(carriedInputs(openedInputs));
-    setPicked({});
-    requestPlace(savedPlace(openedInputs));
-  }, [opened.data, openedInputs, unit, form, setConditions, requestPlace]);
-  const links = openedInputs ? linkedGear(openedInputs) : [];
-  const fields = { form, numberField, unit, picked, onPicked: pick };
+  const restored = useReopenForm({
+    setup: opened.data,
+    resolved: openedInputs,
+    unit,
+    form,
+    setConditions,
+    requestPlace,
+    setCarried,
+    setPicked,
+  });
+  // The pickers show the gear saving would name by id: picked, and its values still in the boxes.
+  const linked = input ? savedGearIds(withGearIds(input, picked)) : pickedIds(picked);
+  const fields = { form, numberField, unit, picked, linked, onPicked: pick };
 
   return (
     <div className="flex flex-col gap-4">
@@ -83,7 +77,7 @@ export function SetupPanel() {
         opened={opened}
         carried={carried}
         onDropCarried={() => setCarried(NOTHING_CARRIED)}
-        links={links}
+        restored={restored}
       />
       {saved ? (
         <Notice tone="ok">

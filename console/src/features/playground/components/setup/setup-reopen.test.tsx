@@ -1,5 +1,5 @@
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { render, screen, waitFor, within } from '@testing-library/react';
+import { fireEvent, render, screen, waitFor, within } from '@testing-library/react';
 import { MemoryRouter } from 'react-router-dom';
 import { beforeEach, describe, expect, it, vi } from 'vitest';
 import { SessionContext } from '@/lib/session';
@@ -187,5 +187,96 @@ describe('Dusk setup: reopening a rim saved without a beam', () => {
     const { rim } = await reopen();
     // The shared library plans a rim without a beam as bare: 100° (flash/backlight.ts, BARE_BEAM_DEG).
     expect(valueOf(within(rim).getByLabelText('Beam'))).toBe('100');
+  });
+});
+
+/** Saves the form as it stands and returns the inputs the POST /v1/setups body carried. */
+async function saveAgain(panel: HTMLElement) {
+  const save = within(panel).getByRole('button', { name: 'Save setup' });
+  await waitFor(() => expect((save as HTMLButtonElement).disabled).toBe(false));
+  fireEvent.click(save);
+  const dialog = await screen.findByRole('dialog');
+  fireEvent.change(within(dialog).getByLabelText('Name'), { target: { value: 'Orchard again' } });
+  fireEvent.click(within(dialog).getByRole('button', { name: 'Save setup' }));
+  await waitFor(() =>
+    expect(calls.some((c) => c.method === 'POST' && c.path === '/v1/setups')).toBe(true),
+  );
+  const post = calls.find((c) => c.method === 'POST' && c.path === '/v1/setups')!;
+  return (post.body as { inputs: Record<string, Record<string, unknown> | undefined> }).inputs;
+}
+
+describe('Dusk setup: reopening a setup saved with studio gear', () => {
+  it('picks the gear again, holds the saved values, and saves the ids again', async () => {
+    const { panel, camera, key, rim } = await reopen();
+    expect(valueOf(within(key).getByLabelText('Key light from your gear'))).toBe(pack.id);
+    expect(valueOf(within(key).getByLabelText('Key modifier from your gear'))).toBe(octa.id);
+    expect(valueOf(within(rim).getByLabelText('Rim light from your gear'))).toBe(light.id);
+    expect(valueOf(within(rim).getByLabelText('Rim modifier from your gear'))).toBe(grid.id);
+    expect(valueOf(within(camera).getByLabelText('Gel kit from your gear'))).toBe(kit.id);
+    expect(within(camera).getByTestId('gel-kit-choice').textContent).toMatch(
+      /^Gels from Warm pouch \(2\)\./,
+    );
+    // The boxes hold the saved values: the key's in metres, as saved.
+    expect(valueOf(within(key).getByLabelText('Modifier'))).toBe('octabox');
+    expect(valueOf(within(key).getByLabelText('Modifier loss (stops)'))).toBe('2.2');
+    expect(valueOf(within(key).getByLabelText('Modifier size (m)'))).toBe('1.2192');
+    // One guide-number unit for both lights: the rim's 36 ft is 36 x 0.3048 = 10.9728 m -> 10.97
+    // (1 ft = 0.3048 m exactly, international yard and pound, 1959).
+    expect(valueOf(within(rim).getByLabelText('Guide number'))).toBe('10.97');
+    expect(valueOf(within(rim).getByLabelText('Modifier loss (stops)'))).toBe('0.7');
+    // The kit stands for the saved gels: they are not listed again as values without a field.
+    expect(within(panel).queryByText(/gel list/)).toBeNull();
+    expect(within(panel).queryByTestId('gear-missing')).toBeNull();
+
+    const inputs = await saveAgain(panel);
+    expect(inputs.gelKitId).toBe(kit.id);
+    expect(inputs).not.toHaveProperty('gels');
+    expect(inputs.key).toMatchObject({ lightId: pack.id, modifierId: octa.id, distance: 3 });
+    for (const field of ['guideNumber', 'guideNumberUnit', 'modifierLossStops', 'modifierSize'])
+      expect(inputs.key).not.toHaveProperty(field);
+    expect(inputs.rim).toMatchObject({ lightId: light.id, modifierId: grid.id });
+    for (const field of ['guideNumber', 'modifierLossStops', 'beamAngleDeg'])
+      expect(inputs.rim).not.toHaveProperty(field);
+  });
+
+  it('says which gear is gone, keeps its values, and saves them without the link', async () => {
+    gear = { ...fullGear, lights: [light], gelKits: [] }; // the key light and the kit were deleted
+    const { panel, camera, key, rim } = await reopen();
+    expect(within(panel).getByTestId('gear-missing').textContent).toContain(
+      'The key light and the gel kit this setup was saved with are no longer in your studio’s gear.',
+    );
+    expect(valueOf(within(key).getByLabelText('Key light from your gear'))).toBe('');
+    expect(valueOf(within(key).getByLabelText('Guide number'))).toBe('58');
+    expect(valueOf(within(key).getByLabelText('Guide numbers in'))).toBe('m');
+    expect(within(camera).queryByLabelText('Gel kit from your gear')).toBeNull();
+    // The saved gels are still planned with, listed with the other values without a field.
+    expect(within(panel).getByText(/gel list \(2 pieces\)/)).toBeTruthy();
+    // The gear still there comes back.
+    expect(valueOf(within(rim).getByLabelText('Rim light from your gear'))).toBe(light.id);
+
+    const inputs = await saveAgain(panel);
+    expect(inputs.key).toMatchObject({
+      guideNumber: 58,
+      guideNumberUnit: 'm',
+      modifierId: octa.id,
+    });
+    expect(inputs.key).not.toHaveProperty('lightId');
+    expect(inputs).not.toHaveProperty('gelKitId');
+    expect(inputs.gels).toEqual(resolvedInputs.gels);
+    expect(inputs.rim).toMatchObject({ lightId: light.id });
+  });
+
+  it('does not pick again gear that changed since, and keeps the saved values', async () => {
+    // The pack was re-rated after the setup was saved: linking it again would change the plan.
+    gear = { ...fullGear, lights: [light, { ...pack, guideNumber: 64 }] };
+    const { panel, key } = await reopen();
+    expect(within(panel).getByTestId('gear-changed').textContent).toContain(
+      'The key light Big pack has changed since this setup was saved.',
+    );
+    expect(valueOf(within(key).getByLabelText('Key light from your gear'))).toBe('');
+    expect(valueOf(within(key).getByLabelText('Guide number'))).toBe('58');
+    const inputs = await saveAgain(panel);
+    expect(inputs.key).toMatchObject({ guideNumber: 58, modifierId: octa.id });
+    expect(inputs.key).not.toHaveProperty('lightId');
   });
 });
