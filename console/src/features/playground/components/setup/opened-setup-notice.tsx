@@ -44,8 +44,9 @@ function GearLinkNotes({ gear }: { gear: RestoredGear }) {
       {changed.length ? (
         <span className={note} data-testid="gear-changed">
           {capital(listed(changed))} {changed.length === 1 ? 'has' : 'have'} changed since this
-          setup was saved. The boxes keep the saved values; pick it again from your gear to plan
-          with its values now.
+          setup was saved. The boxes keep the saved values; pick{' '}
+          {changed.length === 1 ? 'it' : 'them'} again from your gear to plan with{' '}
+          {changed.length === 1 ? 'its' : 'their'} values now.
         </span>
       ) : null}
       {unknown.length ? (
