@@ -1,6 +1,10 @@
 import { SelectField } from '@/components/ui/select-field';
 
-/** A "from your gear" select: picking an item fills the fields it stands for; hidden when empty. */
+/**
+ * A "from your gear" select: picking an item fills the fields it stands for; hidden when empty.
+ * It shows `selected` (an item's id) while the caller says the fields stand for that item, else
+ * its placeholder, so the same item can be picked again to fill the fields anew.
+ */
 export function GearPicker<T extends { id: string }>(props: {
   label: string;
   hint: string;
@@ -8,14 +12,16 @@ export function GearPicker<T extends { id: string }>(props: {
   items: readonly T[];
   describe: (item: T) => string;
   onPick: (item: T) => void;
+  selected?: string | undefined;
 }) {
   if (!props.items.length) return null;
+  const shown = props.items.some((i) => i.id === props.selected) ? props.selected : '';
   return (
     <SelectField
       label={props.label}
       className="col-span-2"
       hint={props.hint}
-      value=""
+      value={shown}
       options={[
         { value: '', label: props.placeholder },
         ...props.items.map((item) => ({ value: item.id, label: props.describe(item) })),

@@ -1,6 +1,12 @@
-import { computeBacklight, computeFlash, computeTwilight, solveBalance } from '@lumenwright/shared';
+import {
+  MODIFIERS,
+  computeBacklight,
+  computeFlash,
+  computeTwilight,
+  solveBalance,
+} from '@lumenwright/shared';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { fireEvent, render, screen, waitFor, within } from '@testing-library/react';
+import { cleanup, fireEvent, render, screen, waitFor, within } from '@testing-library/react';
 import { MemoryRouter } from 'react-router-dom';
 import { beforeEach, describe, expect, it, vi } from 'vitest';
 import { jsonResponse } from '@/test/responses';
@@ -206,6 +212,27 @@ describe('playground', () => {
         }),
       { timeout: 4000 },
     );
+  });
+
+  it('shows the modifier’s usual loss in an empty loss box, alike on the Flash and Dusk setup tabs', async () => {
+    // The usual losses are the shared library's modifier table (shared/src/flash: MODIFIERS).
+    for (const [calc, group] of [
+      ['flash', 'Key light'],
+      ['setup', 'Key light'],
+    ] as const) {
+      const panel = await openCalculation(calc);
+      const fields = within(within(panel).getByRole('group', { name: group }));
+      const loss = fields.getByLabelText('Modifier loss (stops)');
+      for (const modifier of ['softbox', 'octabox'] as const) {
+        setValue(fields.getByLabelText('Modifier'), modifier);
+        setValue(loss, '');
+        await waitFor(() =>
+          expect(loss.getAttribute('placeholder')).toBe(`default ${MODIFIERS[modifier].lossStops}`),
+        );
+      }
+      expect(fields.getAllByText("Empty: the modifier's usual").length).toBeGreaterThan(0);
+      cleanup();
+    }
   });
 
   it('names the fields where the API answer differs, and explains a missing endpoint', async () => {

@@ -144,8 +144,12 @@ export function FlashPanel() {
           />
           <TextField
             label="Modifier loss (stops)"
-            hint={`Empty: about ${MODIFIERS[modifier].lossStops}`}
-            {...numberField('modifierLossStops', undefined, 'from the modifier')}
+            hint="Empty: the modifier's usual"
+            {...numberField(
+              'modifierLossStops',
+              undefined,
+              `default ${MODIFIERS[modifier].lossStops}`,
+            )}
           />
           <TextField
             label="Gel loss (stops)"

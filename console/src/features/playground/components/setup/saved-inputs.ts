@@ -1,8 +1,14 @@
-import { MODIFIER_NAMES, fromMetres, toMetres, type ModifierName } from '@lumenwright/shared';
+import {
+  BARE_BEAM_DEG,
+  MODIFIER_NAMES,
+  fromMetres,
+  toMetres,
+  type ModifierName,
+} from '@lumenwright/shared';
 import type { SavedSetupInputs } from '../../api/saved-setups';
 import type { DisplayUnit } from '../../hooks/use-length-unit';
 import type { SiteConditions } from '../playground-scene';
-import type { SetupForm } from './setup-panel';
+import type { SetupForm } from './setup-form';
 
 /** The place and date a saved setup was planned for (the form's inputs take these from the scene). */
 export interface SavedPlace {
@@ -12,9 +18,6 @@ export interface SavedPlace {
   timeZone: string;
   sky: 'clear' | 'partly-cloudy' | 'overcast';
 }
-
-/** The rim beam choices the form offers, in degrees. */
-export const RIM_BEAMS = [100, 40, 30, 20, 10] as const;
 
 /**
  * Saved values with no field in the Dusk setup form, with what the notice calls them. A reopened
@@ -32,16 +35,7 @@ const CARRIED = {
   'camera.slowestHandheldSeconds': 'slowest hand-held shutter',
   'camera.tint': 'camera tint',
 } as const;
-type CarriedPath = keyof typeof CARRIED;
-
-/** Gear links the saved inputs name: their values are in the resolved inputs, the links are not kept. */
-const LINKS = [
-  'gelKitId',
-  'key.lightId',
-  'key.modifierId',
-  'rim.lightId',
-  'rim.modifierId',
-] as const;
+export type CarriedPath = keyof typeof CARRIED;
 
 /** Saved values the form cannot show, by part of the input; applied under the form's values. */
 export interface CarriedInputs {
@@ -75,8 +69,14 @@ function describeValue(path: CarriedPath, value: unknown): string {
   return `${label} ${String(value)}`;
 }
 
-/** The saved values `toSetupInput` should carry, read from a saved setup's (resolved) inputs. */
-export function carriedInputs(inputs: SavedSetupInputs): CarriedInputs {
+/**
+ * The saved values `toSetupInput` should carry, read from a saved setup's (resolved) inputs;
+ * `skip` leaves some out (the gels, when the gel kit they came from is picked again).
+ */
+export function carriedInputs(
+  inputs: SavedSetupInputs,
+  skip: readonly CarriedPath[] = [],
+): CarriedInputs {
   const record = inputs as unknown as Record<string, unknown>;
   const out: CarriedInputs = {
     top: {},
@@ -86,6 +86,7 @@ export function carriedInputs(inputs: SavedSetupInputs): CarriedInputs {
     described: [],
   };
   for (const path of Object.keys(CARRIED) as CarriedPath[]) {
+    if (skip.includes(path)) continue;
     const [head, tail] = path.split('.') as [string, string | undefined];
     const part = tail ? (record[head] as Record<string, unknown> | undefined) : record;
     const value = part?.[tail ?? head];
@@ -97,16 +98,6 @@ export function carriedInputs(inputs: SavedSetupInputs): CarriedInputs {
     out.described.push(describeValue(path, value));
   }
   return out;
-}
-
-/** Gear links (ids) in the saved inputs: the resolved values stand in for them. */
-export function linkedGear(inputs: SavedSetupInputs): string[] {
-  const record = inputs as unknown as Record<string, Record<string, unknown> | undefined>;
-  return LINKS.filter((path) => {
-    const [head, tail] = path.split('.') as [string, string | undefined];
-    const value = tail ? record[head]?.[tail] : record[head];
-    return value !== undefined && value !== null;
-  });
 }
 
 /** A length in `from` as the display unit shows it (2 decimals when converted, as the unit toggle does). */
@@ -121,11 +112,12 @@ function optional(value: number | undefined): number {
   return value ?? Number.NaN;
 }
 
-function nearestBeam(deg: number | undefined): string {
-  if (deg === undefined) return '30';
-  let best: number = RIM_BEAMS[0];
-  for (const beam of RIM_BEAMS) if (Math.abs(beam - deg) < Math.abs(best - deg)) best = beam;
-  return String(best);
+/**
+ * The saved beam as it was planned: the beam select offers any angle, so none is rounded. A rim
+ * saved without one was planned bare (the library's default), so it reopens bare.
+ */
+function savedBeam(deg: number | undefined): string {
+  return String(deg ?? BARE_BEAM_DEG);
 }
 
 function isModifier(value: string | undefined): value is ModifierName {
@@ -168,7 +160,7 @@ export function fromSetupInput(inputs: SavedSetupInputs, unit: DisplayUnit): Set
     rimGuideNumber: rimGn,
     rimDistanceBehind: lengthIn(rim?.distanceBehind, rimUnit, unit),
     rimHeight: lengthIn(rim?.lightHeight, rimUnit, unit),
-    rimBeam: nearestBeam(rim?.beamAngleDeg),
+    rimBeam: savedBeam(rim?.beamAngleDeg),
     rimOverKeyStops: optional(rim?.rimOverKeyStops),
     rimGelled: rim?.gelled ?? true,
     rimModifierLossStops: optional(rim?.modifierLossStops),

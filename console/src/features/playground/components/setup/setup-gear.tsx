@@ -5,7 +5,7 @@ import type { DisplayUnit } from '../../hooks/use-length-unit';
 import { fixed } from '../../utils/format';
 import { GearPicker } from '../gear-picker';
 import { guideNumberIn, lengthTo, modifierSizeIn, type PickedGear } from './gear-links';
-import type { SetupForm } from './setup-panel';
+import type { SetupForm } from './setup-form';
 
 // The Dusk setup tab's "from your gear" pickers. Each fills the fields its gear stands for and
 // reports the pick, so saving can name the gear by id while the fields still hold its values.
@@ -14,6 +14,8 @@ type Form = UseFormReturn<SetupForm, unknown, SetupForm>;
 interface PickerProps {
   form: Form;
   onPicked: (picked: PickedGear) => void;
+  /** The id to show: the gear saving would name (picked, and its values still in the fields). */
+  selected?: string | undefined;
 }
 
 const fill = { shouldValidate: true, shouldDirty: true } as const;
@@ -25,7 +27,7 @@ const describeModifier = (m: { name: string; lossStops: number }) =>
 
 /** Key light: its guide number and unit. The form has one unit for both lights, so a rim guide
  * number already typed is converted to the new unit and keeps its meaning. */
-export function KeyLightPicker({ form, onPicked }: PickerProps) {
+export function KeyLightPicker({ form, onPicked, selected }: PickerProps) {
   const lights = useGearLights();
   return (
     <GearPicker
@@ -33,6 +35,7 @@ export function KeyLightPicker({ form, onPicked }: PickerProps) {
       hint="Fills in its guide number; you can still change it."
       placeholder="Choose a light…"
       items={lights.data?.data ?? []}
+      selected={selected}
       describe={describeLight}
       onPick={(light) => {
         const was = form.getValues('guideNumberUnit');
@@ -48,7 +51,12 @@ export function KeyLightPicker({ form, onPicked }: PickerProps) {
 }
 
 /** Key modifier: its kind (when it has one), loss, and size in the form's unit (when it has one). */
-export function KeyModifierPicker({ form, onPicked, unit }: PickerProps & { unit: DisplayUnit }) {
+export function KeyModifierPicker({
+  form,
+  onPicked,
+  unit,
+  selected,
+}: PickerProps & { unit: DisplayUnit }) {
   const modifiers = useGearModifiers();
   return (
     <GearPicker
@@ -56,6 +64,7 @@ export function KeyModifierPicker({ form, onPicked, unit }: PickerProps & { unit
       hint="Fills in its kind, loss and size."
       placeholder="Choose a modifier…"
       items={modifiers.data?.data ?? []}
+      selected={selected}
       describe={describeModifier}
       onPick={(modifier) => {
         if (modifier.kind) form.setValue('modifier', modifier.kind, fill);
@@ -68,7 +77,7 @@ export function KeyModifierPicker({ form, onPicked, unit }: PickerProps & { unit
 }
 
 /** Rim light: its guide number, in the unit the form uses for both lights. */
-export function RimLightPicker({ form, onPicked }: PickerProps) {
+export function RimLightPicker({ form, onPicked, selected }: PickerProps) {
   const lights = useGearLights();
   return (
     <GearPicker
@@ -76,6 +85,7 @@ export function RimLightPicker({ form, onPicked }: PickerProps) {
       hint="Fills in its guide number, in the key’s unit."
       placeholder="Choose a light…"
       items={lights.data?.data ?? []}
+      selected={selected}
       describe={describeLight}
       onPick={(light) => {
         const unit = form.getValues('guideNumberUnit');
@@ -87,7 +97,7 @@ export function RimLightPicker({ form, onPicked }: PickerProps) {
 }
 
 /** Rim modifier: its loss, and its beam angle when it has one. */
-export function RimModifierPicker({ form, onPicked }: PickerProps) {
+export function RimModifierPicker({ form, onPicked, selected }: PickerProps) {
   const modifiers = useGearModifiers();
   return (
     <GearPicker
@@ -95,6 +105,7 @@ export function RimModifierPicker({ form, onPicked }: PickerProps) {
       hint="Fills in its loss and beam."
       placeholder="Choose a modifier…"
       items={modifiers.data?.data ?? []}
+      selected={selected}
       describe={describeModifier}
       onPick={(modifier) => {
         form.setValue('rimModifierLossStops', modifier.lossStops, fill);
@@ -126,6 +137,7 @@ export function GelKitPicker({
         hint="The gels the balance may choose from."
         placeholder="Choose a gel kit…"
         items={usable}
+        selected={picked?.id}
         describe={(kit) =>
           `${kit.name} (${kit.pieces.length} ${kit.pieces.length === 1 ? 'gel' : 'gels'})`
         }
