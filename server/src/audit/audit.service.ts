@@ -1,6 +1,6 @@
 import { Injectable } from '@nestjs/common';
 import { InjectRepository } from '@nestjs/typeorm';
-import { Repository } from 'typeorm';
+import { EntityManager, Repository } from 'typeorm';
 import { DomainError } from '../common/errors/domain-error.js';
 import type { RequestMeta } from '../auth/request-context.js';
 import { AuditEventEntity } from './audit-event.entity.js';
@@ -28,7 +28,8 @@ export type AuditAction =
   | 'invite.canceled'
   | 'invite.accepted'
   | 'organization.renamed'
-  | 'organization.ownership_transferred';
+  | 'organization.ownership_transferred'
+  | 'frame.deleted';
 
 export interface AuditInput {
   organizationId: string | null;
@@ -52,8 +53,10 @@ export class AuditService {
     @InjectRepository(AuditEventEntity) private readonly repo: Repository<AuditEventEntity>,
   ) {}
 
-  async record(e: AuditInput): Promise<void> {
-    await this.repo.insert({
+  /** Records one event; given a transaction's manager, inside that transaction. */
+  async record(e: AuditInput, within?: EntityManager): Promise<void> {
+    const repo = within ? within.getRepository(AuditEventEntity) : this.repo;
+    await repo.insert({
       organizationId: e.organizationId,
       action: e.action,
       actorUserId: e.actorUserId ?? null,

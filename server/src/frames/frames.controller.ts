@@ -11,6 +11,7 @@ import {
   ApiTags,
 } from '@nestjs/swagger';
 import type { FastifyReply } from 'fastify';
+import { requestMeta } from '../auth/request-context.js';
 import { ApiKeyAuth } from '../common/decorators/access.decorator.js';
 import { meteredTooManyRequests, problem } from '../common/decorators/problem-responses.js';
 import type { RequestWithPrincipal } from '../common/guards/access.guard.js';
@@ -166,7 +167,7 @@ export class FramesController {
     @Req() req: RequestWithPrincipal,
     @Param('id', new FrameIdPipe()) id: string,
   ): Promise<void> {
-    await this.frames.remove(req.principal!.organizationId, id);
+    await this.frames.remove(req.principal!, id, requestMeta(req));
   }
 
   @Get(':id/thumbnail')

@@ -9,6 +9,8 @@ import { DataSource } from 'typeorm';
 import { DomainError } from '../common/errors/domain-error.js';
 import type { Principal } from '../common/guards/access.guard.js';
 import { APP_CONFIG, AppConfig } from '../config/config.js';
+import { AuditService } from '../audit/audit.service.js';
+import type { RequestMeta } from '../auth/request-context.js';
 import { PlansService } from '../plans/plans.service.js';
 import { thumbnail } from './analysis/decode.js';
 import { analyseFrame } from './frame-analysis.js';
@@ -25,6 +27,7 @@ export class FramesService {
     @Inject(APP_CONFIG) private readonly config: AppConfig,
     private readonly plans: PlansService,
     private readonly store: ObjectStore,
+    private readonly audit: AuditService,
   ) {}
 
   private get repo() {
@@ -139,10 +142,30 @@ export class FramesService {
    * Removes the row first (so the frame is gone for every reader at once), then both objects.
    * An object that cannot be deleted now has no row and is removed by the orphan sweeper.
    */
-  async remove(orgId: string, id: string): Promise<void> {
+  /**
+   * Deletes a frame: the row and its audit event in one transaction (a frame shows people: who
+   * deleted it, person or key, stays on record), then the stored original and thumbnail.
+   */
+  async remove(p: Principal, id: string, meta?: RequestMeta): Promise<void> {
+    const orgId = p.organizationId;
     const row = await this.get(orgId, id);
-    const { affected } = await this.repo.delete({ id: row.id, organizationId: orgId });
-    if (!affected) throw new DomainError('not_found', 'No such frame in your organisation.');
+    await this.ds.transaction(async (m) => {
+      const { affected } = await m.delete(FrameEntity, { id: row.id, organizationId: orgId });
+      if (!affected) throw new DomainError('not_found', 'No such frame in your organisation.');
+      await this.audit.record(
+        {
+          organizationId: orgId,
+          action: 'frame.deleted',
+          actorUserId: p.userId,
+          actorKeyId: p.keyId,
+          targetType: 'frame',
+          targetId: row.id,
+          meta,
+          metadata: { fileName: row.fileName, sha256: row.sha256 },
+        },
+        m,
+      );
+    });
     await this.store.deleteQuietly(row.objectKey);
     await this.store.deleteQuietly(row.thumbnailKey);
   }

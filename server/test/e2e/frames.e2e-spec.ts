@@ -436,6 +436,20 @@ describe('frames', () => {
     expect(del.text).toBe('');
     expect(await rowsOf(studio.organizationId)).toBe(rows - 1);
     expect((await objectsOf(studio.organizationId)).filter((k) => k.includes(id))).toEqual([]);
+    // Who deleted it stays on record: one audit event naming the key, the frame and its file.
+    const audit = await ds.query(
+      `SELECT actor_key_id, actor_user_id, target_type, metadata FROM audit_events
+        WHERE organization_id = $1 AND action = 'frame.deleted' AND target_id = $2`,
+      [studio.organizationId, id],
+    );
+    expect(audit).toEqual([
+      {
+        actor_key_id: key.id,
+        actor_user_id: null,
+        target_type: 'frame',
+        metadata: { fileName: 'to-delete.jpg', sha256: up.body.sha256 },
+      },
+    ]);
     await studio.agent.get(`/v1/frames/${id}`).expect(404);
     await request(t.url)
       .delete(`/v1/frames/${id}`)
