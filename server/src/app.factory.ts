@@ -20,7 +20,7 @@ import { registerSecurityHeaders } from './common/http/security-headers.js';
 import { createLogger, PinoNestLogger, registerRequestLogging } from './common/logging/logging.js';
 import { noRouteProblem, toProblem } from './common/filters/problem.filter.js';
 import { trackAllowedMethods } from './common/http/allowed-methods.js';
-import { AppConfig } from './config/config.js';
+import { AppConfig, loadConfig } from './config/config.js';
 import { buildOpenApiDocument } from './openapi.js';
 
 const REQUEST_ID = /^[A-Za-z0-9._:-]{1,128}$/;
@@ -30,6 +30,20 @@ export interface CreateAppOptions {
   preview?: boolean;
   /** Buffer Nest's own logs until pino is ready (the server); tests pass false. */
   bufferLogs?: boolean;
+}
+
+/**
+ * The app for reading its routes and spec only (the spec writer, spec tests): no port, no
+ * database connection; the configuration is placeholders.
+ */
+export function createPreviewApp(): Promise<NestFastifyApplication> {
+  const config = loadConfig({
+    NODE_ENV: 'production',
+    DATABASE_URL: 'postgres://unused@127.0.0.1:1/unused',
+    SESSION_SECRET: 'x'.repeat(32),
+    LOG_LEVEL: 'silent',
+  });
+  return createApp(config, { preview: true });
 }
 
 export async function createApp(

@@ -15,8 +15,7 @@ import {
   TWILIGHT_WARNING_CODES,
 } from '@lumenwright/shared';
 import { getMetadataStorage } from 'class-validator';
-import { createApp } from './app.factory.js';
-import { loadConfig } from './config/config.js';
+import { createPreviewApp } from './app.factory.js';
 import { buildOpenApiDocument } from './openapi.js';
 import * as apiKeyDtos from './api-keys/dto/api-key.dto.js';
 import * as auditDtos from './audit/dto/audit.dto.js';
@@ -95,13 +94,7 @@ describe('the spec is as precise as the code', () => {
   let doc: OpenAPIObject;
   let schemas: Record<string, Schema>;
   beforeAll(async () => {
-    const config = loadConfig({
-      NODE_ENV: 'production',
-      DATABASE_URL: 'postgres://unused@127.0.0.1:1/unused',
-      SESSION_SECRET: 'x'.repeat(32),
-      LOG_LEVEL: 'silent',
-    });
-    app = await createApp(config, { preview: true });
+    app = await createPreviewApp();
     doc = buildOpenApiDocument(app);
     schemas = doc.components!.schemas as Record<string, Schema>;
   }, 60000);

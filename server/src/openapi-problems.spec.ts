@@ -3,9 +3,8 @@
 // openapi-problems.ts, and the pass itself on a small document.
 import type { INestApplication } from '@nestjs/common';
 import type { OpenAPIObject } from '@nestjs/swagger';
-import { createApp } from './app.factory.js';
+import { createPreviewApp } from './app.factory.js';
 import type { AccessRule } from './common/decorators/access.decorator.js';
-import { loadConfig } from './config/config.js';
 import { buildOpenApiDocument } from './openapi.js';
 import { accessRulesByHandler, documentStandardProblems } from './openapi-problems.js';
 
@@ -32,13 +31,7 @@ describe('documented refusals (problem+json) of every operation', () => {
   let doc: OpenAPIObject;
   let rules: Map<string, AccessRule>;
   beforeAll(async () => {
-    const config = loadConfig({
-      NODE_ENV: 'production',
-      DATABASE_URL: 'postgres://unused@127.0.0.1:1/unused',
-      SESSION_SECRET: 'x'.repeat(32),
-      LOG_LEVEL: 'silent',
-    });
-    app = await createApp(config, { preview: true });
+    app = await createPreviewApp();
     doc = buildOpenApiDocument(app);
     rules = accessRulesByHandler(app);
   }, 60000);

@@ -3,19 +3,12 @@ import 'reflect-metadata';
 import fs from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { createApp } from '../app.factory.js';
-import { loadConfig } from '../config/config.js';
+import { createPreviewApp } from '../app.factory.js';
 
 const here = path.dirname(fileURLToPath(import.meta.url));
 const out = path.resolve(process.argv[2] ?? path.join(here, '../../../openapi/openapi.json'));
 
-const config = loadConfig({
-  NODE_ENV: 'production',
-  DATABASE_URL: 'postgres://unused@127.0.0.1:1/unused',
-  SESSION_SECRET: 'x'.repeat(32),
-  LOG_LEVEL: 'silent',
-});
-const app = await createApp(config, { preview: true });
+const app = await createPreviewApp();
 const { buildOpenApiDocument } = await import('../openapi.js');
 const doc = buildOpenApiDocument(app);
 fs.mkdirSync(path.dirname(out), { recursive: true });
