@@ -24,7 +24,7 @@ export default {
   },
   transform: { '^.+\\.(t|j)s$': swc },
   transformIgnorePatterns: [
-    '/node_modules/(?!(?:@nestjs|@lumenwright|@fastify/cookie|cookie|content-disposition|file-type|strtok3|token-types|@tokenizer|uint8array-extras|@borewit|suncalc|chroma-js)/)(?!.*/node_modules/)',
+    '/node_modules/(?!(?:@nestjs|@lumenwright|@fastify/cookie|cookie|content-disposition|file-type|strtok3|token-types|@tokenizer|uint8array-extras|@borewit|suncalc|chroma-js|canonicalize)/)(?!.*/node_modules/)',
   ],
   testTimeout: 30000,
 };

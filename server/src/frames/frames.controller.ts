@@ -76,7 +76,7 @@ export class FramesController {
   // one billable unit for a stored frame on a live key. With an Idempotency-Key, a retried
   // upload is answered from the first one's stored answer (no second frame, object or event).
   @IdempotentMeteredCall()
-  @IdempotentBody(readFrameForKey)
+  @IdempotentBody(readFrameForKey, FramesService)
   @RouteConfig({ meter: 'frames', idempotent: true } satisfies MeterRouteConfig &
     IdempotentRouteConfig)
   @HttpCode(201)

@@ -7,7 +7,8 @@ import { InjectDataSource } from '@nestjs/typeorm';
 import type { FastifyRequest } from 'fastify';
 import { DataSource } from 'typeorm';
 import { DomainError } from '../common/errors/domain-error.js';
-import type { Principal } from '../common/guards/access.guard.js';
+import type { Principal, RequestWithPrincipal } from '../common/guards/access.guard.js';
+import type { IdempotentBodyCheck } from '../idempotency/idempotency.guard.js';
 import { APP_CONFIG, AppConfig } from '../config/config.js';
 import { AuditService } from '../audit/audit.service.js';
 import type { RequestMeta } from '../auth/request-context.js';
@@ -19,7 +20,7 @@ import { ObjectStore } from './object-store.service.js';
 import { ACCEPTED_TYPES, readFrameUpload, readUploadOf } from './upload-reader.js';
 
 @Injectable()
-export class FramesService {
+export class FramesService implements IdempotentBodyCheck {
   private readonly logger = new Logger('FramesService');
 
   constructor(
@@ -53,6 +54,11 @@ export class FramesService {
     if (!this.store.configured) {
       throw new DomainError('unavailable', 'Object storage is not configured on this server.');
     }
+  }
+
+  /** With an Idempotency-Key the body is read in the guard: refuse first (IdempotentBody). */
+  beforeRead(req: RequestWithPrincipal): Promise<void> {
+    return this.assertUploadsAllowed(req.principal!);
   }
 
   async upload(req: FastifyRequest, p: Principal): Promise<FrameEntity> {

@@ -2,8 +2,16 @@
 // and before the MeteredCallGuard, so a replayed or refused retry takes nothing from the rate
 // limit or the monthly quota. Without the header it returns at once: one header lookup.
 import { createHash } from 'node:crypto';
-import { CanActivate, ExecutionContext, Inject, Injectable, SetMetadata } from '@nestjs/common';
-import { Reflector } from '@nestjs/core';
+import canonicalize from 'canonicalize';
+import {
+  CanActivate,
+  ExecutionContext,
+  Inject,
+  Injectable,
+  SetMetadata,
+  type Type,
+} from '@nestjs/common';
+import { ModuleRef, Reflector } from '@nestjs/core';
 import type { FastifyRequest } from 'fastify';
 import { DomainError } from '../common/errors/domain-error.js';
 import type { Principal, RequestWithPrincipal } from '../common/guards/access.guard.js';
@@ -18,9 +26,21 @@ import { IdempotencyService, type HeldKey, type StoredAnswer } from './idempoten
  * read on the request for the handler, and returns what identifies it (the fingerprint's input).
  */
 export type IdempotentBodyReader = (req: FastifyRequest, config: AppConfig) => Promise<string>;
+/**
+ * A provider whose `beforeRead` refuses a request that could never succeed (a plan without the
+ * feature) before its body is read: without it a large upload would be read in full only to be
+ * refused.
+ */
+export interface IdempotentBodyCheck {
+  beforeRead(req: RequestWithPrincipal): Promise<void>;
+}
+interface IdempotentBodySpec {
+  reader: IdempotentBodyReader;
+  check?: Type<IdempotentBodyCheck>;
+}
 export const IDEMPOTENT_BODY = 'lumenwright:idempotent-body';
-export const IdempotentBody = (reader: IdempotentBodyReader) =>
-  SetMetadata(IDEMPOTENT_BODY, reader);
+export const IdempotentBody = (reader: IdempotentBodyReader, check?: Type<IdempotentBodyCheck>) =>
+  SetMetadata(IDEMPOTENT_BODY, { reader, check } satisfies IdempotentBodySpec);
 
 export interface IdempotentRequest extends RequestWithPrincipal, MeteredRequestExtras {
   rawBody?: Buffer;
@@ -43,12 +63,24 @@ export function fingerprintOf(method: string, route: string, body: Buffer | stri
   return createHash('sha256').update(`${method} ${route}\n`).update(body).digest('hex');
 }
 
+/**
+ * What identifies a JSON body: its JSON Canonicalization Scheme form (RFC 8785), so a retry that
+ * re-serialises the same request (another key order, spacing or number spelling) is the same
+ * request. Other bodies count by their bytes.
+ */
+export function jsonBodyIdentity(req: IdempotentRequest): Buffer | string {
+  const parsed: unknown = req.body;
+  if (parsed !== undefined && req.rawBody !== undefined) return canonicalize(parsed) ?? '';
+  return req.rawBody ?? '';
+}
+
 @Injectable()
 export class IdempotencyGuard implements CanActivate {
   constructor(
     @Inject(Reflector) private readonly reflector: Reflector,
     private readonly keys: IdempotencyService,
     @Inject(APP_CONFIG) private readonly config: AppConfig,
+    private readonly moduleRef: ModuleRef,
   ) {}
 
   canActivate(ctx: ExecutionContext): boolean | Promise<boolean> {
@@ -66,11 +98,12 @@ export class IdempotencyGuard implements CanActivate {
     const key = parseIdempotencyKey(raw)!;
     const p = req.principal;
     if (!p) throw new DomainError('unauthenticated', 'Sign in or send an API key.');
-    const reader = this.reflector.get<IdempotentBodyReader | undefined>(
+    const spec = this.reflector.get<IdempotentBodySpec | undefined>(
       IDEMPOTENT_BODY,
       ctx.getHandler(),
     );
-    const body = reader ? await reader(req, this.config) : (req.rawBody ?? '');
+    if (spec?.check) await this.moduleRef.get(spec.check, { strict: false }).beforeRead(req);
+    const body = spec ? await spec.reader(req, this.config) : jsonBodyIdentity(req);
     const fingerprint = fingerprintOf(req.method, req.routeOptions.url ?? req.url, body);
     const claim = await this.keys.claim(callerOf(p), key, p.organizationId, fingerprint);
     switch (claim.kind) {
@@ -97,8 +130,16 @@ export class IdempotencyGuard implements CanActivate {
   }
 }
 
-/** Refusals about the key itself: they did no work, but they still cost the caller a token. */
-const KEY_REFUSALS = new Set(['idempotency_key_in_use', 'idempotency_key_reused', 'invalid_input']);
+/**
+ * Refusals before the work (about the key itself, or a plan without the feature): they did no
+ * work, but they still cost the caller a token.
+ */
+const KEY_REFUSALS = new Set([
+  'idempotency_key_in_use',
+  'idempotency_key_reused',
+  'invalid_input',
+  'forbidden',
+]);
 
 /**
  * The metered routes' one guard: Idempotency-Key (above), then the metered call's rate limit and

@@ -15,8 +15,8 @@ import { IdempotentReplayFilter } from './idempotent-replay.filter.js';
 
 export const IDEMPOTENCY_KEY_DOC =
   'Makes a retry safe (IETF draft "The Idempotency-Key HTTP Header Field"). The first request ' +
-  'with a key runs; a retry with the same key and the same request (method, path and body; for ' +
-  'an upload, the file bytes and fields) within 24 hours gets the first answer again, byte for ' +
+  'with a key runs; a retry with the same key and the same request (method, path and body, JSON ' +
+  'compared in its RFC 8785 canonical form; for an upload, the file bytes and fields) within 24 hours gets the first answer again, byte for ' +
   `byte, with \`${IDEMPOTENCY_REPLAYED_HEADER}: true\`, and is not metered, rate limited, counted ` +
   'against the quota or billed again. Successes and client errors (4xx) are kept; 5xx, 429, ' +
   '401 and 403 are not, so a retry after them runs again. A retry while the first is still ' +

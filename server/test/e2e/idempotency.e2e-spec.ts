@@ -2,6 +2,7 @@
 // and sessions. Behaviour from the IETF httpapi draft "The Idempotency-Key HTTP Header Field"
 // (retry after completion: the first answer again; key reused with another payload: 422; retry
 // while the first is in progress: 409).
+import http from 'node:http';
 import { ListObjectsV2Command, S3Client } from '@aws-sdk/client-s3';
 import request from 'supertest';
 import type { DataSource } from 'typeorm';
@@ -356,6 +357,82 @@ describe('Idempotency-Key', () => {
       [k2],
     );
     expect(left).toEqual([]);
+  });
+
+  it('takes a re-serialised JSON body (other key order, spacing, number spelling) as the same request', async () => {
+    const k = newKey();
+    const first = await compute(
+      live.secret,
+      'balance',
+      { cameraKelvin: 3400, flashKelvin: 5600, maxGels: 2 },
+      k,
+    );
+    expect(first.status).toBe(200);
+    // RFC 8785 (JSON Canonicalization Scheme): member order, insignificant whitespace and the
+    // spelling of a number (5.6e3 is 5600) do not change the value.
+    const retry = await request(t.url)
+      .post('/v1/balance')
+      .set('Authorization', `Bearer ${live.secret}`)
+      .set('Idempotency-Key', k)
+      .set('Content-Type', 'application/json')
+      .send('{ "maxGels": 2,\n  "flashKelvin": 5.6e3, "cameraKelvin": 3400 }');
+    expect(retry.status).toBe(200);
+    expect(retry.headers['idempotency-replayed']).toBe('true');
+    expect(retry.text).toBe(first.text);
+    // A different value is still a different request.
+    const other = await compute(
+      live.secret,
+      'balance',
+      { maxGels: 2, flashKelvin: 5601, cameraKelvin: 3400 },
+      k,
+    );
+    expect(other.status).toBe(422);
+    expect(other.body.type).toBe(`${PROBLEMS}idempotency-key-reused`);
+  });
+
+  it('refuses an upload with a key on a plan without uploads before reading its body', async () => {
+    const free = await signUp(t.url, { organizationName: 'Larchfield Portraits' });
+    const key = await createKey(free, 'live');
+    // Headers announce 20 MB and only 1 KB is sent: the answer can only come before the body.
+    const res = await new Promise<{ status: number; body: string }>((resolve, reject) => {
+      const req = http.request(`${t.url}/v1/frames`, {
+        method: 'POST',
+        headers: {
+          Authorization: `Bearer ${key.secret}`,
+          'Idempotency-Key': newKey(),
+          'Content-Type': 'multipart/form-data; boundary=larch',
+          'Content-Length': String(20 * 1024 * 1024),
+        },
+      });
+      const timer = setTimeout(() => {
+        req.destroy();
+        reject(new Error('no answer before the body was sent'));
+      }, 5000);
+      req.on('response', (r) => {
+        let body = '';
+        r.on('data', (c: Buffer) => (body += c.toString()));
+        r.on('end', () => {
+          clearTimeout(timer);
+          req.destroy();
+          resolve({ status: r.statusCode ?? 0, body });
+        });
+      });
+      req.on('error', (e) => {
+        clearTimeout(timer);
+        reject(e);
+      });
+      req.write(
+        '--larch\r\nContent-Disposition: form-data; name="file"; filename="a.jpg"\r\n' +
+          'Content-Type: image/jpeg\r\n\r\n' +
+          'x'.repeat(1024),
+      );
+    });
+    expect(res.status).toBe(403);
+    expect(JSON.parse(res.body)).toMatchObject({
+      type: `${PROBLEMS}plan-feature-missing`,
+      feature: 'uploads',
+    });
+    expect(await framesOf(free.organizationId)).toEqual([]);
   });
 
   it('replays a client error (422) like a success, byte for byte', async () => {
