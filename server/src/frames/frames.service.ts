@@ -8,7 +8,10 @@ import type { FastifyRequest } from 'fastify';
 import { DataSource } from 'typeorm';
 import { DomainError } from '../common/errors/domain-error.js';
 import type { Principal, RequestWithPrincipal } from '../common/guards/access.guard.js';
-import type { IdempotentBodyCheck } from '../idempotency/idempotency.guard.js';
+import type { IdempotentBodyCheck, IdempotentRequest } from '../idempotency/idempotency.guard.js';
+import { JSON_CONTENT_TYPE } from '../idempotency/idempotency.hook.js';
+import { IdempotencyService } from '../idempotency/idempotency.service.js';
+import { toFrameDto } from './frame.mapper.js';
 import { APP_CONFIG, AppConfig } from '../config/config.js';
 import { AuditService } from '../audit/audit.service.js';
 import type { RequestMeta } from '../auth/request-context.js';
@@ -29,6 +32,7 @@ export class FramesService implements IdempotentBodyCheck {
     private readonly plans: PlansService,
     private readonly store: ObjectStore,
     private readonly audit: AuditService,
+    private readonly keys: IdempotencyService,
   ) {}
 
   private get repo() {
@@ -84,26 +88,43 @@ export class FramesService implements IdempotentBodyCheck {
       await this.store.put(thumbnailKey, thumb, 'image/jpeg');
       written.push(thumbnailKey);
       const colour = result.analysis.colour;
-      return await this.repo.save(
-        this.repo.create({
-          id,
-          organizationId: p.organizationId,
-          uploadedByUserId: p.userId,
-          apiKeyId: p.keyId,
-          fileName: up.fileName,
-          contentType: up.contentType,
-          byteSize: up.buf.length,
-          sha256: up.sha256,
-          width: result.width,
-          height: result.height,
-          objectKey,
-          thumbnailKey,
-          exif: result.exif,
-          analysis: result.analysis,
-          cctKelvin: colour.cctKelvin,
-          miredOffset: colour.miredOffset,
-        }),
-      );
+      const held = (req as IdempotentRequest).idempotency;
+      return await this.ds.transaction(async (m) => {
+        const saved = await m.save(
+          m.create(FrameEntity, {
+            id,
+            organizationId: p.organizationId,
+            uploadedByUserId: p.userId,
+            apiKeyId: p.keyId,
+            fileName: up.fileName,
+            contentType: up.contentType,
+            byteSize: up.buf.length,
+            sha256: up.sha256,
+            width: result.width,
+            height: result.height,
+            objectKey,
+            thumbnailKey,
+            exif: result.exif,
+            analysis: result.analysis,
+            cctKelvin: colour.cctKelvin,
+            miredOffset: colour.miredOffset,
+          }),
+        );
+        // With an Idempotency-Key the answer is stored with the frame: a retry after a crash
+        // between the two replays this frame rather than storing a second one.
+        if (held) {
+          await this.keys.complete(
+            held,
+            {
+              status: 201,
+              headers: { 'content-type': JSON_CONTENT_TYPE },
+              body: Buffer.from(JSON.stringify(toFrameDto(saved))),
+            },
+            m,
+          );
+        }
+        return saved;
+      });
     } catch (e) {
       for (const key of written) await this.store.deleteQuietly(key);
       if (e instanceof DomainError) throw e;

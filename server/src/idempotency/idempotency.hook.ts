@@ -27,6 +27,9 @@ export interface IdempotentRouteConfig {
 
 const NOT_STORED = new Set([401, 403, 408, 409, 425, 429]);
 
+/** The Content-Type Fastify gives a JSON answer (an object sent without a schema). */
+export const JSON_CONTENT_TYPE = 'application/json; charset=utf-8';
+
 /** Whether an answer with this status is kept for replays. */
 export function isStoredStatus(status: number): boolean {
   return (

@@ -3,7 +3,7 @@
 // same key always agree on which of them holds it.
 import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { DataSource } from 'typeorm';
+import { DataSource, type EntityManager } from 'typeorm';
 import { databaseUnavailable } from '../plans/plans.service.js';
 
 /** How long a key (and the answer stored for it) lasts after its first request. */
@@ -108,9 +108,18 @@ export class IdempotencyService {
     return { kind: 'in-flight' };
   }
 
-  /** Stores the answer a held key's request got, for replays until the key expires. */
-  async complete(held: HeldKey, answer: StoredAnswer): Promise<void> {
-    await this.query(
+  /**
+   * Stores the answer a held key's request got, for replays until the key expires. Inside a
+   * transaction (`within`) it commits or rolls back with the work the answer describes: a route
+   * that stores something writes its answer with it, so no crash between the two can leave the
+   * thing stored and the key free for a second run. The later write as the answer is sent then
+   * matches nothing (the key is no longer in flight).
+   */
+  async complete(held: HeldKey, answer: StoredAnswer, within?: EntityManager): Promise<void> {
+    const run = within
+      ? <T>(sql: string, params: unknown[]) => within.query(sql, params) as Promise<T[]>
+      : <T>(sql: string, params: unknown[]) => this.query<T>(sql, params);
+    await run(
       `UPDATE idempotency_keys SET state = 'done', status = $4, headers = $5, body = $6
         WHERE caller = $1 AND key = $2 AND created_at = $3::timestamptz AND state = 'in_flight'`,
       [held.caller, held.key, held.claimedAt, answer.status, answer.headers, answer.body],

@@ -10,6 +10,7 @@ import { signUp, type SignedInAgent } from '../factories/accounts.js';
 import { createKey, DEMO_BODIES } from '../factories/compute.js';
 import { renderFrame, startFake, type RunningFake } from '../factories/frames.js';
 import { IdempotencySweeper } from '../../src/idempotency/idempotency-sweeper.service.js';
+import { IdempotencyService } from '../../src/idempotency/idempotency.service.js';
 import { UsageWriter } from '../../src/usage/usage-writer.service.js';
 import { bootApp, type TestApp } from '../setup/app.js';
 import { openDataSource } from '../setup/db.js';
@@ -132,6 +133,37 @@ describe('Idempotency-Key', () => {
       `frames/${owner.organizationId}/${first.body.id}/thumbnail.jpg`,
     ]);
     expect(await usageOf(key.id, 'frames', 1)).toEqual([{ status: 201, billable_units: 1 }]);
+  });
+
+  it("stores an upload's answer with its frame: a lost write as the answer is sent still replays, no second frame", async () => {
+    // The write made as the answer is sent fails (as if the instance stopped right after the
+    // frame was stored); only writes inside the frame's transaction go through.
+    const keys = t.app.get(IdempotencyService);
+    const complete = keys.complete.bind(keys);
+    const spy = jest
+      .spyOn(keys, 'complete')
+      .mockImplementation((held, answer, within) =>
+        within ? complete(held, answer, within) : Promise.reject(new Error('connection lost')),
+      );
+    try {
+      const img = await frameImage();
+      const k = newKey();
+      const first = await upload(live.secret, img, k, '5100');
+      expect(first.status).toBe(201);
+      const retry = await upload(live.secret, img, k, '5100');
+      expect(retry.status).toBe(201);
+      expect(retry.headers['idempotency-replayed']).toBe('true');
+      expect(retry.text).toBe(first.text);
+      const rows = await ds.query(`SELECT id FROM frames WHERE id = $1`, [first.body.id]);
+      expect(rows).toHaveLength(1);
+      const [{ n }] = await ds.query(
+        `SELECT count(*)::int AS n FROM frames WHERE organization_id = $1 AND sha256 = $2`,
+        [studio.organizationId, first.body.sha256],
+      );
+      expect(n).toBe(1);
+    } finally {
+      spy.mockRestore();
+    }
   });
 
   it('counts a retried computation once against the monthly quota', async () => {
