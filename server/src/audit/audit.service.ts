@@ -29,7 +29,8 @@ export type AuditAction =
   | 'invite.accepted'
   | 'organization.renamed'
   | 'organization.ownership_transferred'
-  | 'frame.deleted';
+  | 'frame.deleted'
+  | 'setup.deleted';
 
 export interface AuditInput {
   organizationId: string | null;

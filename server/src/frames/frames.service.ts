@@ -166,12 +166,9 @@ export class FramesService implements IdempotentBodyCheck {
   }
 
   /**
-   * Removes the row first (so the frame is gone for every reader at once), then both objects.
-   * An object that cannot be deleted now has no row and is removed by the orphan sweeper.
-   */
-  /**
    * Deletes a frame: the row and its audit event in one transaction (a frame shows people: who
-   * deleted it, person or key, stays on record), then the stored original and thumbnail.
+   * deleted it, person or key, stays on record), then the stored original and thumbnail. An
+   * object that cannot be deleted now has no row and is removed by the orphan sweeper.
    */
   async remove(p: Principal, id: string, meta?: RequestMeta): Promise<void> {
     const orgId = p.organizationId;

@@ -19,7 +19,12 @@ import {
   ApiTags,
 } from '@nestjs/swagger';
 import { RouteConfig } from '@nestjs/platform-fastify';
-import { CurrentPrincipal, type SessionPrincipal } from '../auth/request-context.js';
+import {
+  CurrentPrincipal,
+  Meta,
+  type RequestMeta,
+  type SessionPrincipal,
+} from '../auth/request-context.js';
 import { SessionAuth } from '../common/decorators/access.decorator.js';
 import type { PageRouteConfig } from '../common/http/security-headers.js';
 import { can } from '../auth/permissions.js';
@@ -136,8 +141,12 @@ export class SetupsController {
   @ApiOperation({ summary: 'Delete a saved setup.' })
   @ApiNoContentResponse({ description: 'Deleted.' })
   @GearProblems({ withId: true })
-  async deleteSetup(@CurrentPrincipal() p: Principal, @Param('id') id: string): Promise<void> {
-    await this.setups.remove(p, id);
+  async deleteSetup(
+    @CurrentPrincipal() p: Principal,
+    @Param('id') id: string,
+    @Meta() meta: RequestMeta,
+  ): Promise<void> {
+    await this.setups.remove(p, id, meta);
   }
 
   @Get(':id/sheet')

@@ -1,7 +1,8 @@
 import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource } from 'typeorm';
-import type { SessionPrincipal } from '../auth/request-context.js';
+import { AuditService } from '../audit/audit.service.js';
+import type { RequestMeta, SessionPrincipal } from '../auth/request-context.js';
 import type { Principal } from '../common/guards/access.guard.js';
 import { isUuid, notFound } from '../gear/ids.js';
 import {
@@ -20,6 +21,7 @@ export class SetupsService {
   constructor(
     @InjectDataSource() private readonly ds: DataSource,
     private readonly planner: SetupPlanner,
+    private readonly audit: AuditService,
   ) {}
 
   list(p: Principal, opts: { limit: number; cursor?: string; q?: string }) {
@@ -111,10 +113,31 @@ export class SetupsService {
     return this.get(p.organizationId, copyId);
   }
 
-  async remove(p: Principal, id: string): Promise<void> {
+  /**
+   * Deletes a saved setup and records who did (`setup.deleted`, with its name, venue and shoot
+   * date) in the same transaction: a studio can see who removed a client's plan.
+   */
+  async remove(p: Principal, id: string, meta?: RequestMeta): Promise<void> {
     const setup = await this.get(p.organizationId, id);
-    await this.ds
-      .getRepository(SetupEntity)
-      .delete({ id: setup.id, organizationId: p.organizationId });
+    await this.ds.transaction(async (m) => {
+      const { affected } = await m.delete(SetupEntity, {
+        id: setup.id,
+        organizationId: p.organizationId,
+      });
+      if (!affected) throw notFound('setup', 'id');
+      await this.audit.record(
+        {
+          organizationId: p.organizationId,
+          action: 'setup.deleted',
+          actorUserId: p.userId,
+          actorKeyId: p.keyId,
+          targetType: 'setup',
+          targetId: setup.id,
+          meta,
+          metadata: { name: setup.name, venue: setup.venue, shootDate: setup.shootDate },
+        },
+        m,
+      );
+    });
   }
 }

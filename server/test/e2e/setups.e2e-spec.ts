@@ -75,8 +75,27 @@ describe('saved setups', () => {
     );
     expect(replanned.body.plan.twilight.sunset).not.toBe(made.body.plan.twilight.sunset);
 
-    await photo.agent.delete(`/v1/setups/${id}`).expect(204);
+    await photo.agent.delete(`/v1/setups/${id}`).set('User-Agent', 'lakeside-test').expect(204);
     await photo.agent.get(`/v1/setups/${id}`).expect(404);
+    // Who deleted it stays on record, with what it was.
+    const events = await ds.query(
+      `SELECT actor_user_id, target_type, metadata, user_agent FROM audit_events
+        WHERE organization_id = $1 AND action = 'setup.deleted' AND target_id = $2`,
+      [owner.organizationId, id],
+    );
+    expect(events).toEqual([
+      {
+        actor_user_id: photo.userId,
+        target_type: 'setup',
+        metadata: {
+          name: 'Lakeside engagement (final)',
+          venue: 'Boathouse terrace',
+          shootDate: '2026-12-05',
+        },
+        user_agent: 'lakeside-test',
+      },
+    ]);
+    await photo.agent.delete(`/v1/setups/${id}`).expect(404);
   });
 
   it('developers read setups and sheets but cannot change them; admins and owners can', async () => {
