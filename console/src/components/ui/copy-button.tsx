@@ -7,10 +7,17 @@ interface CopyButtonProps {
   /** The button's accessible name when `label` alone is ambiguous (a copy button per row). */
   ariaLabel?: string;
   className?: string;
+  size?: 'md' | 'sm';
 }
 
 /** Copies `text` to the clipboard and says so; falls back to asking the user to copy by hand. */
-export function CopyButton({ text, label = 'Copy', ariaLabel, className }: CopyButtonProps) {
+export function CopyButton({
+  text,
+  label = 'Copy',
+  ariaLabel,
+  className,
+  size = 'md',
+}: CopyButtonProps) {
   const [state, setState] = useState<'idle' | 'copied' | 'failed'>('idle');
   const copy = async () => {
     try {
@@ -24,6 +31,7 @@ export function CopyButton({ text, label = 'Copy', ariaLabel, className }: CopyB
     <span className="inline-flex items-center gap-2">
       <Button
         variant="secondary"
+        size={size}
         className={className}
         aria-label={ariaLabel}
         onClick={() => void copy()}

@@ -31,8 +31,6 @@ interface PendingDelete {
   run: () => Promise<unknown>;
 }
 
-const small = 'px-2 py-1 text-small';
-
 function RowActions({
   name,
   onEdit,
@@ -44,10 +42,10 @@ function RowActions({
 }) {
   return (
     <div className="flex gap-2">
-      <Button variant="secondary" className={small} onClick={onEdit} aria-label={`Edit ${name}`}>
+      <Button variant="secondary" size="sm" onClick={onEdit} aria-label={`Edit ${name}`}>
         Edit
       </Button>
-      <Button variant="danger" className={small} onClick={onDelete} aria-label={`Delete ${name}`}>
+      <Button variant="danger" size="sm" onClick={onDelete} aria-label={`Delete ${name}`}>
         Delete
       </Button>
     </div>
@@ -61,12 +59,7 @@ function ApiId({ id, name }: { id: string; name: string }) {
       <code className="text-small text-ink-muted" title={id}>
         {id.slice(0, 8)}…
       </code>
-      <CopyButton
-        text={id}
-        label="Copy id"
-        ariaLabel={`Copy the API id of ${name}`}
-        className={small}
-      />
+      <CopyButton text={id} label="Copy id" ariaLabel={`Copy the API id of ${name}`} size="sm" />
     </span>
   );
 }
@@ -284,14 +277,14 @@ export function GearPage() {
                     <div className="flex gap-2">
                       <Button
                         variant="secondary"
-                        className={small}
+                        size="sm"
                         onClick={() => setEditingPiece({ kitId: kit.id, piece: 'new' })}
                       >
                         Add gel to {kit.name}
                       </Button>
                       <Button
                         variant="danger"
-                        className={small}
+                        size="sm"
                         onClick={() =>
                           setPending({ label: kit.name, run: () => deleteKit.mutateAsync(kit.id) })
                         }

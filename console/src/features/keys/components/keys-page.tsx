@@ -66,7 +66,7 @@ export function KeysPage() {
             <div className="flex gap-2">
               <Button
                 variant="secondary"
-                className="px-2 py-1 text-small"
+                size="sm"
                 onClick={() => setRotating(row.original)}
                 aria-label={`Rotate ${row.original.name}`}
               >
@@ -74,7 +74,7 @@ export function KeysPage() {
               </Button>
               <Button
                 variant="danger"
-                className="px-2 py-1 text-small"
+                size="sm"
                 onClick={() => setRevoking(row.original)}
                 aria-label={`Revoke ${row.original.name}`}
               >

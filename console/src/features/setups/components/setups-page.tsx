@@ -57,7 +57,7 @@ export function SetupsPage() {
                 <>
                   <Button
                     variant="secondary"
-                    className="px-2 py-1 text-small"
+                    size="sm"
                     aria-label={`Duplicate ${setup.name}`}
                     onClick={() => {
                       setActionError(null);
@@ -71,7 +71,7 @@ export function SetupsPage() {
                   </Button>
                   <Button
                     variant="danger"
-                    className="px-2 py-1 text-small"
+                    size="sm"
                     aria-label={`Delete ${setup.name}`}
                     onClick={() => setDeleting(setup)}
                   >

@@ -105,7 +105,7 @@ export function TeamPage() {
           ) : (
             <Button
               variant="danger"
-              className="px-2 py-1 text-small"
+              size="sm"
               onClick={() => setRemoving(row.original)}
               aria-label={`Remove ${row.original.name}`}
             >
@@ -132,7 +132,7 @@ export function TeamPage() {
             <div className="flex gap-2">
               <Button
                 variant="secondary"
-                className="px-2 py-1 text-small"
+                size="sm"
                 aria-label={`Resend invitation to ${row.original.email}`}
                 onClick={() => {
                   setActionError(null);
@@ -143,7 +143,7 @@ export function TeamPage() {
               </Button>
               <Button
                 variant="danger"
-                className="px-2 py-1 text-small"
+                size="sm"
                 aria-label={`Cancel invitation to ${row.original.email}`}
                 onClick={() => {
                   setActionError(null);
