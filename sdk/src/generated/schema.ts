@@ -3014,6 +3014,11 @@ export interface components {
          */
         aperture?: number;
         /**
+         * @description Darkest background bias you accept, stops, at most biasStops. When a minute fails only because a flash would need less than its lowest power, the bias is lowered in 1/3-stop steps (then to this floor) and the brightest that frees the minute is used. Omit it to keep the bias fixed. Range: -6 to 6.
+         * @example -2
+         */
+        biasFloorStops?: number;
+        /**
          * @description Background bias, stops (taste); default −1. Range: -6 to 6.
          * @example -1
          */
@@ -3405,6 +3410,11 @@ export interface components {
          * @example 4
          */
         aperture?: number;
+        /**
+         * @description Darkest background bias you accept, stops, at most biasStops. When a minute fails only because a flash would need less than its lowest power, the bias is lowered in 1/3-stop steps (then to this floor) and the brightest that frees the minute is used. Omit it to keep the bias fixed. Range: -6 to 6.
+         * @example -2
+         */
+        biasFloorStops?: number;
         /**
          * @description Background bias, stops (taste); default −1. Range: -6 to 6.
          * @example -1
@@ -3886,8 +3896,13 @@ export interface components {
          * @example 6.2
          */
         ambientEv100: number;
-        /** @description Background exposure for that minute, as /v1/exposure returns it in background mode. */
+        /** @description Background exposure for that minute, as /v1/exposure returns it in background mode, at the bias used (biasStops). */
         background: components['schemas']['ExposureResponseDto'];
+        /**
+         * @description Stops the bias was lowered below camera.biasStops (within camera.biasFloorStops) to make this minute usable; 0 when planned at the bias given.
+         * @example 0.33
+         */
+        biasLoweredByStops: number;
         /** @description Key flash power, as /v1/flash returns it. */
         keyFlash: components['schemas']['FlashResponseDto'];
         /** @description Rim flash power, or null without a rim light. */

@@ -51,7 +51,10 @@ export const DEMO_SETUPS: DemoSetup[] = [
       ...PLACE,
       date: '2026-12-05',
       sky: 'partly-cloudy',
-      camera: { aperture: 2.8, isoMax: 6400, support: 'tripod' },
+      // The background may go down to 2 stops under (taste): once the key and rim reach their
+      // lowest power the planner darkens the background instead, and the usable window runs to
+      // 16:24 rather than 16:18.
+      camera: { aperture: 2.8, isoMax: 6400, support: 'tripod', biasFloorStops: -2 },
       key: {
         guideNumber: 60,
         guideNumberUnit: 'm',

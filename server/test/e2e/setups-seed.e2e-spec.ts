@@ -77,6 +77,16 @@ describe('gear and setups: demo seed', () => {
     }
     // One of them names the studio's gear by id.
     expect(rows.some((r) => typeof r.inputs.gelKitId === 'string')).toBe(true);
+    // One lets the background go darker: its usable window ends later than at a fixed bias.
+    const floored = rows.filter((r) => r.resolved_inputs.camera?.biasFloorStops !== undefined);
+    expect(floored).toHaveLength(1);
+    const r = floored[0]!;
+    const { biasFloorStops: _floor, ...fixedCamera } = r.resolved_inputs.camera!;
+    const fixed = planDuskSetup({ ...r.resolved_inputs, camera: fixedCamera });
+    expect(r.plan.suggestedMinutes.some((m) => m.biasLoweredByStops > 0)).toBe(true);
+    expect(Date.parse(r.plan.window.usableEnd!)).toBeGreaterThan(
+      Date.parse(fixed.window.usableEnd!),
+    );
     const lights: { name: string }[] = await db.query(
       `SELECT name FROM gear_lights WHERE organization_id = $1 ORDER BY name`,
       [DEMO_ORG_ID],

@@ -1,4 +1,5 @@
 import { LightingInputError } from '../errors.js';
+import { floorHint, lowerBiasFor } from './bias-floor.js';
 import { cautionsFor, type Caution } from './cautions.js';
 import { prefixed, readSetup, type DuskSetupInput } from './setup-input.js';
 import { solveBalance, type BalanceResult } from '../color/balance.js';
@@ -24,7 +25,13 @@ export interface SuggestedMinute {
   time: string;
   sunAltitudeDeg: number;
   ambientEv100: number;
+  /** The background at the bias used for this minute (`background.biasStops`). */
   background: BackgroundExposureResult;
+  /**
+   * Stops the bias was lowered below `camera.biasStops` to make this minute usable (within
+   * `camera.biasFloorStops`); 0 when the minute is planned at the bias given.
+   */
+  biasLoweredByStops: number;
   keyFlash: FlashResult;
   rimFlash: FlashResult | null;
   /**
@@ -105,19 +112,29 @@ export function keyShare(biasStops: number, shortfallStops: number) {
   };
 }
 
+type PlannedMinute = Omit<SuggestedMinute, 'biasLoweredByStops'>;
+
+/** A minute at the bias given, or at a darker one down to the floor when that frees it. */
 function minuteAt(s: Setup, p: AmbientPoint, gelLoss: number): SuggestedMinute {
+  return lowerBiasFor(minuteAtBias(s, p, gelLoss, s.bias), s.bias, s.biasFloor, (b) =>
+    minuteAtBias(s, p, gelLoss, b),
+  );
+}
+
+function minuteAtBias(s: Setup, p: AmbientPoint, gelLoss: number, bias: number): PlannedMinute {
+  const { biasFloorStops: _floor, ...cam } = s.cam;
   const background = prefixed('camera', () =>
     solveBackgroundExposure({
-      ...s.cam,
+      ...cam,
       ev100: p.ev100,
       aperture: s.aperture,
-      biasStops: s.bias,
+      biasStops: bias,
       flashSyncSeconds: s.sync,
       // A portrait: on a tripod the shutter stops at the ghosting limit and ISO rises after it.
       slowestTripodSeconds: GHOSTING_LIMIT_SECONDS,
     }),
   );
-  const share = keyShare(s.bias, background.shortfallStops);
+  const share = keyShare(bias, background.shortfallStops);
   const flashArgs = { aperture: background.aperture, iso: background.iso, gelLossStops: gelLoss };
   const keyFlash = prefixed('key', () =>
     computeFlash({
@@ -236,8 +253,9 @@ export function planDuskSetup(input: DuskSetupInput): DuskSetupPlan {
   const usable = minutes.filter((m) => m.usable);
   const suggested = pickSuggestions(minutes, s.suggestions);
   const first = suggested[0];
+  // At the bias the first suggested minute was planned at (lowered when the floor allowed it).
   const keyOverAmbient = keyShare(
-    s.bias,
+    first?.background.biasStops ?? s.bias,
     first?.background.shortfallStops ?? 0,
   ).keyOverAmbientStops;
   const key = prefixed('key', () =>
@@ -284,7 +302,14 @@ export function planDuskSetup(input: DuskSetupInput): DuskSetupPlan {
     look: duskScene(s.kelvin, balance.resultingFlashKelvin, rimKelvin, balance.flashKelvin),
     cautions: cautionsFor({ ...s.conditions, standsCount: 1 + (s.rim ? 1 : 0) }),
     warnings: [
-      ...planWarnings(tw, usable.length, backlight, win.tooDark, minutes, s),
+      ...planWarnings(tw, usable.length, backlight, win.tooDark, minutes, s, () =>
+        // No floor given: say how far a darker background would have to go to free a minute.
+        s.biasFloor === undefined
+          ? floorHint(minutes, s.bias, (i, b) =>
+              minuteAtBias(s, win.points[i] as AmbientPoint, balance.gelLossStops, b),
+            )
+          : '',
+      ),
       // The first suggested minute where the ambient outweighs the key speaks for the evening.
       ...suggested
         .flatMap((m) =>
@@ -346,6 +371,7 @@ function planWarnings(
   tooDark: number,
   minutes: SuggestedMinute[],
   s: Setup,
+  biasHint: () => string,
 ) {
   // The twilight's own warnings (a zone far from the place's solar time) come first.
   const out: CodedWarning<SetupWarningCode>[] = [...tw.warnings];
@@ -362,7 +388,8 @@ function planWarnings(
       code: 'no-usable-minute',
       message:
         'No minute in the window fits every limit: see each minute\u2019s warnings (ISO ceiling, tripod, ghosting past 1/15 s, sync, flash power).' +
-        lightsInTheWay(minutes, s),
+        lightsInTheWay(minutes, s) +
+        biasHint(),
     });
   }
   for (const w of backlight?.warnings ?? [])

@@ -43,6 +43,13 @@ export interface DuskSetupInput {
      * makes up the rest of a correct exposure on the subject (ambient plus key).
      */
     biasStops?: number;
+    /**
+     * Darkest background bias the planner may fall back to, stops, -6..6 and at most `biasStops`.
+     * When a minute fails only because a flash would need less than its lowest power, the bias
+     * is lowered in 1/3-stop steps (then to this floor) and the brightest bias that frees the
+     * minute is used. Omitted: the bias stays fixed.
+     */
+    biasFloorStops?: number;
     /** Camera white balance, K; default 3800 (a cooled dusk look; taste, not a rule). */
     kelvin?: number;
     tint?: number;
@@ -93,6 +100,18 @@ export interface DuskSetupInput {
   suggestions?: number;
 }
 
+/** The optional bias floor: in range and no brighter than the bias it lowers. */
+function readBiasFloor(cam: Record<string, unknown>, bias: number): number | undefined {
+  const floor = maybeNumber('camera.biasFloorStops', cam.biasFloorStops, { min: -6, max: 6 });
+  if (floor !== undefined && floor > bias) {
+    throw new LightingInputError(
+      'camera.biasFloorStops',
+      `must be at most the background bias (camera.biasStops, ${bias})`,
+    );
+  }
+  return floor;
+}
+
 /** Validate and default the parts the plan itself reads (others are validated downstream). */
 export function readSetup(input: DuskSetupInput) {
   const o = requireObject('input', input);
@@ -102,6 +121,7 @@ export function readSetup(input: DuskSetupInput) {
   const rim = o.rim === undefined ? undefined : requireObject('rim', o.rim);
   const modifier = requireOneOf('key.modifier', key.modifier, MODIFIER_NAMES, 'softbox');
   const preset = MODIFIERS[modifier];
+  const bias = optionalNumber('camera.biasStops', cam.biasStops, -1, { min: -6, max: 6 });
   return {
     o,
     cam,
@@ -124,7 +144,8 @@ export function readSetup(input: DuskSetupInput) {
       min: 1 / 16000,
       max: 1,
     }),
-    bias: optionalNumber('camera.biasStops', cam.biasStops, -1, { min: -6, max: 6 }),
+    bias,
+    biasFloor: readBiasFloor(cam, bias),
     suggestions: optionalNumber('suggestions', o.suggestions, 3, {
       min: 1,
       max: 10,

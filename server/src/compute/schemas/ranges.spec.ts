@@ -125,6 +125,8 @@ const CONTEXT: Record<string, Body> = {
   'backlight distanceBehind': { distanceUnit: 'ft' },
   'backlight headHeight': { distanceUnit: 'ft' },
   'setup camera.isoMax': { camera: { isoMin: 3 } },
+  // The floor may not be brighter than the bias (default -1): its top is reached at bias 6.
+  'setup camera.biasFloorStops': { camera: { biasStops: 6 } },
   'setup rim.lightHeight': { rim: { distanceUnit: 'ft' } },
   'setup rim.distanceBehind': { rim: { distanceUnit: 'ft' } },
   'setup key.distance': { key: { distanceUnit: 'ft' } },

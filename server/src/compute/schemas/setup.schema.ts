@@ -71,6 +71,15 @@ export const setupRequestSchema: ObjectSchema = {
       ),
       flashSyncSeconds: ranged('Flash sync speed, seconds; default 1/200.', 1 / 16000, 1, 0.005),
       biasStops: ranged('Background bias, stops (taste); default −1.', -6, 6, -1),
+      biasFloorStops: ranged(
+        'Darkest background bias you accept, stops, at most biasStops. When a minute fails only ' +
+          'because a flash would need less than its lowest power, the bias is lowered in ' +
+          '1/3-stop steps (then to this floor) and the brightest that frees the minute is used. ' +
+          'Omit it to keep the bias fixed.',
+        -6,
+        6,
+        -2,
+      ),
       kelvin: ranged('Camera white balance, kelvin; default 3800.', 1500, 20000, 3800),
       tint: ranged('Camera tint, CC units (+ = toward magenta); default 0.', -60, 60, 0),
     }),
@@ -221,6 +230,7 @@ export const setupResponseSchema: ObjectSchema = {
           'sunAltitudeDeg',
           'ambientEv100',
           'background',
+          'biasLoweredByStops',
           'keyFlash',
           'rimFlash',
           'usable',
@@ -232,7 +242,13 @@ export const setupResponseSchema: ObjectSchema = {
           background: refTo(
             'ExposureResponseDto',
             exposureResponseSchema,
-            'Background exposure for that minute, as /v1/exposure returns it in background mode.',
+            'Background exposure for that minute, as /v1/exposure returns it in background mode, ' +
+              'at the bias used (biasStops).',
+          ),
+          biasLoweredByStops: outNum(
+            'Stops the bias was lowered below camera.biasStops (within camera.biasFloorStops) to ' +
+              'make this minute usable; 0 when planned at the bias given.',
+            0.33,
           ),
           keyFlash: refTo(
             'FlashResponseDto',

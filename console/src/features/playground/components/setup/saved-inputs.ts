@@ -148,6 +148,7 @@ export function fromSetupInput(inputs: SavedSetupInputs, unit: DisplayUnit): Set
     // 1/200 s is stored as 0.005; show the denominator, rounded off float noise.
     syncDenominator: sync ? Number((1 / sync).toFixed(2)) : Number.NaN,
     biasStops: optional(camera.biasStops),
+    biasFloorStops: optional(camera.biasFloorStops),
     kelvin: optional(camera.kelvin),
     keyGuideNumber: optional(key.guideNumber),
     guideNumberUnit: gnUnit,

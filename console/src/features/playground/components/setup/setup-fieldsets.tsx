@@ -56,6 +56,11 @@ export function CameraFieldset({ form, numberField, picked, onPicked }: Fieldset
         {...numberField('biasStops', 'camera.biasStops', 'default −1')}
       />
       <TextField
+        label="Darkest bias (stops)"
+        hint="How dark the background may go when a flash can't turn down far enough"
+        {...numberField('biasFloorStops', 'camera.biasFloorStops', 'empty: bias stays fixed')}
+      />
+      <TextField
         label="White balance (K)"
         {...numberField('kelvin', 'camera.kelvin', 'default 3800')}
       />

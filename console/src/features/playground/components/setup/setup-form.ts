@@ -15,6 +15,7 @@ export const setupSchema = z.object({
   support: z.enum(['handheld', 'tripod']),
   syncDenominator: optionalDenominatorField,
   biasStops: maybe,
+  biasFloorStops: maybe,
   kelvin: maybe,
   keyGuideNumber: number,
   guideNumberUnit: z.enum(['m', 'ft']),
@@ -42,6 +43,7 @@ export const setupFieldLabels: Record<string, string> = {
   'camera.isoMax': 'Highest ISO',
   'camera.flashSyncSeconds': 'Flash sync',
   'camera.biasStops': 'Background bias',
+  'camera.biasFloorStops': 'Darkest bias',
   'camera.kelvin': 'Camera white balance',
   'key.guideNumber': 'Key guide number',
   'key.distance': 'Key distance',
@@ -98,6 +100,7 @@ export function toSetupInput(
       support: form.support,
       flashSyncSeconds: secondsFrom(form.syncDenominator),
       biasStops: given(form.biasStops),
+      biasFloorStops: given(form.biasFloorStops),
       kelvin: given(form.kelvin),
     }),
     key: compact({
@@ -145,6 +148,8 @@ export const SETUP_DEFAULTS: SetupForm = {
   support: 'tripod',
   syncDenominator: 200,
   biasStops: -1,
+  // Empty: the bias stays fixed, as before the floor existed.
+  biasFloorStops: Number.NaN,
   kelvin: 3800,
   keyGuideNumber: 40,
   guideNumberUnit: 'm',

@@ -351,3 +351,35 @@ describe('Dusk setup: gel tolerance', () => {
     expect(saved().at(-1)!.body).not.toHaveProperty('miredTolerance');
   });
 });
+
+describe('Dusk setup: darkest background bias', () => {
+  const posted = () => calls.filter((c) => c.method === 'POST' && c.path === '/v1/setup');
+  const cameraOf = (call: Call) => (call.body as { camera: Record<string, unknown> }).camera;
+
+  it('sends nothing when empty (the bias stays fixed) and camera.biasFloorStops when given', async () => {
+    const panel = await openPlayground('?calc=setup');
+    const camera = within(panel).getByRole('group', { name: 'Camera' });
+    const field = within(camera).getByLabelText('Darkest bias (stops)');
+    expect(valueOf(field)).toBe('');
+    await waitFor(() => expect(posted().length).toBeGreaterThan(0));
+    expect(cameraOf(posted().at(-1)!)).not.toHaveProperty('biasFloorStops');
+    const before = posted().length;
+    fireEvent.change(field, { target: { value: '-2' } });
+    await waitFor(() => expect(posted().length).toBeGreaterThan(before));
+    expect(cameraOf(posted().at(-1)!)).toMatchObject({ biasStops: -1, biasFloorStops: -2 });
+  });
+
+  it('reopens a saved floor in its box and plans with it', async () => {
+    const floored = { ...savedInputs, camera: { ...savedInputs.camera, biasFloorStops: -2.5 } };
+    respond = ({ path }) =>
+      path === `/v1/setups/${SETUP_ID}`
+        ? jsonResponse({ ...savedSetup, inputs: floored, resolvedInputs: floored })
+        : jsonResponse({ title: 'Not Found', status: 404 }, 404, 'application/problem+json');
+    const { panel } = await openSaved();
+    const camera = within(panel).getByRole('group', { name: 'Camera' });
+    expect(valueOf(within(camera).getByLabelText('Darkest bias (stops)'))).toBe('-2.5');
+    await waitFor(() =>
+      expect(posted().some((c) => cameraOf(c).biasFloorStops === -2.5)).toBe(true),
+    );
+  });
+});
