@@ -35,6 +35,7 @@ th { font-weight: 600; color: var(--muted); font-size: 12px; }
 .notes { white-space: pre-wrap; }
 footer { margin-top: 26px; color: var(--muted); font-size: 12px; border-top: 1px solid var(--rule); padding-top: 8px; }
 .print-hint { color: var(--muted); font-size: 12px; }
+.lowered { color: var(--warm); font-size: 12px; }
 .table-scroll { overflow-x: auto; }
 @media (max-width: 640px) {
   .grid { grid-template-columns: 1fr; }

@@ -77,6 +77,61 @@ describe('shot sheet power column', () => {
   });
 });
 
+describe('shot sheet minutes planned at a darker background', () => {
+  // An evening on a tripod at f/2.8 where a GN 40 m key at 2 m soon needs less than its lowest
+  // power at the default bias of -1 (see shared/tests/bias-floor.test.ts): with a floor the
+  // planner takes those minutes darker, and the sheet says by how much.
+  const input: DuskSetupInput = {
+    latitude: 40.7128,
+    longitude: -74.006,
+    date: '2026-09-20',
+    timeZone: 'America/New_York',
+    stepMinutes: 1,
+    suggestions: 10,
+    camera: { aperture: 2.8, isoMax: 6400, support: 'tripod', biasFloorStops: -2 },
+    key: { guideNumber: 40, distance: 2, modifierLossStops: 1 },
+  };
+
+  it('marks each lowered minute with the bias it used, and only those', () => {
+    const { plan, html } = render(input);
+    const table = /<table class="minutes">[\s\S]*?<\/table>/.exec(html)?.[0] ?? '';
+    const rows = table.split('<tr>').filter((r) => r.includes('data-label="Camera (background)"'));
+    expect(rows.length).toBe(plan.suggestedMinutes.length);
+    const lowered = plan.suggestedMinutes.filter((m) => m.biasLoweredByStops > 0);
+    expect(lowered.length).toBeGreaterThan(0);
+    rows.forEach((row, i) => {
+      const m = plan.suggestedMinutes[i]!;
+      if (m.biasLoweredByStops > 0) {
+        expect(row).toContain(
+          `(background ${m.background.biasStops} stops, ${m.biasLoweredByStops} darker)`,
+        );
+      } else {
+        expect(row).not.toContain('class="lowered"');
+      }
+    });
+  });
+
+  it('shows no note for a plan saved before the floor existed (no field on its minutes)', () => {
+    const { plan } = render(input);
+    const old = {
+      ...plan,
+      suggestedMinutes: plan.suggestedMinutes.map(({ biasLoweredByStops: _gone, ...m }) => m),
+    };
+    const html = renderShotSheet({
+      name: 'Saved before',
+      venue: null,
+      notes: null,
+      date: input.date,
+      timeZone: input.timeZone,
+      author: null,
+      plan: old as never,
+      resolvedInputs: input as unknown as Record<string, unknown>,
+    });
+    expect(html).not.toContain('class="lowered"');
+    expect(html).toContain('<table class="minutes">');
+  });
+});
+
 describe('shot sheet cautions', () => {
   it('says the deference to local rules once, not after every caution', () => {
     const { plan, html } = render({ ...BASE, conditions: { nearRoad: true, nearWater: true } });

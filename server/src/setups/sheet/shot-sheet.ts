@@ -79,6 +79,16 @@ const MINUTE_COLUMNS = [
   'Usable',
 ] as const;
 
+/**
+ * A minute planned at a darker background than the setup's bias (camera.biasFloorStops): say so,
+ * since its exposure differs from the others'. Plans saved before the floor carry no field.
+ */
+function darker(m: DuskSetupPlan['suggestedMinutes'][number]): string {
+  const lowered = m.biasLoweredByStops ?? 0;
+  if (!(lowered > 0)) return '';
+  return ` <span class="lowered">(background ${fmt(m.background.biasStops, 2)} stops, ${fmt(lowered, 2)} darker)</span>`;
+}
+
 function minutes(p: DuskSetupPlan): string {
   // Out of the light's range either way: name which end, as the plan's warnings do.
   const outOfRange = (f: { feasible: boolean; warnings: Array<{ code: string }> }): string =>
@@ -93,7 +103,8 @@ function minutes(p: DuskSetupPlan): string {
         clock(m.time),
         `${fmt(m.sunAltitudeDeg)}°`,
         fmt(m.ambientEv100),
-        `${esc(m.background.shutterLabel)} · ${esc(m.background.apertureLabel)} · ${esc(m.background.isoLabel)}`,
+        `${esc(m.background.shutterLabel)} · ${esc(m.background.apertureLabel)} · ${esc(m.background.isoLabel)}` +
+          darker(m),
         esc(m.keyFlash.powerLabel) + outOfRange(m.keyFlash),
         m.rimFlash ? esc(m.rimFlash.powerLabel) + outOfRange(m.rimFlash) : '—',
         m.usable ? 'yes' : '<span class="no">no</span>',
