@@ -104,6 +104,13 @@ export function SetupResultView({ plan, input }: { plan: DuskSetupPlan; input: D
                   <td className="py-1.5 pr-3">
                     {minute.background.shutterLabel} · {minute.background.apertureLabel} ·{' '}
                     {minute.background.isoLabel}
+                    {/* Planned darker than the bias (the darkest-bias field); older saved plans lack it. */}
+                    {(minute.biasLoweredByStops ?? 0) > 0 ? (
+                      <span className="block text-caption text-caution">
+                        background {signed(minute.background.biasStops, 2)} stops,{' '}
+                        {fixed(minute.biasLoweredByStops, 2)} darker
+                      </span>
+                    ) : null}
                   </td>
                   <td className="py-1.5 pr-3">{minute.keyFlash.powerLabel}</td>
                   <td className="py-1.5 pr-3">{minute.rimFlash?.powerLabel ?? '—'}</td>

@@ -1,0 +1,53 @@
+import { render, screen, within } from '@testing-library/react';
+import { planDuskSetup, type DuskSetupInput } from '@lumenwright/shared';
+import { describe, expect, it } from 'vitest';
+import { SetupResultView } from './setup-result';
+
+// An evening on a tripod at f/2.8 where a GN 40 m key at 2 m soon needs less than its lowest
+// power at the default bias of -1 (shared/tests/bias-floor.test.ts checks those numbers against
+// APEX and ISO 1230); with a darkest bias of -2 the planner takes those minutes darker.
+const input: DuskSetupInput = {
+  latitude: 40.7128,
+  longitude: -74.006,
+  date: '2026-09-20',
+  timeZone: 'America/New_York',
+  stepMinutes: 1,
+  suggestions: 10,
+  camera: { aperture: 2.8, isoMax: 6400, support: 'tripod', biasFloorStops: -2 },
+  key: { guideNumber: 40, distance: 2, modifierLossStops: 1 },
+};
+
+const rowsOf = () => within(screen.getByRole('table')).getAllByRole('row').slice(1); // no header
+
+describe('Dusk setup result: minutes planned at a darker background', () => {
+  it('says the bias used and how much darker on each lowered minute, and only there', () => {
+    const plan = planDuskSetup(input);
+    render(<SetupResultView plan={plan} input={input} />);
+    const rows = rowsOf();
+    expect(rows).toHaveLength(plan.suggestedMinutes.length);
+    const lowered = plan.suggestedMinutes.filter((m) => m.biasLoweredByStops > 0);
+    expect(lowered.length).toBeGreaterThan(0);
+    plan.suggestedMinutes.forEach((m, i) => {
+      const text = rows[i]!.textContent ?? '';
+      if (m.biasLoweredByStops > 0) {
+        const bias = Math.abs(m.background.biasStops).toFixed(2);
+        expect(text).toContain(
+          `background \u2212${bias} stops, ${m.biasLoweredByStops.toFixed(2)} darker`,
+        );
+      } else {
+        expect(text).not.toMatch(/darker/);
+      }
+    });
+  });
+
+  it('shows no note for a plan saved before the darkest bias existed', () => {
+    const plan = planDuskSetup(input);
+    const old = {
+      ...plan,
+      suggestedMinutes: plan.suggestedMinutes.map(({ biasLoweredByStops: _gone, ...m }) => m),
+    };
+    render(<SetupResultView plan={old as never} input={input} />);
+    expect(rowsOf().length).toBe(plan.suggestedMinutes.length);
+    expect(screen.queryByText(/darker$/)).toBeNull();
+  });
+});
