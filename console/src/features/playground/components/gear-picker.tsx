@@ -21,7 +21,8 @@ export function GearPicker<T extends { id: string }>(props: {
   return (
     <SelectField
       label={props.label}
-      className="col-span-2"
+      // Nothing picked: the placeholder says nothing on paper.
+      className={`col-span-2 ${shown ? '' : 'print:hidden'}`}
       hint={props.hint}
       value={shown}
       options={[
