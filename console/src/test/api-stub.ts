@@ -53,3 +53,36 @@ export function stubApi(
   vi.stubGlobal('fetch', mock);
   return mock;
 }
+
+/** A request as a recording stub saw it: method, path and JSON body (undefined when empty). */
+export interface RecordedCall {
+  method: string;
+  path: string;
+  body: unknown;
+}
+
+/**
+ * Stub fetch with `answer`, keeping every request in the returned list (in order), e.g. to read
+ * what a save sent.
+ */
+export function recordFetch(
+  answer: (call: RecordedCall) => Response | Promise<Response>,
+): RecordedCall[] {
+  const calls: RecordedCall[] = [];
+  vi.stubGlobal(
+    'fetch',
+    vi.fn(async (input: RequestInfo | URL, init?: RequestInit) => {
+      // The SDK client passes a Request; a plain fetch passes a URL and init.
+      const request = input instanceof Request ? input : new Request(String(input), init);
+      const text = await request.text();
+      const call = {
+        method: request.method,
+        path: new URL(request.url).pathname,
+        body: text ? (JSON.parse(text) as unknown) : undefined,
+      };
+      calls.push(call);
+      return answer(call);
+    }),
+  );
+  return calls;
+}

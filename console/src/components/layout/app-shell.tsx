@@ -22,14 +22,14 @@ export function AppShell({ status, userMenu }: AppShellProps) {
   const navId = useId();
 
   return (
-    <div className="min-h-dvh md:grid md:grid-cols-[var(--spacing-rail)_1fr]">
+    <div className="min-h-dvh md:grid md:grid-cols-[var(--spacing-rail)_1fr] print:block">
       <a
         href="#main"
         className="sr-only focus:not-sr-only focus:fixed focus:top-2 focus:left-2 focus:z-50 focus:rounded-control focus:bg-panel focus:px-3 focus:py-2"
       >
         Skip to content
       </a>
-      <aside className="border-edge bg-panel md:sticky md:top-0 md:flex md:h-dvh md:flex-col md:border-r">
+      <aside className="border-edge bg-panel md:sticky md:top-0 md:flex md:h-dvh md:flex-col md:border-r print:hidden">
         <div className="flex items-center justify-between gap-3 border-b border-edge px-4 py-3 md:border-b-0 md:py-5">
           <Brand />
           <button
@@ -55,7 +55,11 @@ export function AppShell({ status, userMenu }: AppShellProps) {
           <ThemeToggle />
         </div>
       </aside>
-      <main id="main" tabIndex={-1} className="min-w-0 px-4 py-6 outline-none md:px-8 md:py-8">
+      <main
+        id="main"
+        tabIndex={-1}
+        className="min-w-0 px-4 py-6 outline-none md:px-8 md:py-8 print:p-0"
+      >
         <Suspense fallback={<PageLoading />}>
           <Outlet />
         </Suspense>

@@ -45,7 +45,7 @@ export function CalculationResult<I, R>({
         </p>
       )}
       {preview.state !== 'empty' ? (
-        <div className="flex flex-col gap-3 rounded-card border border-edge bg-panel p-4">
+        <div className="flex flex-col gap-3 rounded-card border border-edge bg-panel p-4 print:hidden">
           <ApiConfirmation
             calculation={calculation}
             input={preview.state === 'ok' ? preview.input : undefined}

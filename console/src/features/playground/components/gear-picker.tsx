@@ -1,4 +1,6 @@
 import { SelectField } from '@/components/ui/select-field';
+import { GearChangeNote } from './gear-change-note';
+import { followPick } from './gear-changes';
 
 /**
  * A "from your gear" select: picking an item fills the fields it stands for; hidden when empty.
@@ -19,7 +21,8 @@ export function GearPicker<T extends { id: string }>(props: {
   return (
     <SelectField
       label={props.label}
-      className="col-span-2"
+      // Nothing picked: the placeholder says nothing on paper.
+      className={`col-span-2 ${shown ? '' : 'print:hidden'}`}
       hint={props.hint}
       value={shown}
       options={[
@@ -31,5 +34,49 @@ export function GearPicker<T extends { id: string }>(props: {
         if (item) props.onPick(item);
       }}
     />
+  );
+}
+
+/**
+ * A `GearPicker` that follows its pick (`picked`, the item as it was when picked) in the studio's
+ * gear as it is now (`all`, default `items`): changed or deleted since, a note beside it says so
+ * and offers to fill the fields anew (`onPick` with the item now) or to forget the pick (`onDrop`).
+ */
+export function FollowingGearPicker<T extends { id: string; name: string }>({
+  picked,
+  all,
+  changes,
+  thing,
+  keeping,
+  onDrop,
+  refillLabel,
+  ...picker
+}: Parameters<typeof GearPicker<T>>[0] & {
+  picked: T | undefined;
+  all?: readonly T[] | undefined;
+  changes: (was: T, now: T) => string[];
+  thing: string;
+  keeping: string;
+  onDrop?: () => void;
+  refillLabel?: string;
+}) {
+  const followed = followPick(picked, all ?? picker.items, changes);
+  // Filled anew only from an item the picker offers (a gel kit emptied since is not).
+  const refill =
+    followed?.state === 'changed' && picker.items.some((i) => i.id === followed.now.id)
+      ? followed.now
+      : undefined;
+  return (
+    <>
+      <GearPicker {...picker} />
+      <GearChangeNote
+        followed={followed}
+        thing={thing}
+        keeping={keeping}
+        refillLabel={refillLabel}
+        onRefill={refill ? () => picker.onPick(refill) : undefined}
+        onKeep={onDrop}
+      />
+    </>
   );
 }

@@ -40,7 +40,7 @@ export function Playground() {
   return (
     <PlaygroundSceneProvider>
       <VisibleCalculationContext.Provider value={available[selected]?.id ?? null}>
-        <div className="mb-4 flex flex-wrap items-center justify-between gap-3">
+        <div className="mb-4 flex flex-wrap items-center justify-between gap-3 print:hidden">
           <UnitToggle />
         </div>
         <div className="mb-4">

@@ -3,9 +3,9 @@ import { paths } from '@/config/paths';
 import { setupSheetHref } from '../api/setups';
 import { playgroundHref } from '../schemas';
 
-/** A small outlined link that sits beside buttons in setup rows and cards. */
+/** A small outlined link that sits beside buttons in setup rows and cards (off paper, like them). */
 export const actionLink =
-  'inline-flex rounded-control border border-edge-strong px-2 py-1 text-small font-medium text-ink no-underline hover:bg-raised';
+  'inline-flex rounded-control border border-edge-strong px-2 py-1 text-small font-medium text-ink no-underline hover:bg-raised print:hidden';
 
 /** "Open" (in the playground) and "Shot sheet" (a new tab) for one saved setup. */
 export function SetupLinks({ setup }: { setup: { id: string; name: string } }) {

@@ -23,7 +23,8 @@ export function Swatches({
           >
             <div
               aria-hidden="true"
-              className="h-14 w-full night:brightness-[0.45]"
+              // Dimmed on a night screen, full colour on paper (printed even where backgrounds are not).
+              className="h-14 w-full [print-color-adjust:exact] not-print:night:brightness-[0.45]"
               style={{ background: swatch.hex }}
             />
             <div className="p-2">

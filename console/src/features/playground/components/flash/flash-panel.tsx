@@ -9,13 +9,12 @@ import {
 import { z } from 'zod';
 import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
-import { useGearLights, useGearModifiers } from '../../api/gear-options';
 import { given, useCalculationForm } from '../../hooks/use-calculation-form';
 import { fixed } from '../../utils/format';
 import { CalculationResult } from '../calculation-result';
-import { GearPicker } from '../gear-picker';
 import { FormGrid, Readouts } from '../form-grid';
 import { usePlaygroundScene } from '../playground-scene';
+import { FlashLightPicker, FlashModifierPicker } from './flash-gear';
 import { PowerScale } from './power-scale';
 
 export const modifierLabels: Record<ModifierName, string> = {
@@ -92,23 +91,14 @@ export function FlashPanel() {
     compute: computeFlash,
   });
   const modifier = form.watch('modifier');
-  const lights = useGearLights();
-  const modifiers = useGearModifiers();
-  const lightList = lights.data?.data ?? [];
-  const modifierList = modifiers.data?.data ?? [];
   const fill = { shouldValidate: true, shouldDirty: true } as const;
 
   return (
     <div className="grid gap-6 lg:grid-cols-[minmax(16rem,22rem)_1fr]">
       <form noValidate onSubmit={(event) => event.preventDefault()} className="flex flex-col gap-4">
         <FormGrid legend="Key light">
-          <GearPicker
-            label="Light from your gear"
-            hint="Fills in its guide number; you can still change it."
-            placeholder="Choose a light…"
-            items={lightList}
-            describe={(l) => `${l.name} (GN ${fixed(l.guideNumber, 1)} ${l.guideNumberUnit})`}
-            onPick={(light) => {
+          <FlashLightPicker
+            fill={(light) => {
               form.setValue('guideNumber', light.guideNumber, fill);
               form.setValue('guideNumberUnit', light.guideNumberUnit, fill);
             }}
@@ -125,13 +115,8 @@ export function FlashPanel() {
           <TextField label={`Light to subject (${unit})`} {...numberField('distance')} />
           <TextField label="Aperture (f/)" {...numberField('aperture')} />
           <TextField label="ISO" {...numberField('iso', undefined, 'default 100')} />
-          <GearPicker
-            label="Modifier from your gear"
-            hint="Fills in its kind and loss."
-            placeholder="Choose a modifier…"
-            items={modifierList}
-            describe={(m) => `${m.name} (${fixed(m.lossStops, 1)} stops)`}
-            onPick={(picked) => {
+          <FlashModifierPicker
+            fill={(picked) => {
               if (picked.kind) form.setValue('modifier', picked.kind, fill);
               form.setValue('modifierLossStops', picked.lossStops, fill);
             }}

@@ -1,7 +1,7 @@
 import type { DuskSetupInput } from '@lumenwright/shared';
 import { describe, expect, it } from 'vitest';
 import type { GearGelKit, GearLight, GearModifier } from '../../api/gear-options';
-import { withGearIds } from './gear-links';
+import { currentPicks, withGearIds } from './gear-links';
 
 // Invented gear; only the fields the links read matter here.
 const light = { id: 'light-1', guideNumber: 36, guideNumberUnit: 'ft' } as GearLight;
@@ -59,5 +59,37 @@ describe('withGearIds', () => {
     expect(saved).not.toHaveProperty('rim');
     expect(saved).not.toHaveProperty('gelKitId');
     expect(saved.gels).toEqual(gels);
+  });
+});
+
+describe('currentPicks', () => {
+  const lists = { lights: [light], modifiers: [octa], gelKits: [kit] };
+
+  it('names gear whose values are unchanged, renamed or not', () => {
+    const renamed = { ...light, name: 'Renamed since' };
+    const saved = withGearIds(
+      base,
+      currentPicks({ keyLight: light, keyModifier: octa }, { ...lists, lights: [renamed] }),
+    );
+    expect(saved.key).toMatchObject({ lightId: 'light-1', modifierId: 'mod-1' });
+  });
+
+  it('never names gear whose values now differ from the fields, nor gear deleted since', () => {
+    const stronger = { ...light, guideNumber: 48 };
+    const picks = currentPicks(
+      { keyLight: light, keyModifier: octa, gelKit: kit },
+      { lights: [stronger], modifiers: [], gelKits: [kit] },
+    );
+    expect(picks).toEqual({ keyLight: stronger, gelKit: kit });
+    const saved = withGearIds(base, picks);
+    expect(saved.key).not.toHaveProperty('lightId');
+    expect(saved.key).not.toHaveProperty('modifierId');
+    expect(saved.key).toMatchObject({ guideNumber: 10.97, modifierLossStops: 2.2 });
+  });
+
+  it('keeps a pick as it was while its list is not known', () => {
+    expect(currentPicks({ keyLight: light }, { ...lists, lights: undefined })).toEqual({
+      keyLight: light,
+    });
   });
 });

@@ -2,6 +2,13 @@ import { fromMetres, toMetres, type DuskSetupInput } from '@lumenwright/shared';
 import type { GearGelKit, GearLight, GearModifier } from '../../api/gear-options';
 import type { SavedSetupInputs } from '../../api/saved-setups';
 import type { DisplayUnit } from '../../hooks/use-length-unit';
+import {
+  currentItem,
+  followPick,
+  gelKitChanges,
+  lightChanges,
+  modifierChanges,
+} from '../gear-changes';
 
 /** The studio gear picked on the Dusk setup tab since it was opened (or reopened). */
 export interface PickedGear {
@@ -10,6 +17,32 @@ export interface PickedGear {
   rimLight?: GearLight;
   rimModifier?: GearModifier;
   gelKit?: GearGelKit;
+}
+
+/** The studio's lists as they are now; undefined while a list is not known. */
+export interface GearLists {
+  lights: readonly GearLight[] | undefined;
+  modifiers: readonly GearModifier[] | undefined;
+  gelKits: readonly GearGelKit[] | undefined;
+}
+
+/**
+ * The picks as the studio's gear has them now, for `withGearIds`: a deleted item is left out and a
+ * changed one is its current self, so an id is only saved while the fields hold its values now.
+ */
+export function currentPicks(picked: PickedGear, gear: GearLists): PickedGear {
+  const out: PickedGear = {};
+  const keyLight = currentItem(followPick(picked.keyLight, gear.lights, lightChanges));
+  const rimLight = currentItem(followPick(picked.rimLight, gear.lights, lightChanges));
+  const keyModifier = currentItem(followPick(picked.keyModifier, gear.modifiers, modifierChanges));
+  const rimModifier = currentItem(followPick(picked.rimModifier, gear.modifiers, modifierChanges));
+  const gelKit = currentItem(followPick(picked.gelKit, gear.gelKits, gelKitChanges));
+  if (keyLight) out.keyLight = keyLight;
+  if (keyModifier) out.keyModifier = keyModifier;
+  if (rimLight) out.rimLight = rimLight;
+  if (rimModifier) out.rimModifier = rimModifier;
+  if (gelKit) out.gelKit = gelKit;
+  return out;
 }
 
 /** A length (or a guide number: a distance x f-number) in `to`, 2 decimals when converted. */

@@ -1,7 +1,6 @@
 import type { DuskSetupInput } from '@lumenwright/shared';
-import type { GearGelKit, GearLight, GearModifier } from '../../api/gear-options';
 import type { SavedSetupInputs } from '../../api/saved-setups';
-import { withGearIds, type PickedGear } from './gear-links';
+import { withGearIds, type GearLists, type PickedGear } from './gear-links';
 
 // Reopening a saved setup that named studio gear by id: which picks come back, and what to say
 // about the others. The form always holds the saved (resolved) values; a pick comes back only
@@ -39,13 +38,6 @@ export function pickedIds(picked: PickedGear): SavedGearIds {
     if (id) out[slot] = id;
   }
   return out;
-}
-
-/** The studio's lists; undefined when a list could not be loaded. */
-export interface GearLists {
-  lights: readonly GearLight[] | undefined;
-  modifiers: readonly GearModifier[] | undefined;
-  gelKits: readonly GearGelKit[] | undefined;
 }
 
 export interface RestoredGear {

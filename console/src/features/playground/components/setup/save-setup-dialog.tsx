@@ -34,6 +34,8 @@ interface SaveSetupDialogProps {
   /** Prefill, e.g. venue and notes of a reopened setup (names must be new: the server refuses repeats). */
   initial?: Partial<Pick<SaveValues, 'name' | 'venue' | 'notes'>>;
   onSaved: (setup: OpenedSetup) => void;
+  /** Run before sending; a message instead of null stops the save and is shown. */
+  checkBeforeSave?: () => Promise<string | null>;
 }
 
 export function toSaveBody(values: SaveValues, input: SavedSetupInputs): NewSavedSetup {
@@ -59,7 +61,13 @@ export function SaveSetupDialog(props: SaveSetupDialogProps) {
   );
 }
 
-function SaveSetupForm({ onClose, input, initial, onSaved }: SaveSetupDialogProps) {
+function SaveSetupForm({
+  onClose,
+  input,
+  initial,
+  onSaved,
+  checkBeforeSave,
+}: SaveSetupDialogProps) {
   const save = useSaveSetup();
   const [formError, setFormError] = useState<string | null>(null);
   const {
@@ -80,6 +88,11 @@ function SaveSetupForm({ onClose, input, initial, onSaved }: SaveSetupDialogProp
 
   const onSubmit = handleSubmit(async (values) => {
     setFormError(null);
+    const stop = checkBeforeSave ? await checkBeforeSave() : null;
+    if (stop) {
+      setFormError(stop);
+      return;
+    }
     try {
       const saved = await save.mutateAsync(toSaveBody(values, input));
       onSaved(saved);

@@ -74,11 +74,16 @@ export function CameraFieldset({ form, numberField, picked, onPicked }: Fieldset
   );
 }
 
-export function KeyFieldset({ form, numberField, unit, linked, onPicked }: FieldsetProps) {
+export function KeyFieldset({ form, numberField, unit, picked, linked, onPicked }: FieldsetProps) {
   const modifier = useWatch({ control: form.control, name: 'modifier' });
   return (
     <FormGrid legend="Key light">
-      <KeyLightPicker form={form} onPicked={onPicked} selected={linked.keyLight} />
+      <KeyLightPicker
+        form={form}
+        onPicked={onPicked}
+        selected={linked.keyLight}
+        picked={picked.keyLight}
+      />
       <TextField label="Guide number" {...numberField('keyGuideNumber', 'key.guideNumber')} />
       <SelectField
         label="Guide numbers in"
@@ -98,6 +103,7 @@ export function KeyFieldset({ form, numberField, unit, linked, onPicked }: Field
         onPicked={onPicked}
         unit={unit}
         selected={linked.keyModifier}
+        picked={picked.keyModifier}
       />
       <SelectField
         label="Modifier"
@@ -154,7 +160,7 @@ function beamOptions(current: string) {
     : [...BEAMS, { value: current, label: `${current}°` }];
 }
 
-export function RimFieldset({ form, numberField, unit, linked, onPicked }: FieldsetProps) {
+export function RimFieldset({ form, numberField, unit, picked, linked, onPicked }: FieldsetProps) {
   const rimEnabled = useWatch({ control: form.control, name: 'rimEnabled' });
   const rimBeam = useWatch({ control: form.control, name: 'rimBeam' });
   return (
@@ -169,14 +175,24 @@ export function RimFieldset({ form, numberField, unit, linked, onPicked }: Field
       </label>
       {rimEnabled ? (
         <>
-          <RimLightPicker form={form} onPicked={onPicked} selected={linked.rimLight} />
+          <RimLightPicker
+            form={form}
+            onPicked={onPicked}
+            selected={linked.rimLight}
+            picked={picked.rimLight}
+          />
           <TextField label="Guide number" {...numberField('rimGuideNumber', 'rim.guideNumber')} />
           <TextField
             label={`Behind subject (${unit})`}
             {...numberField('rimDistanceBehind', 'rim.distanceBehind')}
           />
           <TextField label={`Height (${unit})`} {...numberField('rimHeight', 'rim.lightHeight')} />
-          <RimModifierPicker form={form} onPicked={onPicked} selected={linked.rimModifier} />
+          <RimModifierPicker
+            form={form}
+            onPicked={onPicked}
+            selected={linked.rimModifier}
+            picked={picked.rimModifier}
+          />
           <SelectField
             label="Beam"
             options={beamOptions(rimBeam)}

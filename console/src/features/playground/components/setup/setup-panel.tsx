@@ -25,6 +25,7 @@ import {
   type SetupForm,
 } from './setup-form';
 import { SetupResultView } from './setup-result';
+import { useCurrentGear } from './use-current-gear';
 import { useOpenedSetup } from './use-opened-setup';
 import { useReopenForm } from './use-reopen-form';
 
@@ -66,8 +67,11 @@ export function SetupPanel() {
     setCarried,
     setPicked,
   });
+  // Saving names gear by id only while the boxes hold its values as the studio's gear has them now.
+  const { current, checkBeforeSave } = useCurrentGear(picked);
+  const toSave = input ? withGearIds(input, current) : undefined;
   // The pickers show the gear saving would name by id: picked, and its values still in the boxes.
-  const linked = input ? savedGearIds(withGearIds(input, picked)) : pickedIds(picked);
+  const linked = toSave ? savedGearIds(toSave) : pickedIds(current);
   const fields = { form, numberField, unit, picked, linked, onPicked: pick };
 
   return (
@@ -123,11 +127,12 @@ export function SetupPanel() {
           {(plan, input) => <SetupResultView plan={plan} input={input} />}
         </CalculationResult>
       </div>
-      {maySave && input ? (
+      {maySave && input && toSave ? (
         <SaveSetupDialog
           open={saving}
           onClose={() => setSaving(false)}
-          input={withGearIds(input, picked)}
+          input={toSave}
+          checkBeforeSave={() => checkBeforeSave(input)}
           initial={
             opened.data
               ? {
