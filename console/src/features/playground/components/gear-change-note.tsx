@@ -38,7 +38,7 @@ export function GearChangeNote<T extends { name: string }>({
           {keeping}
         </p>
         {onKeep ? (
-          <Button variant="quiet" className="mt-1 px-0 py-0 underline" onClick={onKeep}>
+          <Button variant="quiet" size="inline" className="mt-1 underline" onClick={onKeep}>
             Dismiss
           </Button>
         ) : null}
@@ -52,12 +52,12 @@ export function GearChangeNote<T extends { name: string }>({
       </p>
       <div className="mt-1 flex flex-wrap gap-3">
         {onRefill ? (
-          <Button variant="quiet" className="px-0 py-0 underline" onClick={onRefill}>
+          <Button variant="quiet" size="inline" className="underline" onClick={onRefill}>
             {refillLabel}
           </Button>
         ) : null}
         {onKeep ? (
-          <Button variant="quiet" className="px-0 py-0 underline" onClick={onKeep}>
+          <Button variant="quiet" size="inline" className="underline" onClick={onKeep}>
             Keep my values
           </Button>
         ) : null}

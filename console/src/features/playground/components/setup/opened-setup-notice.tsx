@@ -88,7 +88,7 @@ export function OpenedSetupNotice({
             <span className={note}>
               Also planned with these saved values, which have no field here:{' '}
               {carried.described.join('; ')}.{' '}
-              <Button variant="quiet" className="px-0 py-0" onClick={onDropCarried}>
+              <Button variant="quiet" size="inline" onClick={onDropCarried}>
                 Plan without them
               </Button>
             </span>

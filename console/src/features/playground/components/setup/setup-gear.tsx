@@ -198,11 +198,7 @@ export function GelKitPicker({
       {picked ? (
         <p className="col-span-2 text-small text-ink-muted" data-testid="gel-kit-choice">
           Gels from {picked.name} ({picked.pieces.length}).{' '}
-          <Button
-            variant="quiet"
-            className="px-0 py-0"
-            onClick={() => onPicked({ gelKit: undefined })}
-          >
+          <Button variant="quiet" size="inline" onClick={() => onPicked({ gelKit: undefined })}>
             Use the built-in gels
           </Button>
         </p>
