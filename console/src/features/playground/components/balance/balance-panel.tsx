@@ -68,7 +68,7 @@ export function BalancePanel() {
   });
 
   return (
-    <div className="grid gap-6 lg:grid-cols-[minmax(16rem,22rem)_1fr]">
+    <div className="grid gap-6 xl:grid-cols-[minmax(16rem,22rem)_1fr]">
       <form noValidate onSubmit={(event) => event.preventDefault()} className="flex flex-col gap-4">
         <FormGrid legend="White balance and flash">
           <TextField

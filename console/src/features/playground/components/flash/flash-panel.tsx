@@ -94,7 +94,7 @@ export function FlashPanel() {
   const fill = { shouldValidate: true, shouldDirty: true } as const;
 
   return (
-    <div className="grid gap-6 lg:grid-cols-[minmax(16rem,22rem)_1fr]">
+    <div className="grid gap-6 xl:grid-cols-[minmax(16rem,22rem)_1fr]">
       <form noValidate onSubmit={(event) => event.preventDefault()} className="flex flex-col gap-4">
         <FormGrid legend="Key light">
           <FlashLightPicker

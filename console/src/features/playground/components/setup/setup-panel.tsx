@@ -91,7 +91,7 @@ export function SetupPanel() {
           </Link>
         </Notice>
       ) : null}
-      <div className="grid gap-6 lg:grid-cols-[minmax(16rem,22rem)_1fr]">
+      <div className="grid gap-6 xl:grid-cols-[minmax(16rem,22rem)_1fr]">
         <form
           noValidate
           onSubmit={(event) => event.preventDefault()}

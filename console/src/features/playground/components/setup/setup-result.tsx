@@ -67,7 +67,7 @@ export function SetupResultView({ plan, input }: { plan: DuskSetupPlan; input: D
           Suggested minutes
         </h3>
         <div className="overflow-x-auto">
-          <table className="w-full min-w-[36rem] text-left text-small tabular-nums">
+          <table className="w-full min-w-[32rem] text-left text-small tabular-nums">
             <thead className="text-caption text-ink-muted">
               <tr>
                 <th scope="col" className="py-1 pr-3 font-medium">
