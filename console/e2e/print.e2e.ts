@@ -54,6 +54,7 @@ function printedPage(target: Page) {
         .length,
       buttons: [...document.querySelectorAll('button')].filter(shown).length,
       tablists: [...document.querySelectorAll('[role="tablist"]')].filter(shown).length,
+      searches: [...document.querySelectorAll('[role="search"]')].filter(shown).length,
       // A dialog's own box can be empty (its panel is fixed-position): any part of it showing counts.
       dialogs: [...document.querySelectorAll('[role="dialog"]')].filter(
         (d) => shown(d) || [...d.querySelectorAll('*')].some(shown),
@@ -76,12 +77,13 @@ function printedPage(target: Page) {
   });
 }
 
-/** Print media leaves no navigation, rail, buttons, tab list or dialog; the page's content stays. */
+/** Print media leaves no navigation, rail, buttons, search box, tab list or dialog; the content stays. */
 const withoutControls = {
   navigation: 0,
   rails: 0,
   buttons: 0,
   tablists: 0,
+  searches: 0,
   dialogs: 0,
   mainShown: true,
 };
@@ -98,6 +100,7 @@ describe('printing from the console', () => {
     const onScreen = await printedPage(page);
     expect(onScreen.navigation).toBeGreaterThan(0);
     expect(onScreen.buttons).toBeGreaterThan(0);
+    expect(onScreen.searches).toBe(1);
 
     // Print media at the window's desktop width (where the screen shows the navigation rail)...
     await page.emulateMedia({ media: 'print' });
