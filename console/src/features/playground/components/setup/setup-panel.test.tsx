@@ -1,9 +1,9 @@
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { fireEvent, render, screen, waitFor, within } from '@testing-library/react';
 import { MemoryRouter } from 'react-router-dom';
-import { beforeEach, describe, expect, it, vi } from 'vitest';
+import { beforeEach, describe, expect, it } from 'vitest';
 import { SessionContext, type Session } from '@/lib/session';
-import { demoSession } from '@/test/api-stub';
+import { demoSession, recordFetch, type RecordedCall } from '@/test/api-stub';
 import { jsonResponse } from '@/test/responses';
 import { planDuskSetup } from '@lumenwright/shared';
 import { Playground } from '../playground';
@@ -57,38 +57,21 @@ const savedSetup = {
   plan: {},
 };
 
-interface Call {
-  method: string;
-  path: string;
-  body: unknown;
-}
+type Call = RecordedCall;
 type Responder = (call: Call) => Response;
 let respond: Responder;
 let calls: Call[];
 
 beforeEach(() => {
-  calls = [];
   respond = ({ path }) =>
     path === `/v1/setups/${SETUP_ID}`
       ? jsonResponse(savedSetup)
       : jsonResponse({ title: 'Not Found', status: 404 }, 404, 'application/problem+json');
-  vi.stubGlobal(
-    'fetch',
-    vi.fn(async (input: RequestInfo | URL, init?: RequestInit) => {
-      // The SDK client passes a Request; the plain helper passes a URL and init.
-      const request = input instanceof Request ? input : new Request(String(input), init);
-      const text = await request.text();
-      const call = {
-        method: request.method,
-        path: new URL(request.url).pathname,
-        body: text ? (JSON.parse(text) as unknown) : undefined,
-      };
-      calls.push(call);
-      if (call.path === '/v1/health')
-        return jsonResponse({ status: 'ok', info: { database: { status: 'up' } } });
-      return respond(call);
-    }),
-  );
+  calls = recordFetch((call) => {
+    if (call.path === '/v1/health')
+      return jsonResponse({ status: 'ok', info: { database: { status: 'up' } } });
+    return respond(call);
+  });
 });
 
 function openPlayground(search: string, role: Session['role'] = 'photographer') {

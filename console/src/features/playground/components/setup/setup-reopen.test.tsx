@@ -1,9 +1,9 @@
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { fireEvent, render, screen, waitFor, within } from '@testing-library/react';
 import { MemoryRouter } from 'react-router-dom';
-import { beforeEach, describe, expect, it, vi } from 'vitest';
+import { beforeEach, describe, expect, it } from 'vitest';
 import { SessionContext } from '@/lib/session';
-import { demoSession } from '@/test/api-stub';
+import { demoSession, recordFetch, type RecordedCall } from '@/test/api-stub';
 import { jsonResponse } from '@/test/responses';
 import { Playground } from '../playground';
 
@@ -108,39 +108,22 @@ const savedSetup = (inputs: object, resolved: object) => ({
   plan: {},
 });
 
-interface Call {
-  method: string;
-  path: string;
-  body: unknown;
-}
-let calls: Call[];
+let calls: RecordedCall[];
 let gear: typeof fullGear;
 let opened: ReturnType<typeof savedSetup>;
 
 beforeEach(() => {
-  calls = [];
   gear = fullGear;
   opened = savedSetup(linkedInputs, resolvedInputs);
-  vi.stubGlobal(
-    'fetch',
-    vi.fn(async (input: RequestInfo | URL, init?: RequestInit) => {
-      const request = input instanceof Request ? input : new Request(String(input), init);
-      const text = await request.text();
-      const call = {
-        method: request.method,
-        path: new URL(request.url).pathname,
-        body: text ? (JSON.parse(text) as unknown) : undefined,
-      };
-      calls.push(call);
-      if (call.path === '/v1/gear/lights') return jsonResponse({ data: gear.lights });
-      if (call.path === '/v1/gear/modifiers') return jsonResponse({ data: gear.modifiers });
-      if (call.path === '/v1/gear/gel-kits') return jsonResponse({ data: gear.gelKits });
-      if (call.path === `/v1/setups/${SETUP_ID}`) return jsonResponse(opened);
-      if (call.method === 'POST' && call.path === '/v1/setups')
-        return jsonResponse({ ...opened, id: id(9), name: 'Orchard again' }, 201);
-      return jsonResponse({ title: 'Not Found', status: 404 }, 404, 'application/problem+json');
-    }),
-  );
+  calls = recordFetch((call) => {
+    if (call.path === '/v1/gear/lights') return jsonResponse({ data: gear.lights });
+    if (call.path === '/v1/gear/modifiers') return jsonResponse({ data: gear.modifiers });
+    if (call.path === '/v1/gear/gel-kits') return jsonResponse({ data: gear.gelKits });
+    if (call.path === `/v1/setups/${SETUP_ID}`) return jsonResponse(opened);
+    if (call.method === 'POST' && call.path === '/v1/setups')
+      return jsonResponse({ ...opened, id: id(9), name: 'Orchard again' }, 201);
+    return jsonResponse({ title: 'Not Found', status: 404 }, 404, 'application/problem+json');
+  });
 });
 
 async function reopen() {
