@@ -21,6 +21,8 @@ export default {
   moduleNameMapper: {
     '^(\\.{1,2}/.*)\\.js$': '$1',
     '^file-type$': '<rootDir>/node_modules/file-type/index.js',
+    // Its exports map has only an `import` condition, which Jest's resolver does not use.
+    '^canonicalize$': '<rootDir>/node_modules/canonicalize/lib/canonicalize.js',
   },
   transform: { '^.+\\.(t|j)s$': swc },
   transformIgnorePatterns: [
