@@ -41,4 +41,25 @@ describe('billing page plan cards', () => {
       within(starter as HTMLElement).getByText('Test keys: 5 calls/s (bursts of 10)'),
     ).toBeTruthy();
   });
+
+  it('says a paid plan set without a subscription has nothing to cancel, and only then', async () => {
+    const billing = { plan: plans[1], subscription: null as unknown, openCheckout: null };
+    stubApi((path) => {
+      if (path === '/v1/plans') return jsonResponse({ data: plans });
+      if (path === '/v1/billing') return jsonResponse(billing);
+      if (path === '/v1/billing/invoices') return jsonResponse({ data: [] });
+      return jsonResponse({ title: 'Not Found', status: 404 }, 404, 'application/problem+json');
+    });
+    const { unmount } = renderApp('/billing');
+    expect(
+      await screen.findByText(/Workshop is set on this studio without a subscription/),
+    ).toBeTruthy();
+    expect(screen.queryByRole('button', { name: 'Cancel subscription' })).toBeNull();
+    unmount();
+
+    billing.plan = plans[0]!;
+    renderApp('/billing');
+    await screen.findByRole('heading', { level: 3, name: /^Starter/ });
+    expect(screen.queryByText(/without a subscription/)).toBeNull();
+  });
 });

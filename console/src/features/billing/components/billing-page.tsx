@@ -174,6 +174,13 @@ export function BillingPage() {
             })}
           </ul>
         )}
+        {current && current.monthlyPriceCents > 0 && billing.data && !billing.data.subscription ? (
+          // A paid plan set on the studio directly (no payments subscription): nothing to cancel.
+          <p className="mt-3 text-small text-ink-muted">
+            {current.name} is set on this studio without a subscription, so nothing is billed here
+            and there is nothing to cancel. Choosing another paid plan starts a subscription.
+          </p>
+        ) : null}
         {billing.data?.subscription ? (
           <p className="mt-3 text-small text-ink-muted">
             {subscriptionState(billing.data.subscription.status)} The current billing period ends{' '}
