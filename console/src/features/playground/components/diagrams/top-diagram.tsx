@@ -131,11 +131,13 @@ export function TopDiagram({ unit, keyLight, rim, backgroundDistance }: TopDiagr
           strokeWidth={6}
           strokeLinecap="round"
         />
+        {/* The label runs from the key toward the middle, so a long modifier name stays inside. */}
         <text
-          x={key.x + (keyLight.sideways >= 0 ? 12 : -12)}
+          x={keyLight.sideways >= 0 ? Math.min(key.x + 12, W - 4) : Math.max(key.x - 12, 4)}
           y={key.y + 22}
-          textAnchor={keyLight.sideways >= 0 ? 'start' : 'end'}
+          textAnchor={keyLight.sideways >= 0 ? 'end' : 'start'}
           className="fill-ink text-[11px]"
+          data-key-label
         >
           key ({keyLight.label}), {fixed(keyLight.angleFromCameraDeg, 0)}°
         </text>
