@@ -91,6 +91,26 @@ const withoutControls = {
 const black = 'rgb(0, 0, 0)';
 const white = 'rgb(255, 255, 255)';
 
+/**
+ * Print media at the window's desktop width (where the screen shows the navigation rail), then at
+ * a sheet's width, where the page is laid out for paper: no controls either way, and on paper black
+ * ink on white with no table cut and no sideways scroll. Returns what the paper width left.
+ */
+async function printAtBothWidths(target: Page) {
+  await target.emulateMedia({ media: 'print' });
+  await expect(printedPage(target)).resolves.toMatchObject(withoutControls);
+  await target.setViewportSize(PAPER);
+  const printed = await printedPage(target);
+  expect(printed).toMatchObject({
+    ...withoutControls,
+    background: white,
+    ink: black,
+    tablesCut: 0,
+    pageScrollsSideways: false,
+  });
+  return printed;
+}
+
 describe('printing from the console', () => {
   it('prints the Setups list without navigation or buttons, its table whole', async () => {
     await page.goto(`${baseUrl}/setups`);
@@ -102,19 +122,7 @@ describe('printing from the console', () => {
     expect(onScreen.buttons).toBeGreaterThan(0);
     expect(onScreen.searches).toBe(1);
 
-    // Print media at the window's desktop width (where the screen shows the navigation rail)...
-    await page.emulateMedia({ media: 'print' });
-    await expect(printedPage(page)).resolves.toMatchObject(withoutControls);
-    // ...and at a sheet's width, where the page is laid out for paper.
-    await page.setViewportSize(PAPER);
-    const printed = await printedPage(page);
-    expect(printed).toMatchObject({
-      ...withoutControls,
-      background: white,
-      ink: black,
-      tablesCut: 0,
-      pageScrollsSideways: false,
-    });
+    const printed = await printAtBothWidths(page);
     expect(printed.tables).toBe(1);
     await screenshot(page, 'print-setups');
   });
@@ -144,17 +152,7 @@ describe('printing from the console', () => {
     // On a night screen the swatches are dimmed.
     expect(await swatchFilters()).toContain('brightness(0.45)');
 
-    await page.emulateMedia({ media: 'print' });
-    await expect(printedPage(page)).resolves.toMatchObject(withoutControls);
-    await page.setViewportSize(PAPER);
-    const printed = await printedPage(page);
-    expect(printed).toMatchObject({
-      ...withoutControls,
-      background: white,
-      ink: black,
-      tablesCut: 0,
-      pageScrollsSideways: false,
-    });
+    const printed = await printAtBothWidths(page);
     // Swatches keep their colour on paper: not dimmed as on a night screen.
     const printedFilters = await swatchFilters();
     expect(printedFilters.length).toBeGreaterThan(0);
