@@ -93,9 +93,10 @@ async function main() {
     console.log(built.length ? `Built: ${built.join(', ')}` : 'Builds up to date.');
   }
   await must('node', ['server/dist/bin/migrate.js'], { cwd: root, env: serverEnv });
-  await must('node', ['server/dist/bin/seed.js'], { cwd: root, env: serverEnv });
+  // The seed stores the demo's test frames in the S3 fake: wait for the fakes first.
   Object.assign(fakes, await fakesReady);
   Object.assign(serverEnv, fakes.env);
+  await must('node', ['server/dist/bin/seed.js'], { cwd: root, env: serverEnv });
 
   if (dev) {
     service(

@@ -5,11 +5,12 @@ import { loadConfig } from '../config/config.js';
 import { typeormOptions } from '../database/typeorm.options.js';
 import { SEEDERS } from '../database/seeds/index.js';
 
-const ds = new DataSource({ ...typeormOptions(loadConfig().databaseUrl), logging: false });
+const config = loadConfig();
+const ds = new DataSource({ ...typeormOptions(config.databaseUrl), logging: false });
 await ds.initialize();
 try {
   for (const s of SEEDERS) {
-    await s.run(ds);
+    await s.run(ds, config);
     console.log(`seeded: ${s.name}`);
   }
 } finally {

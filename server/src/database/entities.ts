@@ -6,6 +6,7 @@ import { BILLING_ENTITIES } from '../billing/billing.entities.js';
 import { GEAR_ENTITIES } from '../gear/gear.entities.js';
 import { SetupEntity } from '../setups/setup.entity.js';
 import { IdempotencyKeyEntity } from '../idempotency/idempotency-key.entity.js';
+import { DemoSeedRowEntity } from './seeds/demo-seed-row.entity.js';
 export const ENTITIES: (new (...args: never[]) => unknown)[] = [
   ...ACCOUNTS_ENTITIES,
   PlanEntity,
@@ -14,4 +15,5 @@ export const ENTITIES: (new (...args: never[]) => unknown)[] = [
   ...GEAR_ENTITIES,
   SetupEntity,
   IdempotencyKeyEntity,
+  DemoSeedRowEntity,
 ];

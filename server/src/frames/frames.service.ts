@@ -20,7 +20,12 @@ import { thumbnail } from './analysis/decode.js';
 import { analyseFrame } from './frame-analysis.js';
 import { FrameEntity } from './frame.entity.js';
 import { ObjectStore } from './object-store.service.js';
-import { ACCEPTED_TYPES, readFrameUpload, readUploadOf } from './upload-reader.js';
+import {
+  ACCEPTED_TYPES,
+  readFrameUpload,
+  readUploadOf,
+  type FrameUpload,
+} from './upload-reader.js';
 
 @Injectable()
 export class FramesService implements IdempotentBodyCheck {
@@ -69,6 +74,18 @@ export class FramesService implements IdempotentBodyCheck {
     await this.assertUploadsAllowed(p);
     // Read already when the request carries an Idempotency-Key (its fingerprint needs the bytes).
     const up = readUploadOf(req) ?? (await readFrameUpload(req, this.config.framesMaxBytes));
+    return this.storeUpload(up, p, (req as IdempotentRequest).idempotency);
+  }
+
+  /**
+   * Analyses a read upload and stores it: the upload route's work after the form is read (the
+   * demo seeder stores its synthetic frames through it too). Call assertUploadsAllowed first.
+   */
+  async storeUpload(
+    up: FrameUpload,
+    p: Principal,
+    held?: IdempotentRequest['idempotency'],
+  ): Promise<FrameEntity> {
     const maxPixels = this.config.framesMaxPixels;
     const result = await analyseFrame({
       buf: up.buf,
@@ -88,7 +105,6 @@ export class FramesService implements IdempotentBodyCheck {
       await this.store.put(thumbnailKey, thumb, 'image/jpeg');
       written.push(thumbnailKey);
       const colour = result.analysis.colour;
-      const held = (req as IdempotentRequest).idempotency;
       return await this.ds.transaction(async (m) => {
         const saved = await m.save(
           m.create(FrameEntity, {

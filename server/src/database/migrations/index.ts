@@ -8,6 +8,7 @@ import { Billing1765065600000 } from './1765065600000-Billing.js';
 import { UserPreferences1765152000000 } from './1765152000000-UserPreferences.js';
 import { UsageErrorIndex1765238400000 } from './1765238400000-UsageErrorIndex.js';
 import { IdempotencyKeys1765324800000 } from './1765324800000-IdempotencyKeys.js';
+import { DemoSeedRows1765411200000 } from './1765411200000-DemoSeedRows.js';
 
 export const MIGRATIONS = [
   Init1764633600000,
@@ -19,4 +20,5 @@ export const MIGRATIONS = [
   UserPreferences1765152000000,
   UsageErrorIndex1765238400000,
   IdempotencyKeys1765324800000,
+  DemoSeedRows1765411200000,
 ];
