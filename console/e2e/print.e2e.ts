@@ -152,7 +152,25 @@ describe('printing from the console', () => {
     // On a night screen the swatches are dimmed.
     expect(await swatchFilters()).toContain('brightness(0.45)');
 
+    // The print button is on the screen and opens the print dialog (stood in for here: a headless
+    // browser has none to show).
+    const printButton = panel.getByRole('button', { name: 'Print this plan' });
+    await expect(printButton.isVisible()).resolves.toBe(true);
+    await page.evaluate(() => {
+      const w = window as typeof window & { printCalls?: number };
+      w.printCalls = 0;
+      w.print = () => {
+        w.printCalls = (w.printCalls ?? 0) + 1;
+      };
+    });
+    await printButton.click();
+    await expect(
+      page.evaluate(() => (window as typeof window & { printCalls?: number }).printCalls),
+    ).resolves.toBe(1);
+
     const printed = await printAtBothWidths(page);
+    // ...and not on the paper it prints.
+    await expect(printButton.isVisible()).resolves.toBe(false);
     // Swatches keep their colour on paper: not dimmed as on a night screen.
     const printedFilters = await swatchFilters();
     expect(printedFilters.length).toBeGreaterThan(0);

@@ -13,12 +13,19 @@ interface DataTableProps<Row extends RowData> {
   empty?: React.ReactNode;
   /** Pager or other controls under the table. */
   footer?: React.ReactNode;
+  /**
+   * Where the columns do not fit: `cards` (rows become cards whenever the table's box is under
+   * 48rem, so actions in the last column stay in view) or `scroll` (a long read-only list: the
+   * table scrolls sideways in its box, and turns into cards only on a phone).
+   */
+  narrow?: 'cards' | 'scroll';
 }
 
 /**
- * The one table of the console: TanStack Table for the model, our own semantic markup. On a phone
- * each row becomes a card of "label  value" lines (labels from the column headers), so actions in
- * the last column are in view without scrolling sideways.
+ * The one table of the console: TanStack Table for the model, our own semantic markup. Where the
+ * columns do not fit (a phone; with `narrow="cards"` any box under 48rem, e.g. beside the rail on a
+ * tablet) each row becomes a card of "label  value" lines (labels from the column headers), so
+ * actions in the last column are in view without scrolling sideways.
  */
 export function DataTable<Row extends RowData>({
   caption,
@@ -27,6 +34,7 @@ export function DataTable<Row extends RowData>({
   getRowId,
   empty = 'Nothing here yet.',
   footer,
+  narrow = 'cards',
 }: DataTableProps<Row>) {
   const table = useTable({
     features,
@@ -36,12 +44,13 @@ export function DataTable<Row extends RowData>({
   });
   const rows = table.getRowModel().rows;
   return (
-    <div>
+    // The container the `cards:` variant measures (styles/index.css).
+    <div className={narrow === 'cards' ? '@container/table-cards' : ''}>
       {/* relative: keeps sr-only cells (absolutely positioned) inside the scroll box on phones */}
       <div className="relative overflow-x-auto rounded-card border border-edge">
-        <table className="w-full border-collapse text-left text-small max-sm:block">
+        <table className="w-full border-collapse text-left text-small cards:block">
           <caption className="sr-only">{caption}</caption>
-          <thead className="bg-raised max-sm:sr-only">
+          <thead className="bg-raised cards:sr-only">
             {table.getHeaderGroups().map((group) => (
               <tr key={group.id}>
                 {group.headers.map((header) => (
@@ -56,10 +65,10 @@ export function DataTable<Row extends RowData>({
               </tr>
             ))}
           </thead>
-          <tbody className="max-sm:block">
+          <tbody className="cards:block">
             {rows.length === 0 ? (
-              <tr className="max-sm:block">
-                <td colSpan={columns.length} className="px-3 py-4 text-ink-muted max-sm:block">
+              <tr className="cards:block">
+                <td colSpan={columns.length} className="px-3 py-4 text-ink-muted cards:block">
                   {empty}
                 </td>
               </tr>
@@ -67,13 +76,13 @@ export function DataTable<Row extends RowData>({
               rows.map((row) => (
                 <tr
                   key={row.id}
-                  className="border-b border-edge last:border-b-0 max-sm:block max-sm:py-2"
+                  className="border-b border-edge last:border-b-0 cards:block cards:py-2"
                 >
                   {row.getAllCells().map((cell) => (
                     <td
                       key={cell.id}
                       data-label={headerText(cell.column.columnDef.header)}
-                      className="px-3 py-2 align-top text-ink tabular-nums max-sm:flex max-sm:justify-between max-sm:gap-4 max-sm:py-1 max-sm:text-right max-sm:before:text-left max-sm:before:font-semibold max-sm:before:content-[attr(data-label)]"
+                      className="px-3 py-2 align-top text-ink tabular-nums cards:flex cards:justify-between cards:gap-4 cards:py-1 cards:text-right cards:before:text-left cards:before:font-semibold cards:before:content-[attr(data-label)]"
                     >
                       <table.FlexRender cell={cell} />
                     </td>

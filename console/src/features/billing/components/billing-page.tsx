@@ -100,7 +100,8 @@ export function BillingPage() {
       ) : null}
       {billing.isError ? <Notice tone="fault">{problemMessage(billing.error)}</Notice> : null}
       {checkout.isError ? <Notice tone="fault">{problemMessage(checkout.error)}</Notice> : null}
-      <section aria-labelledby="plans-heading">
+      {/* A container: the plans sit side by side only where three fit (not beside the rail on a tablet). */}
+      <section aria-labelledby="plans-heading" className="@container">
         <h2 id="plans-heading" className="mb-3 text-title font-semibold">
           Plans
         </h2>
@@ -109,7 +110,7 @@ export function BillingPage() {
         ) : plans.isError ? (
           <Notice tone="fault">{problemMessage(plans.error)}</Notice>
         ) : (
-          <ul className="grid gap-4 md:grid-cols-3">
+          <ul className="grid gap-4 @3xl:grid-cols-3">
             {plans.data.data.map((plan) => {
               const isCurrent = plan.code === current?.code;
               return (
@@ -206,6 +207,7 @@ export function BillingPage() {
             data={invoices.data.data}
             getRowId={(i) => i.id}
             empty="No invoices yet."
+            narrow="scroll"
           />
         )}
       </section>

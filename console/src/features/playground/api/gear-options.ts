@@ -17,9 +17,18 @@ export const gearOptionKeys = {
   gelKits: ['gear', 'gel-kits'] as const,
 };
 
-// Gear edited in another browser tab reaches this one only by refetching: on every return to the
-// window ('always', not only once stale), so a pick is compared with the gear as it is now.
-const following = { staleTime: 60_000, refetchOnWindowFocus: 'always' } as const;
+/**
+ * How long the gear lists count as current. Gear edited in another browser tab reaches this one
+ * only by refetching, which happens on a return to the window (or a remount) once the lists are
+ * older than this; a quick switch away and back (a message, another tab for a moment) costs no
+ * requests. 30 s: an edit made in another tab takes longer than that to make, so on coming back
+ * the lists are normally old enough to refetch, and an edit that slips inside it is seen at the
+ * next return after that. Changes made in this tab (the Gear page invalidates `['gear']`) show at
+ * once, and saving a setup fetches the lists afresh whatever their age (`useCurrentGear`).
+ */
+export const GEAR_LISTS_FRESH_MS = 30_000;
+
+const following = { staleTime: GEAR_LISTS_FRESH_MS, refetchOnWindowFocus: true } as const;
 
 export const gearLightsQuery = queryOptions({
   queryKey: gearOptionKeys.lights,

@@ -1,5 +1,6 @@
 import { useMemo, useState } from 'react';
 import { useSearchParams } from 'react-router-dom';
+import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { CursorPager } from '@/components/ui/cursor-pager';
 import { DataTable, type DataColumn } from '@/components/ui/data-table';
@@ -105,7 +106,7 @@ export function UsagePage({ keys = NO_KEYS }: { keys?: UsageKeyLabel[] }) {
       <form
         aria-label="Usage filters"
         key={params.toString()}
-        className="grid gap-3 sm:grid-cols-3 lg:grid-cols-7 lg:items-end"
+        className="grid gap-3 sm:grid-cols-3 xl:grid-cols-6"
         onSubmit={(event) => {
           event.preventDefault();
           applyFilters(event.currentTarget);
@@ -188,17 +189,13 @@ export function UsagePage({ keys = NO_KEYS }: { keys?: UsageKeyLabel[] }) {
             <input name="keyId" defaultValue={chosenKey} className={controlClass} />
           </label>
         )}
-        <div className="flex gap-2">
-          <button
-            type="submit"
-            className="rounded-control bg-accent px-4 py-2 font-medium text-on-accent"
-          >
-            Apply
-          </button>
+        {/* Their own row under the filters: beside them the buttons had too little room and wrapped. */}
+        <div className="flex flex-wrap gap-2 sm:col-span-3 xl:col-span-6">
+          <Button type="submit">Apply</Button>
           <a
             href={usageCsvHref(filter)}
             download
-            className="rounded-control border border-edge-strong px-4 py-2 font-medium text-ink no-underline"
+            className="rounded-control border border-edge-strong px-4 py-2 font-medium whitespace-nowrap text-ink no-underline"
           >
             Export CSV
           </a>
@@ -243,6 +240,7 @@ export function UsagePage({ keys = NO_KEYS }: { keys?: UsageKeyLabel[] }) {
               data={summary.data.byEndpoint}
               getRowId={(r) => r.endpoint}
               empty="No calls in this range."
+              narrow="scroll"
             />
           </>
         )}
@@ -263,6 +261,7 @@ export function UsagePage({ keys = NO_KEYS }: { keys?: UsageKeyLabel[] }) {
             data={events.data.data}
             getRowId={(e) => e.id}
             empty="No calls match these filters."
+            narrow="scroll"
             footer={<CursorPager nextCursor={events.data.nextCursor} label="Calls" />}
           />
         )}

@@ -2,7 +2,9 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
+import { Button } from '@/components/ui/button';
 import { Dialog } from '@/components/ui/dialog';
+import { Notice } from '@/components/ui/notice';
 import { FormActions } from '@/components/ui/form-actions';
 import { TextField } from '@/components/ui/text-field';
 import { applyServerErrors } from '@/lib/form-errors';
@@ -26,6 +28,12 @@ const fields = ['name', 'venue', 'date', 'timeZone', 'notes'] as const;
 /** Server field paths mapped onto this form; other `inputs.*` complaints show above the buttons. */
 const fieldMap = { 'inputs.date': 'date', 'inputs.timeZone': 'timeZone' } as const;
 
+/** Why a save was stopped before sending; `retry` offers "Try again" (nothing needs changing). */
+export interface SaveStop {
+  message: string;
+  retry?: boolean;
+}
+
 interface SaveSetupDialogProps {
   open: boolean;
   onClose: () => void;
@@ -34,8 +42,8 @@ interface SaveSetupDialogProps {
   /** Prefill, e.g. venue and notes of a reopened setup (names must be new: the server refuses repeats). */
   initial?: Partial<Pick<SaveValues, 'name' | 'venue' | 'notes'>>;
   onSaved: (setup: OpenedSetup) => void;
-  /** Run before sending; a message instead of null stops the save and is shown. */
-  checkBeforeSave?: () => Promise<string | null>;
+  /** Run before sending; a stop instead of null stops the save and is shown. */
+  checkBeforeSave?: () => Promise<SaveStop | null>;
 }
 
 export function toSaveBody(values: SaveValues, input: SavedSetupInputs): NewSavedSetup {
@@ -70,6 +78,8 @@ function SaveSetupForm({
 }: SaveSetupDialogProps) {
   const save = useSaveSetup();
   const [formError, setFormError] = useState<string | null>(null);
+  // A check that could not run: shown with "Try again"; the boxes keep what was typed.
+  const [retryable, setRetryable] = useState<string | null>(null);
   const {
     register,
     handleSubmit,
@@ -88,9 +98,11 @@ function SaveSetupForm({
 
   const onSubmit = handleSubmit(async (values) => {
     setFormError(null);
+    setRetryable(null);
     const stop = checkBeforeSave ? await checkBeforeSave() : null;
     if (stop) {
-      setFormError(stop);
+      if (stop.retry) setRetryable(stop.message);
+      else setFormError(stop.message);
       return;
     }
     try {
@@ -118,6 +130,19 @@ function SaveSetupForm({
         error={errors.notes?.message}
         {...register('notes')}
       />
+      {retryable ? (
+        <Notice tone="fault" className="flex flex-wrap items-center gap-x-3 gap-y-2 sm:col-span-2">
+          <span className="min-w-0 flex-1 basis-48">{retryable}</span>
+          <Button
+            variant="secondary"
+            size="sm"
+            disabled={isSubmitting}
+            onClick={() => void onSubmit()}
+          >
+            Try again
+          </Button>
+        </Notice>
+      ) : null}
       <FormActions
         error={formError}
         submitLabel="Save setup"

@@ -1,11 +1,13 @@
 import { QueryClient, QueryClientProvider, focusManager } from '@tanstack/react-query';
 import { act, fireEvent, render, screen, waitFor, within } from '@testing-library/react';
 import { MemoryRouter } from 'react-router-dom';
-import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { SessionContext } from '@/lib/session';
 import { demoSession, recordFetch, type RecordedCall } from '@/test/api-stub';
 import { jsonResponse } from '@/test/responses';
+import { GEAR_LISTS_FRESH_MS } from '../../api/gear-options';
 import { Playground } from '../playground';
+import { SETUP_DEFAULTS } from './setup-form';
 
 // Picked gear edited or deleted elsewhere (another tab) between picking and saving. The studio's
 // gear below is invented; the stubbed API answers with it as it is at the time of each request.
@@ -27,8 +29,16 @@ const piece = (n: number, name: string, miredShift: number, position: number) =>
 });
 
 let calls: RecordedCall[];
+/** While true the gear lists answer 503, as when the API is briefly unreachable. */
+let gearDown: boolean;
+/** How far the clock TanStack Query reads (Date.now) is moved ahead of the real one. */
+let clockAhead: number;
 
 beforeEach(() => {
+  gearDown = false;
+  clockAhead = 0;
+  const realNow = Date.now.bind(Date);
+  vi.spyOn(Date, 'now').mockImplementation(() => realNow() + clockAhead);
   gear = {
     lights: [{ id: id(1), name: 'Porch pack', guideNumber: 58, guideNumberUnit: 'm' }],
     modifiers: [
@@ -52,6 +62,12 @@ beforeEach(() => {
     ],
   };
   calls = recordFetch((call) => {
+    if (gearDown && call.path.startsWith('/v1/gear/'))
+      return jsonResponse(
+        { title: 'Service Unavailable', status: 503, detail: 'The database is not answering.' },
+        503,
+        'application/problem+json',
+      );
     if (call.path === '/v1/gear/lights') return jsonResponse({ data: gear.lights });
     if (call.path === '/v1/gear/modifiers') return jsonResponse({ data: gear.modifiers });
     if (call.path === '/v1/gear/gel-kits') return jsonResponse({ data: gear.gelKits });
@@ -83,15 +99,27 @@ const pick = async (scope: HTMLElement, label: string, value: string) =>
   fireEvent.change(await within(scope).findByLabelText(label), { target: { value } });
 const gearFetches = () => calls.filter((c) => c.path.startsWith('/v1/gear/')).length;
 
-/** Leave the window and come back, as after editing the gear in another tab: the lists refetch. */
-async function returnToWindow() {
-  const before = gearFetches();
+/** Leave the window and come back. */
+function switchWindows() {
   act(() => {
     focusManager.setFocused(false);
     focusManager.setFocused(true);
   });
+}
+
+/**
+ * Come back after longer than the lists stay current, as after editing the gear in another tab:
+ * the lists refetch.
+ */
+async function returnToWindow() {
+  const before = gearFetches();
+  clockAhead += GEAR_LISTS_FRESH_MS + 1_000;
+  switchWindows();
   await waitFor(() => expect(gearFetches()).toBeGreaterThanOrEqual(before + 3));
 }
+
+/** Let requests a refetch would start get under way. */
+const settle = () => act(() => new Promise((resolve) => setTimeout(resolve, 50)));
 
 type Saved = {
   key: Record<string, unknown>;
@@ -211,6 +239,78 @@ describe('Dusk setup: picked gear that changes before saving', () => {
     const { inputs } = setupPosts()[0]!.body as { inputs: Saved };
     expect(inputs.key).not.toHaveProperty('lightId');
     expect(inputs.key).toMatchObject({ guideNumber: 58 });
+  });
+});
+
+describe('Dusk setup: the gear lists cannot be fetched when saving', () => {
+  it('saves nothing, says so with a retry, keeps every entry, and saves on “Try again”', async () => {
+    const { panel, group } = await open('setup');
+    await pick(group('Key light'), 'Key light from your gear', id(1));
+    // Held now: while the dialog is open the form is out of the accessibility tree.
+    const distance = within(group('Key light')).getByLabelText('Distance (m)');
+    const guideNumber = within(group('Key light')).getByLabelText('Guide number');
+    fireEvent.change(distance, { target: { value: '3.5' } });
+    gearDown = true;
+
+    fireEvent.click(within(panel).getByRole('button', { name: 'Save setup' }));
+    const dialog = await screen.findByRole('dialog');
+    fireEvent.change(within(dialog).getByLabelText('Name'), { target: { value: 'Porch' } });
+    fireEvent.change(within(dialog).getByLabelText('Venue (optional)'), {
+      target: { value: 'Harbour steps' },
+    });
+    fireEvent.click(within(dialog).getByRole('button', { name: 'Save setup' }));
+
+    const alert = await within(dialog).findByRole('alert');
+    expect(alert.textContent).toContain('could not be checked before saving');
+    expect(alert.textContent).toContain('The database is not answering');
+    expect(alert.textContent).toContain('Nothing was saved');
+    expect(setupPosts()).toHaveLength(0);
+    // Everything typed is still there: the dialog's boxes and the playground's.
+    expect(valueOf(within(dialog).getByLabelText('Name'))).toBe('Porch');
+    expect(valueOf(within(dialog).getByLabelText('Venue (optional)'))).toBe('Harbour steps');
+    expect(valueOf(distance)).toBe('3.5');
+    expect(valueOf(guideNumber)).toBe('58');
+
+    // Back up: "Try again" checks the gear and saves what was typed, the light named by id.
+    gearDown = false;
+    fireEvent.click(within(alert).getByRole('button', { name: 'Try again' }));
+    await waitFor(() => expect(setupPosts()).toHaveLength(1));
+    const body = setupPosts()[0]!.body as { name: string; venue: string; inputs: Saved };
+    expect(body).toMatchObject({ name: 'Porch', venue: 'Harbour steps' });
+    expect(body.inputs.key).toMatchObject({ lightId: id(1), distance: 3.5 });
+  });
+
+  it('saves as usual with nothing picked from the gear: there is no id to check', async () => {
+    const { panel } = await open('setup');
+    await waitFor(() => expect(gearFetches()).toBe(3));
+    gearDown = true;
+    const inputs = await save(panel);
+    expect(inputs.key).toMatchObject({ guideNumber: SETUP_DEFAULTS.keyGuideNumber });
+    expect(inputs.key).not.toHaveProperty('lightId');
+    // The save did not ask for the lists.
+    expect(gearFetches()).toBe(3);
+  });
+});
+
+describe('Gear lists and window focus', () => {
+  it('does not refetch on a quick return to the window, and does once the lists are old', async () => {
+    const { group } = await open('setup');
+    await waitFor(() => expect(gearFetches()).toBe(3));
+    await pick(group('Key light'), 'Key light from your gear', id(1));
+    gear.lights[0] = { ...gear.lights[0], guideNumber: 64 };
+
+    // A few seconds away: no requests, and the edit is not seen yet.
+    clockAhead += 5_000;
+    switchWindows();
+    await settle();
+    expect(gearFetches()).toBe(3);
+    expect(within(group('Key light')).queryByTestId('gear-pick-changed')).toBeNull();
+
+    // Back after the lists have aged past GEAR_LISTS_FRESH_MS: one fetch of each, edit seen.
+    await returnToWindow();
+    await settle();
+    expect(gearFetches()).toBe(6);
+    expect(await within(group('Key light')).findByTestId('gear-pick-changed')).toBeTruthy();
   });
 });
 

@@ -1,6 +1,6 @@
-import { render, screen, within } from '@testing-library/react';
+import { fireEvent, render, screen, within } from '@testing-library/react';
 import { planDuskSetup, type DuskSetupInput } from '@lumenwright/shared';
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { SetupResultView } from './setup-result';
 
 // An evening on a tripod at f/2.8 where a GN 40 m key at 2 m soon needs less than its lowest
@@ -49,5 +49,20 @@ describe('Dusk setup result: minutes planned at a darker background', () => {
     render(<SetupResultView plan={old as never} input={input} />);
     expect(rowsOf().length).toBe(plan.suggestedMinutes.length);
     expect(screen.queryByText(/darker$/)).toBeNull();
+  });
+});
+
+describe('Dusk setup result: printing', () => {
+  it('opens the browser’s print dialog from “Print this plan”, once per click', () => {
+    // happy-dom has no print dialog: stand one in (unstubbed after each test by the config).
+    const print = vi.fn();
+    vi.stubGlobal('print', print);
+    render(<SetupResultView plan={planDuskSetup(input)} input={input} />);
+    const button = screen.getByRole('button', { name: 'Print this plan' });
+    expect(print).not.toHaveBeenCalled();
+    fireEvent.click(button);
+    expect(print).toHaveBeenCalledTimes(1);
+    // Kept off the paper by Tailwind's print variant (print.css also hides every button).
+    expect(button.className.split(/\s+/)).toContain('print:hidden');
   });
 });

@@ -1,4 +1,5 @@
 import { fromMetres, type DuskSetupInput, type DuskSetupPlan } from '@lumenwright/shared';
+import { PrintButton } from '@/components/ui/print-button';
 import { clockTime, fixed, signed, stops } from '../../utils/format';
 import { Swatches } from '../balance/swatches';
 import { Cautions } from '../cautions';
@@ -17,6 +18,10 @@ export function SetupResultView({ plan, input }: { plan: DuskSetupPlan; input: D
   const first = plan.suggestedMinutes[0];
   return (
     <div className="flex flex-col gap-4" data-testid="setup-plan">
+      {/* Paper for the evening: the page prints as print.css lays it out (no controls). */}
+      <div className="flex justify-end print:hidden">
+        <PrintButton label="Print this plan" />
+      </div>
       <div className="rounded-card border border-edge bg-panel p-4">
         <Readouts
           items={[
