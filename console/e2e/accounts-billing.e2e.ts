@@ -331,6 +331,10 @@ describe('accounts and billing in a real browser', () => {
     // The upload joins the recent frames with its server-made thumbnail.
     const recent = page.getByRole('region', { name: 'Recent frames' });
     await recent.getByText(/^d65-patch\.png · \d+ K$/).waitFor();
+    // The frame shown above is the one marked among the recent frames.
+    await expect(
+      recent.getByRole('button', { name: /^d65-patch\.png/ }).getAttribute('aria-pressed'),
+    ).resolves.toBe('true');
     await page.waitForFunction(
       () => {
         const thumb = document.querySelector<HTMLImageElement>(

@@ -262,7 +262,8 @@ export function FramesPage({ plan }: { plan?: FramesPlan }) {
                 <button
                   type="button"
                   onClick={() => setResult(frame)}
-                  className="w-full rounded-card border border-edge bg-panel p-2 text-left"
+                  aria-pressed={result?.id === frame.id}
+                  className={`w-full rounded-card border bg-panel p-2 text-left ${result?.id === frame.id ? 'border-accent outline-1 outline-accent' : 'border-edge'}`}
                 >
                   <img
                     src={frame.thumbnailUrl}
@@ -279,6 +280,7 @@ export function FramesPage({ plan }: { plan?: FramesPlan }) {
                 </button>
                 <Button
                   variant="secondary"
+                  size="sm"
                   className="self-start"
                   aria-label={`Delete ${frame.fileName ?? 'frame'} (${formatDateTime(frame.createdAt)})`}
                   onClick={() => {
