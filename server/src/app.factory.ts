@@ -65,6 +65,14 @@ export async function createApp(
       void reply.code(problem.status).type('application/problem+json').send(problem);
     },
     clientErrorHandler: writeClientError,
+    // Slow clients (HTTP_*_TIMEOUT_MS in src/config/config.ts): a head or a whole request that
+    // takes too long to arrive is answered 408 (writeClientError) and the connection closed.
+    http: {
+      headersTimeout: config.httpHeadersTimeoutMs,
+      connectionsCheckingInterval: checkingIntervalMs(config.httpHeadersTimeoutMs),
+    },
+    requestTimeout: config.httpRequestTimeoutMs,
+    keepAliveTimeout: config.httpKeepAliveTimeoutMs,
   });
   const app = await NestFactory.create<NestFastifyApplication>(AppModule.forRoot(config), adapter, {
     preview: opts.preview ?? false,
@@ -182,6 +190,15 @@ function registerJsonBodies(fastify: FastifyInstance, bodyLimit: number) {
  * Requests Node's HTTP parser refuses (headers too large, a timeout, malformed HTTP) never reach
  * Fastify: answer them on the socket as problem+json, then close it.
  */
+/**
+ * How often Node checks the head and request timeouts of open connections (its default, 30 s,
+ * would let a slow head hold a connection up to 30 s past a 10 s limit): a quarter of the head's
+ * limit, at most 1 s. One pass over the connections each time: nothing next to the requests.
+ */
+export function checkingIntervalMs(headersTimeoutMs: number): number {
+  return Math.min(1000, Math.floor(headersTimeoutMs / 4));
+}
+
 function writeClientError(err: NodeJS.ErrnoException, socket: Duplex): void {
   if (err.code === 'ECONNRESET' || socket.destroyed) return;
   const status =

@@ -1,9 +1,11 @@
 // Billing e-mails to the organisation's owners, through the durable mail queue (templates
-// 'payment-succeeded', 'payment-failed' and 'seats-over-plan' in src/mail/templates.ts).
+// 'payment-succeeded', 'payment-failed' and 'seats-over-plan' in src/mail/templates.ts). A failed
+// payment that also leaves more members than seats is one 'payment-failed' e-mail saying both.
 import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource, EntityManager } from 'typeorm';
 import { MailService, type MailJob } from '../mail/mail.service.js';
+import type { SeatsAfterFailedPayment } from '../mail/templates.js';
 
 export interface PaymentMail {
   kind: 'payment-succeeded' | 'payment-failed';
@@ -11,6 +13,8 @@ export interface PaymentMail {
   invoiceId: string;
   amount: string;
   planName: string;
+  /** Payment failed, and the plan it leaves the studio on has fewer seats than its members. */
+  seats?: SeatsAfterFailedPayment;
 }
 
 /** A plan change (by webhook) left more members than the new plan's seats. */
@@ -48,6 +52,7 @@ export class BillingMailer {
         planName: m.planName,
         invoiceId: m.invoiceId,
         link,
+        ...(m.seats ? { seats: m.seats } : {}),
       };
       await this.mail.send({ template: m.kind, to: o.email, data } as MailJob, within);
     }

@@ -4,6 +4,10 @@
 // never comes back, and a paid invoice never goes back to open.
 // A plan change always applies, even to fewer seats than members; the owners are then told by
 // e-mail, once: only the event that changes the plan sends it, and a replay is never processed.
+// When the change comes from a failed payment (subscription past due or unpaid), the owners get
+// one e-mail for both causes: the payment-failed e-mail, which then also says the seats; the
+// subscription event sends nothing more. That holds in either order of the two events, since the
+// invoice event works out the plan the failure leaves (not the plan held when it arrives).
 import { BadRequestException, Inject, Injectable, Logger } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import type Stripe from 'stripe';
@@ -32,6 +36,8 @@ const INVOICE_RANK: Record<string, number> = {
   uncollectible: 2,
 };
 const ENTITLED = ['active', 'trialing'];
+/** Not entitled because a payment failed: the payment-failed e-mail tells the owners. */
+const PAYMENT_FAILED = ['past_due', 'unpaid'];
 const at = (unix: number | null | undefined) => (unix ? new Date(unix * 1000) : null);
 
 @Injectable()
@@ -189,7 +195,7 @@ export class WebhookService {
     });
     const { code: effective, from } = await this.applyPlan(m, orgId);
     after.push(async () => this.plans.forget(orgId));
-    const over = from === null ? '' : await this.seatsOverPlan(m, orgId, from);
+    const over = from === null ? '' : await this.seatsOverPlan(m, orgId, from, sub.status);
     if (ENTITLED.includes(sub.status)) {
       // A new plan replaces the old subscription: cancel any other one still running.
       const others = await m.query(
@@ -235,13 +241,22 @@ export class WebhookService {
   /**
    * After a move to a plan with fewer seats, more members than the new seats: the change stands
    * (nobody new joins until the team fits) and each owner gets an e-mail, queued in the event's
-   * transaction.
+   * transaction. A drop caused by a failed payment sends nothing here: the payment-failed e-mail
+   * of the invoice event says the seats too.
    * Returns a note for the event's outcome.
    */
-  private async seatsOverPlan(m: EntityManager, orgId: string, from: string): Promise<string> {
+  private async seatsOverPlan(
+    m: EntityManager,
+    orgId: string,
+    from: string,
+    status: string,
+  ): Promise<string> {
     const u = await seatUsage(m, orgId);
     const before = await m.findOneBy(PlanEntity, { code: from });
     if (u.members <= u.seats || (before && before.seats <= u.seats)) return '';
+    if (PAYMENT_FAILED.includes(status)) {
+      return `; ${u.members} members over ${u.seats} seats (told in the payment-failed e-mail)`;
+    }
     const mail = {
       organizationId: orgId,
       planName: u.planName,
@@ -310,16 +325,49 @@ export class WebhookService {
     });
     if ((event.type === 'invoice.paid' && total > 0) || event.type === 'invoice.payment_failed') {
       const plan = lines.find((l) => l.kind === 'plan')?.description ?? 'your plan';
+      const failed = event.type === 'invoice.payment_failed';
+      const seats = failed ? await this.seatsAfterFailedPayment(m, orgId, subscriptionId) : null;
       const mail: PaymentMail = {
-        kind: event.type === 'invoice.paid' ? 'payment-succeeded' : 'payment-failed',
+        kind: failed ? 'payment-failed' : 'payment-succeeded',
         organizationId: orgId,
         invoiceId: inv.id!,
         amount: `${(total / 100).toFixed(2)} ${inv.currency.toUpperCase()}`,
         planName: plan,
+        ...(seats ? { seats: { ...seats, teamLink: `${this.config.publicUrl}/team` } } : {}),
       };
       await this.mailer.send(mail, `${this.config.publicUrl}/billing`, m);
     }
     return `invoice ${inv.status}${note}`;
+  }
+
+  /**
+   * The plan a failed payment of `subscriptionId` leaves the organisation on (its newest other
+   * subscription in good standing, else free), when that plan has fewer seats than the members
+   * and fewer than the subscription's own plan: the same rule as the seats notice, worked out
+   * whether or not the subscription event that applies the drop has arrived yet.
+   */
+  private async seatsAfterFailedPayment(
+    m: EntityManager,
+    orgId: string,
+    subscriptionId: string | null,
+  ): Promise<{ planName: string; seats: number; members: number } | null> {
+    if (!subscriptionId) return null;
+    const rows: { lost_seats: number; name: string; seats: number; members: number }[] =
+      await m.query(
+        `SELECT lost.seats AS lost_seats, fallback.name, fallback.seats,
+                (SELECT count(*)::int FROM memberships WHERE organization_id = $1) AS members
+           FROM billing_subscriptions s
+           JOIN plans lost ON lost.code = s.plan_code
+           JOIN plans fallback ON fallback.code = coalesce(
+                (SELECT plan_code FROM billing_subscriptions
+                  WHERE organization_id = $1 AND id <> $2 AND status = ANY($3)
+                  ORDER BY started_at DESC, state_as_of DESC LIMIT 1), 'free')
+          WHERE s.id = $2 AND s.organization_id = $1`,
+        [orgId, subscriptionId, ENTITLED],
+      );
+    const r = rows[0];
+    if (!r || r.members <= r.seats || r.lost_seats <= r.seats) return null;
+    return { planName: r.name, seats: r.seats, members: r.members };
   }
 
   /** Reports the period's metered overage onto the draft invoice (once: idempotency key). */

@@ -25,7 +25,9 @@ export function ComputeRoute(
     HttpCode(200),
     ApiKeyAuth(),
     IdempotentMeteredCall(),
-    RouteConfig({ meter: endpoint, idempotent: true } satisfies MeterRouteConfig &
+    // 'compute': nothing stored but the usage count, so a key whose answer write failed is let
+    // go and a stuck one is stale after 30 s (idempotency.hook.ts).
+    RouteConfig({ meter: endpoint, idempotent: 'compute' } satisfies MeterRouteConfig &
       IdempotentRouteConfig),
     ApiOperation({ summary }),
     ApiBody({ type: body }),

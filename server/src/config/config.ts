@@ -12,6 +12,12 @@ export interface AppConfig {
   consoleDist: string | null;
   logLevel: string;
   bodyLimitBytes: number;
+  /** Slow clients: the longest the request head may take to arrive (Node's headersTimeout). */
+  httpHeadersTimeoutMs: number;
+  /** The longest a whole request (head and body) may take to arrive; sized for the largest upload. */
+  httpRequestTimeoutMs: number;
+  /** How long an idle keep-alive connection stays open between requests. */
+  httpKeepAliveTimeoutMs: number;
   smtpUrl: string | null;
   mailFrom: string;
   /** The Redis behind RATE_LIMIT_STORE=redis (required then, unused otherwise). */
@@ -45,6 +51,21 @@ export interface AppConfig {
 }
 
 export class ConfigError extends Error {}
+
+/**
+ * The upload speed the default request timeout allows for: 1 Mbit/s, a weak mobile uplink on
+ * location (an assumption, common practice, no source). The largest upload (FRAMES_MAX_BYTES,
+ * 25 MiB by default) takes 25 × 1,048,576 × 8 / 1,000,000 ≈ 210 s at that speed.
+ */
+export const SLOW_LINK_BITS_PER_SECOND = 1_000_000;
+/** Added to the upload's transfer time: the head, the multipart framing, a TLS handshake, jitter. */
+export const REQUEST_TIMEOUT_MARGIN_MS = 30_000;
+
+/** The default request timeout: the largest upload at SLOW_LINK_BITS_PER_SECOND, plus the margin. */
+export function requestTimeoutFor(maxUploadBytes: number): number {
+  const transferMs = Math.ceil((maxUploadBytes * 8 * 1000) / SLOW_LINK_BITS_PER_SECOND);
+  return Math.ceil((transferMs + REQUEST_TIMEOUT_MARGIN_MS) / 1000) * 1000;
+}
 
 function int(env: NodeJS.ProcessEnv, name: string, fallback: number, min: number, max: number) {
   const raw = env[name];
@@ -92,6 +113,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
       'RATE_LIMIT_STORE=redis needs REDIS_URL (e.g. redis://127.0.0.1:6379): the Redis that holds the shared rate-limit buckets',
     );
   }
+  const framesMaxBytes = int(env, 'FRAMES_MAX_BYTES', 25 * 1024 * 1024, 1024, 200 * 1024 * 1024);
+  const http = httpTimeouts(env, framesMaxBytes);
   return {
     nodeEnv,
     host,
@@ -103,6 +126,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     consoleDist: env.CONSOLE_DIST ?? null,
     logLevel: env.LOG_LEVEL ?? (nodeEnv === 'test' ? 'silent' : 'info'),
     bodyLimitBytes: int(env, 'BODY_LIMIT_BYTES', 100 * 1024, 1024, 50 * 1024 * 1024),
+    ...http,
     smtpUrl,
     mailFrom: env.MAIL_FROM ?? 'Lumenwright <no-reply@lumenwright.test>',
     redisUrl,
@@ -123,7 +147,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     s3Region: env.S3_REGION ?? 'us-east-1',
     s3AccessKeyId: env.S3_ACCESS_KEY_ID ?? '',
     s3SecretAccessKey: env.S3_SECRET_ACCESS_KEY ?? '',
-    framesMaxBytes: int(env, 'FRAMES_MAX_BYTES', 25 * 1024 * 1024, 1024, 200 * 1024 * 1024),
+    framesMaxBytes,
     framesMaxPixels: int(env, 'FRAMES_MAX_PIXELS', 100_000_000, 1, 1_000_000_000),
     framesOrphanMinAgeMinutes: int(env, 'FRAMES_ORPHAN_MIN_AGE_MINUTES', 60, 10, 7 * 24 * 60),
     framesSweepIntervalMinutes: int(env, 'FRAMES_SWEEP_INTERVAL_MINUTES', 60, 0, 7 * 24 * 60),
@@ -132,6 +156,31 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     paymentsWebhookSecret: env.PAYMENTS_WEBHOOK_SECRET ?? '',
     paymentsRegisterWebhook: env.PAYMENTS_REGISTER_WEBHOOK === 'true',
   };
+}
+
+/**
+ * Limits against slow clients. Node's defaults here: 60 s for the head, Fastify's 0 (none) for
+ * the whole request, 72 s keep-alive. The head arrives in one packet from any ordinary client, so
+ * 10 s is generous; the whole request gets the time the largest upload needs on a slow link; an
+ * idle keep-alive connection is kept 65 s, longer than the 60 s idle timeout common at load
+ * balancers (common practice, no source), so the balancer closes it first, never mid-reuse.
+ */
+function httpTimeouts(env: NodeJS.ProcessEnv, framesMaxBytes: number) {
+  const httpHeadersTimeoutMs = int(env, 'HTTP_HEADERS_TIMEOUT_MS', 10_000, 1_000, 120_000);
+  const httpRequestTimeoutMs = int(
+    env,
+    'HTTP_REQUEST_TIMEOUT_MS',
+    requestTimeoutFor(framesMaxBytes),
+    1_000,
+    3_600_000,
+  );
+  if (httpRequestTimeoutMs < httpHeadersTimeoutMs) {
+    throw new ConfigError(
+      `HTTP_REQUEST_TIMEOUT_MS (${httpRequestTimeoutMs}) must be at least HTTP_HEADERS_TIMEOUT_MS (${httpHeadersTimeoutMs}): the whole request includes its head`,
+    );
+  }
+  const httpKeepAliveTimeoutMs = int(env, 'HTTP_KEEP_ALIVE_TIMEOUT_MS', 65_000, 1_000, 600_000);
+  return { httpHeadersTimeoutMs, httpRequestTimeoutMs, httpKeepAliveTimeoutMs };
 }
 
 function rateLimitStore(raw: string | undefined): AppConfig['rateLimitStore'] {

@@ -19,6 +19,7 @@ import { APP_CONFIG, type AppConfig } from '../config/config.js';
 import { KeyReadGuard, MeteredCallGuard } from '../plans/metered-call.guard.js';
 import type { MeteredRequestExtras } from '../usage/usage-event.js';
 import { IDEMPOTENCY_KEY_HEADER, parseIdempotencyKey } from './idempotency-header.js';
+import { staleMsFor, type IdempotentRouteConfig } from './idempotency.hook.js';
 import { IdempotencyService, type HeldKey, type StoredAnswer } from './idempotency.service.js';
 
 /**
@@ -105,7 +106,13 @@ export class IdempotencyGuard implements CanActivate {
     if (spec?.check) await this.moduleRef.get(spec.check, { strict: false }).beforeRead(req);
     const body = spec ? await spec.reader(req, this.config) : jsonBodyIdentity(req);
     const fingerprint = fingerprintOf(req.method, req.routeOptions.url ?? req.url, body);
-    const claim = await this.keys.claim(callerOf(p), key, p.organizationId, fingerprint);
+    const claim = await this.keys.claim(
+      callerOf(p),
+      key,
+      p.organizationId,
+      fingerprint,
+      staleMsFor(req.routeOptions.config as IdempotentRouteConfig | undefined),
+    );
     switch (claim.kind) {
       case 'held':
         req.idempotency = claim.held;

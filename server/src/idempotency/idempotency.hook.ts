@@ -19,10 +19,27 @@ import type {
 } from 'fastify';
 import { appendRouteHook } from '../common/http/scoped-hooks.js';
 import type { IdempotentRequest } from './idempotency.guard.js';
-import { IdempotencyService } from './idempotency.service.js';
+import {
+  COMPUTE_IDEMPOTENCY_STALE_MS,
+  IDEMPOTENCY_STALE_MS,
+  IdempotencyService,
+} from './idempotency.service.js';
 
 export interface IdempotentRouteConfig {
-  idempotent?: boolean;
+  /**
+   * `true`: the route may store something (an upload). Its answer is written with what it stores;
+   * a key whose answer write failed stays in flight (a retry is told to wait, never run twice)
+   * until it is stale (IDEMPOTENCY_STALE_MS, 10 minutes).
+   * `'compute'`: the route changes nothing but the usage count. When the answer's write fails the
+   * key is let go, and a key left in flight is stale after COMPUTE_IDEMPOTENCY_STALE_MS (30 s):
+   * a retry then runs again (and is counted again) rather than getting 409 for ten minutes.
+   */
+  idempotent?: true | 'compute';
+}
+
+/** How long a key in flight on this route blocks a retry of the same request. */
+export function staleMsFor(config: IdempotentRouteConfig | undefined): number {
+  return config?.idempotent === 'compute' ? COMPUTE_IDEMPOTENCY_STALE_MS : IDEMPOTENCY_STALE_MS;
 }
 
 const NOT_STORED = new Set([401, 403, 408, 409, 425, 429]);
@@ -65,7 +82,8 @@ export class IdempotencyHook {
   }
 
   attach(route: RouteOptions): void {
-    if (!(route.config as IdempotentRouteConfig | undefined)?.idempotent) return;
+    const kind = (route.config as IdempotentRouteConfig | undefined)?.idempotent;
+    if (!kind) return;
     const onSend: onSendHookHandler = (req, reply, payload, done) => {
       const held = (req as IdempotentRequest).idempotency;
       if (!held || held.settled) return done(null, payload);
@@ -82,14 +100,20 @@ export class IdempotencyHook {
           ? this.keys.complete(held, { status, headers: replayedHeaders(reply.getHeaders()), body })
           : this.keys.release(held);
       // A failed write leaves the key in flight (a retry is told to wait, never run twice) until
-      // it goes stale; the caller still gets this answer.
-      write.then(
-        () => done(null, payload),
-        (err: unknown) => {
+      // it goes stale; the caller still gets this answer. A computation's key is let go instead
+      // (best effort: the database may still be away, and then the short stale time frees it).
+      write
+        .catch(async (err: unknown) => {
           this.logger.warn(`idempotency key not settled: ${(err as Error).message}`);
-          done(null, payload);
-        },
-      );
+          if (kind === 'compute') await this.keys.release(held);
+        })
+        .then(
+          () => done(null, payload),
+          (err: unknown) => {
+            this.logger.warn(`idempotency key not let go: ${(err as Error).message}`);
+            done(null, payload);
+          },
+        );
     };
     // An answer that never went through onSend (the connection closed first): let the key go.
     const onResponse: onResponseHookHandler = (req, _reply, done) => {

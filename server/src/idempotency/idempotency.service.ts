@@ -11,9 +11,18 @@ export const IDEMPOTENCY_TTL_MS = 24 * 3600_000;
 /**
  * A key still marked in flight this long after its request started belongs to a request that
  * will never finish (its instance stopped mid-request): a retry with the same body may take it
- * over. Far longer than any upload or computation takes.
+ * over. Far longer than any upload takes. For routes that store something (uploads).
  */
 export const IDEMPOTENCY_STALE_MS = 10 * 60_000;
+/**
+ * The same for computations (routes marked `idempotent: 'compute'`): they change nothing but the
+ * usage count, so running one twice costs at most one more counted call, never a second stored
+ * thing. A computation answers in milliseconds (the benchmark's p99 is tens of ms), so a key in
+ * flight for 30 s is one whose answer was never stored (instance stopped, or the answer's write
+ * failed and so did letting the key go): a retry then runs again instead of getting 409 for ten
+ * minutes.
+ */
+export const COMPUTE_IDEMPOTENCY_STALE_MS = 30_000;
 
 /** A key this request holds until its answer is stored (or let go). */
 export interface HeldKey {
@@ -72,8 +81,18 @@ export class IdempotencyService {
     }) as Promise<T[]>;
   }
 
-  /** What a request carrying `key` may do: run (it holds the key now), replay, or be refused. */
-  async claim(caller: string, key: string, orgId: string, fingerprint: string): Promise<Claim> {
+  /**
+   * What a request carrying `key` may do: run (it holds the key now), replay, or be refused.
+   * `staleMs`: how long a key in flight for the same request blocks it (the route's kind; the
+   * fingerprint includes the route, so a takeover is always by the same route).
+   */
+  async claim(
+    caller: string,
+    key: string,
+    orgId: string,
+    fingerprint: string,
+    staleMs = IDEMPOTENCY_STALE_MS,
+  ): Promise<Claim> {
     // Twice at most: a key let go (or expired) between the two statements is free again.
     for (let attempt = 0; attempt < 3; attempt++) {
       const claimed = await this.query<{ claimed_at: string }>(CLAIM, [
@@ -82,7 +101,7 @@ export class IdempotencyService {
         orgId,
         fingerprint,
         IDEMPOTENCY_TTL_MS,
-        IDEMPOTENCY_STALE_MS,
+        staleMs,
       ]);
       if (claimed[0])
         return { kind: 'held', held: { caller, key, claimedAt: claimed[0].claimed_at } };

@@ -54,6 +54,20 @@ export interface PaymentMailData {
   planName: string;
   invoiceId: string;
   link: string;
+  /**
+   * Payment failed only: the plan the studio falls back to has fewer seats than its members. The
+   * one e-mail then says both things (no separate seats notice is sent for that plan change).
+   */
+  seats?: SeatsAfterFailedPayment;
+}
+
+/** The plan a failed payment leaves the studio on, when its members no longer fit it. */
+export interface SeatsAfterFailedPayment {
+  planName: string;
+  seats: number;
+  members: number;
+  /** The console's Team page. */
+  teamLink: string;
 }
 
 /** Data for the notice that a plan change left the studio with more members than seats. */
@@ -176,12 +190,24 @@ export function render(m: MailTemplate): Rendered {
     }
     case 'payment-failed': {
       const d = m.data;
-      const subject = `Payment failed for ${d.organizationName}`;
-      const p = [
-        `Hello ${d.name},`,
-        `We could not collect ${d.amount} for the ${d.planName} plan of ${d.organizationName} (invoice ${d.invoiceId}).`,
-        'Until a payment goes through, the organisation has the free plan’s limits. Update the payment method in the console to restore the plan.',
-      ];
+      const s = d.seats;
+      const subject = s
+        ? `Payment failed for ${d.organizationName}, which now has more members than seats`
+        : `Payment failed for ${d.organizationName}`;
+      const collect = `We could not collect ${d.amount} for the ${d.planName} plan of ${d.organizationName} (invoice ${d.invoiceId}).`;
+      const p = s
+        ? [
+            `Hello ${d.name},`,
+            collect,
+            `Until a payment goes through, the organisation is on the ${s.planName} plan, which has ${count(s.seats, 'seat')}. Your studio has ${count(s.members, 'member')}.`,
+            'Everyone keeps their access, but nobody new can be invited or join until a payment goes through or the team fits the plan.',
+            `To sort it out, update the payment method on the Billing page to restore the plan, or remove ${count(s.members - s.seats, 'member')} on the Team page: ${s.teamLink}`,
+          ]
+        : [
+            `Hello ${d.name},`,
+            collect,
+            'Until a payment goes through, the organisation has the free plan’s limits. Update the payment method in the console to restore the plan.',
+          ];
       return {
         subject,
         text: text(p, d.link),

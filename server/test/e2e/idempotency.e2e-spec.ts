@@ -166,6 +166,102 @@ describe('Idempotency-Key', () => {
     }
   });
 
+  it("lets go of a computation's key when its answer cannot be stored: the retry runs again, counted again", async () => {
+    // The answer's write fails as it is sent (the database went away just then); letting go of
+    // the key (a second statement) goes through. Computations store nothing but the usage count.
+    const owner = await signUp(t.url, { organizationName: 'Reedbank Evening Studio' });
+    const key = await createKey(owner, 'live');
+    const keys = t.app.get(IdempotencyService);
+    const spy = jest
+      .spyOn(keys, 'complete')
+      .mockImplementation(() => Promise.reject(new Error('connection lost')));
+    const k = newKey();
+    let first: request.Response;
+    try {
+      first = await compute(key.secret, 'balance', DEMO_BODIES.balance!, k);
+      expect(first.status).toBe(200);
+      expect(
+        await ds.query(`SELECT state FROM idempotency_keys WHERE caller = $1 AND key = $2`, [
+          `key:${key.id}`,
+          k,
+        ]),
+      ).toEqual([]);
+    } finally {
+      spy.mockRestore();
+    }
+    // The retry is not told to wait: it runs afresh (not a replay) and gets the same answer.
+    const retry = await compute(key.secret, 'balance', DEMO_BODIES.balance!, k);
+    expect(retry.status).toBe(200);
+    expect(retry.headers['idempotency-replayed']).toBeUndefined();
+    expect(retry.body).toEqual(first.body);
+    // Its answer was stored: the next retry is a replay.
+    const third = await compute(key.secret, 'balance', DEMO_BODIES.balance!, k);
+    expect(third.headers['idempotency-replayed']).toBe('true');
+    expect(third.text).toBe(retry.text);
+    // Both runs were metered: the first answer had been sent, so it counted; so did the rerun.
+    expect(await usageOf(key.id, 'balance', 2)).toEqual([
+      { status: 200, billable_units: 1 },
+      { status: 200, billable_units: 1 },
+    ]);
+  });
+
+  it("frees a computation's key left in flight after 30 s, an upload's only after 10 minutes", async () => {
+    // Neither the answer's write nor letting go of the key goes through: the key stays in flight.
+    const owner = await signUp(t.url, { organizationName: 'Cinderford Lane Portraits' });
+    const key = await createKey(owner, 'live');
+    const keys = t.app.get(IdempotencyService);
+    const lost = () => Promise.reject(new Error('connection lost'));
+    const spies = [
+      jest.spyOn(keys, 'complete').mockImplementation(lost),
+      jest.spyOn(keys, 'release').mockImplementation(lost),
+    ];
+    const k = newKey();
+    const row = () =>
+      ds.query(`SELECT state FROM idempotency_keys WHERE caller = $1 AND key = $2`, [
+        `key:${key.id}`,
+        k,
+      ]);
+    try {
+      const first = await compute(key.secret, 'flash', DEMO_BODIES.flash!, k);
+      expect(first.status).toBe(200);
+      expect(await row()).toEqual([{ state: 'in_flight' }]);
+    } finally {
+      for (const spy of spies) spy.mockRestore();
+    }
+    const age = (k2: string, caller: string, seconds: number) =>
+      ds.query(
+        `UPDATE idempotency_keys SET created_at = now() - $3 * interval '1 second'
+          WHERE caller = $1 AND key = $2`,
+        [caller, k2, seconds],
+      );
+    // 20 s on: still in flight for a computation (409).
+    await age(k, `key:${key.id}`, 20);
+    expect((await compute(key.secret, 'flash', DEMO_BODIES.flash!, k)).status).toBe(409);
+    // 31 s on: stale; the same request runs again (another body with the key is still refused).
+    await age(k, `key:${key.id}`, 31);
+    const other = await compute(key.secret, 'flash', { ...DEMO_BODIES.flash!, distance: 4 }, k);
+    expect(other.status).toBe(422);
+    const retry = await compute(key.secret, 'flash', DEMO_BODIES.flash!, k);
+    expect(retry.status).toBe(200);
+    expect(retry.headers['idempotency-replayed']).toBeUndefined();
+    expect(await row()).toEqual([{ state: 'done' }]);
+    // 2 metered runs (first and rerun) plus the refused other body (422, not billable).
+    const usage = await usageOf(key.id, 'flash', 3);
+    expect(usage.filter((u) => u.status === 200)).toHaveLength(2);
+
+    // An upload's key left in flight 9 minutes still blocks a retry: the long stale time holds.
+    const img = await frameImage();
+    const u = newKey();
+    const upl = await upload(live.secret, img, u, '5300');
+    expect(upl.status).toBe(201);
+    await ds.query(
+      `UPDATE idempotency_keys SET state = 'in_flight', created_at = now() - interval '9 minutes'
+        WHERE caller = $1 AND key = $2`,
+      [`key:${live.id}`, u],
+    );
+    expect((await upload(live.secret, img, u, '5300')).status).toBe(409);
+  });
+
   it('counts a retried computation once against the monthly quota', async () => {
     const owner = await signUp(t.url, { organizationName: 'Lanternfield Portraits' });
     const key = await createKey(owner, 'live');

@@ -7,6 +7,7 @@ import request from 'supertest';
 import type { DataSource } from 'typeorm';
 import { PLAN_CATALOGUE } from '../../src/plans/plan-catalogue.js';
 import {
+  addMembersDirectly,
   MailInbox,
   PASSWORD,
   setPlan,
@@ -17,7 +18,7 @@ import {
   uniqueEmail,
   waitForMail,
 } from '../factories/accounts.js';
-import { buyer, eventually, fakeApi } from '../factories/billing.js';
+import { eventually, fakeApi, planOf, studioByCheckout } from '../factories/billing.js';
 import { startFake, type RunningFake } from '../factories/frames.js';
 import { bootApp, TestApp } from '../setup/app.js';
 import { openDataSource } from '../setup/db.js';
@@ -58,34 +59,6 @@ describe('team seats', () => {
         orgId,
       ])
     )[0].n as number;
-  /** Members straight in the database (no mail, no password hashing per person); their e-mails. */
-  const addMembersDirectly = async (orgId: string, n: number, role = 'photographer') => {
-    const emails: string[] = [];
-    for (let i = 0; i < n; i++) {
-      const email = uniqueEmail('filler');
-      const [u] = await db.query(
-        `INSERT INTO users (email, name, password_hash) VALUES ($1, 'Seat Filler', 'x') RETURNING id`,
-        [email],
-      );
-      await db.query(
-        `INSERT INTO memberships (organization_id, user_id, role) VALUES ($1, $2, $3)`,
-        [orgId, u.id, role],
-      );
-      emails.push(email);
-    }
-    return emails;
-  };
-  /** An owner on the Studio plan through the payments fake's hosted checkout and its webhooks. */
-  const studioByCheckout = async (o: SignedInAgent) => {
-    const checkout = await o.agent
-      .post('/v1/billing/checkout')
-      .send({ planCode: 'studio' })
-      .expect(201);
-    await buyer(checkout.body.url, 'approve');
-    await eventually(async () => (await planOf(o)) === 'studio');
-  };
-  const planOf = async (o: SignedInAgent) =>
-    (await o.agent.get('/v1/plans/current').expect(200)).body.plan.code as string;
   /** The payments fake's cancellation event for the organisation, once our server answered it 2xx. */
   const deliveredCancellation = async (orgId: string) => {
     const event = await eventually(async () => {
@@ -256,7 +229,7 @@ describe('team seats', () => {
   it('refuses a console downgrade to fewer seats than members, saying how many to remove', async () => {
     const o = await signUp(t.url);
     await setPlan(o.organizationId, 'platform');
-    await addMembersDirectly(o.organizationId, 11); // 12 members
+    await addMembersDirectly(db, o.organizationId, 11); // 12 members
     expect(seatsOf('studio')).toBe(10);
     const refused = await o.agent
       .post('/v1/billing/checkout')
@@ -291,20 +264,13 @@ describe('team seats', () => {
 
   it('applies a downgrade from the payments webhook: everyone stays, nobody new joins', async () => {
     const o = await signUp(t.url);
-    const planCode = async () =>
-      (await o.agent.get('/v1/plans/current').expect(200)).body.plan.code as string;
-    const checkout = await o.agent
-      .post('/v1/billing/checkout')
-      .send({ planCode: 'studio' })
-      .expect(201);
-    await buyer(checkout.body.url, 'approve');
-    await eventually(async () => (await planCode()) === 'studio');
+    await studioByCheckout(o);
     const pendingEmail = uniqueEmail('pending');
     await invite(o, pendingEmail).expect(201);
-    await addMembersDirectly(o.organizationId, 3); // 4 members, 1 pending invitation
+    await addMembersDirectly(db, o.organizationId, 3); // 4 members, 1 pending invitation
     // Cancelling is never refused for seats; the webhook moves the studio to free (2 seats).
     await o.agent.post('/v1/billing/cancel').expect(202);
-    await eventually(async () => (await planCode()) === 'free');
+    await eventually(async () => (await planOf(o)) === 'free');
     expect(await memberCount(o.organizationId)).toBe(4);
     expect(await seats(o)).toEqual({
       limit: 2,
@@ -329,8 +295,8 @@ describe('team seats', () => {
       organizationName: 'Fenmarsh Twilight Rooms',
     });
     await studioByCheckout(o);
-    const [coOwner] = await addMembersDirectly(o.organizationId, 1, 'owner');
-    const shooters = await addMembersDirectly(o.organizationId, 2); // 4 members, 10 seats
+    const [coOwner] = await addMembersDirectly(db, o.organizationId, 1, 'owner');
+    const shooters = await addMembersDirectly(db, o.organizationId, 2); // 4 members, 10 seats
     await o.agent.post('/v1/billing/cancel').expect(202);
     await eventually(async () => (await planOf(o)) === 'free');
     expect(seatsOf('free')).toBe(2); // plan-catalogue.ts
@@ -379,7 +345,7 @@ describe('team seats', () => {
   it('sends no seats e-mail when the members still fit the smaller plan', async () => {
     const o = await signUp(t.url);
     await studioByCheckout(o);
-    const [other] = await addMembersDirectly(o.organizationId, 1); // 2 members: Free's 2 seats
+    const [other] = await addMembersDirectly(db, o.organizationId, 1); // 2 members: Free's 2 seats
     await o.agent.post('/v1/billing/cancel').expect(202);
     await eventually(async () => (await planOf(o)) === 'free');
     const event = await deliveredCancellation(o.organizationId);

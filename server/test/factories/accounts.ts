@@ -2,6 +2,7 @@
 import { randomUUID } from 'node:crypto';
 import request from 'supertest';
 import type TestAgent from 'supertest/lib/agent.js';
+import type { DataSource } from 'typeorm';
 import type { Role } from '../../src/common/decorators/access.decorator.js';
 import { openDataSource } from '../setup/db.js';
 
@@ -162,4 +163,31 @@ export async function startMaildev(): Promise<MailInbox> {
         child.kill('SIGTERM');
       }),
   };
+}
+
+/**
+ * Members straight in the database (no mail, no password hashing per person; they cannot sign
+ * in); returns their e-mail addresses.
+ */
+export async function addMembersDirectly(
+  db: DataSource,
+  organizationId: string,
+  n: number,
+  role = 'photographer',
+): Promise<string[]> {
+  const emails: string[] = [];
+  for (let i = 0; i < n; i++) {
+    const email = uniqueEmail(role === 'owner' ? 'owner' : 'filler');
+    const [u] = await db.query(
+      `INSERT INTO users (email, name, password_hash) VALUES ($1, 'Seat Filler', 'x') RETURNING id`,
+      [email],
+    );
+    await db.query(`INSERT INTO memberships (organization_id, user_id, role) VALUES ($1, $2, $3)`, [
+      organizationId,
+      u.id,
+      role,
+    ]);
+    emails.push(email);
+  }
+  return emails;
 }

@@ -1,6 +1,7 @@
 // Billing test helpers: drive the payments fake like a buyer would, sign webhook payloads, and
 // wait for asynchronous webhook effects.
 import { createHmac } from 'node:crypto';
+import type { SignedInAgent } from './accounts.js';
 import type { RunningFake } from './frames.js';
 
 /** `t=<unix>,v1=<hex HMAC-SHA256(secret, "<t>.<payload>")>`: the documented signing scheme. */
@@ -50,4 +51,19 @@ export async function buyer(url: string, choice: 'approve' | 'decline') {
     status: res.status,
     location: res.headers.get('location'),
   };
+}
+
+/** The organisation's current plan code, as its owner sees it. */
+export async function planOf(o: SignedInAgent): Promise<string> {
+  return (await o.agent.get('/v1/plans/current').expect(200)).body.plan.code as string;
+}
+
+/** Puts the owner's organisation on the Studio plan through the fake's hosted checkout. */
+export async function studioByCheckout(o: SignedInAgent): Promise<void> {
+  const checkout = await o.agent
+    .post('/v1/billing/checkout')
+    .send({ planCode: 'studio' })
+    .expect(201);
+  await buyer(checkout.body.url, 'approve');
+  await eventually(async () => (await planOf(o)) === 'studio');
 }
