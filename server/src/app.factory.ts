@@ -187,10 +187,6 @@ function registerJsonBodies(fastify: FastifyInstance, bodyLimit: number) {
 }
 
 /**
- * Requests Node's HTTP parser refuses (headers too large, a timeout, malformed HTTP) never reach
- * Fastify: answer them on the socket as problem+json, then close it.
- */
-/**
  * How often Node checks the head and request timeouts of open connections (its default, 30 s,
  * would let a slow head hold a connection up to 30 s past a 10 s limit): a quarter of the head's
  * limit, at most 1 s. One pass over the connections each time: nothing next to the requests.
@@ -199,6 +195,10 @@ export function checkingIntervalMs(headersTimeoutMs: number): number {
   return Math.min(1000, Math.floor(headersTimeoutMs / 4));
 }
 
+/**
+ * Requests Node's HTTP parser refuses (headers too large, a timeout, malformed HTTP) never reach
+ * Fastify: answer them on the socket as problem+json, then close it.
+ */
 function writeClientError(err: NodeJS.ErrnoException, socket: Duplex): void {
   if (err.code === 'ECONNRESET' || socket.destroyed) return;
   const status =
