@@ -8,6 +8,7 @@ import {
   type DuskSetupInput,
   type DuskSetupPlan,
 } from '@lumenwright/shared';
+import { EVENING_40N as EVENING, GAP_EVENING } from '../../../test/factories/dusk-evenings.js';
 import { esc } from './escape.js';
 import { renderShotSheet } from './shot-sheet.js';
 
@@ -19,16 +20,6 @@ const BASE: DuskSetupInput = {
   camera: { aperture: 4, isoMax: 6400, support: 'tripod' },
   key: { guideNumber: 40, distance: 3, modifier: 'softbox' },
 };
-
-/** An invented evening at 40.71° N, planned minute by minute with every usable minute listed. */
-const EVENING = {
-  latitude: 40.7128,
-  longitude: -74.006,
-  date: '2026-09-20',
-  timeZone: 'America/New_York',
-  stepMinutes: 1,
-  suggestions: 10,
-} satisfies Partial<DuskSetupInput>;
 
 /** The sheet printed for a plan (possibly one saved earlier, with fields missing). */
 function sheetOf(plan: unknown, input: DuskSetupInput) {
@@ -135,22 +126,8 @@ describe('shot sheet minutes planned at a darker background', () => {
 });
 
 describe('shot sheet usable runs (Timing)', () => {
-  // Hand-held at f/2.8 from ISO 800, between sync (1/200 s) and a 1/160 s hand-held limit, a
-  // GN 20 m key 0.8 m away with a floor of -6: one minute between two usable ones is ruled out
-  // at every bias (shared/tests/bias-floor.test.ts checks it with APEX and ISO 1230).
-  const gap: DuskSetupInput = {
-    ...EVENING,
-    camera: {
-      aperture: 2.8,
-      isoMin: 800,
-      isoMax: 25600,
-      support: 'handheld',
-      slowestHandheldSeconds: 1 / 160,
-      flashSyncSeconds: 1 / 200,
-      biasFloorStops: -6,
-    },
-    key: { guideNumber: 20, distance: 0.8, modifierLossStops: 1 },
-  };
+  // Two runs with a gap (test/factories/usable-gap.ts).
+  const gap: DuskSetupInput = GAP_EVENING;
   const usableRow = (html: string) =>
     /<dt>Usable \(all limits met\)<\/dt><dd>([\s\S]*?)<\/dd>/.exec(html)?.[1];
   const at = (hhmm: string) => `2026-09-20T${hhmm}:00-04:00`;
