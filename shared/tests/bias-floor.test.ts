@@ -1,5 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { planDuskSetup, type DuskSetupInput, type SuggestedMinute } from '../src/index.js';
+import {
+  computeTwilight,
+  planDuskSetup,
+  type DuskSetupInput,
+  type SuggestedMinute,
+} from '../src/index.js';
 
 // An invented evening at 40.71° N on a tripod at f/2.8: the shutter waits at 1/15 s while ISO
 // rises with the falling ambient, so a bare-ish key at a fixed distance soon needs less than its
@@ -156,10 +161,40 @@ describe('camera.biasFloorStops', () => {
     expect(minute?.usable).toBe(true);
     expect(minute?.background.biasStops).toBe(Number(bias));
     expect(freed.warnings.map((x) => x.code)).not.toContain('no-usable-minute');
-    // With a floor given, the hint is not repeated.
-    const tooShallow = withCamera({ biasFloorStops: -1.33 }, key);
-    const again = tooShallow.warnings.find((x) => x.code === 'no-usable-minute');
-    expect(again?.message).not.toMatch(/biasFloorStops/);
+  });
+
+  it('with a floor given that is too shallow, says how much darker would free a minute', () => {
+    const key = { guideNumber: GN, distance: 1.2, modifierLossStops: 1 };
+    const floor = -1.33;
+    const shallow = withCamera({ biasFloorStops: floor }, key);
+    expect(shallow.window.usableStart).toBeNull();
+    expect(shallow.window.usableSpans).toEqual([]);
+    const w = shallow.warnings.find((x) => x.code === 'no-usable-minute')!;
+    const m = w.message.match(
+      /floor given \(camera\.biasFloorStops -1\.33\) is too shallow: a darker background would free (\d\d:\d\d): at a bias of (-[\d.]+) \(([\d.]+) stops? darker than -1\).*camera\.biasFloorStops of (-[\d.]+) or lower/,
+    );
+    expect(m).not.toBeNull();
+    const [, at, bias, by, hinted] = m!;
+    // Only biases below the floor are proposed, on the 1/3-stop grid from the bias given.
+    expect(Number(bias)).toBeLessThan(floor);
+    expect(Number(bias)).toBeCloseTo(-1 - Number(by), 6);
+    expect(Math.abs(Number(by) * 3 - Math.round(Number(by) * 3))).toBeLessThan(0.03);
+    expect(hinted).toBe(bias);
+    // The key's power at that minute and bias is within range, and below it at the floor
+    // (ISO 1230 guide-number relation with APEX ISO, as keyPowerAt and isoAt above).
+    const freed = withCamera({ biasFloorStops: Number(hinted) }, key);
+    const minute = freed.suggestedMinutes.find((x) => clock(x) === at)!;
+    expect(minute.usable).toBe(true);
+    expect(minute.background.biasStops).toBe(Number(bias));
+    const loss = 1 + freed.gels.gelLossStops;
+    const t = minute.background.shutterSeconds;
+    const power = (b: number) => keyPowerAt(isoAt(minute.ambientEv100, t, b), 1.2, loss, b);
+    expect(power(Number(bias))).toBeGreaterThanOrEqual(MIN_POWER * (1 - 1e-9));
+    expect(power(floor)).toBeLessThan(MIN_POWER);
+    expect(freed.warnings.map((x) => x.code)).not.toContain('no-usable-minute');
+    // Without a floor the same search (from the bias given) lands on the same bias.
+    const plain = withCamera({}, key).warnings.find((x) => x.code === 'no-usable-minute')!;
+    expect(plain.message).toContain(`at a bias of ${bias} `);
   });
 
   it('does not lower the bias for a minute the background rules out', () => {
@@ -179,6 +214,118 @@ describe('camera.biasFloorStops', () => {
     }
     expect(floored.suggestedMinutes[0]?.keyFlash.fixes?.addLossStops).toBeGreaterThan(0);
     expect(floored).toEqual(plain);
+  });
+
+  it("proposes no floor when no bias down to the library's -6 frees a minute", () => {
+    // A GN 40 m key 0.3 m away, bare: at f/2.8 and ISO 100 it needs (2.8 x 0.3 / 40)^2 = 4.4e-4
+    // of full power for a whole exposure (ISO 1230), under 1/256 at any bias, and ISO only rises.
+    const key = { guideNumber: GN, distance: 0.3, modifierLossStops: 0 };
+    expect(((N * 0.3) / GN) ** 2).toBeLessThan(MIN_POWER);
+    for (const camera of [{}, { biasFloorStops: -1.5 }, { biasFloorStops: -6 }]) {
+      const plan = withCamera(camera, key);
+      expect(plan.window.usableStart).toBeNull();
+      const w = plan.warnings.find((x) => x.code === 'no-usable-minute')!;
+      expect(w.message).toMatch(/the key needs [\d.]+ stops less than its lowest power/);
+      expect(w.message).not.toMatch(/biasFloorStops/);
+    }
+  });
+});
+
+describe('window.usableSpans with a floor', () => {
+  // Hand-held at f/2.8 from ISO 800, the shutter held between sync (1/200 s) and a 1/160 s
+  // hand-held limit: a narrow band. A GN 20 m key 0.8 m away is too strong at the bias given,
+  // so each minute is lowered; a 1/3-stop step can jump from "key too strong" straight to
+  // "faster than sync", which leaves a minute unusable between two usable ones.
+  const SYNC = 1 / 200;
+  const SLOWEST = 1 / 160;
+  const ISO_MIN = 800;
+  const gap = {
+    ...base,
+    camera: {
+      aperture: N,
+      isoMin: ISO_MIN,
+      isoMax: 25600,
+      support: 'handheld' as const,
+      slowestHandheldSeconds: SLOWEST,
+      flashSyncSeconds: SYNC,
+      biasFloorStops: -6,
+    },
+    key: { guideNumber: 20, distance: 0.8, modifierLossStops: 1 },
+  } satisfies DuskSetupInput;
+  const runs = (p: ReturnType<typeof planDuskSetup>) =>
+    p.window.usableSpans.map((r) => `${r.start.slice(11, 16)}-${r.end.slice(11, 16)}`);
+
+  it('splits the usable minutes where one in the middle is ruled out', () => {
+    const plan = planDuskSetup(gap);
+    expect(runs(plan)).toEqual(['19:14-19:14', '19:16-19:20']);
+    expect(plan.window.usableSpans.map((r) => r.lengthMinutes)).toEqual([0, 4]);
+    // usableStart/usableEnd stay the first and last usable minute, across the gap.
+    expect(plan.window.usableStart).toBe(plan.window.usableSpans[0]!.start);
+    expect(plan.window.usableEnd).toBe(plan.window.usableSpans[1]!.end);
+    // Six usable minutes, fewer than the ten suggestions asked for: all are listed, and they are
+    // exactly the minutes the spans cover.
+    const usable = plan.suggestedMinutes.filter((m) => m.usable).map(clock);
+    expect(usable).toEqual(['19:14', '19:16', '19:17', '19:18', '19:19', '19:20']);
+  });
+
+  it('the minute in the gap is unusable at every bias down to the floor (APEX, ISO 1230)', () => {
+    const plan = planDuskSetup(gap);
+    const tw = computeTwilight({
+      latitude: gap.latitude,
+      longitude: gap.longitude,
+      date: gap.date,
+      timeZone: gap.timeZone,
+      stepMinutes: 1,
+    });
+    const ev100 = tw.ambient.points.find((p) => p.time.slice(11, 16) === '19:15')!.ev100;
+    const loss = 1 + plan.gels.gelLossStops;
+    const failures = new Set<string>();
+    // Every bias the planner may try: -1 and 1/3-stop steps down to -6.
+    for (let k = 0; k <= 15; k++) {
+      const bias = Math.round((-1 - k / 3) * 100) / 100;
+      // APEX (Kerr 2007): at ISO S the shutter for EV100 - bias is t = N^2 / 2^(EV100 - bias +
+      // log2(S / 100)); past the hand-held limit ISO rises to hold it there.
+      let iso = ISO_MIN;
+      let t = (N * N) / 2 ** (ev100 - bias + Math.log2(iso / 100));
+      if (t > SLOWEST) {
+        t = SLOWEST;
+        iso = isoAt(ev100, t, bias);
+      }
+      if (t < SYNC) {
+        failures.add('faster than sync');
+        continue;
+      }
+      // ISO 1230 guide-number relation, the key's share 1 - 2^bias (exposures add).
+      const power =
+        ((N * 0.8 * 2 ** (loss / 2)) / Math.sqrt(iso / 100) / 20) ** 2 * (1 - 2 ** bias);
+      expect({ bias, belowLowestPower: power < MIN_POWER }).toEqual({
+        bias,
+        belowLowestPower: true,
+      });
+      failures.add('below the lowest power');
+    }
+    // Both limits meet at this minute: the darker step that brings the key into range is
+    // already faster than sync.
+    expect([...failures].sort()).toEqual(['below the lowest power', 'faster than sync']);
+  });
+
+  it('joins minutes that are neighbours at the plan step', () => {
+    // At a 2-minute step 19:15 is not on the timeline: 19:14 and 19:16 are neighbours.
+    const plan = planDuskSetup({ ...gap, stepMinutes: 2 });
+    expect(runs(plan)).toEqual(['19:14-19:20']);
+    expect(plan.window.usableSpans[0]!.lengthMinutes).toBe(6);
+  });
+
+  it('is one span equal to usableStart-usableEnd when there is no gap, none when unusable', () => {
+    const plan = withCamera({ biasFloorStops: -2 });
+    expect(plan.window.usableSpans).toHaveLength(1);
+    const [only] = plan.window.usableSpans;
+    expect(only!.start).toBe(plan.window.usableStart);
+    expect(only!.end).toBe(plan.window.usableEnd);
+    const minutes = (Date.parse(only!.end) - Date.parse(only!.start)) / 60_000;
+    expect(only!.lengthMinutes).toBeCloseTo(minutes, 1);
+    const none = withCamera({}, { guideNumber: GN, distance: 1.2, modifierLossStops: 1 });
+    expect(none.window.usableSpans).toEqual([]);
   });
 });
 

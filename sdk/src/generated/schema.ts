@@ -4096,7 +4096,7 @@ export interface components {
           tintCC: number;
         };
       };
-      /** @description The shooting window (blue hour, else sunset to civil dusk) and its usable part. */
+      /** @description The shooting window (blue hour, else sunset to civil dusk) and its usable part: the first and last usable minute, and the unbroken runs of usable minutes between them. */
       window: {
         /**
          * Format: date-time
@@ -4110,12 +4110,46 @@ export interface components {
         start: string | null;
         /**
          * Format: date-time
-         * @description Last such minute. ISO 8601 local time with offset, or null.
+         * @description Last such minute. There may be gaps since usableStart (see usableSpans). ISO 8601 local time with offset, or null.
          */
         usableEnd: string | null;
         /**
+         * @description The unbroken runs of usable minutes, in time order; empty when no minute is usable. Two usable minutes are in one run when they are neighbours on the timeline (stepMinutes apart); between two runs every planned minute is unusable (a background limit, or a flash out of its power range even at the lowest bias camera.biasFloorStops allows). Always present in a POST /v1/setup answer; absent from plans saved before it was added (read usableStart/usableEnd there).
+         * @example [
+         *       {
+         *         "end": "2026-09-20T20:01:24-04:00",
+         *         "lengthMinutes": 4,
+         *         "start": "2026-09-20T19:57:24-04:00"
+         *       },
+         *       {
+         *         "end": "2026-09-20T20:07:24-04:00",
+         *         "lengthMinutes": 2,
+         *         "start": "2026-09-20T20:05:24-04:00"
+         *       }
+         *     ]
+         */
+        usableSpans?: {
+          /**
+           * Format: date-time
+           * @description Last usable minute of the run (equal to start for a run of one planned minute).
+           * @example 2026-09-20T20:01:24-04:00
+           */
+          end: string;
+          /**
+           * @description Minutes from start to end: (planned minutes in the run − 1) × stepMinutes; 0 for a run of one minute.
+           * @example 4
+           */
+          lengthMinutes: number;
+          /**
+           * Format: date-time
+           * @description First usable minute of the run, ISO 8601 local time with offset.
+           * @example 2026-09-20T19:57:24-04:00
+           */
+          start: string;
+        }[];
+        /**
          * Format: date-time
-         * @description First minute where every setting stays inside its limits. ISO 8601 local time with offset, or null.
+         * @description First minute where every setting stays inside its limits. Minutes between usableStart and usableEnd may be unusable: usableSpans lists the runs. ISO 8601 local time with offset, or null.
          */
         usableStart: string | null;
       };

@@ -1,20 +1,17 @@
 // The dusk setup's background bias floor end to end: refused by name when it is out of range or
-// brighter than the bias, and used by the plan when a minute's key is too strong.
+// brighter than the bias, used by the plan when a minute's key is too strong, hinted at when it
+// is too shallow, and the runs of usable minutes it can leave with a gap between them.
 import * as schemas from '../../src/compute/schemas/index.js';
 import { compileSchema } from '../../src/compute/validation/json-schema.js';
 import { bootApp, TestApp } from '../setup/app.js';
 import { keyedOrg, KeyedOrg, post } from '../factories/compute.js';
+import { EVENING_40N, GAP_EVENING } from '../factories/dusk-evenings.js';
 
 // An invented evening at 40.71° N on a tripod at f/2.8, a 40 m key 2 m away with 1 stop of
 // modifier loss: at the default bias (-1) the key runs out of low power a few minutes in.
 const N = 2.8;
 const evening = {
-  latitude: 40.7128,
-  longitude: -74.006,
-  date: '2026-09-20',
-  timeZone: 'America/New_York',
-  stepMinutes: 1,
-  suggestions: 10,
+  ...EVENING_40N,
   camera: { aperture: N, support: 'tripod' },
   key: { guideNumber: 40, distance: 2, modifierLossStops: 1 },
 };
@@ -27,15 +24,15 @@ interface Minute {
   keyFlash: { powerFraction: number };
 }
 
-describe('POST /v1/setup with camera.biasFloorStops', () => {
-  let t: TestApp;
-  let org: KeyedOrg;
-  beforeAll(async () => {
-    t = await bootApp();
-    org = await keyedOrg(t.url);
-  });
-  afterAll(() => t.close());
+let t: TestApp;
+let org: KeyedOrg;
+beforeAll(async () => {
+  t = await bootApp();
+  org = await keyedOrg(t.url);
+});
+afterAll(() => t.close());
 
+describe('POST /v1/setup with camera.biasFloorStops', () => {
   it.each([
     ['below the range', { biasFloorStops: -6.5 }, /-6/],
     ['above the range', { biasStops: 6, biasFloorStops: 7 }, /6/],
@@ -81,6 +78,77 @@ describe('POST /v1/setup with camera.biasFloorStops', () => {
     // The usable window ends later with the floor.
     expect(Date.parse(floored.body.window.usableEnd)).toBeGreaterThan(
       Date.parse(plain.body.window.usableEnd),
+    );
+  });
+
+  it('says how much darker than a floor too shallow would free a minute', async () => {
+    // The key 1.2 m away: no minute is usable down to -1.33 (shared/tests/bias-floor.test.ts).
+    const res = await post(t.url, 'setup', org.test.secret, {
+      ...evening,
+      camera: { ...evening.camera, biasFloorStops: -1.33 },
+      key: { ...evening.key, distance: 1.2 },
+    }).expect(200);
+    expect(res.body.window.usableSpans).toEqual([]);
+    const w = (res.body.warnings as Array<{ code: string; message: string }>).find(
+      (x) => x.code === 'no-usable-minute',
+    );
+    const hinted = Number(
+      w?.message.match(
+        /-1\.33\) is too shallow.*camera\.biasFloorStops of (-[\d.]+) or lower/,
+      )?.[1],
+    );
+    expect(hinted).toBeLessThan(-1.33);
+    // Taken as given, the floor hinted at frees a minute.
+    const freed = await post(t.url, 'setup', org.test.secret, {
+      ...evening,
+      camera: { ...evening.camera, biasFloorStops: hinted },
+      key: { ...evening.key, distance: 1.2 },
+    }).expect(200);
+    expect(freed.body.window.usableSpans.length).toBeGreaterThan(0);
+  });
+});
+
+describe('POST /v1/setup usable runs (window.usableSpans)', () => {
+  const gap = GAP_EVENING;
+  interface Span {
+    start: string;
+    end: string;
+    lengthMinutes: number;
+  }
+
+  it('answers two runs with a gap, matching the usable minutes listed', async () => {
+    const res = await post(t.url, 'setup', org.test.secret, gap).expect(200);
+    expect(compileSchema(schemas.RESPONSE_SCHEMAS.setup!)(res.body)).toEqual([]);
+    const spans = res.body.window.usableSpans as Span[];
+    expect(spans).toHaveLength(2);
+    expect(res.body.window.usableStart).toBe(spans[0]!.start);
+    expect(res.body.window.usableEnd).toBe(spans[1]!.end);
+    // Reference: fewer usable minutes than the ten suggestions asked for, so all are listed;
+    // grouping them where two follow each other by the 1-minute step (a plain construction,
+    // common practice, no source) gives the same runs.
+    const usable = (res.body.suggestedMinutes as Minute[]).filter((m) => m.usable);
+    expect(usable.length).toBeLessThan(10);
+    const expected: Span[] = [];
+    for (const m of usable) {
+      const last = expected[expected.length - 1];
+      if (last && Date.parse(m.time) - Date.parse(last.end) === 60_000) {
+        last.end = m.time;
+        last.lengthMinutes += 1;
+      } else expected.push({ start: m.time, end: m.time, lengthMinutes: 0 });
+    }
+    expect(spans).toEqual(expected);
+    // A real gap: at least one planned minute lies between the two runs.
+    expect(Date.parse(spans[1]!.start) - Date.parse(spans[0]!.end)).toBeGreaterThan(60_000);
+    // Every usable minute here is planned darker than the bias given (lowered within the floor).
+    for (const m of usable) expect(m.background.biasStops).toBeLessThan(-1);
+  });
+
+  it('joins the same minutes at a 2-minute step, where the gap minute is not planned', async () => {
+    const res = await post(t.url, 'setup', org.test.secret, { ...gap, stepMinutes: 2 }).expect(200);
+    const spans = res.body.window.usableSpans as Span[];
+    expect(spans).toHaveLength(1);
+    expect(spans[0]!.lengthMinutes).toBe(
+      (Date.parse(spans[0]!.end) - Date.parse(spans[0]!.start)) / 60_000,
     );
   });
 });

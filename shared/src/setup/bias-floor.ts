@@ -71,23 +71,32 @@ export function lowerBiasFor<M extends PlannedMinute>(
 }
 
 /**
- * With no floor given and no minute usable: the smallest lowering of the bias (1/3-stop steps,
- * down to the library's -6) that frees a minute, and the first minute it frees, as a sentence;
- * '' when lowering the bias frees none. `planAt(i, bias)` plans the i-th minute at a bias.
+ * With no minute usable: the smallest lowering of the bias (1/3-stop steps, down to the
+ * library's -6) that frees a minute, and the first minute it frees, as a sentence; '' when
+ * lowering the bias frees none. With a floor given, only biases below it are tried (those down
+ * to it were tried when the minutes were planned) and the sentence says the floor is too
+ * shallow. `planAt(i, bias)` plans the i-th minute at a bias.
  */
 export function floorHint<M extends PlannedMinute>(
   minutes: readonly M[],
   bias: number,
+  floor: number | undefined,
   planAt: (index: number, bias: number) => M,
 ): string {
   const candidates = minutes.map((m, i) => [m, i] as const).filter(([m]) => onlyFlashTooStrong(m));
   if (candidates.length === 0) return '';
+  const below = floor ?? bias;
   for (const b of darkerBiases(bias, LOWEST_BIAS)) {
+    if (b > below - 0.005) continue;
     const freed = candidates.find(([, i]) => planAt(i, b).usable);
     if (!freed) continue;
     const lowered = round(bias - b, 2);
+    const opening =
+      floor === undefined
+        ? ' Letting the background go darker'
+        : ` The floor given (camera.biasFloorStops ${floor}) is too shallow: a darker background`;
     return (
-      ` Letting the background go darker would free ${freed[0].time.slice(11, 16)}: at a bias ` +
+      `${opening} would free ${freed[0].time.slice(11, 16)}: at a bias ` +
       `of ${b} (${countOf(lowered, 'stop')} darker than ${bias}) the flashes stay within their ` +
       `power range. Give camera.biasFloorStops of ${b} or lower (the darkest background you ` +
       `accept) and the planner lowers the bias where that helps.`

@@ -2,6 +2,7 @@ import { LightingInputError } from '../errors.js';
 import { floorHint, lowerBiasFor } from './bias-floor.js';
 import { cautionsFor, type Caution } from './cautions.js';
 import { prefixed, readSetup, type DuskSetupInput } from './setup-input.js';
+import { usableSpans, type UsableSpan } from './usable-spans.js';
 import { solveBalance, type BalanceResult } from '../color/balance.js';
 import { duskScene, type SceneSwatch } from '../color/scene.js';
 import {
@@ -20,6 +21,7 @@ import { countOf, round } from '../units/math.js';
 import type { CodedWarning, SetupWarningCode } from '../warning-codes.js';
 
 export type { DuskSetupInput } from './setup-input.js';
+export type { UsableSpan } from './usable-spans.js';
 
 export interface SuggestedMinute {
   time: string;
@@ -47,8 +49,15 @@ export interface DuskSetupPlan {
   window: {
     start: string | null;
     end: string | null;
+    /** First usable minute; the usable minutes up to `usableEnd` may have gaps. */
     usableStart: string | null;
+    /** Last usable minute. */
     usableEnd: string | null;
+    /**
+     * The unbroken runs of usable minutes at the timeline's step, in time order; empty when no
+     * minute is usable. Between two runs every minute is unusable.
+     */
+    usableSpans: UsableSpan[];
   };
   suggestedMinutes: SuggestedMinute[];
   whiteBalance: { cameraKelvin: number; fineTune: BalanceResult['whiteBalanceFineTune'] };
@@ -286,6 +295,7 @@ export function planDuskSetup(input: DuskSetupInput): DuskSetupPlan {
       end: win.end,
       usableStart: usable[0]?.time ?? null,
       usableEnd: usable[usable.length - 1]?.time ?? null,
+      usableSpans: usableSpans(minutes, tw.ambient.stepMinutes),
     },
     suggestedMinutes: suggested,
     whiteBalance: { cameraKelvin: s.kelvin, fineTune: balance.whiteBalanceFineTune },
@@ -303,12 +313,11 @@ export function planDuskSetup(input: DuskSetupInput): DuskSetupPlan {
     cautions: cautionsFor({ ...s.conditions, standsCount: 1 + (s.rim ? 1 : 0) }),
     warnings: [
       ...planWarnings(tw, usable.length, backlight, win.tooDark, minutes, s, () =>
-        // No floor given: say how far a darker background would have to go to free a minute.
-        s.biasFloor === undefined
-          ? floorHint(minutes, s.bias, (i, b) =>
-              minuteAtBias(s, win.points[i] as AmbientPoint, balance.gelLossStops, b),
-            )
-          : '',
+        // How far a darker background would have to go to free a minute (below the floor, when
+        // one is given: the biases down to it were tried already). Only run with no usable minute.
+        floorHint(minutes, s.bias, s.biasFloor, (i, b) =>
+          minuteAtBias(s, win.points[i] as AmbientPoint, balance.gelLossStops, b),
+        ),
       ),
       // The first suggested minute where the ambient outweighs the key speaks for the evening.
       ...suggested

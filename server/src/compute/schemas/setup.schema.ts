@@ -211,13 +211,61 @@ export const setupResponseSchema: ObjectSchema = {
     window: {
       type: 'object',
       description:
-        'The shooting window (blue hour, else sunset to civil dusk) and its usable part.',
+        'The shooting window (blue hour, else sunset to civil dusk) and its usable part: the ' +
+        'first and last usable minute, and the unbroken runs of usable minutes between them.',
+      // usableSpans is always in a POST /v1/setup answer; plans saved before it lack it.
       required: ['start', 'end', 'usableStart', 'usableEnd'],
       properties: {
         start: ISO('Start of the window.'),
         end: ISO('End of the window.'),
-        usableStart: ISO('First minute where every setting stays inside its limits.'),
-        usableEnd: ISO('Last such minute.'),
+        usableStart: ISO(
+          'First minute where every setting stays inside its limits. Minutes between ' +
+            'usableStart and usableEnd may be unusable: usableSpans lists the runs.',
+        ),
+        usableEnd: ISO('Last such minute. There may be gaps since usableStart (see usableSpans).'),
+        usableSpans: {
+          type: 'array',
+          description:
+            'The unbroken runs of usable minutes, in time order; empty when no minute is usable. ' +
+            'Two usable minutes are in one run when they are neighbours on the timeline ' +
+            '(stepMinutes apart); between two runs every planned minute is unusable (a ' +
+            'background limit, or a flash out of its power range even at the lowest bias ' +
+            'camera.biasFloorStops allows). Always present in a POST /v1/setup answer; absent ' +
+            'from plans saved before it was added (read usableStart/usableEnd there).',
+          items: {
+            type: 'object',
+            required: ['start', 'end', 'lengthMinutes'],
+            properties: {
+              start: str(
+                'First usable minute of the run, ISO 8601 local time with offset.',
+                '2026-09-20T19:57:24-04:00',
+                { format: 'date-time' },
+              ),
+              end: str(
+                'Last usable minute of the run (equal to start for a run of one planned minute).',
+                '2026-09-20T20:01:24-04:00',
+                { format: 'date-time' },
+              ),
+              lengthMinutes: outNum(
+                'Minutes from start to end: (planned minutes in the run − 1) × stepMinutes; 0 ' +
+                  'for a run of one minute.',
+                4,
+              ),
+            },
+          },
+          example: [
+            {
+              start: '2026-09-20T19:57:24-04:00',
+              end: '2026-09-20T20:01:24-04:00',
+              lengthMinutes: 4,
+            },
+            {
+              start: '2026-09-20T20:05:24-04:00',
+              end: '2026-09-20T20:07:24-04:00',
+              lengthMinutes: 2,
+            },
+          ],
+        },
       },
     },
     suggestedMinutes: {

@@ -3,9 +3,12 @@
 import {
   CAUTION_DEFERENCE,
   cautionAdvice,
+  clockOf,
   planDuskSetup,
   type DuskSetupInput,
+  type DuskSetupPlan,
 } from '@lumenwright/shared';
+import { EVENING_40N as EVENING, GAP_EVENING } from '../../../test/factories/dusk-evenings.js';
 import { esc } from './escape.js';
 import { renderShotSheet } from './shot-sheet.js';
 
@@ -18,20 +21,24 @@ const BASE: DuskSetupInput = {
   key: { guideNumber: 40, distance: 3, modifier: 'softbox' },
 };
 
-/** The plan for `input` and its printed sheet. */
-function render(input: DuskSetupInput) {
-  const plan = planDuskSetup(input);
-  const html = renderShotSheet({
+/** The sheet printed for a plan (possibly one saved earlier, with fields missing). */
+function sheetOf(plan: unknown, input: DuskSetupInput) {
+  return renderShotSheet({
     name: 'Sheet check',
     venue: null,
     notes: null,
     date: input.date,
     timeZone: input.timeZone,
     author: null,
-    plan,
+    plan: plan as DuskSetupPlan,
     resolvedInputs: input as unknown as Record<string, unknown>,
   });
-  return { plan, html };
+}
+
+/** The plan for `input` and its printed sheet. */
+function render(input: DuskSetupInput) {
+  const plan = planDuskSetup(input);
+  return { plan, html: sheetOf(plan, input) };
 }
 
 function sheetFor(key: DuskSetupInput['key']) {
@@ -82,12 +89,7 @@ describe('shot sheet minutes planned at a darker background', () => {
   // power at the default bias of -1 (see shared/tests/bias-floor.test.ts): with a floor the
   // planner takes those minutes darker, and the sheet says by how much.
   const input: DuskSetupInput = {
-    latitude: 40.7128,
-    longitude: -74.006,
-    date: '2026-09-20',
-    timeZone: 'America/New_York',
-    stepMinutes: 1,
-    suggestions: 10,
+    ...EVENING,
     camera: { aperture: 2.8, isoMax: 6400, support: 'tripod', biasFloorStops: -2 },
     key: { guideNumber: 40, distance: 2, modifierLossStops: 1 },
   };
@@ -117,18 +119,58 @@ describe('shot sheet minutes planned at a darker background', () => {
       ...plan,
       suggestedMinutes: plan.suggestedMinutes.map(({ biasLoweredByStops: _gone, ...m }) => m),
     };
-    const html = renderShotSheet({
-      name: 'Saved before',
-      venue: null,
-      notes: null,
-      date: input.date,
-      timeZone: input.timeZone,
-      author: null,
-      plan: old as never,
-      resolvedInputs: input as unknown as Record<string, unknown>,
-    });
+    const html = sheetOf(old, input);
     expect(html).not.toContain('class="lowered"');
     expect(html).toContain('<table class="minutes">');
+  });
+});
+
+describe('shot sheet usable runs (Timing)', () => {
+  // Two runs with a gap (test/factories/usable-gap.ts).
+  const gap: DuskSetupInput = GAP_EVENING;
+  const usableRow = (html: string) =>
+    /<dt>Usable \(all limits met\)<\/dt><dd>([\s\S]*?)<\/dd>/.exec(html)?.[1];
+  const at = (hhmm: string) => `2026-09-20T${hhmm}:00-04:00`;
+  const withWindow = (plan: DuskSetupPlan, window: Record<string, unknown>) => ({
+    ...plan,
+    window: { ...plan.window, ...window },
+  });
+
+  it('prints each run, a single minute as that minute, joined by "and"', () => {
+    const { plan, html } = render(gap);
+    const spans = plan.window.usableSpans;
+    expect(spans).toHaveLength(2);
+    // The first run is one planned minute, the second several (the plan's own clock times).
+    expect(spans[0]!.start).toBe(spans[0]!.end);
+    expect(spans[1]!.lengthMinutes).toBeGreaterThan(0);
+    expect(usableRow(html)).toBe(
+      `${clockOf(spans[0]!.start)} and ${clockOf(spans[1]!.start)}–${clockOf(spans[1]!.end)}`,
+    );
+  });
+
+  it('lists three runs as "a, b and c", and "none" for an empty list', () => {
+    const { plan } = render(gap);
+    const three = withWindow(plan, {
+      usableSpans: [
+        { start: at('19:57'), end: at('20:01'), lengthMinutes: 4 },
+        { start: at('20:03'), end: at('20:03'), lengthMinutes: 0 },
+        { start: at('20:05'), end: at('20:07'), lengthMinutes: 2 },
+      ],
+    });
+    expect(usableRow(sheetOf(three, gap))).toBe('19:57–20:01, 20:03 and 20:05–20:07');
+    const empty = withWindow(plan, { usableStart: null, usableEnd: null, usableSpans: [] });
+    expect(usableRow(sheetOf(empty, gap))).toContain('none — see warnings');
+  });
+
+  it('prints first–last usable minute for a plan saved before the runs (no usableSpans)', () => {
+    const { plan } = render(gap);
+    const { usableSpans: _gone, ...oldWindow } = plan.window;
+    const old = { ...plan, window: oldWindow };
+    expect(usableRow(sheetOf(old, gap))).toBe(
+      `${clockOf(plan.window.usableStart!)}–${clockOf(plan.window.usableEnd!)}`,
+    );
+    const oldNone = { ...plan, window: { ...oldWindow, usableStart: null, usableEnd: null } };
+    expect(usableRow(sheetOf(oldNone, gap))).toContain('none — see warnings');
   });
 });
 

@@ -59,13 +59,30 @@ function spill(b: NonNullable<DuskSetupPlan['backlight']>): string {
   return `from ${at(from)}${to === null ? ' onward' : ` to ${at(to)}`} of the subject${stops}`;
 }
 
+/**
+ * The usable minutes as runs, "19:57–20:01 and 20:05–20:07": a gap between runs is a stretch of
+ * unusable minutes. A run of one planned minute prints as that minute. Plans saved before the
+ * runs were planned carry no `usableSpans`: they print their first and last usable minute.
+ */
+function usable(w: DuskSetupPlan['window']): string {
+  const none = '<span class="no">none — see warnings</span>';
+  const spans = (w as Partial<Pick<DuskSetupPlan['window'], 'usableSpans'>>).usableSpans;
+  if (!Array.isArray(spans)) return w.usableStart ? range(w.usableStart, w.usableEnd) : none;
+  const runs = spans.map((r) =>
+    clock(r.start) === clock(r.end) ? clock(r.start) : range(r.start, r.end),
+  );
+  const last = runs.pop();
+  if (last === undefined) return none;
+  return runs.length ? `${runs.join(', ')} and ${last}` : last;
+}
+
 function timing(p: DuskSetupPlan): string {
   const t = p.twilight;
   return `<section><h2>Timing</h2><dl>
     ${row('Sunset', clock(t.sunset))}${row('Golden hour', range(t.goldenHour.start, t.goldenHour.end))}
     ${row('Blue hour', range(t.blueHour.start, t.blueHour.end))}${row('Civil dusk', clock(t.civilDusk))}
     ${row('Nautical dusk', clock(t.nauticalDusk))}${row('Shooting window', range(p.window.start, p.window.end))}
-    ${row('Usable (all limits met)', p.window.usableStart ? range(p.window.usableStart, p.window.usableEnd) : '<span class="no">none — see warnings</span>')}
+    ${row('Usable (all limits met)', usable(p.window))}
   </dl></section>`;
 }
 
