@@ -3,7 +3,7 @@
 // below compare the function with hand-made sequences and with a second, plain construction.
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { usableSpans } from '../src/setup/usable-spans.js';
+import { describeUsableSpans, usableSpans } from '../src/setup/usable-spans.js';
 
 /** An evening minute, local time at UTC-4, `m` minutes after 19:00 (fractions allowed). */
 const at = (m: number, jitterSeconds = 0) => {
@@ -93,5 +93,23 @@ describe('usableSpans', () => {
         },
       ),
     );
+  });
+});
+
+describe('describeUsableSpans', () => {
+  // English list punctuation for the runs (common practice, no source); the clock is the caller's.
+  const hhmm = (iso: string) => iso.slice(11, 16);
+  const at = (t: string) => `2026-09-20T${t}:00-04:00`;
+  it('joins runs with commas and a final "and", a one-minute run as that minute', () => {
+    const spans = [
+      { start: at('19:14'), end: at('19:14') },
+      { start: at('19:16'), end: at('19:20') },
+      { start: at('19:24'), end: at('19:30') },
+    ];
+    expect(describeUsableSpans(spans, hhmm)).toBe('19:14, 19:16\u201319:20 and 19:24\u201319:30');
+    expect(describeUsableSpans(spans.slice(1, 2), hhmm)).toBe('19:16\u201319:20');
+  });
+  it('answers null when no minute is usable', () => {
+    expect(describeUsableSpans([], hhmm)).toBeNull();
   });
 });

@@ -22,6 +22,7 @@ import type { CodedWarning, SetupWarningCode } from '../warning-codes.js';
 
 export type { DuskSetupInput } from './setup-input.js';
 export type { UsableSpan } from './usable-spans.js';
+export { describeUsableSpans } from './usable-spans.js';
 
 export interface SuggestedMinute {
   time: string;

@@ -50,3 +50,21 @@ export function usableSpans(
   close();
   return spans;
 }
+
+/**
+ * The runs in words for a reader: "19:57–20:01 and 20:05–20:07", a run of one planned minute as
+ * that minute, `null` when there is none. `clock` formats an instant (in the shoot's time zone).
+ */
+export function describeUsableSpans(
+  spans: ReadonlyArray<Pick<UsableSpan, 'start' | 'end'>>,
+  clock: (iso: string) => string,
+): string | null {
+  const runs = spans.map((r) => {
+    const a = clock(r.start);
+    const b = clock(r.end);
+    return a === b ? a : `${a}–${b}`;
+  });
+  const last = runs.pop();
+  if (last === undefined) return null;
+  return runs.length ? `${runs.join(', ')} and ${last}` : last;
+}

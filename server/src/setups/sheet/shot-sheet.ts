@@ -4,6 +4,7 @@ import {
   cautionAdvice,
   cautionsFor,
   countOf,
+  describeUsableSpans,
   type Caution,
   type DuskSetupPlan,
 } from '@lumenwright/shared';
@@ -68,12 +69,7 @@ function usable(w: DuskSetupPlan['window']): string {
   const none = '<span class="no">none — see warnings</span>';
   const spans = (w as Partial<Pick<DuskSetupPlan['window'], 'usableSpans'>>).usableSpans;
   if (!Array.isArray(spans)) return w.usableStart ? range(w.usableStart, w.usableEnd) : none;
-  const runs = spans.map((r) =>
-    clock(r.start) === clock(r.end) ? clock(r.start) : range(r.start, r.end),
-  );
-  const last = runs.pop();
-  if (last === undefined) return none;
-  return runs.length ? `${runs.join(', ')} and ${last}` : last;
+  return describeUsableSpans(spans, clock) ?? none;
 }
 
 function timing(p: DuskSetupPlan): string {

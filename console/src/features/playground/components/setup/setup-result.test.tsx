@@ -1,6 +1,7 @@
 import { fireEvent, render, screen, within } from '@testing-library/react';
 import { planDuskSetup, type DuskSetupInput } from '@lumenwright/shared';
 import { describe, expect, it, vi } from 'vitest';
+import { clockTime } from '../../utils/format';
 import { SetupResultView } from './setup-result';
 
 // An evening on a tripod at f/2.8 where a GN 40 m key at 2 m soon needs less than its lowest
@@ -64,5 +65,51 @@ describe('Dusk setup result: printing', () => {
     expect(print).toHaveBeenCalledTimes(1);
     // Kept off the paper by Tailwind's print variant (print.css also hides every button).
     expect(button.className.split(/\s+/)).toContain('print:hidden');
+  });
+});
+
+describe('Dusk setup result: usable minutes in runs', () => {
+  // The invented evening above, hand-held between sync and a 1/160 s hand-held limit with a GN 20 m
+  // key 0.8 m away: its usable minutes fall in two runs (server/test/factories/dusk-evenings.ts;
+  // shared/tests/bias-floor.test.ts checks the minute between them with APEX and ISO 1230).
+  const gapInput: DuskSetupInput = {
+    ...input,
+    camera: {
+      aperture: 2.8,
+      isoMin: 800,
+      isoMax: 25600,
+      support: 'handheld',
+      slowestHandheldSeconds: 1 / 160,
+      flashSyncSeconds: 1 / 200,
+      biasFloorStops: -6,
+    },
+    key: { guideNumber: 20, distance: 0.8, modifierLossStops: 1 },
+  };
+  const usableValue = () =>
+    screen.getByText('Usable within it').parentElement?.querySelector('dd')?.textContent ?? '';
+
+  it('lists each run, so a gap inside first–last is not read as usable', () => {
+    const plan = planDuskSetup(gapInput);
+    const spans = plan.window.usableSpans;
+    expect(spans.length).toBeGreaterThan(1);
+    render(<SetupResultView plan={plan} input={gapInput} />);
+    const text = usableValue();
+    expect(text).toContain(' and ');
+    // Each run's first minute is shown, in order; the first-to-last range alone is not.
+    const firsts = spans.map((s) => clockTime(s.start));
+    expect(firsts.every((t) => text.includes(t))).toBe(true);
+    expect(text.indexOf(firsts[0]!)).toBeLessThan(text.indexOf(firsts[1]!));
+    expect(text).not.toBe(
+      `${clockTime(plan.window.usableStart)}–${clockTime(plan.window.usableEnd)}`,
+    );
+  });
+
+  it('shows first–last for a plan saved before the runs existed', () => {
+    const plan = planDuskSetup(gapInput);
+    const { usableSpans: _gone, ...window } = plan.window;
+    render(<SetupResultView plan={{ ...plan, window } as never} input={gapInput} />);
+    expect(usableValue()).toBe(
+      `${clockTime(plan.window.usableStart)}–${clockTime(plan.window.usableEnd)}`,
+    );
   });
 });

@@ -1,4 +1,9 @@
-import { fromMetres, type DuskSetupInput, type DuskSetupPlan } from '@lumenwright/shared';
+import {
+  describeUsableSpans,
+  fromMetres,
+  type DuskSetupInput,
+  type DuskSetupPlan,
+} from '@lumenwright/shared';
 import { PrintButton } from '@/components/ui/print-button';
 import { clockTime, fixed, signed, stops } from '../../utils/format';
 import { Swatches } from '../balance/swatches';
@@ -8,6 +13,16 @@ import { TopDiagram } from '../diagrams/top-diagram';
 import { Readouts } from '../form-grid';
 import { modifierLabels } from '../flash/flash-panel';
 import { WarningList } from '../warning-list';
+
+/**
+ * The usable minutes as runs ("19:14 and 19:16–19:20"): a gap is a stretch the limits rule out.
+ * Plans saved before the runs were planned carry none: their first and last usable minute.
+ */
+function usableText(w: DuskSetupPlan['window']): string {
+  const spans = (w as Partial<Pick<DuskSetupPlan['window'], 'usableSpans'>>).usableSpans;
+  if (Array.isArray(spans)) return describeUsableSpans(spans, clockTime) ?? 'none';
+  return w.usableStart ? `${clockTime(w.usableStart)}–${clockTime(w.usableEnd)}` : 'none';
+}
 
 /** The head height the plan's rim geometry assumes (computeBacklight's default), metres. */
 const DEFAULT_HEAD_M = 1.6;
@@ -32,9 +47,7 @@ export function SetupResultView({ plan, input }: { plan: DuskSetupPlan; input: D
             },
             {
               term: 'Usable within it',
-              value: plan.window.usableStart
-                ? `${clockTime(plan.window.usableStart)}–${clockTime(plan.window.usableEnd)}`
-                : 'none',
+              value: usableText(plan.window),
               hint: 'every limit met, flashes in range',
             },
             {
