@@ -15,6 +15,8 @@ export interface PaymentMail {
   planName: string;
   /** Payment failed, and the plan it leaves the studio on has fewer seats than its members. */
   seats?: SeatsAfterFailedPayment;
+  /** Payment failed: the plan it leaves the studio on until a payment goes through. */
+  fallbackPlanName?: string;
 }
 
 /** A plan change (by webhook) left more members than the new plan's seats. */
@@ -53,6 +55,7 @@ export class BillingMailer {
         invoiceId: m.invoiceId,
         link,
         ...(m.seats ? { seats: m.seats } : {}),
+        ...(m.fallbackPlanName ? { fallbackPlanName: m.fallbackPlanName } : {}),
       };
       await this.mail.send({ template: m.kind, to: o.email, data } as MailJob, within);
     }

@@ -326,14 +326,24 @@ export class WebhookService {
     if ((event.type === 'invoice.paid' && total > 0) || event.type === 'invoice.payment_failed') {
       const plan = lines.find((l) => l.kind === 'plan')?.description ?? 'your plan';
       const failed = event.type === 'invoice.payment_failed';
-      const seats = failed ? await this.seatsAfterFailedPayment(m, orgId, subscriptionId) : null;
+      const fallback = failed ? await this.planAfterFailedPayment(m, orgId, subscriptionId) : null;
       const mail: PaymentMail = {
         kind: failed ? 'payment-failed' : 'payment-succeeded',
         organizationId: orgId,
         invoiceId: inv.id!,
         amount: `${(total / 100).toFixed(2)} ${inv.currency.toUpperCase()}`,
         planName: plan,
-        ...(seats ? { seats: { ...seats, teamLink: `${this.config.publicUrl}/team` } } : {}),
+        ...(fallback ? { fallbackPlanName: fallback.planName } : {}),
+        ...(fallback?.over
+          ? {
+              seats: {
+                planName: fallback.planName,
+                seats: fallback.seats,
+                members: fallback.members,
+                teamLink: `${this.config.publicUrl}/team`,
+              },
+            }
+          : {}),
       };
       await this.mailer.send(mail, `${this.config.publicUrl}/billing`, m);
     }
@@ -342,15 +352,15 @@ export class WebhookService {
 
   /**
    * The plan a failed payment of `subscriptionId` leaves the organisation on (its newest other
-   * subscription in good standing, else free), when that plan has fewer seats than the members
-   * and fewer than the subscription's own plan: the same rule as the seats notice, worked out
-   * whether or not the subscription event that applies the drop has arrived yet.
+   * subscription in good standing, else free). `over` when that plan has fewer seats than the
+   * members and fewer than the subscription's own plan: the same rule as the seats notice, worked
+   * out whether or not the subscription event that applies the drop has arrived yet.
    */
-  private async seatsAfterFailedPayment(
+  private async planAfterFailedPayment(
     m: EntityManager,
     orgId: string,
     subscriptionId: string | null,
-  ): Promise<{ planName: string; seats: number; members: number } | null> {
+  ): Promise<{ planName: string; seats: number; members: number; over: boolean } | null> {
     if (!subscriptionId) return null;
     const rows: { lost_seats: number; name: string; seats: number; members: number }[] =
       await m.query(
@@ -366,8 +376,9 @@ export class WebhookService {
         [orgId, subscriptionId, ENTITLED],
       );
     const r = rows[0];
-    if (!r || r.members <= r.seats || r.lost_seats <= r.seats) return null;
-    return { planName: r.name, seats: r.seats, members: r.members };
+    if (!r) return null;
+    const over = r.members > r.seats && r.lost_seats > r.seats;
+    return { planName: r.name, seats: r.seats, members: r.members, over };
   }
 
   /** Reports the period's metered overage onto the draft invoice (once: idempotency key). */

@@ -16,8 +16,10 @@ describe('payment-failed e-mail', () => {
   it('says only the failed payment when the members fit', () => {
     const m = render({ template: 'payment-failed', data });
     expect(m.subject).toBe('Payment failed for Vellacott <Blue Hour>');
-    expect(m.text).toContain('We could not collect 29.00 USD');
-    expect(m.text).toContain('(invoice in_demo_1)');
+    expect(m.text).toContain(
+      'We could not collect 29.00 USD from Vellacott <Blue Hour> for invoice in_demo_1: Studio (monthly plan).',
+    );
+    expect(m.text).toContain('the organisation has the Free plan’s limits');
     expect(m.text).not.toMatch(/seat/);
     expect(m.html).toContain('href="http://127.0.0.1:3000/billing"');
   });
@@ -51,5 +53,13 @@ describe('payment-failed e-mail', () => {
     const m = render({ template: 'payment-failed', data: { ...data, seats } });
     expect(m.text).toContain('which has 1 seat. Your studio has 2 members.');
     expect(m.text).toContain('remove 1 member on the Team page');
+  });
+
+  it('names the plan the studio falls back to when it is not Free', () => {
+    const m = render({
+      template: 'payment-failed',
+      data: { ...data, fallbackPlanName: 'Studio' },
+    });
+    expect(m.text).toContain('the organisation has the Studio plan’s limits');
   });
 });

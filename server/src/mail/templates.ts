@@ -59,6 +59,8 @@ export interface PaymentMailData {
    * one e-mail then says both things (no separate seats notice is sent for that plan change).
    */
   seats?: SeatsAfterFailedPayment;
+  /** Payment failed only: the plan the studio is on until a payment goes through (default Free). */
+  fallbackPlanName?: string;
 }
 
 /** The plan a failed payment leaves the studio on, when its members no longer fit it. */
@@ -180,7 +182,7 @@ export function render(m: MailTemplate): Rendered {
       const subject = `Payment received for ${d.organizationName}`;
       const p = [
         `Hello ${d.name},`,
-        `We received ${d.amount} for the ${d.planName} plan of ${d.organizationName} (invoice ${d.invoiceId}). Thank you.`,
+        `We received ${d.amount} from ${d.organizationName} for invoice ${d.invoiceId}: ${d.planName}. Thank you.`,
       ];
       return {
         subject,
@@ -194,7 +196,7 @@ export function render(m: MailTemplate): Rendered {
       const subject = s
         ? `Payment failed for ${d.organizationName}, which now has more members than seats`
         : `Payment failed for ${d.organizationName}`;
-      const collect = `We could not collect ${d.amount} for the ${d.planName} plan of ${d.organizationName} (invoice ${d.invoiceId}).`;
+      const collect = `We could not collect ${d.amount} from ${d.organizationName} for invoice ${d.invoiceId}: ${d.planName}.`;
       const p = s
         ? [
             `Hello ${d.name},`,
@@ -206,7 +208,7 @@ export function render(m: MailTemplate): Rendered {
         : [
             `Hello ${d.name},`,
             collect,
-            'Until a payment goes through, the organisation has the free plan’s limits. Update the payment method in the console to restore the plan.',
+            `Until a payment goes through, the organisation has the ${d.fallbackPlanName ?? 'Free'} plan’s limits. Update the payment method in the console to restore the plan.`,
           ];
       return {
         subject,

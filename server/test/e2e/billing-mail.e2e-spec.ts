@@ -233,7 +233,7 @@ describe('billing e-mails', () => {
     expect(await jobsTo(s.everyone, m)).toEqual([{ to: s.o.email, template: 'payment-failed' }]);
     const msg = await waitForMail(mail.webUrl, s.o.email, /which now has more members than seats/);
     expect(msg.text).toContain('which has 2 seats. Your studio has 4 members.');
-    expect(msg.text).toContain(`(invoice ${invoice.id})`);
+    expect(msg.text).toContain(`for invoice ${invoice.id}: `);
     expect((await inboxSince(s.everyone, m)).map((x) => x.id)).toEqual([msg.id]);
   }, 60000);
 
@@ -254,6 +254,8 @@ describe('billing e-mails', () => {
     const msg = await waitForMail(mail.webUrl, s.o.email, /^Payment failed for /);
     expect(msg.subject).not.toMatch(/seats/);
     expect(msg.text).not.toMatch(/seat/);
+    // The plan the studio is on until a payment goes through: Free (its only subscription failed).
+    expect(msg.text).toContain('the organisation has the Free plan’s limits');
     expect((await inboxSince(s.everyone, m)).map((x) => x.id)).toEqual([msg.id]);
   }, 60000);
 
