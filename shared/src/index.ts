@@ -32,6 +32,8 @@ export * from './color/locus.js';
 export * from './setup/dusk-setup.js';
 export * from './setup/cautions.js';
 
+export * from './timeline/evening-timeline.js';
+
 export { METRES_PER_FOOT, toMetres, fromMetres, type LengthUnit } from './units/length.js';
 export { clockIn, clockOf } from './units/time-zone.js';
 export { countOf } from './units/math.js';

@@ -46,6 +46,22 @@ export type BalanceWarningCode = (typeof BALANCE_WARNING_CODES)[number];
 export const TWILIGHT_WARNING_CODES = ['time-zone-mismatch'] as const;
 export type TwilightWarningCode = (typeof TWILIGHT_WARNING_CODES)[number];
 
+/**
+ * The evening timeline's: the twilight's, the sun never setting or rising, no window at all, slots
+ * outside the blue hour, none free, shorter than wanted, and a booked event inside the window.
+ */
+export const TIMELINE_WARNING_CODES = [
+  ...TWILIGHT_WARNING_CODES,
+  'polar-day',
+  'polar-night',
+  'no-window',
+  'outside-blue-hour',
+  'no-free-stretch',
+  'shorter-than-wanted',
+  'event-overlaps-window',
+] as const;
+export type TimelineWarningCode = (typeof TIMELINE_WARNING_CODES)[number];
+
 /** The rim light's backlight warnings, as the dusk setup's list carries them. */
 export const RIM_WARNING_CODES = BACKLIGHT_WARNING_CODES.map((c) => `rim-${c}` as const);
 export type RimWarningCode = `rim-${BacklightWarningCode}`;

@@ -1,0 +1,363 @@
+/**
+ * The evening timeline: its twilight phases checked against two outside references, suncalc
+ * 2.0.2 (the reference library the project uses, called directly here) and astronomy-engine
+ * 2.1.19 (the independent reference the twilight tests use, ±30 s below 60° latitude); the slot
+ * logic against hand-made schedules whose answers follow from interval arithmetic on the
+ * reference times (common practice, no source).
+ */
+import { Body, Observer, SearchAltitude, SearchHourAngle, SearchRiseSet } from 'astronomy-engine';
+import fc from 'fast-check';
+import { getPosition, getTimes } from 'suncalc';
+import { describe, expect, it } from 'vitest';
+import {
+  DEFAULT_SETUP_MINUTES,
+  LightingInputError,
+  planEveningTimeline,
+  TIMELINE_WARNING_CODES,
+  type BookedEvent,
+  type TimelineInput,
+} from '../src/index.js';
+
+const MIN = 60_000;
+// An invented riverside-terrace wedding (real coordinates are fine; the venue is made up).
+const TERRACE = {
+  latitude: 51.507,
+  longitude: -0.1,
+  date: '2026-06-20',
+  timeZone: 'Europe/London',
+};
+// An invented vineyard evening in the southern summer.
+const VINEYARD = {
+  latitude: -33.92,
+  longitude: 18.42,
+  date: '2026-12-05',
+  timeZone: 'Africa/Johannesburg',
+};
+
+const at = (iso: string | null): number => {
+  expect(iso).not.toBeNull();
+  return Date.parse(iso!);
+};
+const z = (t: number) => new Date(t).toISOString();
+const codes = (r: { warnings: { code: string }[] }) => r.warnings.map((w) => w.code);
+const plan = (over: Partial<TimelineInput> & { events?: BookedEvent[] }) =>
+  planEveningTimeline({ ...TERRACE, portraitMinutes: 20, ...over } as TimelineInput);
+
+/** The reference blue hour etc. from astronomy-engine, searched from the date's solar noon. */
+function astro(place: { latitude: number; longitude: number }, localMidnightUtc: number) {
+  const obs = new Observer(place.latitude, place.longitude, 0);
+  const noon = SearchHourAngle(Body.Sun, obs, 0, new Date(localMidnightUtc)).time;
+  const alt = (deg: number) => SearchAltitude(Body.Sun, obs, -1, noon, 0.5, deg)?.date.getTime();
+  return {
+    // SearchRiseSet: upper limb with standard refraction, as sunset is defined (USNO).
+    sunset: SearchRiseSet(Body.Sun, obs, -1, noon, 0.5)?.date.getTime(),
+    civilDusk: alt(-6),
+    nauticalDusk: alt(-12),
+    blueStart: alt(-4),
+    blueEnd: alt(-8),
+  };
+}
+
+describe('planEveningTimeline: the phases against outside references', () => {
+  it.each([
+    // IANA tz database: Europe/London is UTC+1 on 2026-06-20, Africa/Johannesburg UTC+2 all year.
+    ['terrace, London midsummer', TERRACE, Date.UTC(2026, 5, 19, 23)],
+    ['vineyard, Cape summer', VINEYARD, Date.UTC(2026, 11, 4, 22)],
+  ])('%s: sunset and dusk match suncalc to the second', (_name, place, midnightUtc) => {
+    const r = planEveningTimeline({ ...place, portraitMinutes: 20 });
+    // suncalc 2.0.2 getTimes at local noon [LIB]: sunset (-0.833°), dusk (-6°), nauticalDusk (-12°).
+    const ref = getTimes(new Date(midnightUtc + 12 * 3600_000), place.latitude, place.longitude);
+    expect(Math.abs(at(r.twilight.sunset) - ref.sunset!.getTime())).toBeLessThanOrEqual(1000);
+    expect(Math.abs(at(r.twilight.civilDusk) - ref.dusk!.getTime())).toBeLessThanOrEqual(1000);
+    expect(Math.abs(at(r.twilight.nauticalDusk) - ref.nauticalDusk!.getTime())).toBeLessThanOrEqual(
+      1000,
+    );
+  });
+
+  it.each([
+    ['terrace, London midsummer', TERRACE, Date.UTC(2026, 5, 19, 23)],
+    ['vineyard, Cape summer', VINEYARD, Date.UTC(2026, 11, 4, 22)],
+  ])('%s: sunset, dusk and blue hour within 30 s of astronomy-engine', (_name, place, midnight) => {
+    const r = planEveningTimeline({ ...place, portraitMinutes: 20 });
+    const ref = astro(place, midnight);
+    // astronomy-engine 2.1.19 [LIB]; ±30 s as the twilight reference tests allow below 60°.
+    expect(Math.abs(at(r.twilight.sunset) - ref.sunset!)).toBeLessThan(30_000);
+    expect(Math.abs(at(r.twilight.civilDusk) - ref.civilDusk!)).toBeLessThan(30_000);
+    expect(Math.abs(at(r.twilight.nauticalDusk) - ref.nauticalDusk!)).toBeLessThan(30_000);
+    // Blue hour -4° to -8° geometric (common practice, no standard), as in the twilight code.
+    expect(Math.abs(at(r.twilight.blueHour.start) - ref.blueStart!)).toBeLessThan(30_000);
+    expect(Math.abs(at(r.twilight.blueHour.end) - ref.blueEnd!)).toBeLessThan(30_000);
+    expect(r.window).toEqual({
+      basis: 'blue-hour',
+      start: r.twilight.blueHour.start,
+      end: r.twilight.blueHour.end,
+    });
+  });
+
+  it('polar day (78.2° N, June solstice): no sunset, no window, no slot, a polar-day warning', () => {
+    const place = { latitude: 78.22, longitude: 15.65 };
+    const r = planEveningTimeline({
+      ...place,
+      date: '2026-06-21',
+      timeZone: 'Arctic/Longyearbyen',
+      portraitMinutes: 20,
+    });
+    // suncalc 2.0.2 [LIB]: alwaysUp, and the sun's altitude at local midnight is above 0.
+    const ref = getTimes(new Date(Date.UTC(2026, 5, 21, 10)), place.latitude, place.longitude);
+    expect(ref.alwaysUp).toBe(true);
+    const midnightAlt = getPosition(new Date(Date.UTC(2026, 5, 21, 22)), 78.22, 15.65).altitude;
+    expect(midnightAlt).toBeGreaterThan(0);
+    expect(r.twilight.sunset).toBeNull();
+    expect(r.twilight.reasons.sunset).toBe('sun-never-sets');
+    expect(r.window).toEqual({ basis: null, start: null, end: null });
+    expect(r.slots).toEqual([]);
+    expect(codes(r)).toEqual(['polar-day']);
+  });
+
+  it('polar night (69.65° N, December solstice): no sunset, but a blue hour after the midday low', () => {
+    const place = { latitude: 69.6492, longitude: 18.9553 };
+    const r = planEveningTimeline({
+      ...place,
+      date: '2026-12-21',
+      timeZone: 'Europe/Oslo',
+      portraitMinutes: 30,
+    });
+    // suncalc 2.0.2 [LIB]: alwaysDown. astronomy-engine [LIB]: the sun still crosses -4° and -8°
+    // in the afternoon, so the blue hour exists; within 60 s (the 60-72° tolerance of the
+    // twilight reference tests).
+    const ref = getTimes(new Date(Date.UTC(2026, 11, 21, 11)), place.latitude, place.longitude);
+    expect(ref.alwaysDown).toBe(true);
+    const a = astro(place, Date.UTC(2026, 11, 20, 23));
+    expect(r.twilight.sunset).toBeNull();
+    expect(r.twilight.reasons.sunset).toBe('sun-never-rises');
+    expect(Math.abs(at(r.twilight.blueHour.start) - a.blueStart!)).toBeLessThan(60_000);
+    expect(Math.abs(at(r.twilight.blueHour.end) - a.blueEnd!)).toBeLessThan(60_000);
+    expect(codes(r)).toEqual(['polar-night']);
+    expect(r.window.basis).toBe('blue-hour');
+    expect(r.slots).toHaveLength(1);
+    expect(r.slots[0]!.session.start).toBe(r.twilight.blueHour.start);
+  });
+});
+
+describe('planEveningTimeline: slots from hand-made schedules (interval arithmetic, common practice, no source)', () => {
+  const base = plan({});
+  const bs = at(base.twilight.blueHour.start);
+  const be = at(base.twilight.blueHour.end);
+  const sunset = at(base.twilight.sunset);
+  const civil = at(base.twilight.civilDusk);
+  const blueMin = (be - bs) / MIN;
+
+  it('no events: one slot from the blue hour’s start, set-up before it, the wanted length fits', () => {
+    expect(blueMin).toBeGreaterThan(20);
+    expect(base.slots).toHaveLength(1);
+    const s = base.slots[0]!;
+    expect(base.setupMinutes).toBe(DEFAULT_SETUP_MINUTES);
+    expect(at(s.start)).toBe(bs);
+    expect(at(s.end)).toBe(be);
+    expect(s.minutes).toBeCloseTo(blueMin, 1);
+    expect(at(s.session.start)).toBe(bs);
+    expect(at(s.session.end)).toBe(bs + 20 * MIN);
+    expect(at(s.setupFrom)).toBe(bs - DEFAULT_SETUP_MINUTES * MIN);
+    expect(s.session.minutes).toBe(20);
+    expect(s.blueHourMinutes).toBe(20);
+    expect(s.fitsWantedLength).toBe(true);
+    expect(base.warnings).toEqual([]);
+  });
+
+  it('an event in the middle splits the blue hour; the stretch that holds more of the wanted session ranks first', () => {
+    const speeches = { label: 'Speeches', start: z(bs + 10 * MIN), end: z(bs + 20 * MIN) };
+    const r = plan({ events: [speeches], setupMinutes: 5, portraitMinutes: 15 });
+    // Before: [bs, bs+10] (10 min). After: [bs+20+5 set-up, be].
+    const after = be - (bs + 25 * MIN);
+    expect(after).toBeGreaterThan(10 * MIN);
+    expect(r.slots.map((s) => [at(s.start), at(s.end)])).toEqual([
+      [bs + 25 * MIN, be],
+      [bs, bs + 10 * MIN],
+    ]);
+    expect(r.slots.map((s) => s.rank)).toEqual([1, 2]);
+    const fits = Math.min(15, after / MIN);
+    expect(r.slots[0]!.blueHourMinutes).toBeCloseTo(fits, 1);
+    expect(r.slots[1]!.blueHourMinutes).toBe(10);
+    expect(r.slots[1]!.fitsWantedLength).toBe(false);
+    expect(codes(r)).toEqual(
+      after >= 15 * MIN
+        ? ['event-overlaps-window']
+        : ['shorter-than-wanted', 'event-overlaps-window'],
+    );
+  });
+
+  it('set-up time that must follow an event pushes the session into the blue hour', () => {
+    const dinner = { label: 'Dinner', start: z(bs - 90 * MIN), end: z(bs - 3 * MIN) };
+    const r = plan({ events: [dinner], setupMinutes: 10 });
+    // Dinner ends 3 min before the blue hour; 10 min of set-up end 7 min into it.
+    expect(at(r.slots[0]!.start)).toBe(bs + 7 * MIN);
+    expect(at(r.slots[0]!.setupFrom)).toBe(bs - 3 * MIN);
+    expect(codes(r)).toEqual([]); // the dinner ends before the window opens
+  });
+
+  it('a fully booked blue hour moves the search to sunset–civil dusk, the session as late as it goes', () => {
+    const dancing = { label: 'First dance', start: z(bs - MIN), end: z(be + MIN) };
+    const r = plan({ events: [dancing] });
+    expect(r.window).toEqual({
+      basis: 'sunset-to-civil-dusk',
+      start: base.twilight.sunset,
+      end: base.twilight.civilDusk,
+    });
+    expect(r.slots).toHaveLength(1);
+    const s = r.slots[0]!;
+    expect([at(s.start), at(s.end)]).toEqual([sunset, bs - MIN]);
+    expect([at(s.session.start), at(s.session.end)]).toEqual([bs - 21 * MIN, bs - MIN]);
+    expect(s.blueHourMinutes).toBe(0);
+    expect(codes(r)).toEqual(['outside-blue-hour', 'event-overlaps-window']);
+    expect(civil).toBeGreaterThan(bs); // the fallback window does reach into the booked span
+  });
+
+  it('no free minute anywhere in the window: no slot and a no-free-stretch warning', () => {
+    const party = { label: 'Reception', start: z(sunset - 60 * MIN), end: z(be + 60 * MIN) };
+    const r = plan({ events: [party] });
+    expect(r.slots).toEqual([]);
+    expect(r.window.basis).toBe('blue-hour');
+    expect(codes(r)).toEqual(['no-free-stretch', 'event-overlaps-window']);
+    expect(r.timeline.some((e) => e.kind === 'portraits')).toBe(false);
+  });
+
+  it('a stretch shorter than wanted is still offered, with a warning', () => {
+    const cake = { label: 'Cake', start: z(bs + 12 * MIN), end: z(be + 30 * MIN) };
+    const r = plan({ events: [cake], portraitMinutes: 30 });
+    expect(r.slots).toHaveLength(1);
+    expect(r.slots[0]!.session.minutes).toBe(12);
+    expect(r.slots[0]!.fitsWantedLength).toBe(false);
+    expect(codes(r)).toEqual(['shorter-than-wanted', 'event-overlaps-window']);
+  });
+
+  it('merges events and phases in time order and reads HH:MM as local time on the date', () => {
+    const r = plan({
+      events: [
+        { label: 'Ceremony', start: '16:00', end: '17:00' },
+        { label: 'Dinner', start: '19:30', end: '21:30' },
+        // After midnight: an instant with an offset.
+        { label: 'Last dance', start: '2026-06-20T23:30:00+01:00', end: '2026-06-20T23:59:00Z' },
+      ],
+    });
+    // IANA tz database: Europe/London keeps BST (UTC+1) in June, so 19:30 local is 18:30Z.
+    const dinner = r.timeline.find((e) => e.eventIndex === 1)!;
+    expect(dinner).toEqual({
+      kind: 'event',
+      phase: null,
+      eventIndex: 1,
+      label: 'Dinner',
+      start: '2026-06-20T19:30:00+01:00',
+      end: '2026-06-20T21:30:00+01:00',
+    });
+    expect(r.timeline.find((e) => e.eventIndex === 2)!.end).toBe('2026-06-21T00:59:00+01:00');
+    const starts = r.timeline.map((e) => Date.parse(e.start));
+    expect(starts).toEqual([...starts].sort((a, b) => a - b));
+    expect(r.timeline.filter((e) => e.kind === 'phase').map((e) => e.phase)).toEqual([
+      'golden-hour',
+      'sunset',
+      'blue-hour',
+      'civil-dusk',
+      'nautical-dusk',
+    ]);
+    const setup = r.timeline.find((e) => e.kind === 'set-up')!;
+    const session = r.timeline.find((e) => e.kind === 'portraits')!;
+    expect(setup.end).toBe(session.start);
+    expect(session.start).toBe(r.slots[0]!.session.start);
+  });
+
+  it('reads HH:MM on a daylight-saving change day with the evening’s offset', () => {
+    // IANA tz database: Europe/London returns to GMT (UTC+0) at 02:00 on 2026-10-25.
+    const r = plan({
+      date: '2026-10-25',
+      events: [{ label: 'Ceremony', start: '15:00', end: '16:00' }],
+    });
+    expect(r.timeline.find((e) => e.kind === 'event')!.start).toBe('2026-10-25T15:00:00+00:00');
+  });
+
+  it('never puts a session or its set-up on top of an event, and keeps slots in the window (random schedules)', () => {
+    fc.assert(
+      fc.property(
+        fc.array(
+          fc.record({
+            from: fc.integer({ min: -120, max: 90 }),
+            len: fc.integer({ min: 1, max: 60 }),
+          }),
+          { maxLength: 8 },
+        ),
+        fc.integer({ min: 1, max: 60 }),
+        fc.integer({ min: 0, max: 30 }),
+        (raw, portraitMinutes, setupMinutes) => {
+          const events = raw.map((e, i) => ({
+            label: `Event ${i}`,
+            start: z(bs + e.from * MIN),
+            end: z(bs + (e.from + e.len) * MIN),
+          }));
+          const r = plan({ events, portraitMinutes, setupMinutes });
+          const ws = at(r.window.start);
+          const we = at(r.window.end);
+          for (const s of r.slots) {
+            const from = at(s.setupFrom);
+            const to = at(s.session.end);
+            expect(at(s.session.start) - from).toBe(setupMinutes * MIN);
+            expect(at(s.session.start)).toBeGreaterThanOrEqual(ws);
+            expect(to).toBeLessThanOrEqual(we);
+            for (const e of events) {
+              const clash = Math.min(to, Date.parse(e.end)) - Math.max(from, Date.parse(e.start));
+              expect(clash).toBeLessThanOrEqual(0);
+            }
+          }
+          const blue = r.slots.map((s) => s.blueHourMinutes);
+          expect(blue).toEqual([...blue].sort((a, b) => b - a));
+          for (const w of r.warnings) expect(TIMELINE_WARNING_CODES).toContain(w.code);
+        },
+      ),
+      { numRuns: 150 },
+    );
+  });
+});
+
+describe('planEveningTimeline: bad input names the field', () => {
+  const ok = { label: 'Ceremony', start: '16:00', end: '17:00' };
+  const fieldOf = (input: unknown): string | null => {
+    try {
+      planEveningTimeline(input as TimelineInput);
+      return null;
+    } catch (e) {
+      expect(e).toBeInstanceOf(LightingInputError);
+      return (e as LightingInputError).field;
+    }
+  };
+  it.each([
+    [{ events: [ok, ok, { label: 'Dinner', start: '20:00', end: '19:00' }] }, 'events[2].end'],
+    [{ events: [ok, { label: 'Dinner', start: '20:00', end: '20:00' }] }, 'events[1].end'],
+    [{ events: [{ ...ok, start: 'seven' }] }, 'events[0].start'],
+    [{ events: [{ ...ok, start: '24:00' }] }, 'events[0].start'],
+    [{ events: [{ ...ok, end: '2026-06-21T13:00:00+01:00' }] }, 'events[0].end'],
+    [{ events: [{ ...ok, start: '2026-06-19T23:00:00+01:00' }] }, 'events[0].start'],
+    [{ events: [{ ...ok, label: ' ' }] }, 'events[0].label'],
+    [{ events: [ok, 'dinner'] }, 'events[1]'],
+    [{ events: Array.from({ length: 31 }, () => ok) }, 'events'],
+    [{ portraitMinutes: 0 }, 'portraitMinutes'],
+    [{ portraitMinutes: undefined }, 'portraitMinutes'],
+    [{ setupMinutes: 121 }, 'setupMinutes'],
+    [{ timeZone: '+01:00' }, 'timeZone'],
+    [{ date: '2026-02-30' }, 'date'],
+    [{ latitude: 91 }, 'latitude'],
+  ])('%j → %s', (over, field) => {
+    expect(fieldOf({ ...TERRACE, portraitMinutes: 20, ...over })).toBe(field);
+  });
+
+  it('takes 30 events, the edges of the ranges, and no events at all', () => {
+    expect(fieldOf({ ...TERRACE, portraitMinutes: 240, setupMinutes: 120 })).toBeNull();
+    expect(fieldOf({ ...TERRACE, portraitMinutes: 1, setupMinutes: 0, events: [] })).toBeNull();
+    const hhmm = (min: number) =>
+      `${String(Math.floor(min / 60)).padStart(2, '0')}:${String(min % 60).padStart(2, '0')}`;
+    // 30 back-to-back 20-minute events from 10:00.
+    const thirty = Array.from({ length: 30 }, (_, i) => ({
+      label: `Event ${i}`,
+      start: hhmm(600 + 20 * i),
+      end: hhmm(620 + 20 * i),
+    }));
+    expect(fieldOf({ ...TERRACE, portraitMinutes: 20, events: thirty })).toBeNull();
+  });
+});
