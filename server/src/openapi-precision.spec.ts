@@ -12,6 +12,7 @@ import {
   FRAME_WARNING_CODES,
   MODIFIER_NAMES,
   SETUP_WARNING_CODES,
+  TIMELINE_WARNING_CODES,
   TWILIGHT_WARNING_CODES,
 } from '@lumenwright/shared';
 import { getMetadataStorage } from 'class-validator';
@@ -159,6 +160,7 @@ describe('the spec is as precise as the code', () => {
     expect(codes(response('BalanceResponseDto').warnings)).toEqual([...BALANCE_WARNING_CODES]);
     expect(codes(response('TwilightResponseDto').warnings)).toEqual([...TWILIGHT_WARNING_CODES]);
     expect(codes(response('SetupResponseDto').warnings)).toEqual([...SETUP_WARNING_CODES]);
+    expect(codes(response('TimelineResponseDto').warnings)).toEqual([...TIMELINE_WARNING_CODES]);
     expect(codes(response('SetupResponseDto').twilight!.properties!.warnings)).toEqual([
       ...TWILIGHT_WARNING_CODES,
     ]);

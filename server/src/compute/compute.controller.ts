@@ -8,6 +8,7 @@ import type {
   ExposureInput,
   FalloffInput,
   FlashInput,
+  TimelineInput,
   TwilightInput,
 } from '@lumenwright/shared';
 import type { RequestWithPrincipal } from '../common/guards/access.guard.js';
@@ -22,6 +23,7 @@ import * as falloff from './schemas/falloff.schema.js';
 import * as flash from './schemas/flash.schema.js';
 import * as gearAware from './schemas/gear-aware.dto.js';
 import * as setup from './schemas/setup.schema.js';
+import * as timeline from './schemas/timeline.schema.js';
 import * as twilight from './schemas/twilight.schema.js';
 
 @ApiTags('compute')
@@ -112,5 +114,16 @@ export class ComputeController {
     @Body(new SchemaPipe(gearAware.gearSetupRequestSchema)) body: DuskSetupInput & GearRefs,
   ) {
     return this.compute.setupFor(req.principal!.organizationId, body);
+  }
+
+  @ComputeRoute(
+    'timeline',
+    'The evening as a timeline: twilight phases and booked events in time order, and portrait ' +
+      'slots in the blue hour (else sunset to civil dusk) clear of the events and the set-up.',
+    timeline.TimelineRequestDto,
+    timeline.TimelineResponseDto,
+  )
+  planTimeline(@Body(new SchemaPipe(timeline.timelineRequestSchema)) body: TimelineInput) {
+    return this.compute.timeline(body);
   }
 }

@@ -7,6 +7,7 @@ import {
   computeTwilight,
   LightingInputError,
   planDuskSetup,
+  planEveningTimeline,
   solveBalance,
   solveBackgroundExposure,
   solveExposure,
@@ -17,6 +18,7 @@ import {
   type ExposureInput,
   type FalloffInput,
   type FlashInput,
+  type TimelineInput,
   type TwilightInput,
 } from '@lumenwright/shared';
 import { DomainError } from '../common/errors/domain-error.js';
@@ -81,4 +83,5 @@ export class ComputeService {
   backlight = (input: BacklightInput) => run(() => computeBacklight(input));
   balance = (input: BalanceInput) => run(() => solveBalance(input));
   setup = (input: DuskSetupInput) => run(() => planDuskSetup(input));
+  timeline = (input: TimelineInput) => run(() => planEveningTimeline(input));
 }

@@ -10,6 +10,7 @@ export const ENDPOINTS = [
   'backlight',
   'balance',
   'setup',
+  'timeline',
   'frames',
 ];
 const DATE = '^\\d{4}-\\d{2}-\\d{2}$';

@@ -44,6 +44,17 @@ export const DEMO_BODIES: Record<string, Record<string, unknown>> = {
     timeZone: 'Europe/London',
     key: { guideNumber: 60, distance: 2.5 },
   },
+  timeline: {
+    latitude: 51.507,
+    longitude: -0.1,
+    date: '2026-06-20',
+    timeZone: 'Europe/London',
+    events: [
+      { label: 'Dinner', start: '19:00', end: '21:15' },
+      { label: 'Speeches', start: '21:15', end: '21:40' },
+    ],
+    portraitMinutes: 20,
+  },
 };
 
 export const ENDPOINTS = Object.keys(DEMO_BODIES);

@@ -6,7 +6,8 @@ import { COMPUTE_EXAMPLES } from './examples.js';
 import { REQUEST_SCHEMAS, RESPONSE_SCHEMAS } from './index.js';
 
 const service = new ComputeService();
-type Endpoint = 'twilight' | 'exposure' | 'flash' | 'falloff' | 'backlight' | 'balance' | 'setup';
+type Endpoint =
+  'twilight' | 'exposure' | 'flash' | 'falloff' | 'backlight' | 'balance' | 'setup' | 'timeline';
 
 describe('compute request examples', () => {
   it('has examples for every compute endpoint', () => {

@@ -70,6 +70,29 @@ export const COMPUTE_EXAMPLES: Record<string, Record<string, RequestExample>> = 
       value: { cameraKelvin: 3800, flashKelvin: 5600 },
     },
   },
+  timeline: {
+    weddingEvening: {
+      summary:
+        'A terrace wedding: dinner, speeches and the first dance around a 20-minute portrait session',
+      description:
+        'Times as HH:MM on the date, or instants with an offset for events after midnight. The ' +
+        'slots avoid every event and the 15 minutes of set-up before the session.',
+      value: {
+        ...TERRACE,
+        date: '2026-06-20',
+        timeZone: 'Europe/London',
+        events: [
+          { label: 'Ceremony', start: '16:00', end: '16:45' },
+          { label: 'Dinner', start: '19:00', end: '21:15' },
+          { label: 'Speeches', start: '21:15', end: '21:40' },
+          { label: 'First dance', start: '22:20', end: '22:35' },
+          { label: 'Late buffet', start: '23:30', end: '2026-06-21T00:30:00+01:00' },
+        ],
+        portraitMinutes: 20,
+        setupMinutes: 15,
+      },
+    },
+  },
   setup: {
     eveningPlan: {
       summary: 'The whole evening: key in a softbox, a rim light, the river behind',

@@ -6,6 +6,7 @@ import { exposureRequestSchema, exposureResponseSchema } from './exposure.schema
 import { falloffRequestSchema, falloffResponseSchema } from './falloff.schema.js';
 import { flashRequestSchema, flashResponseSchema } from './flash.schema.js';
 import { setupRequestSchema, setupResponseSchema } from './setup.schema.js';
+import { timelineRequestSchema, timelineResponseSchema } from './timeline.schema.js';
 import { twilightRequestSchema, twilightResponseSchema } from './twilight.schema.js';
 
 export const REQUEST_SCHEMAS: Record<string, JsonSchema> = {
@@ -16,6 +17,7 @@ export const REQUEST_SCHEMAS: Record<string, JsonSchema> = {
   backlight: backlightRequestSchema,
   balance: balanceRequestSchema,
   setup: setupRequestSchema,
+  timeline: timelineRequestSchema,
 };
 
 export const RESPONSE_SCHEMAS: Record<string, JsonSchema> = {
@@ -26,4 +28,5 @@ export const RESPONSE_SCHEMAS: Record<string, JsonSchema> = {
   backlight: backlightResponseSchema,
   balance: balanceResponseSchema,
   setup: setupResponseSchema,
+  timeline: timelineResponseSchema,
 };

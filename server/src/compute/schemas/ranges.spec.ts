@@ -16,6 +16,7 @@ import {
   computeTwilight,
   LightingInputError,
   planDuskSetup,
+  planEveningTimeline,
   solveBackgroundExposure,
   solveBalance,
   solveExposure,
@@ -41,6 +42,7 @@ const LIBRARY: Record<string, (input: Body) => unknown> = {
   backlight: (i) => computeBacklight(i as never),
   balance: (i) => solveBalance(i as never),
   setup: (i) => planDuskSetup(i as never),
+  timeline: (i) => planEveningTimeline(i as never),
 };
 
 /** The schemas the routes validate with and the document publishes. */
@@ -109,6 +111,7 @@ const BASES: Record<string, Base[]> = {
       },
     },
   ],
+  timeline: [{ name: 'demo', input: { ...DEMO_BODIES.timeline, setupMinutes: 10 } }],
 };
 
 /**

@@ -128,6 +128,21 @@ const EDGE_CASES: Record<string, Record<string, unknown>[]> = {
     // Polar night: most minutes darker than the background solver takes (a too-dark warning).
     { ...NORTH, date: '2026-12-15', key: { guideNumber: 60, distance: 2.5 } },
   ],
+  timeline: [
+    { ...PLACE, date: '2026-12-21', portraitMinutes: 240, setupMinutes: 0 }, // no events
+    { ...NORTH, date: '2026-06-21', portraitMinutes: 20 }, // polar day: no window, no slot
+    { ...NORTH, date: '2026-12-21', portraitMinutes: 20 }, // polar night: all null
+    // A reception over the whole evening: no free stretch; an event after midnight.
+    {
+      ...PLACE,
+      date: '2026-06-20',
+      portraitMinutes: 20,
+      events: [
+        { label: 'Reception', start: '18:00', end: '23:45' },
+        { label: 'Late buffet', start: '23:45', end: '2026-06-21T00:30:00+01:00' },
+      ],
+    },
+  ],
 };
 
 const INPUTS = Object.fromEntries(
@@ -144,6 +159,7 @@ describe('documented response schemas', () => {
     backlight: compute.backlight,
     balance: compute.balance,
     setup: compute.setup,
+    timeline: compute.timeline,
   };
 
   it('has inputs for every endpoint with a schema', () => {
