@@ -22,6 +22,8 @@ export type BalanceRequest = Schemas['BalanceRequestDto'];
 export type BalanceResponse = Schemas['BalanceResponseDto'];
 export type SetupRequest = Schemas['SetupRequestDto'];
 export type SetupResponse = Schemas['SetupResponseDto'];
+export type TimelineRequest = Schemas['TimelineRequestDto'];
+export type TimelineResponse = Schemas['TimelineResponseDto'];
 export type PlanList = Schemas['PlanListResponseDto'];
 export type Light = Schemas['LightResponseDto'];
 export type LightList = Schemas['LightListResponseDto'];
@@ -111,7 +113,8 @@ type ComputePath =
   | '/v1/falloff'
   | '/v1/backlight'
   | '/v1/balance'
-  | '/v1/setup';
+  | '/v1/setup'
+  | '/v1/timeline';
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
@@ -168,6 +171,9 @@ export class Lumenwright {
     this.compute<BalanceResponse>('/v1/balance', body, o);
   setup = (body: SetupRequest, o?: CallOptions) =>
     this.compute<SetupResponse>('/v1/setup', body, o);
+  /** The evening as a timeline: phases, booked events and portrait slots clear of them. */
+  timeline = (body: TimelineRequest, o?: CallOptions) =>
+    this.compute<TimelineResponse>('/v1/timeline', body, o);
 
   /**
    * The studio's gear list, read with the key (writing it is a console action). Compute calls

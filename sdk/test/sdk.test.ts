@@ -133,6 +133,45 @@ describe('Lumenwright SDK', () => {
     expect(Array.isArray(s.suggestedMinutes)).toBe(true);
   });
 
+  it('plans the evening timeline: portrait slot clear of the events, typed warnings', async () => {
+    // An invented terrace wedding. The phases come from the twilight code, whose times the math
+    // library checks against suncalc and astronomy-engine; here the slot must follow the
+    // schedule (interval arithmetic, common practice, no source): speeches end 21:40 and the
+    // crew needs 15 minutes, so no set-up starts before 21:40 and no session before 21:55.
+    const r = await lw.timeline({
+      latitude: 51.507,
+      longitude: -0.1,
+      date: '2026-06-20',
+      timeZone: 'Europe/London',
+      events: [
+        { label: 'Dinner', start: '19:00', end: '21:15' },
+        { label: 'Speeches', start: '21:15', end: '21:40' },
+      ],
+      portraitMinutes: 20,
+      setupMinutes: 15,
+    });
+    const best = r.slots[0]!;
+    expect(Date.parse(best.setupFrom)).toBeGreaterThanOrEqual(
+      Date.parse('2026-06-20T21:40:00+01:00'),
+    );
+    expect(Date.parse(best.session.start) - Date.parse(best.setupFrom)).toBe(15 * 60_000);
+    expect(r.window.basis).toBe('blue-hour');
+    const codes: string[] = r.warnings.map((w) => w.code);
+    expect(codes.every((c) => !c.startsWith('polar'))).toBe(true);
+    const err = await lw
+      .timeline({
+        latitude: 51.507,
+        longitude: -0.1,
+        date: '2026-06-20',
+        timeZone: 'Europe/London',
+        events: [{ label: 'Dinner', start: '21:00', end: '19:00' }],
+        portraitMinutes: 20,
+      })
+      .catch((e: unknown) => e);
+    expect(err).toBeInstanceOf(LumenwrightError);
+    expect((err as LumenwrightError).problem?.errors?.[0]?.field).toBe('events[0].end');
+  });
+
   it('takes a base URL written with /v1 or a trailing slash as the same API', async () => {
     expect(apiRoot('https://api.example.test/v1/')).toBe('https://api.example.test');
     expect(apiRoot('https://api.example.test/v1')).toBe('https://api.example.test');

@@ -983,6 +983,23 @@ export interface paths {
     patch: operations['changeMemberRole'];
     trace?: never;
   };
+  '/v1/timeline': {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    get?: never;
+    put?: never;
+    /** The evening as a timeline: twilight phases and booked events in time order, and portrait slots in the blue hour (else sunset to civil dusk) clear of the events and the set-up. */
+    post: operations['planTimeline'];
+    delete?: never;
+    options?: never;
+    head?: never;
+    patch?: never;
+    trace?: never;
+  };
   '/v1/twilight': {
     parameters: {
       query?: never;
@@ -4174,6 +4191,286 @@ export interface components {
       /** Format: uuid */
       organizationId: string;
     };
+    /** @description The evening of a wedding or session: the booked events, and how long the portraits should take, for a place and date. */
+    TimelineRequestDto: {
+      /**
+       * Format: date
+       * @description Local calendar date, YYYY-MM-DD (1900..2100).
+       * @example 2026-06-20
+       */
+      date: string;
+      /** @description The booked events (fixed), at most 30; default none. */
+      events?: {
+        /**
+         * @description When it ends; after start. A local time HH:MM (24-hour) on the date, or an ISO 8601 date-time with Z or an offset (for an event after midnight); instants must fall between 00:00 on the date and 12:00 the next day, local time.
+         * @example 21:45
+         */
+        end: string;
+        /**
+         * @description What the event is.
+         * @example Speeches
+         */
+        label: string;
+        /**
+         * @description When it starts. A local time HH:MM (24-hour) on the date, or an ISO 8601 date-time with Z or an offset (for an event after midnight); instants must fall between 00:00 on the date and 12:00 the next day, local time.
+         * @example 21:00
+         */
+        start: string;
+      }[];
+      /**
+       * @description Degrees, north positive. Range: -90 to 90.
+       * @example 51.507
+       */
+      latitude: number;
+      /**
+       * @description Degrees, east positive. Range: -180 to 180.
+       * @example -0.1
+       */
+      longitude: number;
+      /**
+       * @description Length wanted for the portrait session, minutes. Range: 1 to 240.
+       * @example 20
+       */
+      portraitMinutes: number;
+      /**
+       * @description Minutes the crew needs to set up right before the session, outside any event; default 10 (common practice, no source). Range: 0 to 120.
+       * @example 10
+       */
+      setupMinutes?: number;
+      /**
+       * @description IANA time zone name, such as Europe/Zurich (any letter case); a UTC offset such as "+02:00" is refused. Answers spell it as the tz database does.
+       * @example Europe/London
+       */
+      timeZone: string;
+    };
+    TimelineResponseDto: {
+      /**
+       * @description The local date.
+       * @example 2026-06-20
+       */
+      date: string;
+      /**
+       * @description The session length asked for, minutes.
+       * @example 20
+       */
+      portraitMinutes: number;
+      /**
+       * @description The set-up time used, minutes.
+       * @example 10
+       */
+      setupMinutes: number;
+      /** @description Proposed portrait slots, best first: free stretches of 1 minute or more inside the window that overlap no event, with the set-up time before them free too. Ranked by the minutes of the wanted session in the blue hour, then length, then the earliest. */
+      slots: {
+        /**
+         * @description Minutes of the session inside the blue hour (to 0.1).
+         * @example 20
+         */
+        blueHourMinutes: number;
+        /**
+         * Format: date-time
+         * @description The stretch ends (window end or the next event). ISO 8601 local time with offset.
+         * @example 2026-06-20T22:30:00+01:00
+         */
+        end: string;
+        /**
+         * @description Whether the whole wanted length fits.
+         * @example true
+         */
+        fitsWantedLength: boolean;
+        /**
+         * @description Length of the stretch, minutes (to 0.1).
+         * @example 35
+         */
+        minutes: number;
+        /**
+         * @description 1 for the best.
+         * @example 1
+         */
+        rank: number;
+        /** @description The wanted session placed in the stretch (or as much as fits). */
+        session: {
+          /**
+           * Format: date-time
+           * @description Session end. ISO 8601 local time with offset.
+           * @example 2026-06-20T22:15:00+01:00
+           */
+          end: string;
+          /**
+           * @description Session length, minutes (to 0.1).
+           * @example 20
+           */
+          minutes: number;
+          /**
+           * Format: date-time
+           * @description Session start. ISO 8601 local time with offset.
+           * @example 2026-06-20T21:55:00+01:00
+           */
+          start: string;
+        };
+        /**
+         * Format: date-time
+         * @description The crew starts setting up. ISO 8601 local time with offset.
+         * @example 2026-06-20T21:45:00+01:00
+         */
+        setupFrom: string;
+        /**
+         * Format: date-time
+         * @description The session may start from here (set-up done). ISO 8601 local time with offset.
+         * @example 2026-06-20T21:55:00+01:00
+         */
+        start: string;
+      }[];
+      /**
+       * @description The IANA time zone, spelled as the tz database does.
+       * @example Europe/London
+       */
+      timeZone: string;
+      /** @description The phases, the booked events and the best slot’s set-up and session, in time order (moments before spans that start with them). */
+      timeline: {
+        /**
+         * Format: date-time
+         * @description End; null for a moment (sunset, civil dusk...). ISO 8601 local time with offset, or null.
+         * @example null
+         */
+        end: string | null;
+        /**
+         * @description Position of the booked event in the request, for an event line; else null.
+         * @example 1
+         */
+        eventIndex: number | null;
+        /**
+         * @description What the line is.
+         * @example event
+         * @enum {string}
+         */
+        kind: 'phase' | 'event' | 'set-up' | 'portraits';
+        /**
+         * @description The event’s label, or words for the phase, set-up or session.
+         * @example Speeches
+         */
+        label: string;
+        /**
+         * @description The twilight phase, for a phase line; else null.
+         * @example null
+         * @enum {string|null}
+         */
+        phase: 'golden-hour' | 'sunset' | 'blue-hour' | 'civil-dusk' | 'nautical-dusk' | null;
+        /**
+         * Format: date-time
+         * @description Start. ISO 8601 local time with offset.
+         * @example 2026-06-20T21:00:00+01:00
+         */
+        start: string;
+      }[];
+      /** @description The evening’s phases, as /v1/twilight gives them (null with a reason when the sun does not get there). */
+      twilight: {
+        /** @description Evening blue hour. */
+        blueHour: {
+          /**
+           * Format: date-time
+           * @description End. ISO 8601 local time with offset, or null (see reasons).
+           * @example 2026-06-20T21:48:00+01:00
+           */
+          end: string | null;
+          /**
+           * Format: date-time
+           * @description Start. ISO 8601 local time with offset, or null (see reasons).
+           * @example 2026-06-20T20:49:00+01:00
+           */
+          start: string | null;
+        };
+        /**
+         * Format: date-time
+         * @description Civil dusk (sun 6° below the horizon). ISO 8601 local time with offset, or null (see reasons).
+         * @example 2026-06-20T22:08:00+01:00
+         */
+        civilDusk: string | null;
+        /** @description Evening golden hour (sun descending through the golden band). */
+        goldenHour: {
+          /**
+           * Format: date-time
+           * @description End. ISO 8601 local time with offset, or null (see reasons).
+           * @example 2026-06-20T21:48:00+01:00
+           */
+          end: string | null;
+          /**
+           * Format: date-time
+           * @description Start. ISO 8601 local time with offset, or null (see reasons).
+           * @example 2026-06-20T20:49:00+01:00
+           */
+          start: string | null;
+        };
+        /**
+         * Format: date-time
+         * @description Nautical dusk (12° below). ISO 8601 local time with offset, or null (see reasons).
+         * @example 2026-06-20T23:18:00+01:00
+         */
+        nauticalDusk: string | null;
+        /** @description Notes, e.g. an event after local midnight. */
+        notes: string[];
+        /**
+         * @description For each null event (keys like "astronomicalDusk" or "goldenHour.start"), why it is missing.
+         * @example {
+         *       "astronomicalDusk": "twilight-never-ends"
+         *     }
+         */
+        reasons: {
+          [key: string]:
+            | 'sun-never-sets'
+            | 'sun-never-rises'
+            | 'twilight-never-ends'
+            | 'twilight-never-begins'
+            | 'sun-always-above'
+            | 'sun-always-below';
+        };
+        /**
+         * Format: date-time
+         * @description Sunset. ISO 8601 local time with offset, or null (see reasons).
+         * @example 2026-06-20T21:21:00+01:00
+         */
+        sunset: string | null;
+      };
+      /** @description Things to look at: a stable code and a sentence for people. Codes: "polar-day" (the sun does not set on the date); "polar-night" (the sun does not rise on the date; a blue hour may still come); "no-window" (neither a blue hour nor sunset to civil dusk on the date); "outside-blue-hour" (the blue hour is missing or fully booked: slots are looked for between sunset and civil dusk); "no-free-stretch" (the events and set-up leave no free stretch in the window); "shorter-than-wanted" (the best slot is shorter than the wanted length); "event-overlaps-window" (a booked event overlaps the window (one warning per event)). */
+      warnings: {
+        /**
+         * @description Stable warning code.
+         * @example time-zone-mismatch
+         * @enum {string}
+         */
+        code:
+          | 'time-zone-mismatch'
+          | 'polar-day'
+          | 'polar-night'
+          | 'no-window'
+          | 'outside-blue-hour'
+          | 'no-free-stretch'
+          | 'shorter-than-wanted'
+          | 'event-overlaps-window';
+        /** @description Explanation. */
+        message: string;
+      }[];
+      /** @description Where the slots were looked for: the blue hour, or sunset to civil dusk when the blue hour is missing or has no free stretch; all null when neither exists. */
+      window: {
+        /**
+         * @description Which stretch of sky: "blue-hour" or "sunset-to-civil-dusk".
+         * @example blue-hour
+         * @enum {string|null}
+         */
+        basis: 'blue-hour' | 'sunset-to-civil-dusk' | null;
+        /**
+         * Format: date-time
+         * @description Window end. ISO 8601 local time with offset, or null.
+         * @example 2026-06-20T22:30:00+01:00
+         */
+        end: string | null;
+        /**
+         * Format: date-time
+         * @description Window start. ISO 8601 local time with offset, or null.
+         * @example 2026-06-20T21:50:00+01:00
+         */
+        start: string | null;
+      };
+    };
     TokenRequestDto: {
       /**
        * @description The token from the e-mailed link.
@@ -4555,6 +4852,7 @@ export interface components {
           | 'backlight'
           | 'balance'
           | 'setup'
+          | 'timeline'
           | 'frames';
         /** @description Event id. */
         id: string;
@@ -10947,6 +11245,125 @@ export interface operations {
       };
     };
   };
+  planTimeline: {
+    parameters: {
+      query?: never;
+      header?: {
+        /** @description Makes a retry safe (IETF draft "The Idempotency-Key HTTP Header Field"). The first request with a key runs; a retry with the same key and the same request (method, path and body, JSON compared in its RFC 8785 canonical form; for an upload, the file bytes and fields) within 24 hours gets the first answer again, byte for byte, with `Idempotency-Replayed: true`, and is not metered, rate limited, counted against the quota or billed again. Successes and client errors (4xx) are kept; 5xx, 429, 401 and 403 are not, so a retry after them runs again. A retry while the first is still running gets 409 (…/idempotency-key-in-use, Retry-After); the same key with another request gets 422 (…/idempotency-key-reused). Keys are per API key (per user and organisation for the console): 1 to 255 printable ASCII characters, bare or as a quoted structured-field string; a random UUID is a good key. */
+        'Idempotency-Key'?: string;
+      };
+      path?: never;
+      cookie?: never;
+    };
+    requestBody: {
+      content: {
+        'application/json': components['schemas']['TimelineRequestDto'];
+      };
+    };
+    responses: {
+      200: {
+        headers: {
+          /** @description `true` when this is the stored answer to an earlier request with the same Idempotency-Key. */
+          'Idempotency-Replayed'?: string;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/json': components['schemas']['TimelineResponseDto'];
+        };
+      };
+      /** @description The body is not valid JSON. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description No API key or session, or the key is unknown, revoked or expired (WWW-Authenticate: Bearer). */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A write carrying the session cookie from a foreign Origin is refused (CSRF protection). */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A request with the same Idempotency-Key is still running (type …/idempotency-key-in-use); retry after Retry-After for its answer. */
+      409: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is larger than the server accepts (100 kB unless configured). */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description The body is not JSON: send Content-Type: application/json, uncompressed. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A field is missing, of the wrong type or outside the range the schema gives; `errors` names each (array items as `gels[1].lossStops`, nested fields as `key.distance`). Or the Idempotency-Key is malformed (…/invalid-input) or was used with a different request (…/idempotency-key-reused); `errors` names the header. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description Rate limited (type …/rate-limited; Retry-After, RateLimit, RateLimit-Policy) or the monthly quota is used up (type …/quota-exceeded, with resetAt and Retry-After). */
+      429: {
+        headers: {
+          /** @description Calls left in the window and seconds until it refills, e.g. `"key";r=0;t=1`. */
+          RateLimit?: string;
+          /** @description The limit: burst size and window in seconds, e.g. `"key";q=100;w=2`. */
+          'RateLimit-Policy'?: string;
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+      /** @description A dependency (the database) is unavailable right now; retry after Retry-After. */
+      503: {
+        headers: {
+          /** @description Seconds to wait before trying again. */
+          'Retry-After'?: number;
+          [name: string]: unknown;
+        };
+        content: {
+          'application/problem+json': components['schemas']['Problem'];
+        };
+      };
+    };
+  };
   computeTwilight: {
     parameters: {
       query?: never;
@@ -11080,6 +11497,7 @@ export interface operations {
           | 'backlight'
           | 'balance'
           | 'setup'
+          | 'timeline'
           | 'frames';
         /** @description Only this HTTP status. A whole number from 100 to 599. */
         status?: number;
@@ -11162,6 +11580,7 @@ export interface operations {
           | 'backlight'
           | 'balance'
           | 'setup'
+          | 'timeline'
           | 'frames';
         /** @description Only this HTTP status. A whole number from 100 to 599. */
         status?: number;
@@ -11249,6 +11668,7 @@ export interface operations {
           | 'backlight'
           | 'balance'
           | 'setup'
+          | 'timeline'
           | 'frames';
         /** @description Only calls answered with this HTTP status. A whole number from 100 to 599. */
         status?: number;
