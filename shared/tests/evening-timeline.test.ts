@@ -137,6 +137,52 @@ describe('planEveningTimeline: the phases against outside references', () => {
     expect(r.slots).toHaveLength(1);
     expect(r.slots[0]!.session.start).toBe(r.twilight.blueHour.start);
   });
+
+  it('white night (60.17° N, June solstice): the sun turns between -6° and -8°, so slots lie between sunset and civil dusk, after the blue hour’s start', () => {
+    const place = { latitude: 60.1699, longitude: 24.9384 };
+    const r = planEveningTimeline({
+      ...place,
+      date: '2026-06-21',
+      timeZone: 'Europe/Helsinki',
+      portraitMinutes: 20,
+    });
+    // astronomy-engine [LIB] (IANA: Europe/Helsinki is UTC+3 in June): the sun crosses -4° and
+    // -6° but never reaches -8° that night; 60 s tolerance above 60° as in the twilight tests.
+    const a = astro(place, Date.UTC(2026, 5, 20, 21));
+    expect(a.blueEnd).toBeUndefined();
+    expect(Math.abs(at(r.twilight.blueHour.start) - a.blueStart!)).toBeLessThan(60_000);
+    expect(Math.abs(at(r.twilight.civilDusk) - a.civilDusk!)).toBeLessThan(60_000);
+    expect(r.twilight.blueHour.end).toBeNull();
+    expect(r.window).toEqual({
+      basis: 'sunset-to-civil-dusk',
+      start: r.twilight.sunset,
+      end: r.twilight.civilDusk,
+    });
+    expect(codes(r)).toEqual(['outside-blue-hour']);
+    // The session starts with the blue band, all of it in the band (interval arithmetic).
+    const s = r.slots[0]!;
+    expect(s.session.start).toBe(r.twilight.blueHour.start);
+    expect(s.blueHourMinutes).toBe(20);
+  });
+
+  it('white night (64.15° N, June solstice): the sun sets but never reaches civil dusk, so no window', () => {
+    const place = { latitude: 64.1466, longitude: -21.9426 };
+    const r = planEveningTimeline({
+      ...place,
+      date: '2026-06-21',
+      timeZone: 'Atlantic/Reykjavik',
+      portraitMinutes: 20,
+    });
+    // astronomy-engine [LIB] (IANA: Atlantic/Reykjavik is UTC+0): a sunset, no -6° crossing.
+    const a = astro(place, Date.UTC(2026, 5, 21));
+    expect(a.sunset).toBeDefined();
+    expect(a.civilDusk).toBeUndefined();
+    expect(Math.abs(at(r.twilight.sunset) - a.sunset!)).toBeLessThan(60_000);
+    expect(r.twilight.civilDusk).toBeNull();
+    expect(r.window).toEqual({ basis: null, start: null, end: null });
+    expect(r.slots).toEqual([]);
+    expect(codes(r)).toEqual(['no-window']);
+  });
 });
 
 describe('planEveningTimeline: slots from hand-made schedules (interval arithmetic, common practice, no source)', () => {

@@ -4262,7 +4262,7 @@ export interface components {
       /** @description Proposed portrait slots, best first: free stretches of 1 minute or more inside the window that overlap no event, with the set-up time before them free too. Ranked by the minutes of the wanted session in the blue hour, then length, then the earliest. */
       slots: {
         /**
-         * @description Minutes of the session inside the blue hour (to 0.1).
+         * @description Minutes of the session inside the blue hour (to 0.1); when the sun turns before the blue hour’s lower edge (white nights), the minutes after the blue hour’s start.
          * @example 20
          */
         blueHourMinutes: number;

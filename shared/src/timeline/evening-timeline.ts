@@ -116,7 +116,10 @@ export interface PortraitSlot {
   setupFrom: string;
   /** The wanted session, or as much of it as fits, placed for the most blue-hour minutes. */
   session: { start: string; end: string; minutes: number };
-  /** Minutes of the session inside the blue hour (0.1 min). */
+  /**
+   * Minutes of the session inside the blue hour (0.1 min); when the sun turns before the blue
+   * hour's lower edge (white nights), the minutes after the blue hour's start.
+   */
   blueHourMinutes: number;
   /** Whether the whole wanted length fits. */
   fitsWantedLength: boolean;
@@ -356,6 +359,12 @@ export function planEveningTimeline(input: TimelineInput): TimelineResult {
   const warnings: CodedWarning<TimelineWarningCode>[] = [...tw.warnings];
 
   const blue = span(tw.blueHour.start, tw.blueHour.end);
+  // White nights: the sun enters the blue band but turns before its lower edge, so the blue hour
+  // has a start and no end; from that start on, the sky is in the band for the rest of the window.
+  const openBlue =
+    !blue && tw.blueHour.start !== null && tw.reasons['blueHour.end'] === 'sun-always-above'
+      ? { start: Date.parse(tw.blueHour.start), end: Infinity }
+      : null;
   const fallback = span(tw.sunset, tw.civilDusk);
   const gaps = freeGaps(p.events.map((e) => ({ start: e.startMs, end: e.endMs })));
   const setupMs = p.setupMinutes * MIN;
@@ -382,12 +391,17 @@ export function planEveningTimeline(input: TimelineInput): TimelineResult {
     raw = slotsIn(blue, gaps, setupMs, wantedMs, blue);
   }
   if (!raw.length && fallback) {
-    const inFallback = slotsIn(fallback, gaps, setupMs, wantedMs, blue);
+    const inFallback = slotsIn(fallback, gaps, setupMs, wantedMs, blue ?? openBlue);
     if (inFallback.length || !window) {
       if (blue) {
         warnings.push({
           code: 'outside-blue-hour',
           message: `The blue hour (${clock(blue.start)}–${clock(blue.end)}) has no free stretch; slots are looked for between sunset and civil dusk.`,
+        });
+      } else if (openBlue) {
+        warnings.push({
+          code: 'outside-blue-hour',
+          message: `The sun turns before the blue hour's lower edge (the blue hour starts at ${clock(openBlue.start)} and has no end); slots are looked for between sunset and civil dusk, as much as possible after ${clock(openBlue.start)}.`,
         });
       } else {
         warnings.push({

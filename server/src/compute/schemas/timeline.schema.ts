@@ -183,7 +183,11 @@ export const timelineResponseSchema: ObjectSchema = {
           end: instant('Session end.', '2026-06-20T22:15:00+01:00'),
           minutes: outNum('Session length, minutes (to 0.1).', 20),
         }),
-        blueHourMinutes: outNum('Minutes of the session inside the blue hour (to 0.1).', 20),
+        blueHourMinutes: outNum(
+          'Minutes of the session inside the blue hour (to 0.1); when the sun turns before the ' +
+            'blue hour’s lower edge (white nights), the minutes after the blue hour’s start.',
+          20,
+        ),
         fitsWantedLength: bool('Whether the whole wanted length fits.', true),
       }),
     },
