@@ -19,7 +19,8 @@ export interface DemoKey {
 /** Rough shape of a booking or shot-planning app's calls (common practice, no source). */
 const ENDPOINTS: [string, number, number][] = [
   // endpoint, share of calls, typical latency in ms
-  ['twilight', 0.34, 6],
+  ['twilight', 0.28, 6],
+  ['timeline', 0.06, 7],
   ['setup', 0.24, 22],
   ['balance', 0.16, 3],
   ['exposure', 0.1, 2],

@@ -14,16 +14,23 @@ type UsageEventPageRaw = components['schemas']['UsageEventPageResponseDto'];
 // The spec gives nextCursor as string[] (a 3.1 type list read as 3.0); the server sends string | null.
 export type UsageEventPage = Omit<UsageEventPageRaw, 'nextCursor'> & { nextCursor: string | null };
 
-export const ENDPOINTS: readonly Endpoint[] = [
-  'twilight',
-  'exposure',
-  'flash',
-  'falloff',
-  'backlight',
-  'balance',
-  'setup',
-  'frames',
-];
+// Every metered endpoint the spec lists, in the filter's order: a new one in the spec fails the
+// typecheck here until it is placed.
+const ENDPOINT_ORDER = {
+  twilight: 1,
+  timeline: 2,
+  exposure: 3,
+  flash: 4,
+  falloff: 5,
+  backlight: 6,
+  balance: 7,
+  setup: 8,
+  frames: 9,
+} satisfies Record<Endpoint, number>;
+
+export const ENDPOINTS = (Object.keys(ENDPOINT_ORDER) as Endpoint[]).sort(
+  (a, b) => ENDPOINT_ORDER[a] - ENDPOINT_ORDER[b],
+);
 
 export const usageKeys = {
   all: ['usage'] as const,
