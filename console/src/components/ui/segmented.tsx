@@ -8,6 +8,15 @@ interface SegmentedProps<T extends string> {
   className?: string;
 }
 
+/**
+ * The name a screen reader speaks and speech input matches: it starts with the visible text
+ * (WCAG 2.1 SC 2.5.3), and spells out an abbreviation from its title ("ft (feet)").
+ */
+function spokenName(option: { label: string; title?: string }): string | undefined {
+  if (!option.title || option.title === option.label) return undefined;
+  return `${option.label} (${option.title.toLowerCase()})`;
+}
+
 /** A small radio group drawn as joined buttons (arrow keys move between options). */
 export function Segmented<T extends string>({
   label,
@@ -29,7 +38,7 @@ export function Segmented<T extends string>({
             key={option.value}
             value={option.value}
             title={option.title}
-            aria-label={option.title}
+            aria-label={spokenName(option)}
             className="cursor-pointer rounded-[calc(var(--radius-control)-2px)] px-3 py-1 text-small font-medium text-ink-muted data-checked:bg-accent data-checked:text-on-accent data-focus:outline-2 data-focus:outline-focus"
           >
             {option.label}

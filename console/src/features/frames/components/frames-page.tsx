@@ -175,7 +175,7 @@ export function FramesPage({ plan }: { plan?: FramesPlan }) {
               setDragging(false);
               void choose(event.dataTransfer.files[0]);
             }}
-            className={`flex cursor-pointer flex-col items-center justify-center gap-2 rounded-card border-2 border-dashed p-8 text-center ${dragging ? 'border-accent bg-raised' : 'border-edge-strong'}`}
+            className={`flex cursor-pointer flex-col items-center justify-center gap-2 rounded-card border-2 border-dashed p-8 text-center has-focus-visible:outline-2 has-focus-visible:outline-offset-2 has-focus-visible:outline-focus ${dragging ? 'border-accent bg-raised' : 'border-edge-strong'}`}
           >
             <span className="text-lead font-medium">Drop a test frame here, or choose a file</span>
             <span className="text-small text-ink-muted">

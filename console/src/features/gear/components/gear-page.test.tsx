@@ -60,20 +60,14 @@ describe('gear page', () => {
     const lights = await screen.findByRole('table', { name: 'Lights' });
     expect(within(lights).getByText('API id')).toBeTruthy();
     expect(within(lights).getByText('7d1e2c4a…')).toBeTruthy();
-    fireEvent.click(
-      within(lights).getByRole('button', { name: 'Copy the API id of Porch strobe' }),
-    );
+    fireEvent.click(within(lights).getByRole('button', { name: 'Copy id of Porch strobe' }));
     expect(await within(lights).findByText('Copied')).toBeTruthy();
     expect(writeText).toHaveBeenCalledWith(light.id);
     const modifiers = await screen.findByRole('table', { name: 'Modifiers' });
-    fireEvent.click(
-      within(modifiers).getByRole('button', { name: 'Copy the API id of Shallow octa' }),
-    );
+    fireEvent.click(within(modifiers).getByRole('button', { name: 'Copy id of Shallow octa' }));
     expect(writeText).toHaveBeenLastCalledWith(modifier.id);
     const kitCard = screen.getByRole('region', { name: 'Gel kit Warming kit' });
-    fireEvent.click(
-      within(kitCard).getByRole('button', { name: 'Copy the API id of Warming kit' }),
-    );
+    fireEvent.click(within(kitCard).getByRole('button', { name: 'Copy id of Warming kit' }));
     expect(writeText).toHaveBeenLastCalledWith(kit.id);
   });
 
@@ -89,6 +83,6 @@ describe('gear page', () => {
     const lights = await screen.findByRole('table', { name: 'Lights' });
     expect(within(lights).getByText('Porch strobe')).toBeTruthy();
     expect(within(lights).queryByText('API id')).toBeNull();
-    expect(screen.queryByRole('button', { name: /Copy the API id/ })).toBeNull();
+    expect(screen.queryByRole('button', { name: /Copy id of/ })).toBeNull();
   });
 });

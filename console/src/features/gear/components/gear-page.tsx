@@ -59,7 +59,7 @@ function ApiId({ id, name }: { id: string; name: string }) {
       <code className="text-small text-ink-muted" title={id}>
         {id.slice(0, 8)}…
       </code>
-      <CopyButton text={id} label="Copy id" ariaLabel={`Copy the API id of ${name}`} size="sm" />
+      <CopyButton text={id} label="Copy id" ariaLabel={`Copy id of ${name}`} size="sm" />
     </span>
   );
 }

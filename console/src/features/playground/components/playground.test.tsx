@@ -107,7 +107,7 @@ describe('playground', () => {
     const panel = await openCalculation('flash');
     const distance = within(panel).getByLabelText('Light to subject (m)') as HTMLInputElement;
     expect(distance.value).toBe('2');
-    fireEvent.click(screen.getByRole('radio', { name: 'Feet' }));
+    fireEvent.click(screen.getByRole('radio', { name: 'ft (feet)' }));
     await waitFor(() =>
       expect(
         (within(panel).getByLabelText('Light to subject (ft)') as HTMLInputElement).value,

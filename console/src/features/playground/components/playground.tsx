@@ -62,7 +62,7 @@ export function Playground() {
           </TabList>
           <TabPanels>
             {available.map((calculation) => (
-              <TabPanel key={calculation.id} unmount={false} className="focus:outline-none">
+              <TabPanel key={calculation.id} unmount={false} className="rounded-card">
                 {panels[calculation.id]?.()}
               </TabPanel>
             ))}

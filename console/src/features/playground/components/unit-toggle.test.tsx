@@ -39,7 +39,9 @@ async function openFlash() {
   return screen.findByRole('tabpanel');
 }
 
-const radio = (name: 'Metres' | 'Feet') => screen.getByRole('radio', { name });
+// Each option is named by its visible abbreviation, then the word (WCAG 2.1 SC 2.5.3).
+const radio = (name: 'Metres' | 'Feet') =>
+  screen.getByRole('radio', { name: name === 'Metres' ? 'm (metres)' : 'ft (feet)' });
 
 describe('length unit, signed in', () => {
   it('shows the unit saved on the account, over this browser’s own copy, and copies it here', async () => {
