@@ -1,6 +1,7 @@
 /** The playground's calculations, their tabs and the API operation that confirms each. */
 export const calculations = [
   { id: 'twilight', label: 'Twilight', path: '/v1/twilight' },
+  { id: 'timeline', label: 'Evening plan', path: '/v1/timeline' },
   { id: 'exposure', label: 'Background', path: '/v1/exposure' },
   { id: 'flash', label: 'Flash', path: '/v1/flash' },
   { id: 'falloff', label: 'Falloff', path: '/v1/falloff' },

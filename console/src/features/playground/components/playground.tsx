@@ -9,11 +9,13 @@ import { ExposurePanel } from './exposure/exposure-panel';
 import { FalloffPanel } from './falloff/falloff-panel';
 import { FlashPanel } from './flash/flash-panel';
 import { SetupPanel } from './setup/setup-panel';
+import { TimelinePanel } from './timeline/timeline-panel';
 import { TwilightPanel } from './twilight/twilight-panel';
 import { UnitToggle } from './unit-toggle';
 
 const panels: Partial<Record<CalculationId, () => React.ReactNode>> = {
   twilight: () => <TwilightPanel />,
+  timeline: () => <TimelinePanel />,
   exposure: () => <ExposurePanel />,
   flash: () => <FlashPanel />,
   falloff: () => <FalloffPanel />,

@@ -1,0 +1,174 @@
+import { planEveningTimeline, type TimelineInput, type TimelineResult } from '@lumenwright/shared';
+import { useMemo } from 'react';
+import { useFieldArray } from 'react-hook-form';
+import { z } from 'zod';
+import { Button } from '@/components/ui/button';
+import { TextField } from '@/components/ui/text-field';
+import { given, optionalNumberField, useCalculationForm } from '../../hooks/use-calculation-form';
+import { knownTimeZones, todayIso } from '../../utils/dates';
+import { CalculationResult } from '../calculation-result';
+import { FormGrid } from '../form-grid';
+import { usePlaygroundScene } from '../playground-scene';
+import { TimelineResultView } from './timeline-result';
+
+const number = z.number({ error: 'Enter a number' });
+const clock = z.string().regex(/^([01]\d|2[0-3]):[0-5]\d$/, 'A time such as 18:30');
+const schema = z.object({
+  latitude: number,
+  longitude: number,
+  date: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Pick a date'),
+  timeZone: z.string().min(1, 'Enter a time zone such as Europe/Zurich'),
+  portraitMinutes: number,
+  setupMinutes: optionalNumberField,
+  events: z.array(z.object({ label: z.string().min(1, 'Name it'), start: clock, end: clock })),
+});
+type TimelineForm = z.infer<typeof schema>;
+
+export const timelineFieldLabels: Record<string, string> = {
+  latitude: 'Latitude',
+  longitude: 'Longitude',
+  date: 'Date',
+  timeZone: 'Time zone',
+  portraitMinutes: 'Portrait session',
+  setupMinutes: 'Set-up before it',
+};
+
+/**
+ * Demo scenario: an invented wedding at a lakeside terrace (round-number coordinates), with the
+ * meal running into the evening.
+ */
+function demoValues(): TimelineForm {
+  return {
+    latitude: 47,
+    longitude: 8,
+    date: todayIso(),
+    timeZone: 'Europe/Zurich',
+    portraitMinutes: 20,
+    setupMinutes: 10,
+    events: [
+      { label: 'Speeches', start: '16:00', end: '16:40' },
+      { label: 'Dinner', start: '16:50', end: '18:10' },
+    ],
+  };
+}
+
+/** Form values -> the shared function's input (events in the form's order: errors name them). */
+export function toTimelineInput(form: TimelineForm): TimelineInput {
+  const input: TimelineInput = {
+    latitude: form.latitude,
+    longitude: form.longitude,
+    date: form.date,
+    timeZone: form.timeZone,
+    portraitMinutes: form.portraitMinutes,
+    events: form.events.map((event) => ({ ...event })),
+  };
+  const setup = given(form.setupMinutes);
+  if (setup !== undefined) input.setupMinutes = setup;
+  return input;
+}
+
+/** The evening's booked events and where the dusk portraits fit between them. */
+export function TimelinePanel() {
+  const zones = useMemo(() => knownTimeZones(), []);
+  const { cautionsFor } = usePlaygroundScene();
+  const { form, preview, errorFor, numberField } = useCalculationForm<
+    TimelineForm,
+    TimelineInput,
+    TimelineResult
+  >({
+    schema,
+    defaults: demoValues(),
+    toInput: (values) => toTimelineInput(values),
+    compute: planEveningTimeline,
+  });
+  const events = useFieldArray({ control: form.control, name: 'events' });
+  // The shared function names an event's field as events[2].end; the form as events.2.end.
+  const eventError = (i: number, key: 'label' | 'start' | 'end') =>
+    errorFor(`events.${i}.${key}`, `events[${i}].${key}`);
+
+  return (
+    <div className="grid gap-6 xl:grid-cols-[minmax(16rem,22rem)_1fr]">
+      <form noValidate onSubmit={(event) => event.preventDefault()} className="flex flex-col gap-4">
+        <FormGrid legend="Place and date">
+          <TextField label="Latitude (°N)" {...numberField('latitude')} />
+          <TextField label="Longitude (°E)" {...numberField('longitude')} />
+          <TextField label="Date" type="date" error={errorFor('date')} {...form.register('date')} />
+          <TextField
+            label="Time zone"
+            list="lw-timeline-time-zones"
+            autoComplete="off"
+            spellCheck={false}
+            error={errorFor('timeZone')}
+            {...form.register('timeZone')}
+          />
+          <datalist id="lw-timeline-time-zones">
+            {zones.map((zone) => (
+              <option key={zone} value={zone} />
+            ))}
+          </datalist>
+        </FormGrid>
+        <FormGrid legend="The portraits">
+          <TextField label="Session (min)" {...numberField('portraitMinutes')} />
+          <TextField
+            label="Set-up before it (min)"
+            {...numberField('setupMinutes', undefined, 'default 10')}
+          />
+        </FormGrid>
+        <fieldset className="flex flex-col gap-3 rounded-card border border-edge bg-panel p-4">
+          <legend className="px-1 text-small font-semibold">Booked that evening</legend>
+          <p className="text-caption text-ink-muted">
+            Local times on the date, 24-hour. Leave the list empty for a session on its own.
+          </p>
+          {events.fields.map((field, i) => (
+            <div key={field.id} className="grid grid-cols-[1fr_5.5rem_5.5rem] items-start gap-2">
+              <TextField
+                label={`Event ${i + 1}`}
+                error={eventError(i, 'label')}
+                {...form.register(`events.${i}.label`)}
+              />
+              <TextField
+                label="From"
+                inputMode="numeric"
+                placeholder="18:30"
+                error={eventError(i, 'start')}
+                {...form.register(`events.${i}.start`)}
+              />
+              <TextField
+                label="To"
+                inputMode="numeric"
+                placeholder="19:00"
+                error={eventError(i, 'end')}
+                {...form.register(`events.${i}.end`)}
+              />
+              <Button
+                variant="secondary"
+                size="sm"
+                className="col-span-3 justify-self-start"
+                aria-label={`Remove event ${i + 1}`}
+                onClick={() => events.remove(i)}
+              >
+                Remove
+              </Button>
+            </div>
+          ))}
+          <Button
+            variant="secondary"
+            size="sm"
+            className="self-start"
+            onClick={() => events.append({ label: '', start: '', end: '' })}
+          >
+            Add an event
+          </Button>
+        </fieldset>
+      </form>
+      <CalculationResult
+        calculation="timeline"
+        preview={preview}
+        fieldLabels={timelineFieldLabels}
+        cautions={cautionsFor(0)}
+      >
+        {(result) => <TimelineResultView result={result} />}
+      </CalculationResult>
+    </div>
+  );
+}
