@@ -107,7 +107,7 @@ describe('the console in a real browser', () => {
     await page.getByRole('heading', { level: 1, name: 'Playground' }).waitFor();
     const tabs = page.getByRole('tablist', { name: 'Calculations' }).getByRole('tab');
     const count = await tabs.count();
-    expect(count).toBe(7);
+    expect(count).toBe(8);
     const problems: string[] = [];
     for (let index = 0; index < count; index++) {
       const tab = tabs.nth(index);

@@ -54,6 +54,7 @@ describe('playground', () => {
     const tabs = screen.getAllByRole('tab');
     expect(tabs.map((tab) => tab.textContent)).toEqual([
       'Twilight',
+      'Evening plan',
       'Background',
       'Flash',
       'Falloff',
@@ -305,9 +306,12 @@ describe('playground', () => {
       within(panel).getByText(/^Place and date from the Twilight tab/).textContent;
     await waitFor(() => expect(place()).toMatch(/\(Europe\/Zurich\), sky clear\./));
     // Same UTC offset as Zurich all year: the instants (and so the chosen minute) do not move.
-    setValue(screen.getByLabelText('Time zone'), 'Europe/Rome');
+    // The Twilight tab's fields (mounted, hidden; the Evening plan tab has a time zone too).
+    const twilightTab = screen.getByRole('tab', { name: 'Twilight' });
+    const twilight = document.getElementById(twilightTab.getAttribute('aria-controls') ?? '')!;
+    setValue(within(twilight).getByLabelText('Time zone'), 'Europe/Rome');
     await waitFor(() => expect(place()).toMatch(/\(Europe\/Rome\), sky clear\./));
-    setValue(screen.getByLabelText('Sky'), 'overcast');
+    setValue(within(twilight).getByLabelText('Sky'), 'overcast');
     await waitFor(() => expect(place()).toMatch(/\(Europe\/Rome\), sky overcast\./));
   });
 

@@ -1,4 +1,9 @@
-import { planEveningTimeline, type TimelineInput, type TimelineResult } from '@lumenwright/shared';
+import {
+  computeTwilight,
+  planEveningTimeline,
+  type TimelineInput,
+  type TimelineResult,
+} from '@lumenwright/shared';
 import { useMemo } from 'react';
 import { useFieldArray } from 'react-hook-form';
 import { z } from 'zod';
@@ -6,6 +11,7 @@ import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/text-field';
 import { given, optionalNumberField, useCalculationForm } from '../../hooks/use-calculation-form';
 import { knownTimeZones, todayIso } from '../../utils/dates';
+import { clockTime } from '../../utils/format';
 import { CalculationResult } from '../calculation-result';
 import { FormGrid } from '../form-grid';
 import { usePlaygroundScene } from '../playground-scene';
@@ -33,22 +39,31 @@ export const timelineFieldLabels: Record<string, string> = {
   setupMinutes: 'Set-up before it',
 };
 
+/** `HH:MM` of a local ISO time moved by `minutes`, rounded to 5 minutes (demo times). */
+function around(iso: string, minutes: number): string {
+  const [h, m] = clockTime(iso).split(':').map(Number) as [number, number];
+  const total = (Math.round((h * 60 + m + minutes) / 5) * 5 + 1440) % 1440;
+  return `${String(Math.floor(total / 60)).padStart(2, '0')}:${String(total % 60).padStart(2, '0')}`;
+}
+
 /**
- * Demo scenario: an invented wedding at a lakeside terrace (round-number coordinates), with the
- * meal running into the evening.
+ * Demo scenario: an invented wedding at a lakeside terrace (round-number coordinates). The
+ * speeches end before sunset and dinner starts in the blue hour, whatever the season: the times
+ * are placed around today's sunset there.
  */
 function demoValues(): TimelineForm {
+  const place = { latitude: 47, longitude: 8, date: todayIso(), timeZone: 'Europe/Zurich' };
+  const sunset = computeTwilight(place).sunset;
   return {
-    latitude: 47,
-    longitude: 8,
-    date: todayIso(),
-    timeZone: 'Europe/Zurich',
+    ...place,
     portraitMinutes: 20,
     setupMinutes: 10,
-    events: [
-      { label: 'Speeches', start: '16:00', end: '16:40' },
-      { label: 'Dinner', start: '16:50', end: '18:10' },
-    ],
+    events: sunset
+      ? [
+          { label: 'Speeches', start: around(sunset, -70), end: around(sunset, -30) },
+          { label: 'Dinner', start: around(sunset, 40), end: around(sunset, 150) },
+        ]
+      : [],
   };
 }
 
