@@ -135,9 +135,10 @@ export function TimelinePanel() {
             Local times on the date, 24-hour. Leave the list empty for a session on its own.
           </p>
           {events.fields.map((field, i) => (
-            <div key={field.id} className="grid grid-cols-[1fr_5.5rem_5.5rem] items-start gap-2">
+            <div key={field.id} className="grid grid-cols-2 items-start gap-2">
               <TextField
                 label={`Event ${i + 1}`}
+                className="col-span-2"
                 error={eventError(i, 'label')}
                 {...form.register(`events.${i}.label`)}
               />
@@ -158,7 +159,7 @@ export function TimelinePanel() {
               <Button
                 variant="secondary"
                 size="sm"
-                className="col-span-3 justify-self-start"
+                className="col-span-2 justify-self-start"
                 aria-label={`Remove event ${i + 1}`}
                 onClick={() => events.remove(i)}
               >
