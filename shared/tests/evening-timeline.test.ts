@@ -320,6 +320,25 @@ describe('planEveningTimeline: slots from hand-made schedules (interval arithmet
     expect(r.timeline.find((e) => e.kind === 'event')!.start).toBe('2026-10-25T15:00:00+00:00');
   });
 
+  it('refuses a wall time the clocks skip, and takes the minutes either side of the gap', () => {
+    // IANA tz database: Europe/London goes from 01:00 GMT to 02:00 BST on 2026-03-29, so 01:30
+    // does not exist that day; 00:59 is GMT (+00:00) and 02:00 is BST (+01:00).
+    const day = { date: '2026-03-29' };
+    let refusal: LightingInputError | null = null;
+    try {
+      plan({ ...day, events: [{ label: 'Breakfast', start: '01:30', end: '03:00' }] });
+    } catch (e) {
+      refusal = e as LightingInputError;
+    }
+    expect(refusal).toBeInstanceOf(LightingInputError);
+    expect(refusal!.field).toBe('events[0].start');
+    expect(refusal!.message).toMatch(/does not exist on 2026-03-29 in Europe\/London/);
+    const r = plan({ ...day, events: [{ label: 'Breakfast', start: '00:59', end: '02:00' }] });
+    const e = r.timeline.find((x) => x.kind === 'event')!;
+    expect(e.start).toBe('2026-03-29T00:59:00+00:00');
+    expect(e.end).toBe('2026-03-29T02:00:00+01:00');
+  });
+
   it('never puts a session or its set-up on top of an event, and keeps slots in the window (random schedules)', () => {
     fc.assert(
       fc.property(

@@ -88,6 +88,16 @@ describe('POST /v1/timeline', () => {
     ['an empty label', { events: [{ ...EVENT, label: '' }] }, 'events[0].label'],
     ['a time in no known form', { events: [{ ...EVENT, start: '7pm' }] }, 'events[0].start'],
     [
+      // IANA tz database: Europe/London skips 01:00–02:00 on 2026-03-29.
+      'a local time the clocks skip',
+      {
+        date: '2026-03-29',
+        timeZone: 'Europe/London',
+        events: [{ ...EVENT, start: '01:30', end: '03:00' }],
+      },
+      'events[0].start',
+    ],
+    [
       'an instant outside the day',
       { events: [{ ...EVENT, end: '2026-06-21T13:00:00+01:00' }] },
       'events[0].end',

@@ -169,7 +169,17 @@ interface Day {
 
 function readTime(field: string, value: unknown, day: Day): number {
   const hm = typeof value === 'string' ? HHMM.exec(value) : null;
-  if (hm) return wallToEpoch(day.date, Number(hm[1]) * 60 + Number(hm[2]), day.timeZone);
+  if (hm) {
+    const epoch = wallToEpoch(day.date, Number(hm[1]) * 60 + Number(hm[2]), day.timeZone);
+    // A wall time the clocks skip (spring forward) has no instant: refuse it rather than move it.
+    if (toLocalIso(epoch, day.timeZone).slice(11, 16) !== value) {
+      throw new LightingInputError(
+        field,
+        `does not exist on ${day.date.year}-${String(day.date.month).padStart(2, '0')}-${String(day.date.day).padStart(2, '0')} in ${day.timeZone} (the clocks go forward then)`,
+      );
+    }
+    return epoch;
+  }
   if (typeof value !== 'string' || !value.includes('T')) {
     throw new LightingInputError(
       field,
