@@ -13,7 +13,7 @@ import fastifyStatic from '@fastify/static';
 import type { FastifyInstance, FastifyReply, FastifyRequest } from 'fastify';
 import { AppModule } from './app.module.js';
 import { registerSessions } from './auth/session.plugin.js';
-import { DomainError } from './common/errors/domain-error.js';
+import { DomainError, invalidInput } from './common/errors/domain-error.js';
 import { findNul, nulProblem, queryNul } from './common/http/nul-text.js';
 import { isMultipart, scopedHooks } from './common/http/scoped-hooks.js';
 import { registerSecurityHeaders } from './common/http/security-headers.js';
@@ -290,7 +290,11 @@ async function registerConsole(app: NestFastifyApplication, config: AppConfig) {
   });
 }
 
-/** class-validator DTOs; errors are flattened to `[{field, reason}]` with paths like `a[1].b`. */
+/**
+ * class-validator DTOs; errors are flattened to `[{field, reason}]` with paths like `a[1].b`,
+ * worded like the compute validator's: a missing field "is required", and a field gets one
+ * problem, its type check when it fails one (not "must be a string" and a length as well).
+ */
 function validationPipe(): ValidationPipe {
   const flatten = (errs: ValidationError[], parent = ''): { field: string; reason: string }[] =>
     errs.flatMap((e) => {
@@ -300,18 +304,30 @@ function validationPipe(): ValidationPipe {
         : /^\d+$/.test(e.property)
           ? `${parent}[${e.property}]`
           : `${parent}.${e.property}`;
-      const own = Object.values(e.constraints ?? {}).map((msg) => ({
-        field,
-        // class-validator prefixes messages with the property name; keep only the reason.
-        reason: msg.startsWith(`${e.property} `) ? msg.slice(e.property.length + 1) : msg,
-      }));
+      // class-validator prefixes messages with the property name; keep only the reason.
+      const reasons = Object.values(e.constraints ?? {}).map((msg) =>
+        msg.startsWith(`${e.property} `) ? msg.slice(e.property.length + 1) : msg,
+      );
+      // Constraints come in the reverse of the decorators' order in the source, where each DTO
+      // puts its type check first: the last one is the type check. A field left out is checked
+      // only when it is not optional, so it is required (in a DTO's own words when it has them:
+      // "is required unless greenShift is sent").
+      const reason = !reasons.length
+        ? undefined
+        : 'whitelistValidation' in (e.constraints ?? {})
+          ? 'is not a known field'
+          : e.value === undefined
+            ? (reasons.find((r) => r.startsWith('is required')) ?? 'is required')
+            : reasons[reasons.length - 1];
+      const own = reason === undefined ? [] : [{ field, reason }];
       return [...own, ...flatten(e.children ?? [], field)];
     });
   return new ValidationPipe({
     transform: true,
     whitelist: true,
     forbidNonWhitelisted: true,
-    exceptionFactory: (errs) =>
-      new DomainError('invalid_input', 'Some fields are missing or invalid.', flatten(errs)),
+    // The value on each error tells a field left out from one sent wrong; it is never shown.
+    validationError: { target: false, value: true },
+    exceptionFactory: (errs) => invalidInput(flatten(errs)),
   });
 }

@@ -7,7 +7,7 @@ import type {} from '@fastify/multipart';
 // 'file-type/core' (buffer detection only): the Jest mapping for the bare 'file-type' points at
 // the root copy (v22, Node >= 22), while this workspace pins v21.
 import { fileTypeFromBuffer } from 'file-type/core';
-import { DomainError, FieldProblem } from '../common/errors/domain-error.js';
+import { DomainError, FieldProblem, invalidInput } from '../common/errors/domain-error.js';
 import type { Rect } from './analysis/patch.js';
 
 export const ACCEPTED_TYPES: Record<string, string> = {
@@ -99,7 +99,7 @@ export async function readFrameUpload(req: FastifyRequest, maxBytes: number): Pr
     }
   }
   if (problems.length || !file) {
-    throw new DomainError('invalid_input', 'Some fields are missing or invalid.', problems);
+    throw invalidInput(problems);
   }
   if (file.buf.length === 0) {
     throw new DomainError('invalid_input', 'The file is empty.', [

@@ -97,6 +97,32 @@ describe('error consistency', () => {
     expect(res.body.errors).toEqual([{ field: 'gelKitId', reason: 'must be a UUID' }]);
   });
 
+  it('console bodies read like the compute ones: a field left out is required, one problem per field', async () => {
+    const keys = (body: Record<string, unknown>) => org.owner.agent.post('/v1/keys').send(body);
+    const empty = await keys({});
+    expect(empty.status).toBe(422);
+    expect(empty.body.detail).toBe('name is required (and 1 more).');
+    expect(empty.body.errors).toEqual([
+      { field: 'name', reason: 'is required' },
+      { field: 'environment', reason: 'is required' },
+    ]);
+    // A number for a name fails its type check and its length; only the type check is told.
+    const typed = await keys({ name: 5, environment: 'test' });
+    expect(typed.status).toBe(422);
+    expect(typed.body.errors).toEqual([{ field: 'name', reason: 'must be a string' }]);
+    expect(typed.body.detail).toBe('name must be a string.');
+    const stray = await keys({ name: 'Stray field', environment: 'test', colour: 'blue' });
+    expect(stray.body.errors).toEqual([{ field: 'colour', reason: 'is not a known field' }]);
+    // Nested: a kit's piece left without a shift is named by its path, in the DTO's own words.
+    const kit = await org.owner.agent
+      .post('/v1/gear/gel-kits')
+      .send({ name: 'Dusk roll', pieces: [{ name: 'Half warming', lossStops: 0.33 }] });
+    expect(kit.status).toBe(422);
+    expect(kit.body.errors).toEqual([
+      { field: 'pieces[0].miredShift', reason: 'is required unless greenShift is sent' },
+    ]);
+  });
+
   it('the nearest light distance follows the unit: 0.1 ft is refused, 0.33 ft and 0.1 m are not', async () => {
     const setup = (distance: number, distanceUnit: 'm' | 'ft') =>
       post(t.url, 'setup', org.test.secret, {

@@ -50,3 +50,14 @@ export class DomainError extends Error {
     super(message);
   }
 }
+
+/**
+ * The 422 for field problems, worded the same on every route: the first problem is the detail
+ * ("cameraKelvin is required (and 2 more)."), every one is in `errors`.
+ */
+export function invalidInput(problems: FieldProblem[]): DomainError {
+  const first = problems[0];
+  if (!first) return new DomainError('invalid_input', 'Some fields are missing or invalid.');
+  const more = problems.length > 1 ? ` (and ${problems.length - 1} more)` : '';
+  return new DomainError('invalid_input', `${first.field} ${first.reason}${more}.`, problems);
+}

@@ -47,6 +47,21 @@ describe('PinoNestLogger', () => {
     expect(String(lines[2]!.stack)).toContain('at y');
   });
 
+  it("puts Nest's per-module and per-route start-up lines at debug, its other lines at info", () => {
+    const { lines, logger } = capture();
+    const nest = new PinoNestLogger(logger);
+    nest.log('AppModule dependencies initialized', 'InstanceLoader');
+    nest.log('ComputeController {/v1}:', 'RoutesResolver');
+    nest.log('Mapped {/v1/balance, POST} route', 'RouterExplorer');
+    nest.log('Nest application successfully started', 'NestApplication');
+    expect(lines.map((l) => [l.context, l.level])).toEqual([
+      ['InstanceLoader', 20],
+      ['RoutesResolver', 20],
+      ['RouterExplorer', 20],
+      ['NestApplication', 30],
+    ]);
+  });
+
   it('serialises errors passed as the message', () => {
     const { lines, logger } = capture();
     new PinoNestLogger(logger).error(new Error('boom'), 'X');

@@ -59,11 +59,17 @@ export function registerRequestLogging(fastify: FastifyInstance, logger: Logger)
 }
 
 /** Nest's LoggerService on top of pino; the last string argument is Nest's context. */
+/** Nest contexts that log one line per module or route at start-up. */
+const BOOT_CHATTER = new Set(['InstanceLoader', 'RoutesResolver', 'RouterExplorer']);
+
 export class PinoNestLogger implements LoggerService {
   constructor(private readonly logger: Logger) {}
 
   log(message: unknown, ...rest: unknown[]) {
-    this.write('info', message, rest);
+    // Nest's start-up chatter (a line per module and per route) is for debugging the wiring.
+    const context = rest[rest.length - 1];
+    const chatter = typeof context === 'string' && BOOT_CHATTER.has(context);
+    this.write(chatter ? 'debug' : 'info', message, rest);
   }
   error(message: unknown, ...rest: unknown[]) {
     this.write('error', message, rest);

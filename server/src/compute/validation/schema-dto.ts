@@ -3,7 +3,7 @@
 // generated from it) shows exactly what the validator enforces.
 import { applyDecorators, PipeTransform } from '@nestjs/common';
 import { ApiProperty, ApiQuery } from '@nestjs/swagger';
-import { DomainError } from '../../common/errors/domain-error.js';
+import { DomainError, invalidInput } from '../../common/errors/domain-error.js';
 import { compileSchema, JsonSchema, Validator } from './json-schema.js';
 
 export type ObjectSchema = JsonSchema & { type: 'object'; properties: Record<string, JsonSchema> };
@@ -88,13 +88,6 @@ export class SchemaPipe implements PipeTransform {
     if (problems.length) throw invalidInput(problems);
     return value;
   }
-}
-
-/** The 422 for schema problems: the first in the detail, every one in `errors`. */
-function invalidInput(problems: { field: string; reason: string }[]): DomainError {
-  const first = problems[0]!;
-  const more = problems.length > 1 ? ` (and ${problems.length - 1} more)` : '';
-  return new DomainError('invalid_input', `${first.field} ${first.reason}${more}.`, problems);
 }
 
 /** A decimal as a query string writes it: "20", "-3", "1.5" (no exponent, no blanks, no hex). */
