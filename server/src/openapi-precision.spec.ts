@@ -1,6 +1,7 @@
 // The published spec says exactly what the code enforces and answers: every request DTO's
 // class-validator bounds and closed sets are its minimum/maximum and enum, whole numbers are
-// integers, and every answer's warning codes are the shared library's lists.
+// integers, and every answer's warning codes are the shared library's lists. And each DTO
+// property's type check is the one its refusal names.
 import type { INestApplication } from '@nestjs/common';
 import type { OpenAPIObject } from '@nestjs/swagger';
 import {
@@ -89,6 +90,39 @@ const dtoClasses = DTO_MODULES.flatMap((mod) =>
     (v): v is new () => object => typeof v === 'function' && /Dto$/.test(v.name),
   ),
 );
+
+/** class-validator checks that say what kind of value a field takes. */
+const TYPE_CHECKS = new Set([
+  'isString',
+  'isInt',
+  'isNumber',
+  'isBoolean',
+  'isArray',
+  'isObject',
+  'isIn',
+  'isEnum',
+  'isUUID',
+  'isISO8601',
+  'isEmail',
+]);
+
+describe('DTO refusals name the type first', () => {
+  // The validation pipe reports one problem per field: the check registered last, which is the
+  // top decorator in the source (decorators apply bottom-up). So the type check must be on top,
+  // or a number sent for a name would be told "must be longer than…" instead of "must be a string".
+  it.each(dtoClasses.map((c) => [c.name, c] as const))('%s', (_name, cls) => {
+    const checks = new Map<string, string[]>();
+    for (const m of getMetadataStorage().getTargetValidationMetadatas(cls, '', true, false)) {
+      if (m.type !== 'customValidation' || !m.name) continue;
+      checks.set(m.propertyName, [...(checks.get(m.propertyName) ?? []), m.name]);
+    }
+    const misplaced = [...checks]
+      .filter(([, names]) => names.some((n) => TYPE_CHECKS.has(n)))
+      .filter(([, names]) => !TYPE_CHECKS.has(names[names.length - 1]!))
+      .map(([prop, names]) => `${prop}: ${names.join(' < ')}`);
+    expect(misplaced).toEqual([]);
+  });
+});
 
 describe('the spec is as precise as the code', () => {
   let app: INestApplication;
