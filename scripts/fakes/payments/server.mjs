@@ -347,13 +347,9 @@ const api = {
     await deliveries.delivered(created.id, { skipUnreachable: true });
     sub.latest_invoice = inv.id;
     const paid = await collect(inv);
-    if (!paid && sub.status !== 'past_due') {
-      sub.status = 'past_due';
-      await emit('customer.subscription.updated', sub);
-    } else if (paid && sub.status !== 'active') {
-      sub.status = 'active';
-      await emit('customer.subscription.updated', sub);
-    }
+    sub.status = paid ? 'active' : 'past_due';
+    // The new period (and any change of status): without it the receiver keeps the old period.
+    await emit('customer.subscription.updated', sub);
     return inv;
   },
   'POST /_fake/customers/:id/card': (b, id) => {

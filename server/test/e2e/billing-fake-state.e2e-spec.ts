@@ -27,7 +27,7 @@ async function post(fake: RunningFake, p: string, form: Record<string, string>, 
   return {
     status: res.status,
     replayed: res.headers.get('idempotent-replayed'),
-    body: await res.json(),
+    body: (await res.json()) as { id: string; url: string; error?: { param?: string } },
   };
 }
 
