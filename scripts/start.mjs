@@ -67,7 +67,9 @@ async function main() {
   }
 
   // The fakes (maildev takes a few seconds) start while we build, migrate and seed.
-  const fakesReady = startFakes({ root, dataDir, log: console.log });
+  // The payments fake keeps its state in .data/payments-fake/state.json: the demo's subscription
+  // and invoices (seeded through it) outlive a restart.
+  const fakesReady = startFakes({ root, dataDir, log: console.log, persist: true });
   stoppers.push(async () => (await fakesReady.catch(() => null))?.stop());
   const fakes = { env: {}, urls: [] };
 

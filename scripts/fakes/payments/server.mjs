@@ -1,10 +1,14 @@
 #!/usr/bin/env node
 // A local stand-in for the payments service: only the calls the product makes (customers,
 // checkout sessions, subscriptions, invoice items, invoices, webhook endpoints), a hosted
-// checkout page, and signed webhooks with retries. State is in memory. Loopback only.
-// Env: PORT (0 = any), PAYMENTS_SECRET_KEY, PAYMENTS_WEBHOOK_SECRET, WEBHOOK_RETRY_BASE_MS.
+// checkout page, and signed webhooks with retries. State is in memory, and also kept in the JSON
+// file PAYMENTS_STATE_FILE names, when set (written after every change: a temporary file, fsync,
+// then rename, so a crash leaves the old state or the new one, never half of one). Loopback only.
+// Env: PORT (0 = any), PAYMENTS_SECRET_KEY, PAYMENTS_WEBHOOK_SECRET, WEBHOOK_RETRY_BASE_MS,
+// PAYMENTS_STATE_FILE.
 // Test controls live under /_fake/ (same bearer key): renew a subscription (period end), make a
-// customer's card decline, resend an event, list events.
+// customer's card decline, set a customer's clock, resend an event, list events.
+import fs from 'node:fs';
 import http from 'node:http';
 import { randomBytes } from 'node:crypto';
 import { checkoutPage } from './checkout-page.mjs';
@@ -13,8 +17,9 @@ import { Deliveries } from './webhooks.mjs';
 
 const SECRET_KEY = process.env.PAYMENTS_SECRET_KEY ?? '';
 const WEBHOOK_SECRET = process.env.PAYMENTS_WEBHOOK_SECRET ?? '';
+const STATE_FILE = process.env.PAYMENTS_STATE_FILE || null;
 const MONTH = 30 * 24 * 3600;
-const now = () => Math.floor(Date.now() / 1000);
+const log = (m) => process.stderr.write(`[payments-fake] ${m}\n`);
 const newId = (prefix) => `${prefix}_${randomBytes(12).toString('base64url')}`;
 
 const db = {
@@ -26,12 +31,60 @@ const db = {
   endpoints: [],
   events: [],
   idempotency: new Map(),
+  /** customer id → the unix time its clock is held at (objects and events of that customer). */
+  clocks: new Map(),
 };
+/** The time as the customer's objects see it: its held clock, else the real one. */
+const now = (customer) => (customer && db.clocks.get(customer)) ?? Math.floor(Date.now() / 1000);
 const deliveries = new Deliveries({
   retryBaseMs: Number(process.env.WEBHOOK_RETRY_BASE_MS ?? 500),
-  log: (m) => process.stderr.write(`[payments-fake] ${m}\n`),
+  log,
 });
 let base = '';
+
+const MAPS = ['customers', 'sessions', 'subscriptions', 'invoices', 'idempotency', 'clocks'];
+const LISTS = ['pendingItems', 'endpoints', 'events'];
+
+function save() {
+  if (!STATE_FILE) return;
+  const state = { format: 1, savedAt: new Date().toISOString() };
+  for (const k of MAPS) state[k] = [...db[k].entries()];
+  for (const k of LISTS) state[k] = db[k];
+  const tmp = `${STATE_FILE}.${process.pid}.tmp`;
+  const fd = fs.openSync(tmp, 'w', 0o600);
+  try {
+    fs.writeFileSync(fd, JSON.stringify(state));
+    fs.fsyncSync(fd);
+  } finally {
+    fs.closeSync(fd);
+  }
+  fs.renameSync(tmp, STATE_FILE);
+}
+
+function load() {
+  if (!STATE_FILE || !fs.existsSync(STATE_FILE)) {
+    if (STATE_FILE) log(`no state in ${STATE_FILE} yet: starting empty`);
+    return;
+  }
+  let state;
+  try {
+    state = JSON.parse(fs.readFileSync(STATE_FILE, 'utf8'));
+    if (state?.format !== 1) throw new Error(`unknown format ${state?.format}`);
+  } catch (e) {
+    const aside = `${STATE_FILE}.unreadable-${Date.now()}`;
+    fs.renameSync(STATE_FILE, aside);
+    log(`state file unreadable (${e.message}): moved to ${aside}, starting empty`);
+    return;
+  }
+  for (const k of MAPS) db[k] = new Map(state[k] ?? []);
+  for (const k of LISTS) db[k] = state[k] ?? [];
+  // Every endpoint shares the secret given at this start (the server is configured with it).
+  for (const e of db.endpoints) e.secret = WEBHOOK_SECRET;
+  log(
+    `state from ${STATE_FILE}: ${db.customers.size} customers, ${db.subscriptions.size} subscriptions, ${db.invoices.size} invoices`,
+  );
+}
+load();
 
 class ApiError extends Error {
   constructor(status, message, param) {
@@ -46,7 +99,7 @@ async function emit(type, object) {
     id: newId('evt'),
     object: 'event',
     api_version: '2025-01-01',
-    created: now(),
+    created: now(object.customer),
     livemode: false,
     pending_webhooks: db.endpoints.length,
     type,
@@ -79,7 +132,7 @@ function newInvoice(sub, reason, period) {
     status: 'draft',
     billing_reason: reason,
     currency: price.currency,
-    created: now(),
+    created: now(sub.customer),
     period_start: period.start,
     period_end: period.end,
     attempt_count: 0,
@@ -122,7 +175,7 @@ async function collect(inv) {
   inv.status = 'paid';
   inv.amount_paid = inv.total;
   invoiceTotals(inv);
-  inv.status_transitions = { paid_at: now() };
+  inv.status_transitions = { paid_at: now(inv.customer) };
   await emit('invoice.paid', inv);
   return true;
 }
@@ -205,8 +258,8 @@ const api = {
     const sub = found(db.subscriptions, id, 'subscription');
     if (sub.status !== 'canceled') {
       sub.status = 'canceled';
-      sub.canceled_at = now();
-      sub.ended_at = now();
+      sub.canceled_at = now(sub.customer);
+      sub.ended_at = now(sub.customer);
       await emit('customer.subscription.deleted', sub);
     }
     return sub;
@@ -275,6 +328,12 @@ const api = {
     }
     return e;
   },
+  'DELETE /v1/webhook_endpoints/:id': (_b, id) => {
+    const i = db.endpoints.findIndex((e) => e.id === id);
+    if (i < 0) throw new ApiError(404, `No such webhook endpoint: '${id}'`, 'id');
+    db.endpoints.splice(i, 1);
+    return { id, object: 'webhook_endpoint', deleted: true };
+  },
   // ---- test controls ----
   'POST /_fake/subscriptions/:id/renew': async (_b, id) => {
     const sub = found(db.subscriptions, id, 'subscription');
@@ -284,16 +343,13 @@ const api = {
     // A draft at period end: endpoints add metered items on invoice.created before it is final.
     const inv = newInvoice(sub, 'subscription_cycle', ended);
     const created = await emit('invoice.created', inv);
-    await deliveries.delivered(created.id);
+    // Endpoints that answer get to add their items first; one nobody listens at holds nothing up.
+    await deliveries.delivered(created.id, { skipUnreachable: true });
     sub.latest_invoice = inv.id;
     const paid = await collect(inv);
-    if (!paid && sub.status !== 'past_due') {
-      sub.status = 'past_due';
-      await emit('customer.subscription.updated', sub);
-    } else if (paid && sub.status !== 'active') {
-      sub.status = 'active';
-      await emit('customer.subscription.updated', sub);
-    }
+    sub.status = paid ? 'active' : 'past_due';
+    // The new period (and any change of status): without it the receiver keeps the old period.
+    await emit('customer.subscription.updated', sub);
     return inv;
   },
   'POST /_fake/customers/:id/card': (b, id) => {
@@ -302,6 +358,19 @@ const api = {
       throw new ApiError(400, 'behaviour: approve or decline', 'behaviour');
     c.card = b.behaviour;
     return c;
+  },
+  // Holds the customer's clock at `frozen_time` (unix seconds): its subscriptions, invoices and
+  // events are dated by it (e.g. a subscription started a month ago). Empty = the real clock.
+  'POST /_fake/customers/:id/clock': (b, id) => {
+    found(db.customers, id, 'customer');
+    if (b.frozen_time === undefined || b.frozen_time === '') db.clocks.delete(id);
+    else {
+      const t = Number(b.frozen_time);
+      if (!Number.isInteger(t) || t <= 0)
+        throw new ApiError(400, 'frozen_time must be unix seconds (an integer).', 'frozen_time');
+      db.clocks.set(id, t);
+    }
+    return { customer: id, frozen_time: db.clocks.get(id) ?? null };
   },
   'POST /_fake/events/:id/resend': async (_b, id) => {
     const event = db.events.find((e) => e.id === id);
@@ -324,7 +393,8 @@ function found(map, id, what) {
 }
 
 function publicSession(s) {
-  const rest = { ...s };
+  // The page's address follows this start's port (a session may come from an earlier start).
+  const rest = { ...s, url: `${base}/checkout/${s.id}` };
   delete rest.line_items;
   delete rest.subscription_metadata;
   return rest;
@@ -339,7 +409,7 @@ async function approve(s) {
     object: 'subscription',
     customer: s.customer,
     status: 'active',
-    created: now(),
+    created: now(s.customer),
     metadata: s.subscription_metadata,
     cancel_at_period_end: false,
     canceled_at: null,
@@ -364,7 +434,7 @@ async function approve(s) {
       ],
     },
   };
-  setPeriod(sub, now());
+  setPeriod(sub, now(s.customer));
   db.subscriptions.set(sub.id, sub);
   const inv = newInvoice(sub, 'subscription_create', {
     start: sub.current_period_start,
@@ -403,6 +473,14 @@ function send(res, status, body, headers = {}) {
 }
 
 const server = http.createServer(async (req, res) => {
+  if (req.method !== 'GET') {
+    // Saved before the answer leaves: whoever sees the answer can rely on the file.
+    const end = res.end.bind(res);
+    res.end = (...args) => {
+      persist();
+      return end(...args);
+    };
+  }
   try {
     const url = new URL(req.url, base);
     const page = /^\/checkout\/([^/]+)(?:\/(approve|decline))?$/.exec(url.pathname);
@@ -445,15 +523,27 @@ const server = http.createServer(async (req, res) => {
     if (key) db.idempotency.set(key, out);
     return send(res, 200, out, { 'Request-Id': newId('req') });
   } catch (e) {
-    if (e instanceof ApiError) {
-      return send(res, e.status, {
-        error: { type: 'invalid_request_error', message: e.message, param: e.param },
-      });
-    }
-    process.stderr.write(`[payments-fake] ${e.stack}\n`);
-    return send(res, 500, { error: { type: 'api_error', message: e.message } });
+    return failed(res, e);
   }
 });
+
+function persist() {
+  try {
+    save();
+  } catch (e) {
+    log(`could not write ${STATE_FILE}: ${e.message}`);
+  }
+}
+
+function failed(res, e) {
+  if (e instanceof ApiError) {
+    return send(res, e.status, {
+      error: { type: 'invalid_request_error', message: e.message, param: e.param },
+    });
+  }
+  log(e.stack);
+  return send(res, 500, { error: { type: 'api_error', message: e.message } });
+}
 
 server.listen(Number(process.env.PORT ?? 0), '127.0.0.1', () => {
   const { port } = server.address();
@@ -464,6 +554,7 @@ server.listen(Number(process.env.PORT ?? 0), '127.0.0.1', () => {
 for (const sig of ['SIGTERM', 'SIGINT']) {
   process.on(sig, () => {
     deliveries.stop();
+    persist();
     server.close(() => process.exit(0));
     server.closeAllConnections();
   });

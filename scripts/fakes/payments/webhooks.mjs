@@ -28,7 +28,13 @@ export class Deliveries {
       endpoints
         .filter((e) => e.enabled_events.includes('*') || e.enabled_events.includes(event.type))
         .map((endpoint) => {
-          const row = { endpoint: endpoint.url, attempts: 0, delivered: false, lastStatus: null };
+          const row = {
+            endpoint: endpoint.url,
+            attempts: 0,
+            delivered: false,
+            unreachable: false,
+            lastStatus: null,
+          };
           rows.push(row);
           return this.attempt(endpoint, payload, row);
         }),
@@ -54,8 +60,10 @@ export class Deliveries {
         row.delivered = true;
         return;
       }
+      row.unreachable = false;
     } catch (e) {
       row.lastStatus = `error: ${e.message}`;
+      row.unreachable = e.cause?.code === 'ECONNREFUSED';
     }
     if (row.attempts >= this.maxAttempts) {
       this.log(`webhook to ${endpoint.url} gave up after ${row.attempts} attempts`);
@@ -69,12 +77,15 @@ export class Deliveries {
     this.timers.add(timer);
   }
 
-  /** Resolves when every endpoint has the event (or rejects after `timeoutMs`). */
-  async delivered(eventId, timeoutMs = 15_000) {
+  /**
+   * Resolves when every endpoint has the event (or rejects after `timeoutMs`); with
+   * `skipUnreachable`, an endpoint whose last attempt found nobody listening is not waited for.
+   */
+  async delivered(eventId, { timeoutMs = 15_000, skipUnreachable = false } = {}) {
     const until = Date.now() + timeoutMs;
     for (;;) {
       const rows = this.status.get(eventId) ?? [];
-      if (rows.every((r) => r.delivered)) return;
+      if (rows.every((r) => r.delivered || (skipUnreachable && r.unreachable))) return;
       if (Date.now() > until) throw new Error(`event ${eventId} not delivered`);
       await new Promise((r) => setTimeout(r, 50));
     }

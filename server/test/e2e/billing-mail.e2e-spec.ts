@@ -165,14 +165,17 @@ describe('billing e-mails', () => {
     expect(inbox.every((x) => subject.test(x.subject))).toBe(true);
 
     // The next failed attempt (already past due, so no plan change) is again one e-mail per owner,
-    // and it still says the seats.
+    // and it still says the seats. Its subscription event only moves the period on.
     const m2 = await mark();
     await fakeApi(payments, 'POST', `/_fake/subscriptions/${s.subscriptionId}/renew`);
-    expect((await outcomesSince(m2)).map((r) => r.type)).toEqual([
+    const second = await outcomesSince(m2);
+    expect(second.map((r) => r.type)).toEqual([
       'invoice.created',
       'invoice.finalized',
       'invoice.payment_failed',
+      'customer.subscription.updated',
     ]);
+    expect(second[3]!.outcome).toBe('subscription past_due; organisation on free');
     const again = await eventually(async () => {
       const j = await jobsTo(s.everyone, m2);
       return j.length >= s.ownerEmails.length ? j : null;

@@ -7,6 +7,7 @@ import { gearSeeder } from '../../gear/gear.seeder.js';
 import { setupsSeeder } from '../../setups/setups.seeder.js';
 import { usageSeeder } from '../../usage/usage.seeder.js';
 import { framesSeeder } from '../../frames/frames.seeder.js';
+import { billingSeeder } from '../../billing/billing.seeder.js';
 
 /** `config` is the server's (object storage for the frames); seeders that need none ignore it. */
 export type Seeder = { name: string; run: (ds: DataSource, config?: AppConfig) => Promise<void> };
@@ -18,4 +19,5 @@ export const SEEDERS: Seeder[] = [
   setupsSeeder,
   usageSeeder,
   framesSeeder,
+  billingSeeder,
 ];
