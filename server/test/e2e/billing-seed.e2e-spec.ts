@@ -217,11 +217,17 @@ describe('billing: demo seed', () => {
     const billing = await agent.get('/v1/billing').expect(200);
     expect(billing.body.subscription).toMatchObject({ id: r.subscriptionId, status: 'active' });
     expect((await agent.get('/v1/billing/invoices').expect(200)).body.data).toHaveLength(2);
-    // A plan change is refused by the payments service (it knows no such customer): a problem
-    // answer, not a server error.
+    // A plan change is refused by the payments service (it knows no such customer). That is our
+    // records and the service disagreeing, not the caller's request: a 500 problem with the
+    // request id to quote, never a 400 that blames the body. The server keeps answering.
     const change = await agent.post('/v1/billing/checkout').send({ planCode: 'platform' });
-    expect(change.status).toBeGreaterThanOrEqual(400);
-    expect(change.status).toBeLessThan(500);
+    expect(change.status).toBe(500);
     expect(change.headers['content-type']).toContain('application/problem+json');
+    expect(change.body).toMatchObject({
+      type: 'https://lumenwright.test/problems/internal',
+      requestId: expect.any(String),
+    });
+    expect(change.body.errors).toBeUndefined();
+    await agent.get('/v1/billing').expect(200);
   });
 });

@@ -159,9 +159,14 @@ export function toProblem(err: unknown): { problem: Problem; headers: Record<str
     return unavailable('The database is not answering; try again in a few seconds.');
   }
   const typed = err as { type?: unknown; name?: unknown };
-  if (typed?.type === 'StripeConnectionError' || typed?.name === 'StripeConnectionError') {
+  const paymentsError = typeof typed?.type === 'string' ? typed.type : String(typed?.name ?? '');
+  if (PAYMENTS_BUSY.has(paymentsError)) {
     return unavailable('The payments service is not answering; try again in a few minutes.');
   }
+  // Any other refusal of the payments service (it does not know a customer we stored, it refused
+  // our credentials) is our request to it going wrong, not the caller's: it carries a 4xx status
+  // of its own, which must not be passed on as if the caller's body were at fault.
+  if (PAYMENTS_ERROR.test(paymentsError)) return internalProblem();
   // Fastify's own errors (body too large, bad JSON, bad content type) carry statusCode.
   const e = err as { statusCode?: number; code?: string; message?: string };
   if (typeof e?.statusCode === 'number' && e.statusCode >= 400 && e.statusCode < 500) {
@@ -185,6 +190,15 @@ export function toProblem(err: unknown): { problem: Problem; headers: Record<str
       headers: {},
     };
   }
+  return internalProblem();
+}
+
+/** The payments SDK's errors that mean "not now": the service is away, failing or busy. */
+const PAYMENTS_BUSY = new Set(['StripeConnectionError', 'StripeAPIError', 'StripeRateLimitError']);
+/** Every error class of the payments SDK (`type` is the class name). */
+const PAYMENTS_ERROR = /^Stripe[A-Za-z]*Error$/;
+
+function internalProblem(): { problem: Problem; headers: Record<string, string> } {
   return {
     problem: {
       type: PROBLEM_BASE + 'internal',
