@@ -24,6 +24,8 @@ export type SetupRequest = Schemas['SetupRequestDto'];
 export type SetupResponse = Schemas['SetupResponseDto'];
 export type TimelineRequest = Schemas['TimelineRequestDto'];
 export type TimelineResponse = Schemas['TimelineResponseDto'];
+/** Where the session goes in its free stretch: `earliest` (default), `latest`, `mid-blue-hour`. */
+export type TimelinePlacement = NonNullable<TimelineRequest['placement']>;
 export type PlanList = Schemas['PlanListResponseDto'];
 export type Light = Schemas['LightResponseDto'];
 export type LightList = Schemas['LightListResponseDto'];
@@ -171,7 +173,10 @@ export class Lumenwright {
     this.compute<BalanceResponse>('/v1/balance', body, o);
   setup = (body: SetupRequest, o?: CallOptions) =>
     this.compute<SetupResponse>('/v1/setup', body, o);
-  /** The evening as a timeline: phases, booked events and portrait slots clear of them. */
+  /**
+   * The evening as a timeline: phases, booked events and portrait slots clear of them, the
+   * session placed as `placement` asks, with safety cautions for the `conditions`.
+   */
   timeline = (body: TimelineRequest, o?: CallOptions) =>
     this.compute<TimelineResponse>('/v1/timeline', body, o);
 

@@ -10,10 +10,16 @@ import fc from 'fast-check';
 import { getPosition, getTimes } from 'suncalc';
 import { describe, expect, it } from 'vitest';
 import {
+  CAUTION_DEFERENCE,
+  DEFAULT_LIGHT_STANDS,
+  DEFAULT_PLACEMENT,
   DEFAULT_SETUP_MINUTES,
   LightingInputError,
+  planDuskSetup,
   planEveningTimeline,
+  SESSION_PLACEMENTS,
   TIMELINE_WARNING_CODES,
+  WIND_STRIKE_KMH,
   type BookedEvent,
   type TimelineInput,
 } from '../src/index.js';
@@ -32,6 +38,13 @@ const VINEYARD = {
   longitude: 18.42,
   date: '2026-12-05',
   timeZone: 'Africa/Johannesburg',
+};
+// Svalbard at the June solstice: the sun does not set.
+const POLAR_DAY = {
+  latitude: 78.22,
+  longitude: 15.65,
+  date: '2026-06-21',
+  timeZone: 'Arctic/Longyearbyen',
 };
 
 const at = (iso: string | null): number => {
@@ -95,13 +108,8 @@ describe('planEveningTimeline: the phases against outside references', () => {
   });
 
   it('polar day (78.2° N, June solstice): no sunset, no window, no slot, a polar-day warning', () => {
-    const place = { latitude: 78.22, longitude: 15.65 };
-    const r = planEveningTimeline({
-      ...place,
-      date: '2026-06-21',
-      timeZone: 'Arctic/Longyearbyen',
-      portraitMinutes: 20,
-    });
+    const place = { latitude: POLAR_DAY.latitude, longitude: POLAR_DAY.longitude };
+    const r = planEveningTimeline({ ...POLAR_DAY, portraitMinutes: 20 });
     // suncalc 2.0.2 [LIB]: alwaysUp, and the sun's altitude at local midnight is above 0.
     const ref = getTimes(new Date(Date.UTC(2026, 5, 21, 10)), place.latitude, place.longitude);
     expect(ref.alwaysUp).toBe(true);
@@ -351,13 +359,14 @@ describe('planEveningTimeline: slots from hand-made schedules (interval arithmet
         ),
         fc.integer({ min: 1, max: 60 }),
         fc.integer({ min: 0, max: 30 }),
-        (raw, portraitMinutes, setupMinutes) => {
+        fc.constantFrom(...SESSION_PLACEMENTS),
+        (raw, portraitMinutes, setupMinutes, placement) => {
           const events = raw.map((e, i) => ({
             label: `Event ${i}`,
             start: z(bs + e.from * MIN),
             end: z(bs + (e.from + e.len) * MIN),
           }));
-          const r = plan({ events, portraitMinutes, setupMinutes });
+          const r = plan({ events, portraitMinutes, setupMinutes, placement });
           const ws = at(r.window.start);
           const we = at(r.window.end);
           for (const s of r.slots) {
@@ -365,6 +374,9 @@ describe('planEveningTimeline: slots from hand-made schedules (interval arithmet
             const to = at(s.session.end);
             expect(at(s.session.start) - from).toBe(setupMinutes * MIN);
             expect(at(s.session.start)).toBeGreaterThanOrEqual(ws);
+            // The session stays inside its own free stretch, whatever the placement.
+            expect(at(s.session.start)).toBeGreaterThanOrEqual(at(s.start));
+            expect(to).toBeLessThanOrEqual(at(s.end));
             expect(to).toBeLessThanOrEqual(we);
             for (const e of events) {
               const clash = Math.min(to, Date.parse(e.end)) - Math.max(from, Date.parse(e.start));
@@ -408,6 +420,18 @@ describe('planEveningTimeline: bad input names the field', () => {
     [{ timeZone: '+01:00' }, 'timeZone'],
     [{ date: '2026-02-30' }, 'date'],
     [{ latitude: 91 }, 'latitude'],
+    [{ placement: 'noon' }, 'placement'],
+    [{ placement: 2 }, 'placement'],
+    [{ lightStands: 11 }, 'lightStands'],
+    [{ lightStands: 1.5 }, 'lightStands'],
+    [{ lightStands: -1 }, 'lightStands'],
+    [{ conditions: 'windy' }, 'conditions'],
+    [{ conditions: null }, 'conditions'],
+    [{ conditions: { windKmh: 401 } }, 'conditions.windKmh'],
+    [{ conditions: { windKmh: -1 } }, 'conditions.windKmh'],
+    [{ conditions: { windKmh: '20' } }, 'conditions.windKmh'],
+    [{ conditions: { nearRoad: 'yes' } }, 'conditions.nearRoad'],
+    [{ conditions: { modellingLamps: 1 } }, 'conditions.modellingLamps'],
   ])('%j → %s', (over, field) => {
     expect(fieldOf({ ...TERRACE, portraitMinutes: 20, ...over })).toBe(field);
   });
@@ -415,6 +439,10 @@ describe('planEveningTimeline: bad input names the field', () => {
   it('takes 30 events, the edges of the ranges, and no events at all', () => {
     expect(fieldOf({ ...TERRACE, portraitMinutes: 240, setupMinutes: 120 })).toBeNull();
     expect(fieldOf({ ...TERRACE, portraitMinutes: 1, setupMinutes: 0, events: [] })).toBeNull();
+    expect(fieldOf({ ...TERRACE, portraitMinutes: 20, lightStands: 0 })).toBeNull();
+    expect(fieldOf({ ...TERRACE, portraitMinutes: 20, lightStands: 10 })).toBeNull();
+    expect(fieldOf({ ...TERRACE, portraitMinutes: 20, conditions: { windKmh: 0 } })).toBeNull();
+    expect(fieldOf({ ...TERRACE, portraitMinutes: 20, conditions: { windKmh: 400 } })).toBeNull();
     const hhmm = (min: number) =>
       `${String(Math.floor(min / 60)).padStart(2, '0')}:${String(min % 60).padStart(2, '0')}`;
     // 30 back-to-back 20-minute events from 10:00.
@@ -424,5 +452,204 @@ describe('planEveningTimeline: bad input names the field', () => {
       end: hhmm(620 + 20 * i),
     }));
     expect(fieldOf({ ...TERRACE, portraitMinutes: 20, events: thirty })).toBeNull();
+  });
+});
+
+describe('planEveningTimeline: where the session sits in its stretch (placement)', () => {
+  // Interval arithmetic on the planner's own blue hour (common practice, no source), and the
+  // blue hour itself against astronomy-engine 2.1.19 [LIB] within 30 s, as above.
+  const ref = astro(TERRACE, Date.UTC(2026, 5, 19, 23));
+  const base = plan({});
+  const bs = at(base.twilight.blueHour.start);
+  const be = at(base.twilight.blueHour.end);
+  const mid = (bs + be) / 2;
+  const placed = (placement: (typeof SESSION_PLACEMENTS)[number], over = {}) =>
+    plan({ placement, ...over });
+
+  it('defaults to the earliest, as the planner always placed it, and says so', () => {
+    expect(DEFAULT_PLACEMENT).toBe('earliest');
+    expect(base.placement).toBe('earliest');
+    expect(placed('earliest').slots).toEqual(base.slots);
+    expect(placed('earliest').timeline).toEqual(base.timeline);
+  });
+
+  it('earliest: the session starts with the blue hour (astronomy-engine’s -4° crossing)', () => {
+    const s = placed('earliest').slots[0]!;
+    expect(at(s.session.start)).toBe(bs);
+    expect(Math.abs(at(s.session.start) - ref.blueStart!)).toBeLessThan(30_000);
+  });
+
+  it('latest: the session ends with the blue hour (the -8° crossing), set-up 10 min before it', () => {
+    const r = placed('latest');
+    const s = r.slots[0]!;
+    expect(r.placement).toBe('latest');
+    expect(at(s.session.end)).toBe(be);
+    expect(at(s.session.start)).toBe(be - 20 * MIN);
+    expect(at(s.setupFrom)).toBe(be - 30 * MIN);
+    expect(Math.abs(at(s.session.end) - ref.blueEnd!)).toBeLessThan(30_000);
+    expect(s.blueHourMinutes).toBe(20);
+    // The merged timeline follows the slot.
+    const session = r.timeline.find((e) => e.kind === 'portraits')!;
+    expect(session.start).toBe(s.session.start);
+    expect(r.timeline.find((e) => e.kind === 'set-up')!.start).toBe(s.setupFrom);
+  });
+
+  it('mid-blue-hour: the session is centred on the blue hour’s middle (to the second)', () => {
+    const s = placed('mid-blue-hour').slots[0]!;
+    const centre = (at(s.session.start) + at(s.session.end)) / 2;
+    // ISO times carry whole seconds: the centre is the middle to within a second.
+    expect(Math.abs(centre - mid)).toBeLessThanOrEqual(1000);
+    expect(Math.abs(centre - (ref.blueStart! + ref.blueEnd!) / 2)).toBeLessThan(30_000);
+    expect(at(s.session.end) - at(s.session.start)).toBe(20 * MIN);
+    expect(at(s.session.start) - at(s.setupFrom)).toBe(10 * MIN);
+  });
+
+  it('a session longer than the blue hour fills the stretch whatever the placement', () => {
+    const blueMin = (be - bs) / MIN;
+    expect(blueMin).toBeLessThan(60);
+    for (const placement of SESSION_PLACEMENTS) {
+      const s = placed(placement, { portraitMinutes: 60 }).slots[0]!;
+      expect([at(s.session.start), at(s.session.end)]).toEqual([bs, be]);
+      expect(s.fitsWantedLength).toBe(false);
+    }
+  });
+
+  it('an event where the placement aims moves the session into the free stretch, clear of it and its set-up', () => {
+    // Toasts over the blue hour's last 10 minutes: the latest session ends where they start.
+    const toasts = { label: 'Toasts', start: z(be - 10 * MIN), end: z(be + 20 * MIN) };
+    const late = placed('latest', { events: [toasts] }).slots[0]!;
+    expect(at(late.session.end)).toBe(be - 10 * MIN);
+    expect(at(late.session.start)).toBe(be - 30 * MIN);
+    // Cake cut across the middle (`cut`: the middle to the whole second, as answers carry whole
+    // seconds), 5 min of set-up: two stretches [bs, cut-3] and [cut+3+5, be].
+    const cut = Math.floor((bs + be) / 2000) * 1000;
+    const cake = { label: 'Cake', start: z(cut - 3 * MIN), end: z(cut + 3 * MIN) };
+    const r = placed('mid-blue-hour', { events: [cake], portraitMinutes: 5, setupMinutes: 5 });
+    expect(cut - 3 * MIN - bs).toBeGreaterThan(5 * MIN); // both stretches hold the 5 minutes
+    expect(be - (cut + 8 * MIN)).toBeGreaterThan(5 * MIN);
+    const [first, second] = r.slots;
+    // Each aims at the middle and is pushed back into its stretch: the first ends at the cake,
+    // the second starts when the set-up after it is done; equal blue minutes and length, so the
+    // one nearer the middle ranks first (the first: its centre 5.5 min off, the other's 10.5).
+    expect([at(first!.session.start), at(first!.session.end)]).toEqual([
+      cut - 8 * MIN,
+      cut - 3 * MIN,
+    ]);
+    expect([at(second!.session.start), at(second!.session.end)]).toEqual([
+      cut + 8 * MIN,
+      cut + 13 * MIN,
+    ]);
+    expect(at(second!.setupFrom)).toBe(cut + 3 * MIN);
+  });
+
+  it('breaks ties between equal stretches the placement’s way', () => {
+    // An 8-minute dinner course early in the blue hour: two stretches that both hold a 5-minute
+    // session entirely in the blue hour (equal blue minutes, equal length).
+    expect((mid - bs) / MIN).toBeGreaterThan(14 + 2.5);
+    const course = { label: 'Course', start: z(bs + 6 * MIN), end: z(bs + 14 * MIN) };
+    const over = { events: [course], portraitMinutes: 5, setupMinutes: 0 };
+    const earliest = placed('earliest', over).slots;
+    const latest = placed('latest', over).slots;
+    const centred = placed('mid-blue-hour', over).slots;
+    expect(earliest.map((s) => at(s.session.start))).toEqual([bs, bs + 14 * MIN]);
+    expect(latest.map((s) => at(s.session.end))).toEqual([be, bs + 6 * MIN]);
+    // The middle lies in the later stretch, far enough in for the session to centre on it; the
+    // earlier stretch's session ends at the course (its centre more than 14 minutes off).
+    expect(at(centred[0]!.session.start)).toBeGreaterThan(bs + 14 * MIN);
+    expect(
+      Math.abs((at(centred[0]!.session.start) + at(centred[0]!.session.end)) / 2 - mid),
+    ).toBeLessThanOrEqual(1000);
+    expect(at(centred[1]!.session.end)).toBe(bs + 6 * MIN);
+  });
+
+  it('white night (60.17° N): latest ends at civil dusk, the window’s end in the blue band', () => {
+    const place = { latitude: 60.1699, longitude: 24.9384 };
+    const input = {
+      ...place,
+      date: '2026-06-21',
+      timeZone: 'Europe/Helsinki',
+      portraitMinutes: 10,
+    };
+    const r = planEveningTimeline({ ...input, placement: 'latest' });
+    // astronomy-engine [LIB]: civil dusk (-6°) within 60 s, as in the white-night test above.
+    const a = astro(place, Date.UTC(2026, 5, 20, 21));
+    expect(r.window.basis).toBe('sunset-to-civil-dusk');
+    const s = r.slots[0]!;
+    expect(s.session.end).toBe(r.twilight.civilDusk);
+    expect(Math.abs(at(s.session.end) - a.civilDusk!)).toBeLessThan(60_000);
+    expect(s.blueHourMinutes).toBe(10);
+    // Centred: on the middle of blue-hour start to civil dusk.
+    const c = planEveningTimeline({ ...input, placement: 'mid-blue-hour' }).slots[0]!;
+    const part = (at(r.twilight.blueHour.start) + at(r.twilight.civilDusk)) / 2;
+    expect(Math.abs((at(c.session.start) + at(c.session.end)) / 2 - part)).toBeLessThanOrEqual(
+      1000,
+    );
+  });
+});
+
+describe('planEveningTimeline: safety cautions', () => {
+  const ids = (r: { cautions: { id: string }[] }) => r.cautions.map((c) => c.id);
+
+  it('always carries the cautions for working in the dark, and a key and backlight on stands by default', () => {
+    const r = plan({});
+    // Default stands: key + backlight (common practice, no source).
+    expect(DEFAULT_LIGHT_STANDS).toBe(2);
+    expect(r.lightStands).toBe(2);
+    expect(ids(r)).toEqual(['stands-wind', 'batteries', 'dark-footing']);
+    // Without a forecast the wind caution asks to check one.
+    expect(r.cautions[0]!.text).toMatch(/Check the forecast for gusts/);
+    // Every caution stands alone and defers to local codes, venue rules and the makers.
+    for (const c of r.cautions) expect(c.text.endsWith(CAUTION_DEFERENCE)).toBe(true);
+  });
+
+  it('no stands, no stand caution; the dark ones stay', () => {
+    expect(ids(plan({ lightStands: 0 }))).toEqual(['batteries', 'dark-footing']);
+  });
+
+  it('adds one caution per condition, in the setup’s order, with the wind strike threshold', () => {
+    const r = plan({
+      conditions: {
+        windKmh: 35,
+        nearRoad: true,
+        nearWater: true,
+        coldFogOrHaze: true,
+        modellingLamps: true,
+      },
+    });
+    expect(ids(r)).toEqual([
+      'stands-wind',
+      'roads-at-night',
+      'water-at-night',
+      'cold-fog-haze',
+      'hot-lamps',
+      'batteries',
+      'dark-footing',
+    ]);
+    // 35 km/h is above the strike threshold (30 km/h, common practice, no source).
+    expect(35).toBeGreaterThanOrEqual(WIND_STRIKE_KMH);
+    expect(r.cautions[0]!.text).toMatch(/lower or strike softboxes/);
+    expect(plan({ conditions: { windKmh: 12 } }).cautions[0]!.text).not.toMatch(/strike/);
+  });
+
+  it('matches what /v1/setup’s planner says for the same conditions and a key plus rim light', () => {
+    const conditions = { windKmh: 24, nearWater: true, coldFogOrHaze: true };
+    const setup = planDuskSetup({
+      ...TERRACE,
+      key: { guideNumber: 60, distance: 2.5 },
+      rim: { guideNumber: 45, distanceBehind: 3, lightHeight: 2 },
+      conditions,
+    });
+    expect(plan({ conditions }).cautions).toEqual(setup.cautions);
+  });
+
+  it('gives the cautions even when the evening has no window (polar day)', () => {
+    // The same polar-day evening as above (suncalc: alwaysUp there on that date).
+    const r = planEveningTimeline({
+      ...POLAR_DAY,
+      portraitMinutes: 20,
+      conditions: { nearWater: true },
+    });
+    expect(r.slots).toEqual([]);
+    expect(ids(r)).toContain('water-at-night');
   });
 });

@@ -4193,6 +4193,34 @@ export interface components {
     };
     /** @description The evening of a wedding or session: the booked events, and how long the portraits should take, for a place and date. */
     TimelineRequestDto: {
+      /** @description Site conditions, as /v1/setup takes them; they add safety cautions (the ones for working in the dark always come). */
+      conditions?: {
+        /**
+         * @description Using cold fog or haze.
+         * @example false
+         */
+        coldFogOrHaze?: boolean;
+        /**
+         * @description Using hot modelling lamps.
+         * @example false
+         */
+        modellingLamps?: boolean;
+        /**
+         * @description Working near a road.
+         * @example false
+         */
+        nearRoad?: boolean;
+        /**
+         * @description Working near water.
+         * @example true
+         */
+        nearWater?: boolean;
+        /**
+         * @description Wind speed, km/h. Range: 0 to 400.
+         * @example 15
+         */
+        windKmh?: number;
+      };
       /**
        * Format: date
        * @description Local calendar date, YYYY-MM-DD (1900..2100).
@@ -4223,10 +4251,21 @@ export interface components {
        */
       latitude: number;
       /**
+       * @description Light stands on the site; with any, the wind caution comes. Default 2: a key and a backlight (common practice, no source). Whole number, 0 to 10.
+       * @example 2
+       */
+      lightStands?: number;
+      /**
        * @description Degrees, east positive. Range: -180 to 180.
        * @example -0.1
        */
       longitude: number;
+      /**
+       * @description Where the session goes in its free stretch, aiming at the part of the window in the blue hour (the whole window when the blue hour misses it) and moved into the stretch when it does not fit there: "earliest" (the default) starts it with that part, "latest" ends it with that part, "mid-blue-hour" centres it on that part’s middle. It also breaks ties between equal slots (earliest first, latest first, or nearest the middle). The set-up time before the session stays free of events whatever the placement.
+       * @example earliest
+       * @enum {string}
+       */
+      placement?: 'earliest' | 'latest' | 'mid-blue-hour';
       /**
        * @description Length wanted for the portrait session, minutes. Range: 1 to 240.
        * @example 20
@@ -4244,11 +4283,34 @@ export interface components {
       timeZone: string;
     };
     TimelineResponseDto: {
+      /** @description Safety cautions for the conditions and light stands, as /v1/setup gives them: the ones for working in the dark (batteries, footing and cables) always. General good practice only: defer to local codes, venue rules, permits and licensed practice. */
+      cautions: {
+        /**
+         * @description Stable caution id.
+         * @example stands-wind
+         */
+        id: string;
+        /** @description What to do. */
+        text: string;
+        /** @description Short title. */
+        title: string;
+      }[];
       /**
        * @description The local date.
        * @example 2026-06-20
        */
       date: string;
+      /**
+       * @description The light stands the cautions assume.
+       * @example 2
+       */
+      lightStands: number;
+      /**
+       * @description The placement used.
+       * @example earliest
+       * @enum {string}
+       */
+      placement: 'earliest' | 'latest' | 'mid-blue-hour';
       /**
        * @description The session length asked for, minutes.
        * @example 20
@@ -4259,7 +4321,7 @@ export interface components {
        * @example 10
        */
       setupMinutes: number;
-      /** @description Proposed portrait slots, best first: free stretches of 1 minute or more inside the window that overlap no event, with the set-up time before them free too. Ranked by the minutes of the wanted session in the blue hour, then length, then the earliest. */
+      /** @description Proposed portrait slots, best first: free stretches of 1 minute or more inside the window that overlap no event, with the set-up time before them free too. Ranked by the minutes of the wanted session in the blue hour, then length, then as the placement prefers (the earliest, the latest, or the nearest the middle). */
       slots: {
         /**
          * @description Minutes of the session inside the blue hour (to 0.1); when the sun turns before the blue hour’s lower edge (white nights), the minutes after the blue hour’s start.
@@ -4287,7 +4349,7 @@ export interface components {
          * @example 1
          */
         rank: number;
-        /** @description The wanted session placed in the stretch (or as much as fits). */
+        /** @description The wanted session placed in the stretch as `placement` asks (or as much as fits). */
         session: {
           /**
            * Format: date-time

@@ -63,6 +63,80 @@ describe('POST /v1/timeline', () => {
     const kinds = res.body.timeline.map((e: { kind: string }) => e.kind);
     expect(kinds.filter((k: string) => k === 'event')).toHaveLength(2);
     expect(kinds).toContain('portraits');
+    // No placement, conditions or stands given: the earliest placement, a key and a backlight
+    // (2 stands, common practice, no source), and the cautions for stands and the dark.
+    expect(res.body.placement).toBe('earliest');
+    expect(res.body.lightStands).toBe(2);
+    expect(res.body.cautions.map((c: { id: string }) => c.id)).toEqual([
+      'stands-wind',
+      'batteries',
+      'dark-footing',
+    ]);
+  });
+
+  it('places the session as late in the blue hour as the stretch allows, and gives the same cautions /v1/setup gives', async () => {
+    const conditions = { windKmh: 35, nearWater: true, nearRoad: true };
+    const res = await post(t.url, 'timeline', org.live.secret, {
+      ...BODY,
+      placement: 'latest',
+      conditions,
+    });
+    expect(res.status).toBe(200);
+    expect(compileSchema(RESPONSE_SCHEMAS.timeline!)(res.body)).toEqual([]);
+    expect(res.body.placement).toBe('latest');
+    // suncalc 2.0.2 [reference library]: the blue hour ends after civil dusk (-6°) and before
+    // nautical dusk (-12°), as its -8° edge must.
+    const ref = getTimes(new Date(Date.UTC(2026, 5, 20, 11)), 51.507, -0.1);
+    const blueEnd = Date.parse(res.body.twilight.blueHour.end);
+    expect(blueEnd).toBeGreaterThan(ref.dusk!.getTime());
+    expect(blueEnd).toBeLessThan(ref.nauticalDusk!.getTime());
+    // Interval arithmetic (common practice, no source): nothing is booked after 21:40, so the
+    // 20-minute session ends with the blue hour, its 10 minutes of set-up right before it.
+    const best = res.body.slots[0];
+    expect(Date.parse(best.session.end)).toBe(blueEnd);
+    expect(blueEnd - Date.parse(best.session.start)).toBe(20 * 60_000);
+    expect(Date.parse(best.session.start) - Date.parse(best.setupFrom)).toBe(10 * 60_000);
+    expect(Date.parse(best.setupFrom)).toBeGreaterThanOrEqual(
+      Date.parse('2026-06-20T21:40:00+01:00'),
+    );
+    // The cautions: item for item what /v1/setup answers for the same conditions with a key
+    // and a rim light (two stands), each deferring to local codes and venue rules.
+    const setup = await post(t.url, 'setup', org.live.secret, {
+      ...DEMO_BODIES.setup,
+      rim: { guideNumber: 45, distanceBehind: 3, lightHeight: 2 },
+      conditions,
+    }).expect(200);
+    expect(res.body.cautions).toEqual(setup.body.cautions);
+    expect(res.body.cautions.map((c: { id: string }) => c.id)).toEqual([
+      'stands-wind',
+      'roads-at-night',
+      'water-at-night',
+      'batteries',
+      'dark-footing',
+    ]);
+    for (const c of res.body.cautions) expect(c.text).toMatch(/Follow local codes, venue rules/);
+    // No stands on site: no stand caution; the ones for the dark stay.
+    const none = await post(t.url, 'timeline', org.live.secret, {
+      ...BODY,
+      lightStands: 0,
+    }).expect(200);
+    expect(none.body.cautions.map((c: { id: string }) => c.id)).toEqual([
+      'batteries',
+      'dark-footing',
+    ]);
+  });
+
+  it('centres the session on the blue hour’s middle with placement mid-blue-hour', async () => {
+    const res = await post(t.url, 'timeline', org.live.secret, {
+      ...BODY,
+      placement: 'mid-blue-hour',
+    }).expect(200);
+    // Interval arithmetic (common practice, no source); answers carry whole seconds.
+    const { start, end } = res.body.twilight.blueHour;
+    const middle = (Date.parse(start) + Date.parse(end)) / 2;
+    const s = res.body.slots[0].session;
+    const centre = (Date.parse(s.start) + Date.parse(s.end)) / 2;
+    expect(Math.abs(centre - middle)).toBeLessThanOrEqual(1000);
   });
 
   it('names `events[2].end` for an event that ends before it starts', async () => {
@@ -83,6 +157,18 @@ describe('POST /v1/timeline', () => {
     ['a bad date', { date: '2026-02-30' }, 'date'],
     ['a UTC offset for the zone', { timeZone: '+01:00' }, 'timeZone'],
     ['an unknown field', { colour: 'blue' }, 'colour'],
+    ['a placement not in the list', { placement: 'sunset' }, 'placement'],
+    ['wind beyond its range', { conditions: { windKmh: 401 } }, 'conditions.windKmh'],
+    ['wind sent as words', { conditions: { windKmh: 'breezy' } }, 'conditions.windKmh'],
+    [
+      'a flag that is not true or false',
+      { conditions: { nearRoad: 'yes' } },
+      'conditions.nearRoad',
+    ],
+    ['an unknown condition', { conditions: { gusts: 40 } }, 'conditions.gusts'],
+    ['conditions that are not an object', { conditions: 'windy' }, 'conditions'],
+    ['stands in halves', { lightStands: 1.5 }, 'lightStands'],
+    ['too many stands', { lightStands: 11 }, 'lightStands'],
     ['too many events', { events: Array.from({ length: 31 }, () => EVENT) }, 'events'],
     ['an event that is not an object', { events: [EVENT, 'dinner'] }, 'events[1]'],
     ['an empty label', { events: [{ ...EVENT, label: '' }] }, 'events[0].label'],

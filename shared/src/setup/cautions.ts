@@ -2,6 +2,7 @@
  * Safety cautions for a dusk flash shoot. General good practice only: every caution defers to
  * local codes, venue rules, permits and licensed practice.
  */
+import { maybeNumber, optionalBoolean, requireObject } from '../units/validate.js';
 
 export interface Caution {
   id: string;
@@ -16,6 +17,37 @@ export interface CautionConditions {
   coldFogOrHaze: boolean;
   modellingLamps: boolean;
   standsCount: number;
+}
+
+/** Site conditions as a request states them (every field optional, flags default false). */
+export interface SiteConditionsInput {
+  /** Forecast wind, km/h, 0..400. */
+  windKmh?: number;
+  nearRoad?: boolean;
+  nearWater?: boolean;
+  coldFogOrHaze?: boolean;
+  modellingLamps?: boolean;
+}
+
+/** Forecast wind range the conditions take, km/h. */
+export const WIND_KMH_RANGE = { min: 0, max: 400 } as const;
+
+/**
+ * Validate a request's optional `conditions` object (omitted = no flags, no wind given); a bad
+ * value throws a LightingInputError naming it under `field` (`conditions.windKmh`).
+ */
+export function readSiteConditions(
+  field: string,
+  value: unknown,
+): Omit<CautionConditions, 'standsCount'> {
+  const c = value === undefined ? {} : requireObject(field, value);
+  return {
+    windKmh: maybeNumber(`${field}.windKmh`, c.windKmh, WIND_KMH_RANGE),
+    nearRoad: optionalBoolean(`${field}.nearRoad`, c.nearRoad, false),
+    nearWater: optionalBoolean(`${field}.nearWater`, c.nearWater, false),
+    coldFogOrHaze: optionalBoolean(`${field}.coldFogOrHaze`, c.coldFogOrHaze, false),
+    modellingLamps: optionalBoolean(`${field}.modellingLamps`, c.modellingLamps, false),
+  };
 }
 
 const DEFER =

@@ -5,6 +5,12 @@ import {
   type MissingReason,
 } from '../twilight/compute-twilight.js';
 import { LightingInputError } from '../errors.js';
+import {
+  cautionsFor,
+  readSiteConditions,
+  type Caution,
+  type SiteConditionsInput,
+} from '../setup/cautions.js';
 import { round } from '../units/math.js';
 import {
   clockOf,
@@ -19,6 +25,7 @@ import {
   requireArray,
   requireNumber,
   requireObject,
+  requireOneOf,
   requireString,
 } from '../units/validate.js';
 import type { CodedWarning, TimelineWarningCode } from '../warning-codes.js';
@@ -54,6 +61,15 @@ export interface TimelineInput {
    * {@link DEFAULT_SETUP_MINUTES}.
    */
   setupMinutes?: number;
+  /**
+   * Where the session goes in its free stretch: {@link DEFAULT_PLACEMENT} (as early in the blue
+   * hour as the stretch allows), `latest` or `mid-blue-hour`.
+   */
+  placement?: SessionPlacement;
+  /** Site conditions, as /v1/setup takes them; they add safety cautions. */
+  conditions?: SiteConditionsInput;
+  /** Light stands on site, 0..10; default {@link DEFAULT_LIGHT_STANDS}. */
+  lightStands?: number;
 }
 
 /** Most events one timeline takes. */
@@ -66,6 +82,25 @@ export const PORTRAIT_MINUTES_RANGE = { min: 1, max: 240 } as const;
 export const SETUP_MINUTES_RANGE = { min: 0, max: 120 } as const;
 /** Set-up time before the session when none is given (common practice, no source). */
 export const DEFAULT_SETUP_MINUTES = 10;
+/**
+ * Where the session sits in its free stretch, inside the part of the window in the blue hour (the
+ * whole window when the blue hour misses it), moved into the stretch when it does not fit there:
+ * - `earliest`: it starts at that part's start (the session starts with the blue hour, or as soon
+ *   after as the stretch lets it);
+ * - `latest`: it ends at that part's end (as late in the blue hour as the stretch lets it);
+ * - `mid-blue-hour`: it is centred on that part's middle.
+ */
+export const SESSION_PLACEMENTS = ['earliest', 'latest', 'mid-blue-hour'] as const;
+export type SessionPlacement = (typeof SESSION_PLACEMENTS)[number];
+/** Placement when none is given: the planner's behaviour before the choice existed. */
+export const DEFAULT_PLACEMENT: SessionPlacement = 'earliest';
+/** Light stands range. */
+export const LIGHT_STANDS_RANGE = { min: 0, max: 10, integer: true } as const;
+/**
+ * Light stands assumed when none are given: a key and a backlight, one stand each (common
+ * practice, no source).
+ */
+export const DEFAULT_LIGHT_STANDS = 2;
 /** Free stretches shorter than this (minutes) are not offered as slots (common practice, no source). */
 export const MIN_SLOT_MINUTES = 1;
 
@@ -104,7 +139,10 @@ export interface TimelineEntry {
 
 /** A proposed portrait slot: a free stretch inside the window, and the session placed in it. */
 export interface PortraitSlot {
-  /** 1 = best: most minutes of the wanted session in the blue hour, then longest, then earliest. */
+  /**
+   * 1 = best: most minutes of the wanted session in the blue hour, then longest, then by the
+   * placement: the earliest session, the latest, or the one nearest the blue hour's middle.
+   */
   rank: number;
   /** First minute of the stretch the session may start (set-up already done before it). */
   start: string;
@@ -114,7 +152,7 @@ export interface PortraitSlot {
   minutes: number;
   /** The crew starts setting up (session start minus set-up time; outside any event). */
   setupFrom: string;
-  /** The wanted session, or as much of it as fits, placed for the most blue-hour minutes. */
+  /** The wanted session, or as much of it as fits, placed as `placement` asks. */
   session: { start: string; end: string; minutes: number };
   /**
    * Minutes of the session inside the blue hour (0.1 min); when the sun turns before the blue
@@ -130,6 +168,8 @@ export interface TimelineResult {
   timeZone: string;
   portraitMinutes: number;
   setupMinutes: number;
+  placement: SessionPlacement;
+  lightStands: number;
   /** The twilight phases the timeline uses (null with a reason when the sun does not get there). */
   twilight: {
     sunset: string | null;
@@ -146,6 +186,11 @@ export interface TimelineResult {
   timeline: TimelineEntry[];
   /** Proposed slots, best first. */
   slots: PortraitSlot[];
+  /**
+   * Safety cautions for the conditions and the stands (from {@link cautionsFor}, as /v1/setup
+   * gives them); the ones for working in the dark are always there.
+   */
+  cautions: Caution[];
   warnings: CodedWarning<TimelineWarningCode>[];
 }
 
@@ -224,6 +269,9 @@ interface Params {
   events: Booked[];
   portraitMinutes: number;
   setupMinutes: number;
+  placement: SessionPlacement;
+  conditions: ReturnType<typeof readSiteConditions>;
+  lightStands: number;
 }
 
 /** Validate a {@link TimelineInput}; throws LightingInputError naming the field. */
@@ -262,6 +310,14 @@ export function readTimelineInput(input: unknown): Params {
       DEFAULT_SETUP_MINUTES,
       SETUP_MINUTES_RANGE,
     ),
+    placement: requireOneOf('placement', o.placement, SESSION_PLACEMENTS, DEFAULT_PLACEMENT),
+    conditions: readSiteConditions('conditions', o.conditions),
+    lightStands: optionalNumber(
+      'lightStands',
+      o.lightStands,
+      DEFAULT_LIGHT_STANDS,
+      LIGHT_STANDS_RANGE,
+    ),
   };
 }
 
@@ -297,10 +353,32 @@ interface RawSlot {
 }
 
 /**
+ * Where a session of `len` ms wants to start for a placement, aiming at `target` (interval
+ * arithmetic, common practice, no source); the caller moves it into the stretch.
+ */
+function wantedStart(placement: SessionPlacement, target: Span, len: number): number {
+  if (placement === 'latest') return target.end - len;
+  if (placement === 'mid-blue-hour') return Math.round((target.start + target.end - len) / 2);
+  return target.start;
+}
+
+/** Equal slots (blue minutes, length) ordered as the placement prefers. */
+function placementOrder(placement: SessionPlacement, target: Span) {
+  const middle = (target.start + target.end) / 2;
+  const offCentre = (s: Span) => Math.abs((s.start + s.end) / 2 - middle);
+  if (placement === 'latest') return (a: RawSlot, b: RawSlot) => b.session.end - a.session.end;
+  if (placement === 'mid-blue-hour') {
+    return (a: RawSlot, b: RawSlot) =>
+      offCentre(a.session) - offCentre(b.session) || a.session.start - b.session.start;
+  }
+  return (a: RawSlot, b: RawSlot) => a.session.start - b.session.start;
+}
+
+/**
  * The stretches of `window` where the session can run: inside a free gap, after the set-up time
  * that also has to fit in that gap (the crew may set up before the window opens). The session
- * (the wanted length, or the whole stretch if shorter) sits where it catches the most of the
- * blue hour: at the blue hour's start, moved into the stretch.
+ * (the wanted length, or the whole stretch if shorter) aims at `target` (the part of the window
+ * in the blue hour, else the window) as `placement` says, moved into the stretch.
  */
 function slotsIn(
   window: Span,
@@ -308,7 +386,12 @@ function slotsIn(
   setupMs: number,
   wantedMs: number,
   blue: Span | null,
+  placement: SessionPlacement,
 ): RawSlot[] {
+  const inWindow = blue && overlap(blue, window) > 0;
+  const target = inWindow
+    ? { start: Math.max(blue.start, window.start), end: Math.min(blue.end, window.end) }
+    : window;
   const out: RawSlot[] = [];
   for (const g of gaps) {
     const stretch = {
@@ -317,17 +400,17 @@ function slotsIn(
     };
     if (stretch.end - stretch.start < MIN_SLOT_MINUTES * MIN) continue;
     const len = Math.min(wantedMs, stretch.end - stretch.start);
-    const start = blue
-      ? Math.min(Math.max(blue.start, stretch.start), stretch.end - len)
-      : stretch.start;
+    const want = wantedStart(placement, target, len);
+    const start = Math.min(Math.max(want, stretch.start), stretch.end - len);
     const session = { start, end: start + len };
     out.push({ stretch, session, blueMs: blue ? overlap(session, blue) : 0 });
   }
+  const tie = placementOrder(placement, target);
   return out.sort(
     (a, b) =>
       b.blueMs - a.blueMs ||
       b.session.end - b.session.start - (a.session.end - a.session.start) ||
-      a.session.start - b.session.start,
+      tie(a, b),
   );
 }
 
@@ -398,10 +481,10 @@ export function planEveningTimeline(input: TimelineInput): TimelineResult {
   if (blue) {
     basis = 'blue-hour';
     window = blue;
-    raw = slotsIn(blue, gaps, setupMs, wantedMs, blue);
+    raw = slotsIn(blue, gaps, setupMs, wantedMs, blue, p.placement);
   }
   if (!raw.length && fallback) {
-    const inFallback = slotsIn(fallback, gaps, setupMs, wantedMs, blue ?? openBlue);
+    const inFallback = slotsIn(fallback, gaps, setupMs, wantedMs, blue ?? openBlue, p.placement);
     if (inFallback.length || !window) {
       if (blue) {
         warnings.push({
@@ -475,6 +558,8 @@ export function planEveningTimeline(input: TimelineInput): TimelineResult {
     timeZone: tw.timeZone,
     portraitMinutes: p.portraitMinutes,
     setupMinutes: p.setupMinutes,
+    placement: p.placement,
+    lightStands: p.lightStands,
     twilight: {
       sunset: tw.sunset,
       civilDusk: tw.civilDusk,
@@ -491,6 +576,7 @@ export function planEveningTimeline(input: TimelineInput): TimelineResult {
     },
     timeline: mergeTimeline(tw, p.events, best, setupMs, iso),
     slots,
+    cautions: cautionsFor({ ...p.conditions, standsCount: p.lightStands }),
     warnings,
   };
 }

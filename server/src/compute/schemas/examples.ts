@@ -11,6 +11,21 @@ export interface RequestExample {
 
 const TERRACE = { latitude: 51.507, longitude: -0.1 };
 
+/** The invented terrace wedding's evening (the timeline examples). */
+const WEDDING = {
+  ...TERRACE,
+  date: '2026-06-20',
+  timeZone: 'Europe/London',
+  events: [
+    { label: 'Ceremony', start: '16:00', end: '16:45' },
+    { label: 'Dinner', start: '19:00', end: '21:15' },
+    { label: 'Speeches', start: '21:15', end: '21:40' },
+    { label: 'First dance', start: '22:20', end: '22:35' },
+    { label: 'Late buffet', start: '23:30', end: '2026-06-21T00:30:00+01:00' },
+  ],
+  portraitMinutes: 20,
+};
+
 export const COMPUTE_EXAMPLES: Record<string, Record<string, RequestExample>> = {
   twilight: {
     riversideTerrace: {
@@ -77,19 +92,19 @@ export const COMPUTE_EXAMPLES: Record<string, Record<string, RequestExample>> = 
       description:
         'Times as HH:MM on the date, or instants with an offset for events after midnight. The ' +
         'slots avoid every event and the 15 minutes of set-up before the session.',
+      value: { ...WEDDING, setupMinutes: 15 },
+    },
+    lateByTheRiver: {
+      summary: 'The same wedding, the session as late in the blue hour as it goes, by the river',
+      description:
+        'placement "latest" ends the session with the blue hour, or when the next event starts ' +
+        '(here the first dance); the conditions, as /v1/setup takes them, add the wind and ' +
+        'water cautions to the ones for working in the dark.',
       value: {
-        ...TERRACE,
-        date: '2026-06-20',
-        timeZone: 'Europe/London',
-        events: [
-          { label: 'Ceremony', start: '16:00', end: '16:45' },
-          { label: 'Dinner', start: '19:00', end: '21:15' },
-          { label: 'Speeches', start: '21:15', end: '21:40' },
-          { label: 'First dance', start: '22:20', end: '22:35' },
-          { label: 'Late buffet', start: '23:30', end: '2026-06-21T00:30:00+01:00' },
-        ],
-        portraitMinutes: 20,
-        setupMinutes: 15,
+        ...WEDDING,
+        placement: 'latest',
+        conditions: { windKmh: 15, nearWater: true },
+        lightStands: 2,
       },
     },
   },

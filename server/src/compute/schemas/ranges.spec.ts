@@ -111,7 +111,9 @@ const BASES: Record<string, Base[]> = {
       },
     },
   ],
-  timeline: [{ name: 'demo', input: { ...DEMO_BODIES.timeline, setupMinutes: 10 } }],
+  timeline: [
+    { name: 'demo', input: { ...DEMO_BODIES.timeline, setupMinutes: 10, conditions: {} } },
+  ],
 };
 
 /**

@@ -57,6 +57,14 @@ export function undocumented(value: unknown, schema: JsonSchema | undefined, pat
 
 const PLACE = { latitude: 51.507, longitude: -0.1, timeZone: 'Europe/London' };
 const NORTH = { latitude: 78.22, longitude: 15.65, timeZone: 'Arctic/Longyearbyen' };
+/** Every site condition at once, wind above the strike speed: every caution there is. */
+const EVERY_CONDITION = {
+  windKmh: 35,
+  nearWater: true,
+  nearRoad: true,
+  coldFogOrHaze: true,
+  modellingLamps: true,
+};
 
 // Inputs: each endpoint's demo body (the invented riverside-terrace scenario, shared with the e2e
 // tests) plus edge cases.
@@ -115,13 +123,7 @@ const EDGE_CASES: Record<string, Record<string, unknown>[]> = {
       },
       camera: { aperture: 4, isoMax: 3200 },
       backgroundDistance: 12,
-      conditions: {
-        windKmh: 35,
-        nearWater: true,
-        nearRoad: true,
-        coldFogOrHaze: true,
-        modellingLamps: true,
-      },
+      conditions: EVERY_CONDITION,
       suggestions: 5,
     },
     { ...NORTH, date: '2026-06-21', key: { guideNumber: 60, distance: 2.5 } },
@@ -130,6 +132,15 @@ const EDGE_CASES: Record<string, Record<string, unknown>[]> = {
   ],
   timeline: [
     { ...PLACE, date: '2026-12-21', portraitMinutes: 240, setupMinutes: 0 }, // no events
+    // Every condition, no stands, the session centred: every caution but the stands'.
+    {
+      ...PLACE,
+      date: '2026-09-18',
+      portraitMinutes: 15,
+      placement: 'mid-blue-hour',
+      lightStands: 0,
+      conditions: EVERY_CONDITION,
+    },
     { ...NORTH, date: '2026-06-21', portraitMinutes: 20 }, // polar day: no window, no slot
     { ...NORTH, date: '2026-12-21', portraitMinutes: 20 }, // polar night: all null
     // A reception over the whole evening: no free stretch; an event after midnight.

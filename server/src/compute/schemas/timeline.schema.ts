@@ -1,9 +1,13 @@
 import {
+  DEFAULT_LIGHT_STANDS,
+  DEFAULT_PLACEMENT,
   DEFAULT_SETUP_MINUTES,
+  LIGHT_STANDS_RANGE,
   MAX_EVENTS,
   MAX_LABEL_LENGTH,
   MIN_SLOT_MINUTES,
   PORTRAIT_MINUTES_RANGE,
+  SESSION_PLACEMENTS,
   SETUP_MINUTES_RANGE,
   TIMELINE_ENTRY_KINDS,
   TIMELINE_PHASES,
@@ -12,7 +16,8 @@ import {
 } from '@lumenwright/shared';
 import type { JsonSchema } from '../validation/json-schema.js';
 import { schemaDto, type ObjectSchema } from '../validation/schema-dto.js';
-import { bool, object, outNum, ranged, str, warningsWith } from './common.js';
+import { bool, object, outNum, ranged, rangedInt, str, warningsWith } from './common.js';
+import { setupRequestSchema, setupResponseSchema } from './setup.schema.js';
 import { twilightRequestSchema, twilightResponseSchema } from './twilight.schema.js';
 
 /** "19:30" on the date, or an instant with Z or an offset: what the shared library reads. */
@@ -76,6 +81,30 @@ export const timelineRequestSchema: ObjectSchema = {
       SETUP_MINUTES_RANGE.max,
       10,
     ),
+    placement: str(
+      'Where the session goes in its free stretch, aiming at the part of the window in the blue ' +
+        'hour (the whole window when the blue hour misses it) and moved into the stretch when ' +
+        'it does not fit there: "earliest" (the default) starts it with that part, "latest" ' +
+        'ends it with that part, "mid-blue-hour" centres ' +
+        'it on that part’s middle. It also breaks ties between equal slots (earliest first, ' +
+        'latest first, or nearest the middle). The set-up time before the session stays free ' +
+        'of events whatever the placement.',
+      DEFAULT_PLACEMENT,
+      { enum: [...SESSION_PLACEMENTS] },
+    ),
+    conditions: {
+      ...setupRequestSchema.properties.conditions!,
+      description:
+        'Site conditions, as /v1/setup takes them; they add safety cautions (the ones for ' +
+        'working in the dark always come).',
+    },
+    lightStands: rangedInt(
+      `Light stands on the site; with any, the wind caution comes. Default ` +
+        `${DEFAULT_LIGHT_STANDS}: a key and a backlight (common practice, no source).`,
+      LIGHT_STANDS_RANGE.min,
+      LIGHT_STANDS_RANGE.max,
+      2,
+    ),
   },
 };
 
@@ -98,10 +127,13 @@ export const timelineResponseSchema: ObjectSchema = {
     'timeZone',
     'portraitMinutes',
     'setupMinutes',
+    'placement',
+    'lightStands',
     'twilight',
     'window',
     'timeline',
     'slots',
+    'cautions',
     'warnings',
   ],
   properties: {
@@ -109,6 +141,8 @@ export const timelineResponseSchema: ObjectSchema = {
     timeZone: tw.timeZone!,
     portraitMinutes: outNum('The session length asked for, minutes.', 20),
     setupMinutes: outNum('The set-up time used, minutes.', 10),
+    placement: str('The placement used.', DEFAULT_PLACEMENT, { enum: [...SESSION_PLACEMENTS] }),
+    lightStands: outNum('The light stands the cautions assume.', DEFAULT_LIGHT_STANDS),
     twilight: object(
       'The evening’s phases, as /v1/twilight gives them (null with a reason when the sun does ' +
         'not get there).',
@@ -165,7 +199,7 @@ export const timelineResponseSchema: ObjectSchema = {
         `Proposed portrait slots, best first: free stretches of ${MIN_SLOT_MINUTES} minute or ` +
         'more inside the window that overlap no event, with the set-up time before them free ' +
         'too. Ranked by the minutes of the wanted session in the blue hour, then length, then ' +
-        'the earliest.',
+        'as the placement prefers (the earliest, the latest, or the nearest the middle).',
       items: object('One slot.', {
         rank: outNum('1 for the best.', 1),
         start: instant(
@@ -178,11 +212,14 @@ export const timelineResponseSchema: ObjectSchema = {
         ),
         minutes: outNum('Length of the stretch, minutes (to 0.1).', 35),
         setupFrom: instant('The crew starts setting up.', '2026-06-20T21:45:00+01:00'),
-        session: object('The wanted session placed in the stretch (or as much as fits).', {
-          start: instant('Session start.', '2026-06-20T21:55:00+01:00'),
-          end: instant('Session end.', '2026-06-20T22:15:00+01:00'),
-          minutes: outNum('Session length, minutes (to 0.1).', 20),
-        }),
+        session: object(
+          'The wanted session placed in the stretch as `placement` asks (or as much as fits).',
+          {
+            start: instant('Session start.', '2026-06-20T21:55:00+01:00'),
+            end: instant('Session end.', '2026-06-20T22:15:00+01:00'),
+            minutes: outNum('Session length, minutes (to 0.1).', 20),
+          },
+        ),
         blueHourMinutes: outNum(
           'Minutes of the session inside the blue hour (to 0.1); when the sun turns before the ' +
             'blue hour’s lower edge (white nights), the minutes after the blue hour’s start.',
@@ -190,6 +227,13 @@ export const timelineResponseSchema: ObjectSchema = {
         ),
         fitsWantedLength: bool('Whether the whole wanted length fits.', true),
       }),
+    },
+    cautions: {
+      ...setupResponseSchema.properties.cautions!,
+      description:
+        'Safety cautions for the conditions and light stands, as /v1/setup gives them: the ' +
+        'ones for working in the dark (batteries, footing and cables) always. General good ' +
+        'practice only: defer to local codes, venue rules, permits and licensed practice.',
     },
     warnings: warningsWith(TIMELINE_WARNING_CODES, {
       'polar-day': 'the sun does not set on the date',

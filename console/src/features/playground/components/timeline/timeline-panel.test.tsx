@@ -2,13 +2,13 @@ import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { fireEvent, render, screen, waitFor, within } from '@testing-library/react';
 import { MemoryRouter } from 'react-router-dom';
 import { beforeEach, describe, expect, it } from 'vitest';
-import { planEveningTimeline } from '@lumenwright/shared';
+import { planEveningTimeline, SESSION_PLACEMENTS, type TimelineInput } from '@lumenwright/shared';
 import { SessionContext } from '@/lib/session';
 import { demoSession, recordFetch, type RecordedCall } from '@/test/api-stub';
 import { jsonResponse } from '@/test/responses';
 import { clockTime } from '../../utils/format';
 import { Playground } from '../playground';
-import { toTimelineInput } from './timeline-panel';
+import { PLACEMENT_OPTIONS, toTimelineInput } from './timeline-panel';
 
 let calls: RecordedCall[];
 
@@ -46,15 +46,31 @@ const form = {
   timeZone: 'Europe/Zurich',
   portraitMinutes: 20,
   setupMinutes: Number.NaN,
+  placement: 'earliest' as const,
+  lightStands: Number.NaN,
   events: [{ label: 'Dinner', start: '19:30', end: '21:40' }],
 };
+const calm = { nearRoad: false, nearWater: false, coldFogOrHaze: false, modellingLamps: false };
 
 describe('Evening plan: form to input', () => {
-  it('leaves set-up time to the planner when the box is empty, keeps events in order', () => {
-    const input = toTimelineInput(form);
+  it('leaves set-up time and stands to the planner when the boxes are empty, keeps events in order', () => {
+    const input = toTimelineInput(form, calm);
     expect(input).not.toHaveProperty('setupMinutes');
+    expect(input).not.toHaveProperty('lightStands');
     expect(input.events).toEqual(form.events);
-    expect(toTimelineInput({ ...form, setupMinutes: 15 }).setupMinutes).toBe(15);
+    expect(toTimelineInput({ ...form, setupMinutes: 15 }, calm).setupMinutes).toBe(15);
+    expect(toTimelineInput({ ...form, lightStands: 0 }, calm).lightStands).toBe(0);
+  });
+
+  it('sends the placement and the site conditions, without a wind nobody gave', () => {
+    const input = toTimelineInput({ ...form, placement: 'latest' }, { ...calm, nearWater: true });
+    expect(input.placement).toBe('latest');
+    expect(input.conditions).toEqual({ ...calm, nearWater: true });
+    expect(toTimelineInput(form, { ...calm, windKmh: 25 }).conditions?.windKmh).toBe(25);
+  });
+
+  it('offers every placement the planner knows, once', () => {
+    expect(PLACEMENT_OPTIONS.map((o) => o.value)).toEqual([...SESSION_PLACEMENTS]);
   });
 });
 
@@ -80,6 +96,51 @@ describe('Evening plan tab', () => {
     );
     expect(within(plan).getByRole('img', { name: /The evening’s timeline/ })).toBeTruthy();
     await within(screen.getByRole('tabpanel')).findByText('The API agrees with this result');
+  });
+
+  it('shows the answer’s cautions, and a site condition ticked above adds its own', async () => {
+    const plan = await openTab();
+    const shown = () =>
+      Array.from(
+        within(plan).getByRole('complementary', { name: 'Safety cautions' }).querySelectorAll('li'),
+      ).map((li) => li.getAttribute('data-caution'));
+    const lastBody = () =>
+      calls.filter((c) => c.path === '/v1/timeline').at(-1)?.body as TimelineInput | undefined;
+    await waitFor(() => expect(lastBody()).toBeDefined());
+    // What the planner answers for the body sent: the dark's cautions and the stands' (2 by default).
+    expect(shown()).toEqual(planEveningTimeline(lastBody()!).cautions.map((c) => c.id));
+    expect(shown()).toEqual(['stands-wind', 'batteries', 'dark-footing']);
+    fireEvent.click(screen.getByRole('checkbox', { name: 'Near water' }));
+    await waitFor(() => expect(shown()).toContain('water-at-night'));
+    await waitFor(() => expect(lastBody()?.conditions?.nearWater).toBe(true));
+    expect(shown()).toEqual(planEveningTimeline(lastBody()!).cautions.map((c) => c.id));
+    // No stands: no stand caution.
+    fireEvent.change(within(screen.getByRole('tabpanel')).getByLabelText('Light stands'), {
+      target: { value: '0' },
+    });
+    await waitFor(() => expect(shown()).not.toContain('stands-wind'));
+    expect(shown()).toContain('dark-footing');
+  });
+
+  it('places the session as chosen, and sends the placement to the API', async () => {
+    const plan = await openTab();
+    const panel = screen.getByRole('tabpanel');
+    fireEvent.change(within(panel).getByLabelText('Place the session'), {
+      target: { value: 'latest' },
+    });
+    await waitFor(() =>
+      expect(
+        calls.some(
+          (c) => c.path === '/v1/timeline' && (c.body as TimelineInput).placement === 'latest',
+        ),
+      ).toBe(true),
+    );
+    const sent = calls.filter((c) => c.path === '/v1/timeline').at(-1)!.body as TimelineInput;
+    const best = planEveningTimeline(sent).slots[0];
+    const readout = within(plan).getByText('Best session').parentElement!;
+    expect(readout.textContent).toContain(
+      best ? `${clockTime(best.session.start)}–${clockTime(best.session.end)}` : 'none free',
+    );
   });
 
   it('names the event field the planner refuses, under that event', async () => {

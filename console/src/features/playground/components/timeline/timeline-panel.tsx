@@ -1,6 +1,10 @@
 import {
   computeTwilight,
+  DEFAULT_LIGHT_STANDS,
+  DEFAULT_PLACEMENT,
   planEveningTimeline,
+  SESSION_PLACEMENTS,
+  type SessionPlacement,
   type TimelineInput,
   type TimelineResult,
 } from '@lumenwright/shared';
@@ -8,13 +12,14 @@ import { useMemo } from 'react';
 import { useFieldArray } from 'react-hook-form';
 import { z } from 'zod';
 import { Button } from '@/components/ui/button';
+import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
 import { given, optionalNumberField, useCalculationForm } from '../../hooks/use-calculation-form';
 import { knownTimeZones, todayIso } from '../../utils/dates';
 import { clockTime } from '../../utils/format';
 import { CalculationResult } from '../calculation-result';
 import { FormGrid } from '../form-grid';
-import { usePlaygroundScene } from '../playground-scene';
+import { usePlaygroundScene, type SiteConditions } from '../playground-scene';
 import { TimelineResultView } from './timeline-result';
 
 const number = z.number({ error: 'Enter a number' });
@@ -26,6 +31,8 @@ const schema = z.object({
   timeZone: z.string().min(1, 'Enter a time zone such as Europe/Zurich'),
   portraitMinutes: number,
   setupMinutes: optionalNumberField,
+  placement: z.enum(SESSION_PLACEMENTS),
+  lightStands: optionalNumberField,
   events: z.array(z.object({ label: z.string().min(1, 'Name it'), start: clock, end: clock })),
 });
 type TimelineForm = z.infer<typeof schema>;
@@ -37,7 +44,17 @@ export const timelineFieldLabels: Record<string, string> = {
   timeZone: 'Time zone',
   portraitMinutes: 'Portrait session',
   setupMinutes: 'Set-up before it',
+  placement: 'Place the session',
+  lightStands: 'Light stands',
+  'conditions.windKmh': 'Forecast wind (km/h)',
 };
+
+/** The placements in words, in the shared library's order. */
+export const PLACEMENT_OPTIONS: readonly { value: SessionPlacement; label: string }[] = [
+  { value: 'earliest', label: 'As early in the blue hour as it fits' },
+  { value: 'latest', label: 'As late in the blue hour as it fits' },
+  { value: 'mid-blue-hour', label: 'Centred on the blue hour' },
+];
 
 /** `HH:MM` of a local ISO time moved by `minutes`, rounded to 5 minutes (demo times). */
 function around(iso: string, minutes: number): string {
@@ -58,6 +75,8 @@ function demoValues(): TimelineForm {
     ...place,
     portraitMinutes: 20,
     setupMinutes: 10,
+    placement: DEFAULT_PLACEMENT,
+    lightStands: Number.NaN,
     events: sunset
       ? [
           { label: 'Speeches', start: around(sunset, -70), end: around(sunset, -30) },
@@ -67,25 +86,33 @@ function demoValues(): TimelineForm {
   };
 }
 
-/** Form values -> the shared function's input (events in the form's order: errors name them). */
-export function toTimelineInput(form: TimelineForm): TimelineInput {
+/**
+ * Form values and the site conditions (the panel above the tabs) -> the shared function's input
+ * (events in the form's order: errors name them).
+ */
+export function toTimelineInput(form: TimelineForm, conditions: SiteConditions): TimelineInput {
+  const { windKmh, ...flags } = conditions;
   const input: TimelineInput = {
     latitude: form.latitude,
     longitude: form.longitude,
     date: form.date,
     timeZone: form.timeZone,
     portraitMinutes: form.portraitMinutes,
+    placement: form.placement,
+    conditions: windKmh === undefined ? flags : { windKmh, ...flags },
     events: form.events.map((event) => ({ ...event })),
   };
   const setup = given(form.setupMinutes);
   if (setup !== undefined) input.setupMinutes = setup;
+  const stands = given(form.lightStands);
+  if (stands !== undefined) input.lightStands = stands;
   return input;
 }
 
 /** The evening's booked events and where the dusk portraits fit between them. */
 export function TimelinePanel() {
   const zones = useMemo(() => knownTimeZones(), []);
-  const { cautionsFor } = usePlaygroundScene();
+  const { conditions } = usePlaygroundScene();
   const { form, preview, errorFor, numberField } = useCalculationForm<
     TimelineForm,
     TimelineInput,
@@ -93,7 +120,7 @@ export function TimelinePanel() {
   >({
     schema,
     defaults: demoValues(),
-    toInput: (values) => toTimelineInput(values),
+    toInput: (values) => toTimelineInput(values, conditions),
     compute: planEveningTimeline,
   });
   const events = useFieldArray({ control: form.control, name: 'events' });
@@ -127,6 +154,18 @@ export function TimelinePanel() {
           <TextField
             label="Set-up before it (min)"
             {...numberField('setupMinutes', undefined, 'default 10')}
+          />
+          <SelectField
+            label="Place the session"
+            className="col-span-2"
+            options={PLACEMENT_OPTIONS}
+            hint="Within its free stretch; set-up time stays clear of the events."
+            error={errorFor('placement')}
+            {...form.register('placement')}
+          />
+          <TextField
+            label="Light stands"
+            {...numberField('lightStands', undefined, `default ${DEFAULT_LIGHT_STANDS}`)}
           />
         </FormGrid>
         <fieldset className="flex flex-col gap-3 rounded-card border border-edge bg-panel p-4">
@@ -177,12 +216,7 @@ export function TimelinePanel() {
           </Button>
         </fieldset>
       </form>
-      <CalculationResult
-        calculation="timeline"
-        preview={preview}
-        fieldLabels={timelineFieldLabels}
-        cautions={cautionsFor(0)}
-      >
+      <CalculationResult calculation="timeline" preview={preview} fieldLabels={timelineFieldLabels}>
         {(result) => <TimelineResultView result={result} />}
       </CalculationResult>
     </div>

@@ -1,5 +1,6 @@
 import type { TimelineResult } from '@lumenwright/shared';
 import { clockTime, fixed } from '../../utils/format';
+import { Cautions } from '../cautions';
 import { Readouts } from '../form-grid';
 import { WarningList } from '../warning-list';
 import { TimelineStrip } from './timeline-strip';
@@ -103,6 +104,7 @@ export function TimelineResultView({ result }: { result: TimelineResult }) {
           </table>
         </section>
       ) : null}
+      <Cautions cautions={result.cautions} />
     </div>
   );
 }
