@@ -3,13 +3,8 @@ import { MODIFIERS, MODIFIER_NAMES, type ModifierName } from '../flash/modifiers
 import type { BalanceInput } from '../color/balance.js';
 import type { SkyCondition } from '../twilight/ambient-model.js';
 import type { LengthUnit } from '../units/length.js';
-import {
-  maybeNumber,
-  optionalBoolean,
-  optionalNumber,
-  requireObject,
-  requireOneOf,
-} from '../units/validate.js';
+import { readSiteConditions } from './cautions.js';
+import { maybeNumber, optionalNumber, requireObject, requireOneOf } from '../units/validate.js';
 
 export interface DuskSetupInput {
   latitude: number;
@@ -117,7 +112,6 @@ export function readSetup(input: DuskSetupInput) {
   const o = requireObject('input', input);
   const cam = o.camera === undefined ? {} : requireObject('camera', o.camera);
   const key = requireObject('key', o.key);
-  const cond = o.conditions === undefined ? {} : requireObject('conditions', o.conditions);
   const rim = o.rim === undefined ? undefined : requireObject('rim', o.rim);
   const modifier = requireOneOf('key.modifier', key.modifier, MODIFIER_NAMES, 'softbox');
   const preset = MODIFIERS[modifier];
@@ -151,13 +145,7 @@ export function readSetup(input: DuskSetupInput) {
       max: 10,
       integer: true,
     }),
-    conditions: {
-      windKmh: maybeNumber('conditions.windKmh', cond.windKmh, { min: 0, max: 400 }),
-      nearRoad: optionalBoolean('conditions.nearRoad', cond.nearRoad, false),
-      nearWater: optionalBoolean('conditions.nearWater', cond.nearWater, false),
-      coldFogOrHaze: optionalBoolean('conditions.coldFogOrHaze', cond.coldFogOrHaze, false),
-      modellingLamps: optionalBoolean('conditions.modellingLamps', cond.modellingLamps, false),
-    },
+    conditions: readSiteConditions('conditions', o.conditions),
   };
 }
 
