@@ -62,7 +62,6 @@ export function AuditLog() {
           data={audit.data.data}
           getRowId={(e) => e.id}
           empty="No events match."
-          narrow="scroll"
           footer={<CursorPager nextCursor={audit.data.nextCursor} label="Audit" />}
         />
       )}

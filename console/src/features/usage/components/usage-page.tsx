@@ -261,7 +261,6 @@ export function UsagePage({ keys = NO_KEYS }: { keys?: UsageKeyLabel[] }) {
             data={events.data.data}
             getRowId={(e) => e.id}
             empty="No calls match these filters."
-            narrow="scroll"
             footer={<CursorPager nextCursor={events.data.nextCursor} label="Calls" />}
           />
         )}
