@@ -106,7 +106,7 @@ export function BacklightPanel() {
           <TextField
             label="Tilt (°, + up)"
             hint="Empty: aimed at the head"
-            {...numberField('tiltDeg', undefined, 'aimed at the head')}
+            {...numberField('tiltDeg', undefined, 'at the head')}
           />
           <SelectField
             label="Beam"
