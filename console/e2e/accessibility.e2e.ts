@@ -3,7 +3,16 @@ import { createRequire } from 'node:module';
 import type { AxeResults } from 'axe-core';
 import type { Locator, Page } from 'playwright-core';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import { baseUrl, demoSignIn, finishTest, openBrowser, signIn, type Session } from './browser';
+import {
+  PHONE,
+  baseUrl,
+  demoSignIn,
+  finishTest,
+  openBrowser,
+  playgroundTabs,
+  signIn,
+  type Session,
+} from './browser';
 
 // axe-core's own build, injected into each page as a script (the console's CSP allows inline
 // scripts; axe reads the DOM only).
@@ -106,21 +115,53 @@ const PAGES: [path: string, heading: string][] = [
   ['/account', 'Account'],
 ];
 
-async function auditConsole(theme: 'day' | 'night'): Promise<Finding[]> {
+type Theme = 'day' | 'night';
+
+/**
+ * Stores a theme and applies it to the page on screen, as the console does at its next load
+ * (`lib/theme.ts` reads the stored choice and sets `<html data-theme>`); no reload needed.
+ */
+async function switchTheme(theme: Theme) {
+  await page.evaluate((t) => {
+    window.localStorage.setItem('lumenwright.theme', t);
+    document.documentElement.dataset.theme = t;
+  }, theme);
+  await coloursSettled();
+}
+
+/** Buttons and links fade between colours: axe must see the end colours, not a mix. */
+async function coloursSettled() {
+  await page.waitForFunction(() =>
+    document
+      .getAnimations()
+      .every((a) => !(a instanceof CSSTransition) || a.playState === 'finished'),
+  );
+}
+
+/**
+ * Runs axe on every screen. With two themes, each screen is checked in both before moving on
+ * (one page load for both): the phone pass does this to keep its time small.
+ */
+async function auditConsole(themes: Theme[], size = 'desktop'): Promise<Finding[]> {
   const findings: Finding[] = [];
   const visited: string[] = [];
+  const first = themes[0]!;
   const check = async (where: string) => {
     visited.push(where);
-    findings.push(...(await audit(`${where} (${theme})`)));
+    for (const theme of themes) {
+      if (theme !== first) await switchTheme(theme);
+      findings.push(...(await audit(`${where} (${theme}, ${size})`)));
+    }
+    if (themes.length > 1) await switchTheme(first);
   };
 
   // Signed out: the theme is a stored preference, so it applies here too.
   await page.context().clearCookies();
   await page.goto(`${baseUrl}/sign-in`);
-  await page.evaluate((t) => window.localStorage.setItem('lumenwright.theme', t), theme);
+  await page.evaluate((t) => window.localStorage.setItem('lumenwright.theme', t), first);
   await page.reload();
   await settle('Sign in');
-  await expect(page.evaluate(() => document.documentElement.dataset.theme)).resolves.toBe(theme);
+  await expect(page.evaluate(() => document.documentElement.dataset.theme)).resolves.toBe(first);
   await check('sign-in');
   await page.goto(`${baseUrl}/sign-up`);
   await settle('Create a studio account');
@@ -165,7 +206,28 @@ async function auditConsole(theme: 'day' | 'night'): Promise<Finding[]> {
   }
 
   // Sign-in, sign-up, nine pages, keys and its dialog, eight tabs.
-  expect(visited).toHaveLength(21);
+  const screens = 21;
+  if (size === 'phone') {
+    // The navigation folded behind "Menu" exists only on a phone: open it and check it too,
+    // switching the theme with its own switch.
+    await page.goto(`${baseUrl}/`);
+    await settle('Overview');
+    await page.getByRole('button', { name: 'Menu' }).click();
+    await page.getByRole('link', { name: 'Usage', exact: true }).waitFor();
+    visited.push('menu');
+    const toggle = page.getByRole('switch', { name: 'Night theme' });
+    for (const theme of themes) {
+      if ((await toggle.getAttribute('aria-checked')) !== String(theme === 'night'))
+        await toggle.click();
+      await expect(page.evaluate(() => document.documentElement.dataset.theme)).resolves.toBe(
+        theme,
+      );
+      await coloursSettled();
+      findings.push(...(await audit(`menu (${theme}, ${size})`)));
+    }
+    await switchTheme(first);
+  }
+  expect(visited).toHaveLength(size === 'phone' ? screens + 1 : screens);
   return findings;
 }
 
@@ -174,7 +236,7 @@ describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
     it(`every console page in the ${theme} theme`, async () => {
       // Signed out on purpose: the session check answers 401 before the sign-in page shows.
       expectedErrors = [`http 401: GET ${baseUrl}/v1/me`];
-      const findings = await auditConsole(theme);
+      const findings = await auditConsole([theme]);
       if (findings.length > 0) {
         console.error(
           `axe: ${findings.length} violations in the ${theme} theme\n` +
@@ -184,6 +246,39 @@ describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
       expect(readable(findings)).toBe('');
     });
   }
+});
+
+/**
+ * Findings left on purpose, each with its reason (matched on page, rule and target).
+ * The Evening plan tab's files belong to another change in progress: its chart frame scrolls on a
+ * phone without taking focus; wrapping it in `ChartFigure` (components/ui/side-scroll.tsx), as
+ * the other tabs' charts are, removes the finding, and then this entry.
+ */
+const PHONE_KNOWN: Pick<Finding, 'rule' | 'target'>[] = [
+  { rule: 'scrollable-region-focusable', target: 'div[data-testid="timeline-plan"] > figure' },
+];
+
+describe('accessibility on a phone (axe-core, WCAG 2.1 A and AA)', () => {
+  it(`every console page and the menu at ${PHONE.width} px, day and night`, async () => {
+    expectedErrors = [`http 401: GET ${baseUrl}/v1/me`];
+    await page.setViewportSize(PHONE);
+    try {
+      const all = await auditConsole(['day', 'night'], 'phone');
+      const known = (f: Finding) =>
+        PHONE_KNOWN.some((k) => k.rule === f.rule && k.target === f.target);
+      console.log(`axe at ${PHONE.width} px: ${all.filter(known).length} known findings left`);
+      const findings = all.filter((f) => !known(f));
+      if (findings.length > 0) {
+        console.error(
+          `axe: ${findings.length} violations at ${PHONE.width} px\n` +
+            `${JSON.stringify(tally(findings))}\n${readable(findings)}`,
+        );
+      }
+      expect(readable(findings)).toBe('');
+    } finally {
+      await page.setViewportSize({ width: 1280, height: 900 });
+    }
+  });
 });
 
 /** The focused element: whether it is the marked target, and whether its focus can be seen. */
@@ -347,5 +442,30 @@ describe('keyboard', () => {
     }
     expect(checked).toBe(DIALOGS.length);
     expect(report).toEqual([]);
+  });
+
+  it('goes from each playground tab straight to a field of its panel with Tab', async () => {
+    const { tabs, count } = await playgroundTabs(page);
+    const landed: string[] = [];
+    for (let index = 0; index < count; index++) {
+      const tab = tabs.nth(index);
+      await tab.click();
+      await tab.focus();
+      await page.keyboard.press('Tab');
+      // WAI-ARIA tabs pattern: Tab leaves the tab list for the panel; a panel that holds
+      // controls gives focus to its first control rather than taking it itself.
+      landed.push(
+        await page.evaluate(() => {
+          const el = document.activeElement;
+          const panel = el?.closest('[role="tabpanel"]');
+          if (!el || !panel) return `outside a panel: ${el?.tagName.toLowerCase()}`;
+          if (el === panel) return 'the panel itself';
+          return el.matches('input, select, textarea, button, a[href]')
+            ? 'a control'
+            : `a ${el.tagName.toLowerCase()}`;
+        }),
+      );
+    }
+    expect(landed).toEqual(Array<string>(count).fill('a control'));
   });
 });

@@ -1,7 +1,7 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { chromium, type BrowserContext, type Locator, type Page } from 'playwright-core';
 import { expect } from 'vitest';
 
 export const baseUrl = (() => {
@@ -148,4 +148,14 @@ export async function signUp(page: Page, who: { name: string; studio: string; em
   await page.getByLabel('Password').fill(TEST_PASSWORD);
   await page.getByRole('button', { name: 'Create account' }).click();
   await page.getByRole('heading', { level: 1, name: 'Overview' }).waitFor();
+}
+
+/** Opens the playground and returns its eight calculation tabs (their number checked). */
+export async function playgroundTabs(page: Page): Promise<{ tabs: Locator; count: number }> {
+  await page.goto(`${baseUrl}/playground`);
+  await page.getByRole('heading', { level: 1, name: 'Playground' }).waitFor();
+  const tabs = page.getByRole('tablist', { name: 'Calculations' }).getByRole('tab');
+  const count = await tabs.count();
+  expect(count).toBe(8);
+  return { tabs, count };
 }

@@ -5,6 +5,7 @@ import {
   baseUrl,
   finishTest,
   openBrowser,
+  playgroundTabs,
   screenshot,
   signIn,
   signUp,
@@ -103,11 +104,7 @@ describe('the console in a real browser', () => {
 
   it('runs each playground calculation, sees its chart, and usage rises', async () => {
     const before = await usageCalls();
-    await page.goto(`${baseUrl}/playground`);
-    await page.getByRole('heading', { level: 1, name: 'Playground' }).waitFor();
-    const tabs = page.getByRole('tablist', { name: 'Calculations' }).getByRole('tab');
-    const count = await tabs.count();
-    expect(count).toBe(8);
+    const { tabs, count } = await playgroundTabs(page);
     const problems: string[] = [];
     for (let index = 0; index < count; index++) {
       const tab = tabs.nth(index);

@@ -13,7 +13,8 @@ import {
 
 // The owner's list pages at a phone's, a tablet's (the rail beside the content) and a desktop's
 // width: nothing sticks out sideways, every control is in view without scrolling a box sideways,
-// no button or action link breaks onto a second line, and nothing spills out of its card.
+// no table has to be scrolled sideways to be read, no button or action link breaks onto a second
+// line, and nothing spills out of its card.
 
 const owner = demoSignIn('owner');
 const WIDTHS = [375, 768, 1280] as const;
@@ -23,6 +24,7 @@ const PAGES = [
   ['/keys', 'Keys'],
   ['/usage', 'Usage'],
   ['/billing', 'Billing'],
+  ['/audit', 'Audit'],
 ] as const;
 
 let session: Session;
@@ -93,7 +95,22 @@ function layoutFaults(target: Page) {
         return box.right > card.right + 1 || box.left < card.left - 1;
       })
       .map(name);
-    return { outOfView, wrapped, spilled, controls: controls.length };
+    // A table wider than its box (read only by scrolling it sideways), named by its caption.
+    const tables = [...main.querySelectorAll('table')].filter(shown);
+    const sideways = tables
+      .filter((table) => {
+        const box = table.parentElement!;
+        return box.scrollWidth > box.clientWidth + 1 || table.scrollWidth > box.clientWidth + 1;
+      })
+      .map((table) => table.querySelector('caption')?.textContent ?? name(table));
+    return {
+      outOfView,
+      wrapped,
+      spilled,
+      sideways,
+      controls: controls.length,
+      tables: tables.length,
+    };
   });
 }
 
@@ -110,12 +127,16 @@ describe('list pages at phone, tablet and desktop widths', () => {
         const faults = await layoutFaults(page);
         // The page has controls to check (the checks below are not vacuous).
         expect(faults.controls, route).toBeGreaterThan(0);
-        expect({ route, ...faults, controls: undefined }).toEqual({
+        // Every page here lists something in a table (the demo studio has rows on each).
+        expect(faults.tables, route).toBeGreaterThan(0);
+        expect({ route, ...faults, controls: undefined, tables: undefined }).toEqual({
           route,
           outOfView: [],
           wrapped: [],
           spilled: [],
+          sideways: [],
           controls: undefined,
+          tables: undefined,
         });
         await screenshot(page, `widths${route.replace('/', '-')}-${width}`);
       }

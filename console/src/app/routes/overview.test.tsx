@@ -83,4 +83,31 @@ describe('overview', () => {
     expect(screen.getByRole('link', { name: 'List your gear' })).toBeTruthy();
     expect(screen.queryByRole('link', { name: 'Your studio’s gear' })).toBeNull();
   });
+  it('offers "Try again" when the shoots could not be loaded, and shows them once they come', async () => {
+    let calls = 0;
+    stubApi(
+      (path) => {
+        if (path !== '/v1/setups/upcoming')
+          return jsonResponse({ title: 'Not Found', status: 404 }, 404, 'application/problem+json');
+        calls++;
+        return calls === 1
+          ? jsonResponse(
+              { title: 'Bad Gateway', status: 502, detail: 'The shoots list is not answering.' },
+              502,
+              'application/problem+json',
+            )
+          : jsonResponse({ data: [harbourShoot] });
+      },
+      undefined,
+      photographer,
+    );
+    renderApp('/');
+    const alert = await screen.findByRole('alert');
+    expect(alert.textContent).toContain('The shoots list is not answering.');
+    within(alert).getByRole('button', { name: 'Try again' }).click();
+    const list = await screen.findByTestId('upcoming-shoots');
+    expect(within(list).getAllByRole('listitem')).toHaveLength(1);
+    expect(calls).toBe(2);
+    expect(screen.queryByRole('alert')).toBeNull();
+  });
 });

@@ -1,4 +1,5 @@
 import { tableFeatures, useTable, type ColumnDef, type RowData } from '@tanstack/react-table';
+import { useScrollsSideways } from './side-scroll';
 
 const features = tableFeatures({});
 
@@ -43,11 +44,17 @@ export function DataTable<Row extends RowData>({
     getRowId: getRowId ? (row: Row) => getRowId(row) : undefined,
   });
   const rows = table.getRowModel().rows;
+  const [scrollBox, scrolls] = useScrollsSideways<HTMLDivElement>();
   return (
     // The container the `cards:` variant measures (styles/index.css).
     <div className={narrow === 'cards' ? '@container/table-cards' : ''}>
       {/* relative: keeps sr-only cells (absolutely positioned) inside the scroll box on phones */}
-      <div className="relative overflow-x-auto rounded-card border border-edge">
+      <div
+        ref={scrollBox}
+        className="relative overflow-x-auto rounded-card border border-edge"
+        // Where the table scrolls sideways, the keyboard must be able to scroll it too.
+        {...(scrolls ? { tabIndex: 0, role: 'region', 'aria-label': caption } : {})}
+      >
         <table className="w-full border-collapse text-left text-small cards:block">
           <caption className="sr-only">{caption}</caption>
           <thead className="bg-raised cards:sr-only">

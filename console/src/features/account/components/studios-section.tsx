@@ -5,6 +5,7 @@ import { Notice } from '@/components/ui/notice';
 import { PageLoading } from '@/components/ui/page-loading';
 import { problemMessage } from '@/lib/form-errors';
 import { useMyOrganizations, useSwitchOrganization } from '../api/account';
+import { LoadError } from '@/components/ui/load-error';
 
 /** The studios you belong to, your role in each, and a way to work in another one. */
 export function StudiosSection() {
@@ -38,9 +39,12 @@ export function StudiosSection() {
       {list.isPending ? (
         <PageLoading />
       ) : list.isError ? (
-        <Notice tone="fault" className="mt-3">
-          {problemMessage(list.error)}
-        </Notice>
+        <LoadError
+          className="mt-3"
+          error={list.error}
+          onRetry={list.refetch}
+          retrying={list.isRefetching}
+        />
       ) : (
         <ul className="mt-3 divide-y divide-edge">
           {list.data.data.map(({ organization, role, current }) => (

@@ -1,13 +1,12 @@
 import { useSearchParams } from 'react-router-dom';
 import { CursorPager } from '@/components/ui/cursor-pager';
 import { DataTable, type DataColumn } from '@/components/ui/data-table';
-import { Notice } from '@/components/ui/notice';
 import { PageLoading } from '@/components/ui/page-loading';
 import { TextField } from '@/components/ui/text-field';
-import { problemMessage } from '@/lib/form-errors';
 import { formatDateTime } from '@/lib/format';
 import { currentCursor, firstPageParams } from '@/lib/pagination';
 import { useAudit, type AuditEvent } from '../api/list-audit';
+import { LoadError } from '@/components/ui/load-error';
 
 const columns: DataColumn<AuditEvent>[] = [
   { id: 'when', header: 'When', accessorFn: (e) => formatDateTime(e.createdAt) },
@@ -54,7 +53,7 @@ export function AuditLog() {
       {audit.isPending ? (
         <PageLoading />
       ) : audit.isError ? (
-        <Notice tone="fault">{problemMessage(audit.error)}</Notice>
+        <LoadError error={audit.error} onRetry={audit.refetch} retrying={audit.isRefetching} />
       ) : (
         <DataTable
           caption="Audit events"
@@ -62,7 +61,6 @@ export function AuditLog() {
           data={audit.data.data}
           getRowId={(e) => e.id}
           empty="No events match."
-          narrow="scroll"
           footer={<CursorPager nextCursor={audit.data.nextCursor} label="Audit" />}
         />
       )}

@@ -17,6 +17,7 @@ import {
   type Invoice,
   type Plan,
 } from '../api/billing';
+import { LoadError } from '@/components/ui/load-error';
 
 const invoiceColumns: DataColumn<Invoice>[] = [
   { id: 'issued', header: 'Issued', accessorFn: (i) => formatDate(i.issuedAt) },
@@ -98,7 +99,13 @@ export function BillingPage() {
       ) : status === 'cancelled' ? (
         <Notice tone="caution">Checkout was cancelled; nothing changed.</Notice>
       ) : null}
-      {billing.isError ? <Notice tone="fault">{problemMessage(billing.error)}</Notice> : null}
+      {billing.isError ? (
+        <LoadError
+          error={billing.error}
+          onRetry={billing.refetch}
+          retrying={billing.isRefetching}
+        />
+      ) : null}
       {checkout.isError ? <Notice tone="fault">{problemMessage(checkout.error)}</Notice> : null}
       {/* A container: the plans sit side by side only where three fit (not beside the rail on a tablet). */}
       <section aria-labelledby="plans-heading" className="@container">
@@ -108,7 +115,7 @@ export function BillingPage() {
         {plans.isPending || billing.isPending ? (
           <PageLoading />
         ) : plans.isError ? (
-          <Notice tone="fault">{problemMessage(plans.error)}</Notice>
+          <LoadError error={plans.error} onRetry={plans.refetch} retrying={plans.isRefetching} />
         ) : (
           <ul className="grid gap-4 @3xl:grid-cols-3">
             {plans.data.data.map((plan) => {

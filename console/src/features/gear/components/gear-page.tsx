@@ -25,6 +25,7 @@ import { GelPieceDialog, type GelPieceTarget } from './gel-piece-dialog';
 import { LightDialog } from './light-dialog';
 import { ModifierDialog } from './modifier-dialog';
 import { NewGelKitForm } from './new-gel-kit-form';
+import { LoadError } from '@/components/ui/load-error';
 
 interface PendingDelete {
   label: string;
@@ -226,7 +227,7 @@ export function GearPage() {
         {lights.isPending ? (
           <PageLoading />
         ) : lights.isError ? (
-          <Notice tone="fault">{problemMessage(lights.error)}</Notice>
+          <LoadError error={lights.error} onRetry={lights.refetch} retrying={lights.isRefetching} />
         ) : (
           <DataTable
             caption="Lights"
@@ -246,7 +247,11 @@ export function GearPage() {
         {modifiers.isPending ? (
           <PageLoading />
         ) : modifiers.isError ? (
-          <Notice tone="fault">{problemMessage(modifiers.error)}</Notice>
+          <LoadError
+            error={modifiers.error}
+            onRetry={modifiers.refetch}
+            retrying={modifiers.isRefetching}
+          />
         ) : (
           <DataTable
             caption="Modifiers"
@@ -263,7 +268,11 @@ export function GearPage() {
         {gelKits.isPending ? (
           <PageLoading />
         ) : gelKits.isError ? (
-          <Notice tone="fault">{problemMessage(gelKits.error)}</Notice>
+          <LoadError
+            error={gelKits.error}
+            onRetry={gelKits.refetch}
+            retrying={gelKits.isRefetching}
+          />
         ) : (
           <div className="flex flex-col gap-4">
             {gelKits.data.data.map((kit) => (

@@ -65,6 +65,18 @@ describe('playground', () => {
     expect(screen.getByRole('tab', { selected: true }).textContent).toBe('Falloff');
   });
 
+  // The browser test (e2e/accessibility.e2e.ts) presses Tab from the tab to the first field.
+  it('keeps the panels out of the Tab order; their fields stay in it', async () => {
+    const panel = await openCalculation('flash');
+    // Headless UI makes the open panel a Tab stop (tabindex 0) unless told otherwise.
+    expect(panel.getAttribute('tabindex')).toBe('-1');
+    for (const hidden of document.querySelectorAll('[role="tabpanel"]')) {
+      expect(hidden.getAttribute('tabindex')).toBe('-1');
+    }
+    const field = panel.querySelector('input, select')!;
+    expect(field.getAttribute('tabindex')).toBeNull();
+  });
+
   it('draws the twilight timeline for the typed place and date, matching shared/', async () => {
     const panel = await openCalculation('twilight');
     setValue(within(panel).getByLabelText('Date'), '2026-06-21');

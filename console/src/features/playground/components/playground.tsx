@@ -64,7 +64,9 @@ export function Playground() {
           </TabList>
           <TabPanels>
             {available.map((calculation) => (
-              <TabPanel key={calculation.id} unmount={false} className="rounded-card">
+              // tabIndex -1: the panel holds form fields, so Tab goes from the tab straight to the
+              // first field instead of stopping on the panel itself (Headless UI's default is 0).
+              <TabPanel key={calculation.id} unmount={false} tabIndex={-1} className="rounded-card">
                 {panels[calculation.id]?.()}
               </TabPanel>
             ))}

@@ -20,6 +20,7 @@ import {
 } from '../api/setups';
 import { SetupLinks } from './setup-links';
 import { SaveSetupDialog } from './save-setup-dialog';
+import { LoadError } from '@/components/ui/load-error';
 
 export function SetupsPage() {
   const [params, setParams] = useSearchParams();
@@ -132,7 +133,7 @@ export function SetupsPage() {
       {setups.isPending ? (
         <PageLoading />
       ) : setups.isError ? (
-        <Notice tone="fault">{problemMessage(setups.error)}</Notice>
+        <LoadError error={setups.error} onRetry={setups.refetch} retrying={setups.isRefetching} />
       ) : (
         <DataTable
           caption="Saved setups"

@@ -1,13 +1,12 @@
 import { Link } from 'react-router-dom';
 import { Card } from '@/components/ui/card';
-import { Notice } from '@/components/ui/notice';
 import { PageLoading } from '@/components/ui/page-loading';
 import { paths } from '@/config/paths';
-import { problemMessage } from '@/lib/form-errors';
 import { daysAway, formatDate, todayIso } from '@/lib/format';
 import { useUpcomingSetups } from '../api/setups';
 import { shootingWindow } from '../window';
 import { SetupLinks } from './setup-links';
+import { LoadError } from '@/components/ui/load-error';
 
 /** The studio's next saved shoots, soonest first, each with its window in the shoot's zone. */
 export function UpcomingShoots() {
@@ -21,7 +20,11 @@ export function UpcomingShoots() {
       {upcoming.isPending ? (
         <PageLoading />
       ) : upcoming.isError ? (
-        <Notice tone="fault">{problemMessage(upcoming.error)}</Notice>
+        <LoadError
+          error={upcoming.error}
+          onRetry={upcoming.refetch}
+          retrying={upcoming.isRefetching}
+        />
       ) : upcoming.data.data.length === 0 ? (
         <p className="mt-2 text-ink-muted">
           No shoots ahead. Plan one in the <Link to={paths.playground}>playground</Link> and save it

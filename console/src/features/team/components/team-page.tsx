@@ -24,6 +24,7 @@ import {
 import { InviteForm } from './invite-form';
 import { ROLE_LABELS, roleOptions } from './roles';
 import { SeatsSummary } from './seats-notice';
+import { LoadError } from '@/components/ui/load-error';
 
 const article = (role: TeamRole | undefined) => (role === 'owner' || role === 'admin' ? 'an' : 'a');
 
@@ -185,7 +186,11 @@ export function TeamPage() {
         {members.isPending ? (
           <PageLoading />
         ) : members.isError ? (
-          <Notice tone="fault">{problemMessage(members.error)}</Notice>
+          <LoadError
+            error={members.error}
+            onRetry={members.refetch}
+            retrying={members.isRefetching}
+          />
         ) : (
           <DataTable
             caption="Members"
@@ -210,7 +215,11 @@ export function TeamPage() {
         {invites.isPending ? (
           <PageLoading />
         ) : invites.isError ? (
-          <Notice tone="fault">{problemMessage(invites.error)}</Notice>
+          <LoadError
+            error={invites.error}
+            onRetry={invites.refetch}
+            retrying={invites.isRefetching}
+          />
         ) : (
           <DataTable
             caption="Invitations"

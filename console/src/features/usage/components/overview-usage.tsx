@@ -1,12 +1,11 @@
 import { Link } from 'react-router-dom';
 import { Card } from '@/components/ui/card';
-import { Notice } from '@/components/ui/notice';
 import { PageLoading } from '@/components/ui/page-loading';
-import { problemMessage } from '@/lib/form-errors';
 import { formatCount, formatDateTime } from '@/lib/format';
 import { useCurrentPlan, useUsageEvents, useUsageSummary } from '../api/usage';
 import { daysBetween } from '../filters';
 import { CallsChart, toDayBars } from './calls-chart';
+import { LoadError } from '@/components/ui/load-error';
 
 /** This month's calls against the plan, calls by day, and the latest errors. */
 export function OverviewUsage({ usageHref }: { usageHref: string }) {
@@ -29,7 +28,7 @@ export function OverviewUsage({ usageHref }: { usageHref: string }) {
         {plan.isPending ? (
           <PageLoading />
         ) : plan.isError ? (
-          <Notice tone="fault">{problemMessage(plan.error)}</Notice>
+          <LoadError error={plan.error} onRetry={plan.refetch} retrying={plan.isRefetching} />
         ) : (
           <>
             <p className="mt-2 text-display font-semibold tabular-nums" data-testid="month-calls">
@@ -79,7 +78,11 @@ export function OverviewUsage({ usageHref }: { usageHref: string }) {
         {summary.isPending ? (
           <PageLoading />
         ) : summary.isError ? (
-          <Notice tone="fault">{problemMessage(summary.error)}</Notice>
+          <LoadError
+            error={summary.error}
+            onRetry={summary.refetch}
+            retrying={summary.isRefetching}
+          />
         ) : (
           <div className="mt-3">
             <CallsChart
@@ -96,7 +99,7 @@ export function OverviewUsage({ usageHref }: { usageHref: string }) {
         {recent.isPending ? (
           <PageLoading />
         ) : recent.isError ? (
-          <Notice tone="fault">{problemMessage(recent.error)}</Notice>
+          <LoadError error={recent.error} onRetry={recent.refetch} retrying={recent.isRefetching} />
         ) : errors.length === 0 ? (
           <p className="mt-2 text-ink-muted">No failed calls recorded.</p>
         ) : (

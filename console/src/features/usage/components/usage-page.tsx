@@ -6,7 +6,6 @@ import { CursorPager } from '@/components/ui/cursor-pager';
 import { DataTable, type DataColumn } from '@/components/ui/data-table';
 import { Notice } from '@/components/ui/notice';
 import { PageLoading } from '@/components/ui/page-loading';
-import { problemMessage } from '@/lib/form-errors';
 import { formatCount, formatDateTime } from '@/lib/format';
 import {
   ENDPOINTS,
@@ -19,6 +18,7 @@ import {
 import { daysBetween, filterFromParams, ignoredParams, summaryFromParams } from '../filters';
 import { CallsChart, toDayBars } from './calls-chart';
 import { firstPageParams } from '@/lib/pagination';
+import { LoadError } from '@/components/ui/load-error';
 
 /** A key as the usage page labels it (names come from the keys list, composed by the app). */
 export interface UsageKeyLabel {
@@ -215,7 +215,11 @@ export function UsagePage({ keys = NO_KEYS }: { keys?: UsageKeyLabel[] }) {
         {summary.isPending ? (
           <PageLoading />
         ) : summary.isError ? (
-          <Notice tone="fault">{problemMessage(summary.error)}</Notice>
+          <LoadError
+            error={summary.error}
+            onRetry={summary.refetch}
+            retrying={summary.isRefetching}
+          />
         ) : (
           <>
             <p className="mt-1 text-small text-ink-muted" data-testid="usage-total">
@@ -253,7 +257,7 @@ export function UsagePage({ keys = NO_KEYS }: { keys?: UsageKeyLabel[] }) {
         {events.isPending ? (
           <PageLoading />
         ) : events.isError ? (
-          <Notice tone="fault">{problemMessage(events.error)}</Notice>
+          <LoadError error={events.error} onRetry={events.refetch} retrying={events.isRefetching} />
         ) : (
           <DataTable
             caption="Calls"
@@ -261,7 +265,6 @@ export function UsagePage({ keys = NO_KEYS }: { keys?: UsageKeyLabel[] }) {
             data={events.data.data}
             getRowId={(e) => e.id}
             empty="No calls match these filters."
-            narrow="scroll"
             footer={<CursorPager nextCursor={events.data.nextCursor} label="Calls" />}
           />
         )}

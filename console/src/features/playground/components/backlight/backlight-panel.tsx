@@ -14,6 +14,7 @@ import { SideDiagram } from '../diagrams/side-diagram';
 import { FormGrid, Readouts } from '../form-grid';
 import { usePlaygroundScene } from '../playground-scene';
 import { WarningList } from '../warning-list';
+import { ChartFigure } from '@/components/ui/side-scroll';
 
 const maybe = z.union([z.number(), z.nan()]).optional();
 const number = z.number({ error: 'Enter a number' });
@@ -105,7 +106,7 @@ export function BacklightPanel() {
           <TextField
             label="Tilt (°, + up)"
             hint="Empty: aimed at the head"
-            {...numberField('tiltDeg', undefined, 'aimed at the head')}
+            {...numberField('tiltDeg', undefined, 'at the head')}
           />
           <SelectField
             label="Beam"
@@ -148,7 +149,7 @@ export function BacklightPanel() {
                 ]}
               />
             </div>
-            <figure className="overflow-x-auto rounded-card border border-edge bg-panel p-3">
+            <ChartFigure>
               <SideDiagram
                 unit={result.distanceUnit}
                 headHeight={input.headHeight ?? fromMetres(DEFAULT_HEAD_M, result.distanceUnit)}
@@ -164,7 +165,7 @@ export function BacklightPanel() {
                 Side view to scale. The grid is drawn as a hard-edged cone; real grids fall off
                 softly at the edge.
               </figcaption>
-            </figure>
+            </ChartFigure>
             <WarningList warnings={result.warnings} />
           </div>
         )}

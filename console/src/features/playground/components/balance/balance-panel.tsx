@@ -9,6 +9,7 @@ import { usePlaygroundScene } from '../playground-scene';
 import { MiredBar } from './mired-bar';
 import { Swatches } from './swatches';
 import { WarningList } from '../warning-list';
+import { ChartFigure } from '@/components/ui/side-scroll';
 
 const maybe = z.union([z.number(), z.nan()]).optional();
 const schema = z.object({
@@ -161,9 +162,9 @@ export function BalancePanel() {
                 />
               </div>
             </div>
-            <figure className="overflow-x-auto rounded-card border border-edge bg-panel p-3">
+            <ChartFigure>
               <MiredBar required={result.requiredMiredShift} gels={result.gels} />
-            </figure>
+            </ChartFigure>
             <section
               className="rounded-card border border-edge bg-panel p-4"
               aria-label="How the scene renders"

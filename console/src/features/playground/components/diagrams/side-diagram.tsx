@@ -30,6 +30,23 @@ const W = 640;
 const H = 300;
 const PAD = 28;
 const DEG = Math.PI / 180;
+/** Half the width of "ground spill" in 11 px semibold, rounded up (measured in chromium: 60). */
+const SPILL_LABEL_HALF = 32;
+/** Half the width of a "12.5 ft high" label in 10 px, rounded up (measured in chromium: 51). */
+const HEIGHT_LABEL_HALF = 26;
+
+/**
+ * A label centred on `x` unless that would cut it at the drawing's edge: then it starts at the
+ * left edge's padding or ends at the right one, still beside its mark.
+ */
+export function labelInside(
+  x: number,
+  halfWidth: number,
+): { x: number; textAnchor: 'start' | 'middle' | 'end' } {
+  if (x - halfWidth < PAD / 2) return { x: Math.max(x, PAD / 2), textAnchor: 'start' };
+  if (x + halfWidth > W - PAD / 2) return { x: Math.min(x, W - PAD / 2), textAnchor: 'end' };
+  return { x, textAnchor: 'middle' };
+}
 
 /**
  * Side elevation: camera left, subject at 0, rim light behind on the right with its beam cone
@@ -128,9 +145,8 @@ export function SideDiagram({ unit, headHeight, rim, keyLight, cameraDistance }:
             fill="var(--color-caution)"
           />
           <text
-            x={(spill.x0 + spill.x1) / 2}
+            {...labelInside((spill.x0 + spill.x1) / 2, SPILL_LABEL_HALF)}
             y={ground + 20}
-            textAnchor="middle"
             className="fill-caution text-[11px] font-semibold"
           >
             ground spill
@@ -227,7 +243,9 @@ export function SideDiagram({ unit, headHeight, rim, keyLight, cameraDistance }:
             rim
           </text>
           <text
-            x={px(rim.distanceBehind) + 10}
+            {...(px(rim.distanceBehind) + 10 + 2 * HEIGHT_LABEL_HALF > W
+              ? { x: px(rim.distanceBehind) - 10, textAnchor: 'end' }
+              : { x: px(rim.distanceBehind) + 10 })}
             y={ground - 6}
             className="fill-ink-muted text-[10px] tabular-nums"
           >

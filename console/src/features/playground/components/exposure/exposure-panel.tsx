@@ -18,6 +18,7 @@ import { FormGrid, Readouts } from '../form-grid';
 import { usePlaygroundScene, type SceneMoment } from '../playground-scene';
 import { ShutterScale } from './shutter-scale';
 import { WarningList } from '../warning-list';
+import { ChartFigure } from '@/components/ui/side-scroll';
 
 const maybe = z.union([z.number(), z.nan()]).optional();
 const schema = z.object({
@@ -190,7 +191,7 @@ export function ExposurePanel() {
                 ]}
               />
             </div>
-            <figure className="overflow-x-auto rounded-card border border-edge bg-panel p-3">
+            <ChartFigure>
               <ShutterScale
                 shutterSeconds={result.shutterSeconds}
                 handheldSeconds={input.slowestHandheldSeconds ?? 1 / 60}
@@ -202,7 +203,7 @@ export function ExposurePanel() {
                   ? ` High-speed sync would cost about ${fixed(result.hssLossStops)} stops of flash; ${fixed(result.ndStopsForSync ?? 0)} stops of ND would bring it back to sync.`
                   : ''}
               </figcaption>
-            </figure>
+            </ChartFigure>
             <WarningList warnings={result.warnings} />
           </div>
         )}

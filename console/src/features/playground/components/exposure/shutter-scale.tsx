@@ -80,9 +80,10 @@ export function ShutterScale({ shutterSeconds, handheldSeconds, syncSeconds }: S
           />
           {labelled.has(stop.label) ? (
             <text
-              x={x(Math.log2(stop.value))}
+              // The last label (1/8000) ends at its tick: centred on it, it ran past the edge.
+              x={stop.label === '1/8000' ? X1 + 4 : x(Math.log2(stop.value))}
               y={66}
-              textAnchor="middle"
+              textAnchor={stop.label === '1/8000' ? 'end' : 'middle'}
               className="fill-ink-muted text-[11px] tabular-nums"
             >
               {stop.label}

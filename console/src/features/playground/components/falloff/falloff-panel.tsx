@@ -7,6 +7,7 @@ import { CalculationResult } from '../calculation-result';
 import { FormGrid, Readouts } from '../form-grid';
 import { usePlaygroundScene } from '../playground-scene';
 import { FalloffChart } from './falloff-chart';
+import { ChartFigure } from '@/components/ui/side-scroll';
 
 const maybe = z.union([z.number(), z.nan()]).optional();
 const schema = z.object({
@@ -98,13 +99,13 @@ export function FalloffPanel() {
                   ]}
                 />
               </div>
-              <figure className="overflow-x-auto rounded-card border border-edge bg-panel p-3">
+              <ChartFigure>
                 <FalloffChart result={result} />
                 <figcaption className="px-1 text-caption text-ink-muted">
                   Inverse-square falloff of a small source: each doubling of distance costs two
                   stops.
                 </figcaption>
-              </figure>
+              </ChartFigure>
             </div>
           );
         }}

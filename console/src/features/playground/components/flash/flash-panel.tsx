@@ -16,6 +16,7 @@ import { FormGrid, Readouts } from '../form-grid';
 import { usePlaygroundScene } from '../playground-scene';
 import { FlashLightPicker, FlashModifierPicker } from './flash-gear';
 import { PowerScale } from './power-scale';
+import { ChartFigure } from '@/components/ui/side-scroll';
 
 export const modifierLabels: Record<ModifierName, string> = {
   bare: 'Bare head',
@@ -181,12 +182,12 @@ export function FlashPanel() {
                 ]}
               />
             </div>
-            <figure className="overflow-x-auto rounded-card border border-edge bg-panel p-3">
+            <ChartFigure>
               <PowerScale stopsBelowFull={result.stopsBelowFull} powerLabel={result.powerLabel} />
               <figcaption className="px-1 text-caption text-ink-muted">
                 Power setting on a 1/256 to full scale, in thirds of a stop.
               </figcaption>
-            </figure>
+            </ChartFigure>
             {result.fixes ? (
               <div className="rounded-card border border-caution/50 bg-panel p-4 text-small">
                 <p className="font-semibold">Any one of these fixes it:</p>

@@ -57,8 +57,8 @@ export function CameraFieldset({ form, numberField, picked, onPicked }: Fieldset
       />
       <TextField
         label="Darkest bias (stops)"
-        hint="How dark the background may go when a flash can't turn down far enough"
-        {...numberField('biasFloorStops', 'camera.biasFloorStops', 'empty: bias stays fixed')}
+        hint="How dark the background may go when a flash can't turn down far enough; empty: the bias stays fixed"
+        {...numberField('biasFloorStops', 'camera.biasFloorStops', 'none')}
       />
       <TextField
         label="White balance (K)"

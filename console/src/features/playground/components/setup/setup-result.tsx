@@ -5,6 +5,7 @@ import {
   type DuskSetupPlan,
 } from '@lumenwright/shared';
 import { PrintButton } from '@/components/ui/print-button';
+import { ChartFigure, useScrollsSideways } from '@/components/ui/side-scroll';
 import { clockTime, fixed, signed, stops } from '../../utils/format';
 import { Swatches } from '../balance/swatches';
 import { Cautions } from '../cautions';
@@ -84,7 +85,7 @@ export function SetupResultView({ plan, input }: { plan: DuskSetupPlan; input: D
         <h3 id="suggested-heading" className="mb-2 text-body font-semibold">
           Suggested minutes
         </h3>
-        <div className="overflow-x-auto">
+        <SuggestedMinutesBox>
           <table className="w-full min-w-[32rem] text-left text-small tabular-nums">
             <thead className="text-caption text-ink-muted">
               <tr>
@@ -139,14 +140,14 @@ export function SetupResultView({ plan, input }: { plan: DuskSetupPlan; input: D
               ))}
             </tbody>
           </table>
-        </div>
+        </SuggestedMinutesBox>
         {plan.suggestedMinutes.length === 0 ? (
           <p className="text-ink-muted">No minutes in the window.</p>
         ) : null}
       </section>
 
       <div className="grid gap-4 2xl:grid-cols-2">
-        <figure className="overflow-x-auto rounded-card border border-edge bg-panel p-3">
+        <ChartFigure>
           <TopDiagram
             unit={unit}
             keyLight={{
@@ -171,8 +172,8 @@ export function SetupResultView({ plan, input }: { plan: DuskSetupPlan; input: D
           <figcaption className="px-1 text-caption text-ink-muted">
             From above, to scale except the camera.
           </figcaption>
-        </figure>
-        <figure className="overflow-x-auto rounded-card border border-edge bg-panel p-3">
+        </ChartFigure>
+        <ChartFigure>
           <SideDiagram
             unit={unit}
             headHeight={fromMetres(DEFAULT_HEAD_M, unit)}
@@ -195,7 +196,7 @@ export function SetupResultView({ plan, input }: { plan: DuskSetupPlan; input: D
           <figcaption className="px-1 text-caption text-ink-muted">
             From the side, to scale, with the rim’s beam and ground spill.
           </figcaption>
-        </figure>
+        </ChartFigure>
       </div>
 
       {first ? (
@@ -220,6 +221,20 @@ export function SetupResultView({ plan, input }: { plan: DuskSetupPlan; input: D
 
       <WarningList warnings={plan.warnings} />
       <Cautions cautions={plan.cautions} />
+    </div>
+  );
+}
+
+/** The suggested minutes' table scrolls sideways on a phone; it is then a named Tab stop. */
+function SuggestedMinutesBox({ children }: { children: React.ReactNode }) {
+  const [ref, scrolls] = useScrollsSideways<HTMLDivElement>();
+  return (
+    <div
+      ref={ref}
+      className="overflow-x-auto"
+      {...(scrolls ? { tabIndex: 0, role: 'region', 'aria-labelledby': 'suggested-heading' } : {})}
+    >
+      {children}
     </div>
   );
 }
