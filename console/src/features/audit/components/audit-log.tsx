@@ -60,7 +60,11 @@ export function AuditLog() {
           columns={columns}
           data={audit.data.data}
           getRowId={(e) => e.id}
-          empty="No events match."
+          empty={
+            action
+              ? `No ${action} events. Clear the Action box to see every event.`
+              : 'Nothing recorded yet. Sign-ins, API key and team changes, and deleted setups and frames appear here.'
+          }
           footer={<CursorPager nextCursor={audit.data.nextCursor} label="Audit" />}
         />
       )}

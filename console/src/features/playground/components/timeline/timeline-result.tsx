@@ -1,3 +1,4 @@
+import { ChartFigure } from '@/components/ui/side-scroll';
 import type { TimelineResult } from '@lumenwright/shared';
 import { clockTime, fixed } from '../../utils/format';
 import { Cautions } from '../cautions';
@@ -44,13 +45,13 @@ export function TimelineResultView({ result }: { result: TimelineResult }) {
         />
       </div>
       <WarningList warnings={result.warnings} />
-      <figure className="overflow-x-auto rounded-card border border-edge bg-panel p-3">
+      <ChartFigure>
         <TimelineStrip result={result} />
         <figcaption className="px-1 text-caption text-ink-muted">
           Shaded: golden and blue hour. Middle lane: what is booked. Bottom lane: set-up (dashed)
           and the portrait session.
         </figcaption>
-      </figure>
+      </ChartFigure>
       <section
         aria-labelledby="timeline-order-heading"
         className="rounded-card border border-edge bg-panel p-4"

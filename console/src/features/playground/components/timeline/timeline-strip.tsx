@@ -8,6 +8,8 @@ const M = { left: 12, right: 12, top: 8 };
 const LANES = { sky: 8, booked: 44, portraits: 76 } as const;
 const LANE_H = 26;
 const AXIS_Y = 118;
+/** Half the width of an 11 px "HH:MM" tick label, in viewBox units. */
+const TICK_HALF_WIDTH = 16;
 
 /**
  * The evening as three lanes over one time axis: the sky (golden and blue hour), the booked
@@ -123,12 +125,15 @@ export function TimelineStrip({ result }: { result: TimelineResult }) {
       />
       {ticks.map((t) => {
         const iso = new Date(t).toISOString();
+        const at = x(iso);
+        // A label centred on a tick at either end would be cut by the frame: align it inward.
+        const anchor = at < TICK_HALF_WIDTH ? 'start' : at > W - TICK_HALF_WIDTH ? 'end' : 'middle';
         return (
           <text
             key={t}
-            x={x(iso)}
+            x={at}
             y={AXIS_Y + 6}
-            textAnchor="middle"
+            textAnchor={anchor}
             className="fill-ink-muted text-[11px] tabular-nums"
           >
             {clockIn(iso, result.timeZone)}
